@@ -1,0 +1,37 @@
+/** API paths, shared so that SWR keys on the client and routes on the server agree. */
+export const api = {
+  health: '/api/health',
+  login: '/api/auth/login',
+  me: '/api/auth/me',
+  users: '/api/users',
+  user: (id: number | string) => `/api/users/${encodeURIComponent(String(id))}`,
+  audit: '/api/audit',
+  summary: '/api/network/summary',
+  importNetwork: '/api/network/import',
+  exportNetwork: '/api/network/export',
+  list: (kind: string) => `/api/${kind}`,
+  entity: (kind: string, code: string) => `/api/${kind}/${encodeURIComponent(code)}`,
+  chain: (code: string, direction: 'up' | 'down') => `/api/carriages/${encodeURIComponent(code)}/chain?direction=${direction}`,
+  reach: '/api/analysis/reach',
+  spof: '/api/analysis/spof',
+  exposure: (limit?: number) => `/api/analysis/exposure${limit ? `?limit=${limit}` : ''}`,
+  diversity: '/api/analysis/diversity',
+  unfed: '/api/analysis/unfed',
+  feedChecks: (code: string) => `/api/feeds/${encodeURIComponent(code)}/checks`,
+  checks: (severity?: string) => `/api/checks${severity ? `?severity=${severity}` : ''}`,
+} as const;
+
+export const ROLES = ['admin', 'engineer', 'operator', 'viewer'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** Who may do what (architecture.md, Auth). The server declares these on every route. */
+export const can = {
+  read: ['admin', 'engineer', 'operator', 'viewer'] as Role[],
+  analyse: ['admin', 'engineer', 'operator', 'viewer'] as Role[],
+  editNetwork: ['admin', 'engineer'] as Role[],
+  manageUsers: ['admin'] as Role[],
+};
+
+export interface ApiErrorBody {
+  error: { code: string; message: string; details?: unknown };
+}

@@ -1,0 +1,89 @@
+/** Analysis API bodies and answers (handbook interchange.md section 2). */
+import { z } from 'zod';
+import { codeSchema, ELEMENT_KINDS, type ElementKind, type Medium, type FeedRole } from './network';
+
+export const MAX_FAILED_ELEMENTS = 5000;
+
+export const elementSchema = z.strictObject({
+  kind: z.enum(ELEMENT_KINDS, { error: 'kind is one of site, feed, group' }),
+  code: codeSchema,
+});
+export type Element = { kind: ElementKind; code: string };
+
+export const reachRequestSchema = z.strictObject({
+  failed: z
+    .array(elementSchema, { error: 'failed must be an array of { kind, code } elements' })
+    .min(1, 'failed needs at least one element')
+    .max(MAX_FAILED_ELEMENTS, `failed holds at most ${MAX_FAILED_ELEMENTS} elements`),
+});
+
+export interface ReachAnswer {
+  networkVersion: number;
+  lost: string[];
+  fallback: string[];
+  households: { lost: number; fallback: number };
+  byService: { service: string; lost: number; fallback: number }[];
+  sites: { site: string; lost: string[]; fallback?: string[] }[];
+}
+
+export interface SpofAnswer {
+  networkVersion: number;
+  carriages: { carriage: string; spof: Element[] }[];
+}
+
+export interface ExposureRow {
+  element: Element;
+  households: number;
+  carriages: number;
+}
+export interface ExposureAnswer {
+  networkVersion: number;
+  elements: ExposureRow[];
+}
+
+export interface DiversityAnswer {
+  networkVersion: number;
+  carriages: { carriage: string; service: string; site: string; shared: Element[] }[];
+}
+
+export interface UnfedAnswer {
+  networkVersion: number;
+  carriages: { carriage: string; service: string; site: string }[];
+}
+
+/** One node of a chain tree (upstream or downstream). */
+export interface ChainNode {
+  carriage: string;
+  site: string;
+  siteName: string;
+  service: string;
+  origin: boolean;
+  /** the feed that links this node to its parent in the tree (absent at the root) */
+  via?: {
+    feed: string;
+    medium: Medium;
+    role: FeedRole;
+    up: boolean;
+    distanceKm: number | null;
+    hops: string[];
+    warnings: string[];
+  };
+  /** true when the carriage has programme with nothing failed */
+  onAir: boolean;
+  /** set when this node closes a loop: the subtree is cut here */
+  loop?: boolean;
+  /** set when an upstream walk ends at a non-origin carriage with no feed */
+  deadEnd?: boolean;
+  children: ChainNode[];
+}
+
+export interface ChainAnswer {
+  networkVersion: number;
+  direction: 'up' | 'down';
+  root: ChainNode;
+}
+
+export const elementKey = (e: Element) => `${e.kind}:${e.code}`;
+export const KIND_ORDER: Record<ElementKind, number> = { site: 0, feed: 1, group: 2 };
+export const compareElements = (a: Element, b: Element) =>
+  KIND_ORDER[a.kind] - KIND_ORDER[b.kind] || (a.code < b.code ? -1 : a.code > b.code ? 1 : 0);

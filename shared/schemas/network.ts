@@ -1,0 +1,125 @@
+/**
+ * The network document, version 1 (handbook interchange.md section 1), as zod
+ * schemas. The server validates imports and edits with these; the client's
+ * forms validate with the same ones, so a message reads the same on both sides.
+ */
+import { z } from 'zod';
+
+export const CODE_PATTERN = /^[A-Za-z0-9._-]{1,64}$/;
+export const codeSchema = z
+  .string({ error: 'a code is required' })
+  .regex(CODE_PATTERN, 'a code is 1-64 letters, digits, "-", "_" or "."');
+
+export const SITE_ROLES = ['origin', 'main', 'relay'] as const;
+export const SERVICE_KINDS = ['dtt', 'fm', 'dab', 'am', 'other'] as const;
+export const POLARISATIONS = ['H', 'V', 'M', 'C'] as const;
+export const MEDIA = ['off-air', 'satellite', 'line', 'microwave'] as const;
+export const FEED_ROLES = ['main', 'reserve'] as const;
+export const ELEMENT_KINDS = ['site', 'feed', 'group'] as const;
+
+export type SiteRole = (typeof SITE_ROLES)[number];
+export type ServiceKind = (typeof SERVICE_KINDS)[number];
+export type Medium = (typeof MEDIA)[number];
+export type FeedRole = (typeof FEED_ROLES)[number];
+export type ElementKind = (typeof ELEMENT_KINDS)[number];
+
+/** An optional field: absent, or null (read as absent). */
+const opt = <T extends z.ZodTypeAny>(s: T) => s.nullish().transform((v) => (v ?? undefined) as z.output<T> | undefined);
+
+const name = z.string({ error: 'a name is required' }).trim().min(1, 'a name is required').max(200, 'a name is at most 200 characters');
+const nonNegative = (what: string) => z.number({ error: `${what} must be a number` }).finite().min(0, `${what} cannot be negative`);
+
+export const siteSchema = z.strictObject({
+  code: codeSchema,
+  name,
+  role: z.enum(SITE_ROLES, { error: 'role is one of origin, main, relay' }),
+  lat: z.number({ error: 'latitude must be a number' }).min(-90, 'latitude is between -90 and 90').max(90, 'latitude is between -90 and 90'),
+  lon: z.number({ error: 'longitude must be a number' }).min(-180, 'longitude is between -180 and 180').max(180, 'longitude is between -180 and 180'),
+  groundHeightM: opt(nonNegative('ground height')),
+  mastHeightM: opt(nonNegative('mast height')),
+  households: opt(nonNegative('households').int('households is a whole number')),
+  groups: opt(z.array(codeSchema)),
+});
+
+export const serviceSchema = z.strictObject({
+  code: codeSchema,
+  name,
+  kind: z.enum(SERVICE_KINDS, { error: 'kind is one of dtt, fm, dab, am, other' }),
+});
+
+export const groupSchema = z.strictObject({
+  code: codeSchema,
+  name,
+  note: opt(z.string().max(2000)),
+});
+
+export const carriageSchema = z.strictObject({
+  code: codeSchema,
+  site: codeSchema,
+  service: codeSchema,
+  frequencyMHz: opt(z.number().finite().positive('frequency must be above 0 MHz')),
+  channel: opt(z.string().trim().min(1).max(16)),
+  erpW: opt(nonNegative('ERP')),
+  polarisation: opt(z.enum(POLARISATIONS, { error: 'polarisation is one of H, V, M, C' })),
+  antennaHeightM: opt(nonNegative('antenna height')),
+  onChannelRepeater: opt(z.boolean()),
+});
+
+export const feedSchema = z.strictObject({
+  code: codeSchema,
+  from: codeSchema,
+  to: codeSchema,
+  medium: z.enum(MEDIA, { error: 'medium is one of off-air, satellite, line, microwave' }),
+  role: z.enum(FEED_ROLES, { error: 'role is one of main, reserve' }),
+  via: opt(z.array(codeSchema)),
+  groups: opt(z.array(codeSchema)),
+  rxFrequencyMHz: opt(z.number().finite().positive('receive frequency must be above 0 MHz')),
+  rxChannel: opt(z.string().trim().min(1).max(16)),
+  rxAntenna: opt(z.string().max(200)),
+  bearingDeg: opt(z.number().finite().min(0, 'bearing is 0-360 deg').max(360, 'bearing is 0-360 deg')),
+});
+
+export const NETWORK_FORMAT = 'network/1';
+
+/** Top-level shape only; entities are checked one by one so every error is reported. */
+export const networkDocumentShape = z.strictObject({
+  format: z.literal(NETWORK_FORMAT, { error: `format must be "${NETWORK_FORMAT}"` }),
+  sites: z.array(z.unknown()).optional(),
+  services: z.array(z.unknown()).optional(),
+  groups: z.array(z.unknown()).optional(),
+  carriages: z.array(z.unknown()).optional(),
+  feeds: z.array(z.unknown()).optional(),
+});
+
+export const networkDocumentSchema = z.strictObject({
+  format: z.literal(NETWORK_FORMAT),
+  sites: z.array(siteSchema),
+  services: z.array(serviceSchema),
+  groups: z.array(groupSchema),
+  carriages: z.array(carriageSchema),
+  feeds: z.array(feedSchema),
+});
+
+export type Site = z.output<typeof siteSchema>;
+export type Service = z.output<typeof serviceSchema>;
+export type Group = z.output<typeof groupSchema>;
+export type Carriage = z.output<typeof carriageSchema>;
+export type Feed = z.output<typeof feedSchema>;
+export type NetworkDocument = z.output<typeof networkDocumentSchema>;
+
+export const ENTITY_KINDS = ['sites', 'services', 'groups', 'carriages', 'feeds'] as const;
+export type EntityKind = (typeof ENTITY_KINDS)[number];
+
+export const entitySchemas = {
+  sites: siteSchema,
+  services: serviceSchema,
+  groups: groupSchema,
+  carriages: carriageSchema,
+  feeds: feedSchema,
+} as const;
+
+/** An entity as the API returns it: the document fields plus the optimistic-lock version. */
+export type Stored<T> = T & { version: number; updatedAt: string };
+
+/** The version an update must carry (optimistic locking). */
+export const versionSchema = z.object({ version: z.number({ error: 'version is required' }).int().min(1) });
