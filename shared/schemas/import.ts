@@ -1,0 +1,38 @@
+/** The import report (handbook interchange.md section 1, "Import rules"). */
+import type { EntityKind } from './network';
+
+export interface ImportIssue {
+  /** which part of the document: an entity kind, or 'document' for the whole */
+  kind: EntityKind | 'document';
+  /** 0-based position in the JSON array */
+  index?: number;
+  /** 1-based CSV data row (header excluded) */
+  row?: number;
+  /** CSV file name the row came from */
+  file?: string;
+  code?: string;
+  field?: string;
+  /** a stable machine name of the rule, e.g. "unknown-reference", "duplicate-code" */
+  rule: string;
+  /** a sentence a person can act on */
+  message: string;
+}
+
+export interface KindCounts {
+  received: number;
+  created: number;
+  updated: number;
+  unchanged: number;
+  deleted: number;
+}
+
+export interface ImportReport {
+  ok: boolean;
+  dryRun: boolean;
+  replace: boolean;
+  counts: Record<EntityKind, KindCounts>;
+  errors: ImportIssue[];
+  warnings: ImportIssue[];
+  /** the network version after the import (unchanged on a dry run or an error) */
+  networkVersion?: number;
+}
