@@ -1,0 +1,96 @@
+/**
+ * Feed engineering screening answers (handbook interchange.md section 2:
+ * `GET /api/feeds/:code/checks` and `GET /api/checks`).
+ */
+import { z } from 'zod';
+import type { Medium } from './network';
+
+export const CHECK_NAMES = [
+  'free-space-loss',
+  'field-strength',
+  'horizon',
+  'earth-bulge',
+  'fresnel-f1',
+  'clearance',
+  'channel-clash',
+  'bearing-record',
+] as const;
+export type CheckName = (typeof CHECK_NAMES)[number];
+
+/** How sure a reference value (e.g. a planning minimum) is: handbook checks.md tags [C], [S], [M]. */
+export type Confidence = 'confirmed' | 'secondary' | 'recalled';
+
+export interface FeedCheck {
+  name: CheckName;
+  /** null when not computed (missing input) or not applicable to this medium; never 0 in its place. */
+  value: number | null;
+  unit: string;
+  /** The threshold the value is held against, when the check has one. */
+  limit?: number | null;
+  /** true passes, false fails, null = not computed or not applicable (the note says which). */
+  ok: boolean | null;
+  /** Plain English: what was compared, the assumptions, or "not computed: <field> missing ...". */
+  note: string;
+  /** Extension: how sure `limit` is, when it comes from a published table (field-strength). */
+  limitConfidence?: Confidence;
+}
+
+export interface FeedChecksAnswer {
+  feed: string;
+  /** Ellipsoidal (WGS84) distance between the two sites, km. */
+  distanceKm: number;
+  /** Initial bearing from the target (receiving) site to the source (parent) site, deg from true north, [0, 360). */
+  bearingDeg: number;
+  /** Initial bearing from the source site to the target site, [0, 360). */
+  reverseBearingDeg: number;
+  medium: Medium;
+  checks: FeedCheck[];
+  /** One plain-English sentence per failed check. */
+  warnings: string[];
+  /** Extension: the receive frequency used for the frequency-dependent checks, null when unknown. */
+  rxFrequencyMHz?: number | null;
+}
+
+export const CHECK_SEVERITIES = ['warning', 'error'] as const;
+export type CheckSeverity = (typeof CHECK_SEVERITIES)[number];
+
+/**
+ * `GET /api/checks?severity=...`: the lowest severity to list. `warning` (the default) lists
+ * warnings and errors; `error` lists errors only.
+ */
+export const checksQuerySchema = z.strictObject({
+  severity: z.enum(CHECK_SEVERITIES, { error: 'severity is one of warning, error' }).optional(),
+});
+
+export interface CheckFailure {
+  feed: string;
+  /** Source carriage code. */
+  from: string;
+  /** Target carriage code. */
+  to: string;
+  medium: Medium;
+  check: FeedCheck;
+  /**
+   * error: the feed is not viable as recorded (a co-channel receive, a field strength below
+   * the planning minimum, a path beyond radio horizon, a microwave path without clearance).
+   * warning: the record is inconsistent but the path may work (a recorded bearing that
+   * disagrees with the computed one).
+   */
+  severity: CheckSeverity;
+  /**
+   * Signed distance from the limit in the check's unit, negative when failing: field strength
+   * minus minimum (dB), horizon minus distance (km), clearance (m), 5 deg minus the bearing
+   * error (deg). Absent for channel-clash, which is a yes/no check.
+   */
+  margin?: number;
+}
+
+/**
+ * Worst first: errors before warnings; then by check (channel-clash, field-strength,
+ * clearance, horizon, bearing-record: the order in which they stop a feed working);
+ * then by margin, most negative first (same check, so same unit); then by feed code.
+ */
+export interface ChecksListAnswer {
+  networkVersion?: number;
+  failures: CheckFailure[];
+}
