@@ -25,8 +25,8 @@ export interface GeodesicInverse {
 export function normaliseDeg(deg: number): number {
   const r = deg % 360;
   const n = r < 0 ? r + 360 : r;
-  // -1e-15 % 360 + 360 rounds to exactly 360 in floating point.
-  return n >= 360 ? 0 : n;
+  // -1e-15 % 360 + 360 rounds to exactly 360 in floating point; -0 would print as "-0".
+  return n >= 360 || n === 0 ? 0 : n;
 }
 
 /** Smallest absolute difference between two bearings, degrees in [0, 180]. */
