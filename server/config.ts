@@ -1,0 +1,47 @@
+/**
+ * Configuration, validated at boot (handbook interchange.md section 3).
+ * The JWT signing secret comes from JWT_SECRET, or is generated once and kept
+ * in an ignored folder outside git; it is never a literal in code.
+ */
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+
+export const REPO_ROOT = path.resolve(__dirname, '..');
+export const SECRETS_DIR = process.env.HEADWATER_SECRETS_DIR ?? path.join(REPO_ROOT, '.secrets');
+
+const bool01 = z.enum(['0', '1']).transform((v) => v === '1');
+
+const envSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(8080),
+  DATABASE_URL: z.string().url('DATABASE_URL must be a postgres:// URL').optional(),
+  ADMIN_EMAIL: z.string().email('ADMIN_EMAIL must be an e-mail address').optional(),
+  ADMIN_PASSWORD: z.string().min(10, 'ADMIN_PASSWORD must be at least 10 characters').optional(),
+  DEMO: bool01.default(true),
+  JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters').optional(),
+  JWT_TTL: z.string().regex(/^\d+[smhd]$/, 'JWT_TTL is like 30m, 8h or 2d').default('12h'),
+  WEB_DIR: z.string().default(path.join(REPO_ROOT, 'dist', 'web')),
+  BODY_LIMIT: z.string().default('25mb'),
+  UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
+});
+
+export type Config = Omit<z.output<typeof envSchema>, 'JWT_SECRET'> & { JWT_SECRET: string };
+
+function storedSecret(): string {
+  const file = path.join(SECRETS_DIR, 'jwt-secret');
+  if (fs.existsSync(file)) return fs.readFileSync(file, 'utf8').trim();
+  fs.mkdirSync(SECRETS_DIR, { recursive: true, mode: 0o700 });
+  const secret = crypto.randomBytes(48).toString('base64url');
+  fs.writeFileSync(file, secret + '\n', { mode: 0o600 });
+  return secret;
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    throw new Error(`configuration is not valid:\n${lines}`);
+  }
+  return { ...parsed.data, JWT_SECRET: parsed.data.JWT_SECRET ?? storedSecret() };
+}

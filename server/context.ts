@@ -1,0 +1,11 @@
+import type { Config } from './config';
+import type { Database } from './db';
+import type { NetworkStore } from './services/networkStore';
+import type { NetworkModel } from './services/networkModel';
+
+/** What route modules are handed: configuration, the database, the live network model. */
+export interface AppContext {
+  config: Config;
+  db: Database;
+  network: NetworkStore<NetworkModel>;
+}

@@ -1,0 +1,7 @@
+/**
+ * Every migration, in order. Listed here rather than globbed so that the same
+ * list runs under tsx, vitest and any bundler; add new files at the end.
+ */
+import * as initialSchema from './0001-initial-schema';
+
+export const migrations = [{ name: '0001-initial-schema', ...initialSchema }];

@@ -1,0 +1,108 @@
+/**
+ * The network inventory as Sequelize models. Columns are snake_case in the
+ * database and camelCase here; every table carries an optimistic-lock
+ * `version` (Sequelize's own `version: true` bumps it on save).
+ */
+import { DataTypes, Model, type Sequelize, type ModelAttributes } from 'sequelize';
+
+export class SiteRow extends Model {}
+export class ServiceRow extends Model {}
+export class RiskGroupRow extends Model {}
+export class CarriageRow extends Model {}
+export class FeedRow extends Model {}
+export class FeedViaSiteRow extends Model {}
+export class FeedGroupRow extends Model {}
+export class SiteGroupRow extends Model {}
+
+const id = { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true };
+const common = {
+  createdAt: { type: DataTypes.DATE, field: 'created_at' },
+  updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
+};
+const num = (field: string) => ({ type: DataTypes.DOUBLE, allowNull: true, field });
+const opts = (sequelize: Sequelize, tableName: string) => ({ sequelize, tableName, version: true });
+
+export function defineInventory(sequelize: Sequelize) {
+  SiteRow.init(
+    {
+      id,
+      code: { type: DataTypes.TEXT, allowNull: false },
+      name: { type: DataTypes.TEXT, allowNull: false },
+      role: { type: DataTypes.TEXT, allowNull: false },
+      lat: { type: DataTypes.DOUBLE, allowNull: false },
+      lon: { type: DataTypes.DOUBLE, allowNull: false },
+      groundHeightM: num('ground_height_m'),
+      mastHeightM: num('mast_height_m'),
+      households: { type: DataTypes.INTEGER, allowNull: true },
+      ...common,
+    } as ModelAttributes,
+    opts(sequelize, 'sites'),
+  );
+  ServiceRow.init(
+    { id, code: { type: DataTypes.TEXT, allowNull: false }, name: { type: DataTypes.TEXT, allowNull: false }, kind: { type: DataTypes.TEXT, allowNull: false }, ...common } as ModelAttributes,
+    opts(sequelize, 'services'),
+  );
+  RiskGroupRow.init(
+    { id, code: { type: DataTypes.TEXT, allowNull: false }, name: { type: DataTypes.TEXT, allowNull: false }, note: { type: DataTypes.TEXT, allowNull: true }, ...common } as ModelAttributes,
+    opts(sequelize, 'risk_groups'),
+  );
+  CarriageRow.init(
+    {
+      id,
+      code: { type: DataTypes.TEXT, allowNull: false },
+      siteId: { type: DataTypes.INTEGER, allowNull: false, field: 'site_id' },
+      serviceId: { type: DataTypes.INTEGER, allowNull: false, field: 'service_id' },
+      frequencyMHz: num('frequency_mhz'),
+      channel: { type: DataTypes.TEXT, allowNull: true },
+      erpW: num('erp_w'),
+      polarisation: { type: DataTypes.TEXT, allowNull: true },
+      antennaHeightM: num('antenna_height_m'),
+      onChannelRepeater: { type: DataTypes.BOOLEAN, allowNull: true, field: 'on_channel_repeater' },
+      ...common,
+    } as ModelAttributes,
+    opts(sequelize, 'carriages'),
+  );
+  FeedRow.init(
+    {
+      id,
+      code: { type: DataTypes.TEXT, allowNull: false },
+      fromCarriageId: { type: DataTypes.INTEGER, allowNull: false, field: 'from_carriage_id' },
+      toCarriageId: { type: DataTypes.INTEGER, allowNull: false, field: 'to_carriage_id' },
+      medium: { type: DataTypes.TEXT, allowNull: false },
+      role: { type: DataTypes.TEXT, allowNull: false },
+      rxFrequencyMHz: num('rx_frequency_mhz'),
+      rxChannel: { type: DataTypes.TEXT, allowNull: true, field: 'rx_channel' },
+      rxAntenna: { type: DataTypes.TEXT, allowNull: true, field: 'rx_antenna' },
+      bearingDeg: num('bearing_deg'),
+      ...common,
+    } as ModelAttributes,
+    opts(sequelize, 'feeds'),
+  );
+  FeedViaSiteRow.init(
+    {
+      feedId: { type: DataTypes.INTEGER, primaryKey: true, field: 'feed_id' },
+      position: { type: DataTypes.INTEGER, primaryKey: true },
+      siteId: { type: DataTypes.INTEGER, allowNull: false, field: 'site_id' },
+    },
+    { sequelize, tableName: 'feed_via_sites', timestamps: false },
+  );
+  FeedGroupRow.init(
+    { feedId: { type: DataTypes.INTEGER, primaryKey: true, field: 'feed_id' }, groupId: { type: DataTypes.INTEGER, primaryKey: true, field: 'group_id' } },
+    { sequelize, tableName: 'feed_groups', timestamps: false },
+  );
+  SiteGroupRow.init(
+    { siteId: { type: DataTypes.INTEGER, primaryKey: true, field: 'site_id' }, groupId: { type: DataTypes.INTEGER, primaryKey: true, field: 'group_id' } },
+    { sequelize, tableName: 'site_groups', timestamps: false },
+  );
+
+  CarriageRow.belongsTo(SiteRow, { as: 'site', foreignKey: 'siteId' });
+  CarriageRow.belongsTo(ServiceRow, { as: 'service', foreignKey: 'serviceId' });
+  SiteRow.hasMany(CarriageRow, { as: 'carriages', foreignKey: 'siteId' });
+  ServiceRow.hasMany(CarriageRow, { as: 'carriages', foreignKey: 'serviceId' });
+  FeedRow.belongsTo(CarriageRow, { as: 'from', foreignKey: 'fromCarriageId' });
+  FeedRow.belongsTo(CarriageRow, { as: 'to', foreignKey: 'toCarriageId' });
+  FeedRow.hasMany(FeedViaSiteRow, { as: 'viaSites', foreignKey: 'feedId' });
+  FeedViaSiteRow.belongsTo(SiteRow, { as: 'site', foreignKey: 'siteId' });
+  FeedRow.belongsToMany(RiskGroupRow, { as: 'groups', through: FeedGroupRow, foreignKey: 'feedId', otherKey: 'groupId' });
+  SiteRow.belongsToMany(RiskGroupRow, { as: 'groups', through: SiteGroupRow, foreignKey: 'siteId', otherKey: 'groupId' });
+}

@@ -1,0 +1,72 @@
+/**
+ * One error shape for every answer: { error: { code, message, details? } }.
+ * Services throw ApiError; anything else is logged and answered as a 500
+ * without internals. Client input never reaches that branch: parsers and
+ * validators turn it into a 4xx first.
+ */
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError, type ZodType } from 'zod';
+
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message);
+  }
+}
+
+export const badRequest = (message: string, details?: unknown) => new ApiError(400, 'bad-request', message, details);
+export const notFound = (message: string, details?: unknown) => new ApiError(404, 'not-found', message, details);
+export const conflict = (message: string, details?: unknown) => new ApiError(409, 'conflict', message, details);
+export const unprocessable = (message: string, details?: unknown) => new ApiError(422, 'invalid', message, details);
+
+export function zodDetails(err: ZodError) {
+  return err.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message }));
+}
+
+/** Parse with a zod schema; a failure is a 400 naming each field. */
+export function parseOr400<T>(schema: ZodType<T>, value: unknown, what = 'body'): T {
+  const r = schema.safeParse(value);
+  if (r.success) return r.data;
+  const details = zodDetails(r.error);
+  const first = details[0];
+  throw badRequest(`${what}: ${first.field}: ${first.message}`, details);
+}
+
+export const notFoundHandler: RequestHandler = (req, _res, next) => {
+  next(new ApiError(404, 'no-such-route', `no such route: ${req.method} ${req.path}`));
+};
+
+export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
+  if (err instanceof ApiError) {
+    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.details !== undefined ? { details: err.details } : {}) } });
+    return;
+  }
+  if (err instanceof ZodError) {
+    res.status(400).json({ error: { code: 'bad-request', message: 'the request is not valid', details: zodDetails(err) } });
+    return;
+  }
+  // body-parser and multer errors carry a status and a type or code
+  const status = typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 0;
+  if (err?.type === 'entity.parse.failed') {
+    res.status(400).json({ error: { code: 'malformed-json', message: 'the body is not valid JSON' } });
+    return;
+  }
+  if (err?.type === 'entity.too.large' || err?.code === 'LIMIT_FILE_SIZE') {
+    res.status(413).json({ error: { code: 'too-large', message: 'the body or file is larger than the server accepts' } });
+    return;
+  }
+  if (typeof err?.code === 'string' && err.code.startsWith('LIMIT_')) {
+    res.status(400).json({ error: { code: 'bad-upload', message: `upload refused: ${err.message}` } });
+    return;
+  }
+  if (status >= 400 && status < 500) {
+    res.status(status).json({ error: { code: 'bad-request', message: String(err.message ?? 'bad request') } });
+    return;
+  }
+  console.error('[error]', err);
+  res.status(500).json({ error: { code: 'internal', message: 'something went wrong on the server; it has been logged' } });
+};

@@ -1,0 +1,67 @@
+/**
+ * A code-indexed view of the network an import would produce: the stored
+ * network (when given, for upserts) overlaid by the document's entities.
+ * Cross-entity rules and warnings read this view, so one pass with maps
+ * answers every reference (no quadratic scans at 400k entities).
+ */
+import { CODE_PATTERN, ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
+
+export interface Entry {
+  /** position in the document's array, or -1 for an entity of the stored network */
+  index: number;
+  raw: Record<string, unknown>;
+}
+
+export interface NetworkView {
+  /** the document's entities that are objects, in document order */
+  doc: Record<EntityKind, Entry[]>;
+  /** code -> entry: the document's first entity with the code, else the stored one */
+  byCode: Record<EntityKind, Map<string, Entry>>;
+  /** kinds whose list could not be read at all: references into them are not checked */
+  unreadable: Set<EntityKind>;
+}
+
+export function buildView(lists: Partial<Record<EntityKind, unknown[]>>, unreadable: Set<EntityKind>, context?: NetworkDocument): NetworkView {
+  const doc = {} as Record<EntityKind, Entry[]>;
+  const byCode = {} as Record<EntityKind, Map<string, Entry>>;
+  for (const kind of ENTITY_KINDS) {
+    const entries: Entry[] = [];
+    const map = new Map<string, Entry>();
+    for (const stored of context?.[kind] ?? []) {
+      map.set(stored.code, { index: -1, raw: stored as unknown as Record<string, unknown> });
+    }
+    const inDocument = new Set<string>();
+    const list = lists[kind] ?? [];
+    for (let index = 0; index < list.length; index++) {
+      const item = list[index];
+      if (item === null || typeof item !== 'object' || Array.isArray(item)) continue;
+      const entry: Entry = { index, raw: item as Record<string, unknown> };
+      entries.push(entry);
+      const code = refAt(entry.raw, 'code');
+      if (code !== undefined && !inDocument.has(code)) {
+        inDocument.add(code);
+        map.set(code, entry);
+      }
+    }
+    doc[kind] = entries;
+    byCode[kind] = map;
+  }
+  return { doc, byCode, unreadable };
+}
+
+/** A field read as a code, if it is one (a malformed value is reported by the schema check). */
+export function refAt(raw: Record<string, unknown>, key: string): string | undefined {
+  const value = raw[key];
+  return typeof value === 'string' && CODE_PATTERN.test(value) ? value : undefined;
+}
+
+/** A list field read as codes with their positions; items that are not codes are skipped. */
+export function refListAt(raw: Record<string, unknown>, key: string): Array<[number, string]> {
+  const value = raw[key];
+  if (!Array.isArray(value)) return [];
+  const out: Array<[number, string]> = [];
+  value.forEach((item, i) => {
+    if (typeof item === 'string' && CODE_PATTERN.test(item)) out.push([i, item]);
+  });
+  return out;
+}

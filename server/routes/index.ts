@@ -1,0 +1,10 @@
+/**
+ * Route modules beyond sign-in and health. Each registers its routes, with
+ * the roles they allow, on the shared RouteTable.
+ */
+import type { RouteTable } from '../http/routes';
+import type { AppContext } from '../context';
+
+export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
+
+export const routeRegistrars: RouteRegistrar[] = [];

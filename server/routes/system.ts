@@ -1,0 +1,36 @@
+import { can } from '@/shared/api';
+import type { RouteTable } from '../http/routes';
+import type { AppContext } from '../context';
+
+export function registerSystemRoutes(routes: RouteTable, ctx: AppContext) {
+  routes.add('get', '/health', 'public', async (_req, res) => {
+    let dbUp = false;
+    try {
+      await ctx.db.sequelize.query('SELECT 1');
+      dbUp = true;
+    } catch {
+      dbUp = false;
+    }
+    const model = ctx.network.model;
+    if (!dbUp || !model) {
+      res.status(503).json({ ok: false, db: dbUp ? 'up' : 'down', networkVersion: model?.networkVersion ?? null });
+      return;
+    }
+    res.json({ ok: true, db: 'up', networkVersion: model.networkVersion });
+  });
+
+  routes.add('get', '/network/summary', can.read, async (_req, res) => {
+    const m = ctx.network.model;
+    if (!m) {
+      res.status(503).json({ error: { code: 'starting', message: 'the network is still loading; try again in a moment' } });
+      return;
+    }
+    const sitesByRole = { origin: 0, main: 0, relay: 0 };
+    for (const s of m.document.sites) sitesByRole[s.role] += 1;
+    res.json({
+      networkVersion: m.networkVersion,
+      counts: { sites: m.sites.size, services: m.services.size, groups: m.groups.size, carriages: m.carriages.size, feeds: m.feeds.size },
+      sitesByRole,
+    });
+  });
+}

@@ -1,0 +1,63 @@
+/**
+ * Boot: validated configuration, migrations, the admin account, the live
+ * network model, then listen. SIGTERM and SIGINT close everything cleanly.
+ */
+import type { Server } from 'node:http';
+import { loadConfig, type Config } from './config';
+import { openDatabase } from './db';
+import { createApp } from './app';
+import type { AppContext } from './context';
+import { NetworkStore } from './services/networkStore';
+import { buildNetworkModel } from './services/networkModel';
+import { ensureUser } from './services/users';
+
+export interface RunningServer {
+  server: Server;
+  ctx: AppContext;
+  url: string;
+  close(): Promise<void>;
+}
+
+export async function startServer(databaseUrl: string, config: Config = loadConfig()): Promise<RunningServer> {
+  const db = openDatabase(databaseUrl);
+  await db.migrate();
+  if (config.ADMIN_EMAIL && config.ADMIN_PASSWORD) await ensureUser(config.ADMIN_EMAIL, config.ADMIN_PASSWORD, 'admin', 'Administrator');
+
+  const network = new NetworkStore(db.sequelize, databaseUrl, buildNetworkModel);
+  await network.start();
+  const ctx: AppContext = { config, db, network };
+  const { app } = createApp(ctx);
+
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.PORT, '0.0.0.0', () => resolve(s));
+    s.on('error', reject);
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.PORT;
+
+  let closing: Promise<void> | null = null;
+  const close = () =>
+    (closing ??= (async () => {
+      await new Promise<void>((r) => {
+        server.close(() => r());
+        server.closeIdleConnections?.();
+        (setTimeout(() => server.closeAllConnections?.(), 5000) as unknown as NodeJS.Timeout).unref();
+      });
+      await network.close();
+      await db.close();
+    })());
+
+  return { server, ctx, url: `http://localhost:${port}`, close };
+}
+
+/** Close on SIGTERM/SIGINT, then exit. */
+export function closeOnSignals(running: RunningServer, after?: () => Promise<void> | void) {
+  const stop = async (signal: string) => {
+    console.log(`\n${signal}: closing the server...`);
+    await running.close();
+    await after?.();
+    process.exit(0);
+  };
+  process.once('SIGTERM', () => void stop('SIGTERM'));
+  process.once('SIGINT', () => void stop('SIGINT'));
+}

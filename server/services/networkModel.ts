@@ -1,0 +1,32 @@
+/**
+ * The in-memory network a server process answers from: the document as
+ * loaded from PostgreSQL, look-ups by code, and the analysis engine's graphs.
+ * Built from scratch on every change and swapped in whole (networkStore.ts).
+ */
+import type { NetworkDocument, Site, Carriage, Feed, Service, Group } from '@/shared/schemas/network';
+
+export interface NetworkModel {
+  networkVersion: number;
+  document: NetworkDocument;
+  sites: Map<string, Site>;
+  services: Map<string, Service>;
+  groups: Map<string, Group>;
+  carriages: Map<string, Carriage>;
+  feeds: Map<string, Feed>;
+  builtAt: Date;
+}
+
+const byCode = <T extends { code: string }>(items: T[]) => new Map(items.map((i) => [i.code, i]));
+
+export function buildNetworkModel(document: NetworkDocument, networkVersion: number): NetworkModel {
+  return {
+    networkVersion,
+    document,
+    sites: byCode(document.sites),
+    services: byCode(document.services),
+    groups: byCode(document.groups),
+    carriages: byCode(document.carriages),
+    feeds: byCode(document.feeds),
+    builtAt: new Date(),
+  };
+}
