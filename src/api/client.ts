@@ -1,0 +1,97 @@
+/**
+ * The one way the client talks to the Headwater API. Same origin, so paths are
+ * relative ("/api/..."). Every failure becomes an `ApiError` carrying the
+ * server's `{ error: { code, message, details? } }` (shared/api.ts, ApiErrorBody)
+ * or, when there is no such body, a code and message of our own.
+ */
+import type { ZodType } from 'zod';
+
+export class ApiError extends Error {
+  /** HTTP status; 0 when the server could not be reached at all. */
+  readonly status: number;
+  /** The server's error code, or one of ours: `network`, `bad_response`, `http_<status>`. */
+  readonly code: string;
+  readonly details?: unknown;
+
+  constructor(status: number, code: string, message: string, details?: unknown) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.details = details;
+  }
+}
+
+export function isApiError(e: unknown): e is ApiError {
+  return e instanceof ApiError;
+}
+
+export interface RequestOptions {
+  method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  /** Sent as JSON. */
+  body?: unknown;
+  /** Bearer token; omitted for sign-in. */
+  token?: string | null;
+  signal?: AbortSignal;
+}
+
+function errorFromBody(status: number, statusText: string, body: unknown): ApiError {
+  if (body && typeof body === 'object' && 'error' in body) {
+    const err = (body as { error: unknown }).error;
+    if (err && typeof err === 'object') {
+      const { code, message, details } = err as Record<string, unknown>;
+      if (typeof code === 'string' && typeof message === 'string') {
+        return new ApiError(status, code, message, details);
+      }
+    }
+  }
+  const reason = statusText ? ` ${statusText}` : '';
+  return new ApiError(status, `http_${status}`, `The server answered ${status}${reason}.`);
+}
+
+async function readJson(res: Response): Promise<{ ok: true; value: unknown } | { ok: false }> {
+  const text = await res.text();
+  if (text.trim() === '') return { ok: true, value: undefined };
+  try {
+    return { ok: true, value: JSON.parse(text) as unknown };
+  } catch {
+    return { ok: false };
+  }
+}
+
+/** Sends one request and resolves with the parsed JSON body (undefined for an empty body). */
+export async function request(path: string, options: RequestOptions = {}): Promise<unknown> {
+  if (!path.startsWith('/')) {
+    throw new ApiError(0, 'bad_request', `API paths start with "/", got ${JSON.stringify(path)}`);
+  }
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+  if (options.token) headers.Authorization = `Bearer ${options.token}`;
+
+  let res: Response;
+  try {
+    res = await fetch(path, {
+      method: options.method ?? 'GET',
+      headers,
+      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      signal: options.signal,
+    });
+  } catch (e) {
+    if (e instanceof Error && e.name === 'AbortError') throw e;
+    throw new ApiError(0, 'network', 'Could not reach the Headwater server. Check the connection and try again.');
+  }
+
+  const parsed = await readJson(res);
+  if (!res.ok) throw errorFromBody(res.status, res.statusText, parsed.ok ? parsed.value : undefined);
+  if (!parsed.ok) throw new ApiError(res.status, 'bad_response', `The server's answer to ${path} was not JSON.`);
+  return parsed.value;
+}
+
+/** Checks an answer against the shape the client expects, so a contract drift fails loudly and by name. */
+export function parseAnswer<T>(schema: ZodType<T>, path: string, value: unknown): T {
+  const result = schema.safeParse(value);
+  if (result.success) return result.data;
+  const first = result.error.issues[0];
+  const where = first && first.path.length ? ` at ${first.path.join('.')}` : '';
+  throw new ApiError(200, 'bad_response', `The server's answer to ${path} was not understood${where}: ${first?.message ?? 'unexpected shape'}.`);
+}

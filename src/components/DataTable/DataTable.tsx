@@ -1,0 +1,170 @@
+/**
+ * A table of records: units in the header, figures in tabular (monospaced)
+ * digits and right-aligned, header buttons that sort. On a narrow phone the
+ * table scrolls sideways rather than squeezing columns.
+ *
+ *   <DataTable
+ *     caption="Feeds"
+ *     rows={feeds}
+ *     rowKey={(f) => f.code}
+ *     columns={[
+ *       { key: 'code', label: 'Feed', mono: true, value: (f) => f.code },
+ *       { key: 'km', label: 'Distance', unit: 'km', numeric: true, value: (f) => f.km,
+ *         format: (v) => (v as number).toFixed(1) },
+ *     ]}
+ *     initialSort={{ column: 'km', direction: 'desc' }}
+ *   />
+ */
+import { useMemo, useState, type ReactNode } from 'react';
+import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
+import Svg, { Path } from 'react-native-svg';
+import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';
+import { webAria } from '../webAria';
+import { nextSort, sortRows, type Sortable, type SortState } from './sortRows';
+
+export interface DataColumn<Row> {
+  key: string;
+  label: string;
+  /** Shown in the header: "Distance (km)". */
+  unit?: string;
+  /** Right-aligned tabular figures. */
+  numeric?: boolean;
+  /** Monospaced text (codes, channels). */
+  mono?: boolean;
+  /** Minimum width in px (default 140, numeric 110). */
+  width?: number;
+  /** The cell's value, used to sort and, without `render`, to display. */
+  value: (row: Row) => Sortable;
+  /** Display text for the value (units stay in the header). */
+  format?: (value: Sortable, row: Row) => string;
+  /** A custom cell (a badge, a link). Sorting still uses `value`. */
+  render?: (row: Row) => ReactNode;
+  sortable?: boolean;
+}
+
+export interface DataTableProps<Row> {
+  /** What the table lists; its accessible name. */
+  caption: string;
+  columns: DataColumn<Row>[];
+  rows: readonly Row[];
+  rowKey: (row: Row) => string;
+  initialSort?: SortState;
+  onRowPress?: (row: Row) => void;
+  /** Accessible name of a pressable row (default: the first column's text). */
+  rowLabel?: (row: Row) => string;
+  emptyText?: string;
+  testID?: string;
+}
+
+function display<Row>(col: DataColumn<Row>, row: Row): string {
+  const v = col.value(row);
+  if (col.format) return col.format(v, row);
+  if (v === null || v === undefined || v === '') return '—';
+  if (v instanceof Date) return v.toISOString().slice(0, 10);
+  return String(v);
+}
+
+function Caret({ direction }: { direction: 'asc' | 'desc' | null }) {
+  const d = direction === 'asc' ? 'M2 8l4-5 4 5z' : direction === 'desc' ? 'M2 4l4 5 4-5z' : 'M2 5l4-3.5 4 3.5zM2 7l4 3.5 4-3.5z';
+  return (
+    <Svg width={12} height={12} viewBox="0 0 12 12" aria-hidden accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+      <Path d={d} fill={direction ? colors.accent : colors.lineStrong} />
+    </Svg>
+  );
+}
+
+export function DataTable<Row>({ caption, columns, rows, rowKey, initialSort, onRowPress, rowLabel, emptyText = 'Nothing to list.', testID }: DataTableProps<Row>) {
+  const [sort, setSort] = useState<SortState | null>(initialSort ?? null);
+  const sorted = useMemo(() => {
+    const col = sort && columns.find((c) => c.key === sort.column);
+    return col ? sortRows(rows, col.value, sort.direction) : [...rows];
+  }, [rows, columns, sort]);
+
+  const widthOf = (c: DataColumn<Row>) => c.width ?? (c.numeric ? 110 : 140);
+  const minWidth = columns.reduce((sum, c) => sum + widthOf(c), 0);
+
+  return (
+    <ScrollView horizontal contentContainerStyle={styles.scroller} testID={testID}>
+      <View style={[styles.table, { minWidth }]} role="table" aria-label={caption}>
+        <View style={[styles.row, styles.headRow]} role="row">
+          {columns.map((c) => {
+            const active = sort?.column === c.key ? sort.direction : null;
+            const text = c.unit ? `${c.label} (${c.unit})` : c.label;
+            const cellStyle = [styles.cell, { flexBasis: widthOf(c), minWidth: widthOf(c) }];
+            if (c.sortable === false) {
+              return (
+                <View key={c.key} style={cellStyle} role="columnheader">
+                  <Text style={[styles.headText, c.numeric && styles.right]}>{text}</Text>
+                </View>
+              );
+            }
+            const state = active === 'asc' ? 'ascending' : active === 'desc' ? 'descending' : undefined;
+            return (
+              <View key={c.key} style={cellStyle} role="columnheader" {...webAria({ 'aria-sort': state ?? 'none' })}>
+                <Pressable
+                  accessibilityRole="button"
+                  accessibilityLabel={`Sort by ${text}${state ? `, now ${state}` : ''}`}
+                  onPress={() => setSort((s) => nextSort(s, c.key))}
+                  style={({ pressed }) => [styles.sortButton, c.numeric && styles.sortButtonRight, pressed && styles.pressed]}
+                  testID={testID ? `${testID}-sort-${c.key}` : undefined}
+                >
+                  <Text style={[styles.headText, c.numeric && styles.right]}>{text}</Text>
+                  <Caret direction={active} />
+                </Pressable>
+              </View>
+            );
+          })}
+        </View>
+        {sorted.length === 0 ? (
+          <Text style={styles.empty}>{emptyText}</Text>
+        ) : (
+          sorted.map((row) => {
+            const cells = columns.map((c) => (
+              <View key={c.key} style={[styles.cell, { flexBasis: widthOf(c), minWidth: widthOf(c) }]} role="cell">
+                {c.render ? (
+                  c.render(row)
+                ) : (
+                  <Text style={[styles.cellText, (c.mono || c.numeric) && styles.mono, c.numeric && styles.right]}>{display(c, row)}</Text>
+                )}
+              </View>
+            ));
+            const key = rowKey(row);
+            return onRowPress ? (
+              <Pressable
+                key={key}
+                role="row"
+                accessibilityRole="button"
+                accessibilityLabel={rowLabel ? rowLabel(row) : display(columns[0], row)}
+                onPress={() => onRowPress(row)}
+                style={({ pressed }) => [styles.row, styles.bodyRow, pressed && styles.pressed]}
+              >
+                {cells}
+              </Pressable>
+            ) : (
+              <View key={key} style={[styles.row, styles.bodyRow]} role="row">
+                {cells}
+              </View>
+            );
+          })
+        )}
+      </View>
+    </ScrollView>
+  );
+}
+
+const styles = StyleSheet.create({
+  scroller: { minWidth: '100%' },
+  table: { flexGrow: 1, borderWidth: 1, borderColor: colors.line, borderRadius: 8, backgroundColor: colors.surface, overflow: 'hidden' },
+  row: { flexDirection: 'row', alignItems: 'stretch' },
+  headRow: { backgroundColor: colors.sunken, borderBottomWidth: 2, borderBottomColor: colors.lineStrong },
+  bodyRow: { minHeight: TOUCH_MIN, borderBottomWidth: 1, borderBottomColor: colors.line },
+  cell: { flexGrow: 1, flexShrink: 0, justifyContent: 'center', paddingHorizontal: space.md, paddingVertical: space.sm },
+  sortButton: { minHeight: TOUCH_MIN, flexDirection: 'row', alignItems: 'center', gap: space.xs },
+  sortButtonRight: { justifyContent: 'flex-end' },
+  headText: { ...type.label, fontSize: 15 },
+  cellText: { ...type.body, fontSize: 16, lineHeight: 22 },
+  mono: { fontFamily: fonts.mono, fontVariant: ['tabular-nums'] },
+  right: { textAlign: 'right' },
+  empty: { ...type.small, padding: space.lg },
+  pressed: { backgroundColor: colors.accentSoft },
+});

@@ -1,0 +1,29 @@
+/**
+ * Colours picked for this project. Text and status colours are checked against
+ * the WCAG 2.1 contrast minimum of 4.5:1 (success criterion 1.4.3) on the
+ * backgrounds they are drawn on; see colors.test.ts.
+ */
+export const colors = {
+  /** Page background behind cards. */
+  canvas: '#F3F5F4',
+  /** Cards, bars, fields. */
+  surface: '#FFFFFF',
+  /** Slightly sunk surface: table header, selected nav row. */
+  sunken: '#E6EBEA',
+  ink: '#15201E',
+  inkMuted: '#4A5754',
+  line: '#C4CECB',
+  lineStrong: '#7A8885',
+  /** The one accent: a deep river green-blue, for actions and the current place. */
+  accent: '#0E5A63',
+  accentInk: '#FFFFFF',
+  accentSoft: '#DCECEC',
+  focus: '#C26A00',
+  /** Status colours come second to words and shapes (screens.md). */
+  good: '#1F6B34',
+  goodSoft: '#E1F0E4',
+  warn: '#8A5200',
+  warnSoft: '#FBEFD9',
+  bad: '#A4262C',
+  badSoft: '#F9E3E3',
+} as const;
