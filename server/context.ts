@@ -8,4 +8,6 @@ export interface AppContext {
   config: Config;
   db: Database;
   network: NetworkStore<NetworkModel>;
+  /** set by the sign-in routes; tests use it to start from a clean slate */
+  resetLoginLimits?: () => void;
 }

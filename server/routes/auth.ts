@@ -1,4 +1,4 @@
-import { rateLimit } from 'express-rate-limit';
+import { MemoryStore, rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
 import { can, ROLES } from '@/shared/api';
 import { checkPassword, DECOY_HASH } from '../auth/passwords';
@@ -33,7 +33,10 @@ const BAD_LOGIN = 'email or password not recognised';
 
 export function registerAuthRoutes(routes: RouteTable, ctx: AppContext) {
   // Nine quick failures are allowed; the tenth within the window gets 429.
+  const store = new MemoryStore();
+  ctx.resetLoginLimits = () => store.resetAll();
   const loginLimiter = rateLimit({
+    store,
     windowMs: 15 * 60 * 1000,
     limit: 9,
     skipSuccessfulRequests: true,

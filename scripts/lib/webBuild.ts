@@ -1,0 +1,47 @@
+/**
+ * The exported web app (Expo Router, web.output "single") in dist/web.
+ * Rebuilt only when a client source is newer than the last export.
+ */
+import { spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { REPO_ROOT } from './postgres';
+
+export const WEB_DIR = path.join(REPO_ROOT, 'dist', 'web');
+const STAMP = path.join(WEB_DIR, '.headwater-build');
+const SOURCES = ['app', 'src', 'shared', 'fonts', 'assets', 'app.json', 'package.json', 'metro.config.js', 'babel.config.js'];
+
+function newestMtime(p: string): number {
+  if (!fs.existsSync(p)) return 0;
+  const st = fs.statSync(p);
+  if (!st.isDirectory()) return st.mtimeMs;
+  let newest = st.mtimeMs;
+  for (const e of fs.readdirSync(p)) {
+    if (e === 'node_modules' || e.startsWith('.')) continue;
+    newest = Math.max(newest, newestMtime(path.join(p, e)));
+  }
+  return newest;
+}
+
+export function webBuildIsStale(): boolean {
+  if (!fs.existsSync(STAMP) || !fs.existsSync(path.join(WEB_DIR, 'index.html'))) return true;
+  const built = fs.statSync(STAMP).mtimeMs;
+  return SOURCES.some((s) => newestMtime(path.join(REPO_ROOT, s)) > built);
+}
+
+export function ensureWebBuild({ force = false, quiet = false } = {}): { built: boolean; ms: number } {
+  if (!force && !webBuildIsStale()) return { built: false, ms: 0 };
+  const t0 = Date.now();
+  if (!quiet) console.log('Building the web app (expo export, about half a minute)...');
+  const r = spawnSync('npx', ['expo', 'export', '--platform', 'web', '--output-dir', 'dist/web', '--clear'], {
+    cwd: REPO_ROOT,
+    stdio: quiet ? 'pipe' : 'inherit',
+    encoding: 'utf8',
+    env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' },
+  });
+  if (r.status !== 0) {
+    throw new Error(`the web export failed (exit ${r.status})${quiet ? `:\n${(r.stderr || r.stdout || '').slice(-4000)}` : ''}`);
+  }
+  fs.writeFileSync(STAMP, new Date().toISOString() + '\n');
+  return { built: true, ms: Date.now() - t0 };
+}

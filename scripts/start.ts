@@ -1,0 +1,68 @@
+/**
+ * npm start: PostgreSQL up, migrations, demo data into an empty database,
+ * the web export when missing or stale, then one server for the API and the
+ * web app. The local PostgreSQL is left running (npm run stop stops it).
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { loadConfig } from '@/server/config';
+import { openDatabase } from '@/server/db';
+import { startServer, closeOnSignals } from '@/server/server';
+import { ensureUser } from '@/server/services/users';
+import { importNetwork } from '@/server/services/importer';
+import { resolveDatabaseUrl, REPO_ROOT } from './lib/postgres';
+import { ensureWebBuild } from './lib/webBuild';
+import type { Role } from '@/shared/api';
+
+interface DemoUser {
+  email: string;
+  name: string;
+  role: Role;
+  password: string;
+}
+
+export const DEMO_USERS: DemoUser[] = JSON.parse(fs.readFileSync(path.join(__dirname, 'demo', 'users.json'), 'utf8')).users;
+export const DEMO_NETWORK = path.join(REPO_ROOT, 'test', 'fixtures', 'demo-network.json');
+
+/** Demo accounts and, into an empty database, the demo network. */
+export async function loadDemo(databaseUrl: string, log = console.log) {
+  const db = openDatabase(databaseUrl);
+  try {
+    await db.migrate();
+    for (const u of DEMO_USERS) await ensureUser(u.email, u.password, u.role, u.name);
+    const [rows] = await db.sequelize.query('SELECT count(*)::int AS n FROM sites');
+    if ((rows as { n: number }[])[0].n === 0) {
+      const report = await importNetwork(db, JSON.parse(fs.readFileSync(DEMO_NETWORK, 'utf8')), { actor: { email: 'demo-loader' } });
+      if (!report.ok) throw new Error(`the demo network did not import: ${report.errors.map((e) => e.message).join('; ')}`);
+      log(`Loaded the demo network: ${report.counts.sites.created} sites, ${report.counts.carriages.created} carriages, ${report.counts.feeds.created} feeds.`);
+    }
+  } finally {
+    await db.close();
+  }
+}
+
+async function main() {
+  const t0 = Date.now();
+  const config = loadConfig();
+  const { url, cluster } = await resolveDatabaseUrl('headwater');
+  if (cluster) console.log(`PostgreSQL: 127.0.0.1, cluster folder ${cluster.home} (stop it with npm run stop)`);
+  if (config.DEMO) await loadDemo(url);
+  ensureWebBuild();
+  const running = await startServer(url, config);
+  closeOnSignals(running);
+
+  console.log(`\nHeadwater is running at ${running.url}  (ready in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+  if (config.DEMO) {
+    console.log('\nDemo users (local try-out only):');
+    for (const u of DEMO_USERS) console.log(`  ${u.role.padEnd(9)} ${u.email.padEnd(30)} ${u.password}`);
+  }
+  if (config.ADMIN_EMAIL) console.log(`  admin     ${config.ADMIN_EMAIL.padEnd(30)} (password from ADMIN_PASSWORD)`);
+  console.log('\nStop with Ctrl+C; the database keeps running until `npm run stop`.');
+}
+
+if (require.main === module) {
+  main().catch((e) => {
+    console.error(`\nnpm start failed: ${e.message ?? e}`);
+    process.exit(1);
+  });
+}

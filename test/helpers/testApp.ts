@@ -1,0 +1,65 @@
+/**
+ * An app wired to the test database (see test/setup/database.ts), with one
+ * account per role and helpers to reset state between tests.
+ */
+import crypto from 'node:crypto';
+import { loadConfig } from '@/server/config';
+import { openDatabase } from '@/server/db';
+import { createApp } from '@/server/app';
+import type { AppContext } from '@/server/context';
+import { NetworkStore } from '@/server/services/networkStore';
+import { buildNetworkModel } from '@/server/services/networkModel';
+import { User } from '@/server/db/models/user';
+import { hashPassword } from '@/server/auth/passwords';
+import { signToken } from '@/server/auth/tokens';
+import { ROLES, type Role } from '@/shared/api';
+
+export const TEST_PASSWORD = `pw-${crypto.randomBytes(6).toString('hex')}`;
+export const emailFor = (role: Role) => `${role}@test.example`;
+
+export async function makeTestApp() {
+  const url = process.env.TEST_DATABASE_URL;
+  if (!url) throw new Error('TEST_DATABASE_URL is not set: run API tests through vitest --project api');
+  const config = loadConfig({ ...process.env, DATABASE_URL: url, JWT_SECRET: crypto.randomBytes(32).toString('hex'), WEB_DIR: '/nonexistent' });
+  const db = openDatabase(url);
+  const network = new NetworkStore(db.sequelize, url, buildNetworkModel);
+  const ctx: AppContext = { config, db, network };
+  const { app, routes } = createApp(ctx);
+  const userIds = new Map<Role, number>();
+  let passwordHash: string | undefined;
+
+  /** Empty the network, the audit log and the people; make one account per role. */
+  async function reset() {
+    await db.sequelize.query(
+      'TRUNCATE feed_via_sites, feed_groups, site_groups, feeds, carriages, sites, services, risk_groups, audit_log, users RESTART IDENTITY CASCADE',
+    );
+    passwordHash ??= await hashPassword(TEST_PASSWORD);
+    for (const role of ROLES) {
+      const u = await User.create({ email: emailFor(role), name: `Test ${role}`, role, passwordHash });
+      userIds.set(role, u.id);
+    }
+    ctx.resetLoginLimits?.();
+    await network.refresh();
+  }
+
+  const tokenFor = (role: Role) => signToken({ sub: String(userIds.get(role)), email: emailFor(role), role }, config.JWT_SECRET, '10m');
+  const auth = (role: Role) => ({ Authorization: `Bearer ${tokenFor(role)}` });
+
+  await network.start();
+  return {
+    app,
+    ctx,
+    routes,
+    db,
+    config,
+    reset,
+    tokenFor,
+    auth,
+    close: async () => {
+      await network.close();
+      await db.close();
+    },
+  };
+}
+
+export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;
