@@ -1,0 +1,72 @@
+/**
+ * The CSV form of the network document (handbook interchange.md section 1):
+ * one file per kind, a header row with the JSON field names, lists separated
+ * by ";", an empty cell for an absent field. This table says which column
+ * holds what, so cells are read as the type the JSON field has.
+ */
+import type { EntityKind } from '@/shared/schemas/network';
+
+export type ColumnType = 'string' | 'number' | 'boolean' | 'list';
+
+/** Columns in the order the handbook lists the fields; export writes them in this order. */
+export const CSV_COLUMNS: Record<EntityKind, ReadonlyArray<readonly [string, ColumnType]>> = {
+  sites: [
+    ['code', 'string'], ['name', 'string'], ['role', 'string'], ['lat', 'number'], ['lon', 'number'],
+    ['groundHeightM', 'number'], ['mastHeightM', 'number'], ['households', 'number'], ['groups', 'list'],
+  ],
+  services: [['code', 'string'], ['name', 'string'], ['kind', 'string']],
+  groups: [['code', 'string'], ['name', 'string'], ['note', 'string']],
+  carriages: [
+    ['code', 'string'], ['site', 'string'], ['service', 'string'], ['frequencyMHz', 'number'], ['channel', 'string'],
+    ['erpW', 'number'], ['polarisation', 'string'], ['antennaHeightM', 'number'], ['onChannelRepeater', 'boolean'],
+  ],
+  feeds: [
+    ['code', 'string'], ['from', 'string'], ['to', 'string'], ['medium', 'string'], ['role', 'string'],
+    ['via', 'list'], ['groups', 'list'], ['rxFrequencyMHz', 'number'], ['rxChannel', 'string'],
+    ['rxAntenna', 'string'], ['bearingDeg', 'number'],
+  ],
+};
+
+/** Columns a row cannot do without: a file lacking one is reported once, by name. */
+export const REQUIRED_COLUMNS: Record<EntityKind, readonly string[]> = {
+  sites: ['code', 'name', 'role', 'lat', 'lon'],
+  services: ['code', 'name', 'kind'],
+  groups: ['code', 'name'],
+  carriages: ['code', 'site', 'service'],
+  feeds: ['code', 'from', 'to', 'medium', 'role'],
+};
+
+export const LIST_SEPARATOR = ';';
+
+// A plain decimal number; Number() alone would also take "", "0x1F" and "Infinity".
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/**
+ * One cell as the JSON value it stands for; undefined for an empty cell.
+ * A cell that is not of the column's type stays the text it was, so the
+ * schema check reports it with its row and field ("must be a number (got
+ * "abc")") rather than it becoming NaN.
+ */
+export function cellValue(cell: string, type: ColumnType): unknown {
+  const text = cell.trim();
+  if (text === '') return undefined;
+  switch (type) {
+    case 'number':
+      return DECIMAL.test(text) ? Number(text) : cell;
+    case 'boolean':
+      if (/^true$/i.test(text)) return true;
+      if (/^false$/i.test(text)) return false;
+      return cell;
+    case 'list':
+      return text.split(LIST_SEPARATOR).map((item) => item.trim()).filter((item) => item !== '');
+    default:
+      return cell;
+  }
+}
+
+/** A JSON value as its cell: the inverse of cellValue for every valid value. */
+export function cellText(value: unknown): string {
+  if (value === undefined || value === null) return '';
+  if (Array.isArray(value)) return value.join(LIST_SEPARATOR);
+  return String(value);
+}

@@ -1,0 +1,92 @@
+/**
+ * Validates a network document (handbook interchange.md section 1) and reports
+ * every error, not the first: the document's shape, each entity against its
+ * schema, then the rules between entities; and the warnings that let an
+ * import go ahead. The document is returned only when there is no error.
+ */
+import type { ImportIssue } from '@/shared/schemas/import';
+import {
+  ENTITY_KINDS,
+  NETWORK_FORMAT,
+  networkDocumentShape,
+  type EntityKind,
+  type NetworkDocument,
+} from '@/shared/schemas/network';
+import { checkEntity } from './entities';
+import { IssueSink, shown, type RowsOf } from './issues';
+import { checkReferences } from './references';
+import { buildView } from './view';
+import { findWarnings } from './warnings';
+
+export type { RowsOf } from './issues';
+
+export interface ValidateOptions {
+  /** for a document read from CSV: the file and data row of each array element, so issues name them */
+  rowsOf?: RowsOf;
+  /** the stored network an upsert lands on: references may point into it */
+  context?: NetworkDocument;
+}
+
+export interface ValidationResult {
+  document: NetworkDocument | null;
+  errors: ImportIssue[];
+  warnings: ImportIssue[];
+}
+
+export function validateDocument(raw: unknown, opts: ValidateOptions = {}): ValidationResult {
+  const sink = new IssueSink(opts.rowsOf);
+  if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
+    sink.documentError('not-an-object', `the network document must be a JSON object with "format": "${NETWORK_FORMAT}" (got ${shown(Array.isArray(raw) ? 'a list' : raw)})`);
+    return { document: null, ...sink.sorted() };
+  }
+  const top = raw as Record<string, unknown>;
+  const unreadable = checkShape(top, sink);
+
+  const lists: Partial<Record<EntityKind, unknown[]>> = {};
+  const parsed = {} as { [K in EntityKind]: NetworkDocument[K] };
+  for (const kind of ENTITY_KINDS) {
+    const list = unreadable.has(kind) ? [] : ((top[kind] as unknown[] | undefined) ?? []);
+    lists[kind] = list;
+    const out: unknown[] = [];
+    for (let index = 0; index < list.length; index++) {
+      const entity = checkEntity(kind, list[index], index, sink);
+      if (entity !== undefined) out.push(entity);
+    }
+    parsed[kind] = out as never;
+  }
+
+  const view = buildView(lists, unreadable, opts.context);
+  checkReferences(view, sink);
+  findWarnings(view, sink);
+
+  const { errors, warnings } = sink.sorted();
+  const document = errors.length === 0 ? ({ format: NETWORK_FORMAT, ...parsed } as NetworkDocument) : null;
+  return { document, errors, warnings };
+}
+
+/** Checks the top level with the shared shape schema; returns the kinds whose list cannot be read. */
+function checkShape(top: Record<string, unknown>, sink: IssueSink): Set<EntityKind> {
+  const unreadable = new Set<EntityKind>();
+  const result = networkDocumentShape.safeParse(top);
+  if (result.success) return unreadable;
+  const allowed = Object.keys(networkDocumentShape.shape).join(', ');
+  for (const issue of result.error.issues) {
+    const key = issue.path[0];
+    if (issue.code === 'unrecognized_keys') {
+      for (const unknown of issue.keys) {
+        sink.documentError('unknown-key', `unknown top-level key "${unknown}": a network document has only ${allowed}`, unknown);
+      }
+    } else if (key === 'format') {
+      sink.documentError('wrong-format', `format must be "${NETWORK_FORMAT}" (got ${shown(top.format)})`, 'format');
+    } else if (typeof key === 'string' && (ENTITY_KINDS as readonly string[]).includes(key)) {
+      const kind = key as EntityKind;
+      if (!unreadable.has(kind)) {
+        unreadable.add(kind);
+        sink.kindError(kind, 'not-a-list', `${kind} must be a list of ${kind} (got ${shown(top[kind])})`, kind);
+      }
+    } else {
+      sink.documentError('invalid-document', `the document is not valid: ${issue.message}`);
+    }
+  }
+  return unreadable;
+}

@@ -1,0 +1,186 @@
+/**
+ * Import warnings (handbook interchange.md section 1): the import goes ahead,
+ * but the network has a data problem worth a look.
+ * - a feed loop with no origin upstream (domain.md rule 3: such a loop never
+ *   has programme), with the carriages starved downstream of it;
+ * - a carriage with no feed at a site that is not an origin;
+ * - a relay with no reserve feed into any of its carriages.
+ * Linear in carriages + feeds: one breadth-first walk from the origins, then
+ * strongly connected components (Tarjan 1972, iterative) among the carriages
+ * the walk did not reach.
+ */
+import type { IssueSink } from './issues';
+import { refAt, type Entry, type NetworkView } from './view';
+
+export function findWarnings(view: NetworkView, sink: IssueSink): void {
+  const carriages = [...view.byCode.carriages.values()];
+  const n = carriages.length;
+  const id = new Map<string, number>();
+  carriages.forEach((c, i) => id.set(refAt(c.raw, 'code') as string, i));
+  const siteOf = carriages.map((c) => refAt(c.raw, 'site'));
+  const roleOf = (site: string | undefined) => (site === undefined ? undefined : view.byCode.sites.get(site)?.raw.role);
+
+  const from: number[] = [];
+  const to: number[] = [];
+  const sitesWithReserve = new Set<string>();
+  for (const feed of view.byCode.feeds.values()) {
+    const f = id.get(refAt(feed.raw, 'from') ?? '');
+    const t = id.get(refAt(feed.raw, 'to') ?? '');
+    if (f === undefined || t === undefined || f === t) continue;
+    from.push(f);
+    to.push(t);
+    if (feed.raw.role === 'reserve' && siteOf[t] !== undefined) sitesWithReserve.add(siteOf[t] as string);
+  }
+  const graph = compressedSparseRows(n, from, to);
+
+  const reached = new Uint8Array(n);
+  const queue = new Int32Array(n);
+  let tail = 0;
+  for (let i = 0; i < n; i++) {
+    if (roleOf(siteOf[i]) === 'origin') {
+      reached[i] = 1;
+      queue[tail++] = i;
+    }
+  }
+  for (let head = 0; head < tail; head++) {
+    const u = queue[head];
+    for (let e = graph.start[u]; e < graph.start[u + 1]; e++) {
+      const v = graph.target[e];
+      if (!reached[v]) {
+        reached[v] = 1;
+        queue[tail++] = v;
+      }
+    }
+  }
+
+  reportLoops(carriages, graph, reached, sink);
+
+  for (let i = 0; i < n; i++) {
+    const entry = carriages[i];
+    const role = roleOf(siteOf[i]);
+    if (entry.index < 0 || graph.indegree[i] > 0 || role === undefined || role === 'origin') continue;
+    sink.warn('carriages', entry.index, refAt(entry.raw, 'code'), undefined, 'no-feed',
+      `no feed comes into it, so it has no programme (site ${siteOf[i]} is a ${String(role)}, not an origin)`);
+  }
+
+  const carriagesAtSite = new Map<string, number>();
+  for (const site of siteOf) if (site !== undefined) carriagesAtSite.set(site, (carriagesAtSite.get(site) ?? 0) + 1);
+  for (const site of view.byCode.sites.values()) {
+    const code = refAt(site.raw, 'code') as string;
+    const count = carriagesAtSite.get(code) ?? 0;
+    if (site.index < 0 || site.raw.role !== 'relay' || count === 0 || sitesWithReserve.has(code)) continue;
+    sink.warn('sites', site.index, code, undefined, 'no-reserve',
+      `no reserve feed comes into any of its ${count} carriage${count === 1 ? '' : 's'}, so one failure upstream takes this relay off air`);
+  }
+}
+
+interface Csr {
+  start: Int32Array;
+  target: Int32Array;
+  indegree: Int32Array;
+}
+
+function compressedSparseRows(n: number, from: number[], to: number[]): Csr {
+  const start = new Int32Array(n + 1);
+  const indegree = new Int32Array(n);
+  for (let e = 0; e < from.length; e++) {
+    start[from[e] + 1]++;
+    indegree[to[e]]++;
+  }
+  for (let i = 0; i < n; i++) start[i + 1] += start[i];
+  const fill = start.slice(0, n);
+  const target = new Int32Array(from.length);
+  for (let e = 0; e < from.length; e++) target[fill[from[e]]++] = to[e];
+  return { start, target, indegree };
+}
+
+/** One warning per loop (a strongly connected component of two or more unreached carriages). */
+function reportLoops(carriages: Entry[], graph: Csr, reached: Uint8Array, sink: IssueSink): void {
+  const n = carriages.length;
+  const order = new Int32Array(n).fill(-1);
+  const low = new Int32Array(n);
+  const onStack = new Uint8Array(n);
+  const stack = new Int32Array(n);
+  const callNode = new Int32Array(n);
+  const callEdge = new Int32Array(n);
+  const claimed = new Uint8Array(n);
+  let depth = 0;
+  let top = 0;
+  let counter = 0;
+  const loops: number[][] = [];
+
+  for (let root = 0; root < n; root++) {
+    if (reached[root] || order[root] !== -1) continue;
+    callNode[0] = root;
+    callEdge[0] = graph.start[root];
+    order[root] = low[root] = counter++;
+    stack[top++] = root;
+    onStack[root] = 1;
+    depth = 1;
+    while (depth > 0) {
+      const u = callNode[depth - 1];
+      const e = callEdge[depth - 1];
+      if (e < graph.start[u + 1]) {
+        callEdge[depth - 1] = e + 1;
+        const v = graph.target[e];
+        if (reached[v]) continue;
+        if (order[v] === -1) {
+          order[v] = low[v] = counter++;
+          stack[top++] = v;
+          onStack[v] = 1;
+          callNode[depth] = v;
+          callEdge[depth] = graph.start[v];
+          depth++;
+        } else if (onStack[v]) {
+          low[u] = Math.min(low[u], order[v]);
+        }
+        continue;
+      }
+      depth--;
+      if (depth > 0) {
+        const parent = callNode[depth - 1];
+        low[parent] = Math.min(low[parent], low[u]);
+      }
+      if (low[u] === order[u]) {
+        const members: number[] = [];
+        let w: number;
+        do {
+          w = stack[--top];
+          onStack[w] = 0;
+          members.push(w);
+        } while (w !== u);
+        if (members.length > 1) loops.push(members);
+      }
+    }
+  }
+
+  for (const members of loops) for (const m of members) claimed[m] = 1;
+  for (const members of loops) {
+    const downstream = claimDownstream(members, graph, reached, claimed);
+    const inDocument = members.filter((m) => carriages[m].index >= 0);
+    if (inDocument.length === 0) continue;
+    const subject = carriages[inDocument.reduce((a, b) => (carriages[a].index <= carriages[b].index ? a : b))];
+    const codes = members.map((m) => refAt(carriages[m].raw, 'code') as string).sort();
+    const listed = codes.length > 8 ? `${codes.slice(0, 8).join(', ')} and ${codes.length - 8} more` : codes.join(', ');
+    const starved = downstream === 0 ? '' : `, nor do ${downstream} carriage${downstream === 1 ? '' : 's'} downstream of it`;
+    sink.warn('carriages', subject.index, refAt(subject.raw, 'code'), undefined, 'loop-without-origin',
+      `carriages ${listed} feed each other in a loop with no origin upstream: they have no programme${starved}`);
+  }
+}
+
+/** Counts unreached carriages downstream of a loop that no earlier loop has claimed (so the walks stay linear overall). */
+function claimDownstream(members: number[], graph: Csr, reached: Uint8Array, claimed: Uint8Array): number {
+  const queue = [...members];
+  let count = 0;
+  for (let head = 0; head < queue.length; head++) {
+    const u = queue[head];
+    for (let e = graph.start[u]; e < graph.start[u + 1]; e++) {
+      const v = graph.target[e];
+      if (reached[v] || claimed[v]) continue;
+      claimed[v] = 1;
+      count++;
+      queue.push(v);
+    }
+  }
+  return count;
+}
