@@ -56,7 +56,11 @@ describe('receive frequency order (interchange.md section 2)', () => {
   it('an unknown receive channel is not computed, named in the note and in a warning', () => {
     const a = run({ kind: 'dtt', feed: { rxChannel: 'X9' } });
     expect(get(a, 'free-space-loss').note).toMatch(/not computed: channel "X9" on feed F-OX is not a known dtt channel/);
-    expect(a.warnings.some((w) => w.includes('"X9"'))).toBe(true);
+    expect(a.warnings.filter((w) => w.includes('"X9"'))).toEqual(['Feed F-OX: channel "X9" on feed F-OX is not a known dtt channel.']);
+  });
+  it('an unknown transmit channel on the relay is named in a warning too', () => {
+    const a = run({ kind: 'dtt', source: { frequencyMHz: 618 }, target: { frequencyMHz: undefined, channel: '99' } });
+    expect(a.warnings).toEqual(['Feed F-OX: channel "99" on carriage OX-1 is not a known dtt channel.']);
   });
 });
 

@@ -205,7 +205,9 @@ export function computeFeedChecks(input: FeedCheckInput): FeedChecksAnswer {
   }
 
   const warnings = checks.filter((c) => c.ok === false).map((c) => failureSentence(feed.code, c));
-  if (!ctx.rx.ok && ctx.rx.missing.includes('is not a known')) warnings.push(`Feed ${feed.code}: ${ctx.rx.missing}.`);
+  // An unreadable channel label is a data error, not just a missing value: say so once.
+  const badLabels = new Set(checks.flatMap((c) => c.note.match(/channel "[^"]*" on [^;]*? is not a known \w+ channel/g) ?? []));
+  for (const label of badLabels) warnings.push(`Feed ${feed.code}: ${label}.`);
 
   return {
     feed: feed.code,
