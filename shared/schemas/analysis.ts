@@ -74,6 +74,8 @@ export interface ChainNode {
   loop?: boolean;
   /** set when an upstream walk ends at a non-origin carriage with no feed */
   deadEnd?: boolean;
+  /** set when this carriage is already expanded elsewhere in the same tree: shown once, so the tree stays as large as the network, not as the number of paths */
+  repeated?: boolean;
   children: ChainNode[];
 }
 

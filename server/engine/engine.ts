@@ -1,0 +1,264 @@
+/**
+ * The analysis engine: one immutable instance per network version, built from
+ * a validated network document. Answers rules 1-9 of handbook domain.md.
+ * Everything that does not depend on a request (dominator trees, unfed
+ * carriages, single points of failure, exposure, diversity) is computed in
+ * `build`; `reach` and `chain` work from those.
+ */
+import type { NetworkDocument } from '@/shared/schemas/network';
+import type {
+  ChainAnswer,
+  DiversityAnswer,
+  Element,
+  ExposureAnswer,
+  ExposureRow,
+  ReachAnswer,
+  SpofAnswer,
+  UnfedAnswer,
+} from '@/shared/schemas/analysis';
+import { elementKey } from '@/shared/schemas/analysis';
+import { buildCore, type BuildTimings, type EngineCore } from './core';
+import { elementId, normaliseCode } from './model';
+import { computeResilience, type Resilience } from './resilience';
+import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
+import { chainTree, type ChainDirection, type ChainOptions } from './chain';
+import { IntList } from './removal-walk';
+import { UnknownCarriageError, UnknownElementsError } from './errors';
+import type { ServiceGraph } from './graphs';
+import type { Csr } from './csr';
+
+export { UnknownElementsError, UnknownCarriageError } from './errors';
+
+export interface EngineCounts {
+  sites: number;
+  services: number;
+  groups: number;
+  carriages: number;
+  feeds: number;
+  /** nodes and edges of all service graphs together (roots and hop nodes included) */
+  nodes: number;
+  edges: number;
+  unfed: number;
+}
+
+export interface EngineTimings extends BuildTimings {
+  resilienceMs: number;
+  answersMs: number;
+  totalMs: number;
+}
+
+export class NetworkEngine {
+  readonly networkVersion: number;
+  readonly timings: EngineTimings;
+  private readonly core: EngineCore;
+  private readonly resilience: Resilience;
+  /** carriages that have programme only through a reserve even with nothing failed (rule 5) */
+  private readonly staticFallback: Int32Array;
+  private readonly scratch: ReachScratch;
+  private readonly spofAnswer: SpofAnswer;
+  private readonly unfedAnswer: UnfedAnswer;
+  private readonly diversityAnswer: DiversityAnswer;
+  private readonly exposureRows: ExposureRow[];
+
+  private constructor(core: EngineCore, networkVersion: number, started: number) {
+    this.core = core;
+    this.networkVersion = networkVersion;
+    const { model, fed, mainFed } = core;
+    let t = performance.now();
+    this.resilience = computeResilience(core);
+    const resilienceMs = performance.now() - t;
+
+    t = performance.now();
+    const staticFallback = new IntList();
+    for (let c = 0; c < model.carriages.length; c++) if (fed[c] && !mainFed[c]) staticFallback.push(c);
+    this.staticFallback = staticFallback.toArray();
+    this.scratch = createReachScratch(core);
+    const { spofOffsets, spofElements } = this.resilience;
+    const spofOf = (c: number) => Array.from(spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]), (x) => model.elements[x]);
+    const placed = (c: number) => ({
+      carriage: model.carriages[c].code,
+      service: model.services[model.carriageService[c]].code,
+      site: model.sites[model.carriageSite[c]].code,
+    });
+    const spofRows: SpofAnswer['carriages'] = [];
+    const unfedRows: UnfedAnswer['carriages'] = [];
+    const diversityRows: DiversityAnswer['carriages'] = [];
+    for (let c = 0; c < model.carriages.length; c++) {
+      if (!fed[c]) {
+        unfedRows.push(placed(c));
+        continue;
+      }
+      const spof = spofOf(c);
+      spofRows.push({ carriage: model.carriages[c].code, spof });
+      const hasReserve = Array.from(model.feedsInto[c]).some((f) => model.feedReserve[f] === 1);
+      if (hasReserve && spof.length > 0) diversityRows.push({ ...placed(c), shared: spof });
+    }
+    this.spofAnswer = { networkVersion, carriages: spofRows };
+    this.unfedAnswer = { networkVersion, carriages: unfedRows };
+    this.diversityAnswer = { networkVersion, carriages: diversityRows };
+    const { ranked, exposureHouseholds, exposureCarriages } = this.resilience;
+    this.exposureRows = Array.from(ranked, (x) => ({
+      element: model.elements[x],
+      households: exposureHouseholds[x],
+      carriages: exposureCarriages[x],
+    }));
+    const answersMs = performance.now() - t;
+    this.timings = { ...core.timings, resilienceMs, answersMs, totalMs: performance.now() - started };
+  }
+
+  static build(doc: NetworkDocument, networkVersion: number): NetworkEngine {
+    if (!Number.isInteger(networkVersion) || networkVersion < 0) {
+      throw new RangeError(`networkVersion must be a whole number >= 0 (got ${String(networkVersion)})`);
+    }
+    if (!doc || !Array.isArray(doc.sites) || !Array.isArray(doc.carriages) || !Array.isArray(doc.feeds)) {
+      throw new TypeError('build needs a validated network document (sites, services, groups, carriages, feeds)');
+    }
+    const started = performance.now();
+    return new NetworkEngine(buildCore(doc), networkVersion, started);
+  }
+
+  get counts(): EngineCounts {
+    const m = this.core.model;
+    return {
+      sites: m.sites.length,
+      services: m.services.length,
+      groups: m.groups.length,
+      carriages: m.carriages.length,
+      feeds: m.feeds.length,
+      nodes: this.core.totalNodes,
+      edges: this.core.totalEdges,
+      unfed: this.unfedAnswer.carriages.length,
+    };
+  }
+
+  hasElement(e: Element): boolean {
+    return elementId(this.core.model, e.kind, e.code) >= 0;
+  }
+
+  hasCarriage(code: string): boolean {
+    return this.core.model.carriageIndex.has(normaliseCode(code));
+  }
+
+  /** The graphology model of one service (read only: the engine does not watch it). */
+  serviceGraph(serviceCode: string): ServiceGraph | undefined {
+    const s = this.core.model.serviceIndex.get(normaliseCode(serviceCode));
+    return s === undefined ? undefined : this.core.graphs[s];
+  }
+
+  /** The compiled full graph of every service (root = node 0), e.g. to compare dominators with another implementation. */
+  flowGraphs(): { service: string; graph: Csr; idom: Int32Array }[] {
+    return this.core.services.map((svc, s) => ({
+      service: this.core.model.services[s].code,
+      graph: svc.full,
+      idom: this.core.full[s].tree.idom,
+    }));
+  }
+
+  private resolve(failed: Element[]): number[] {
+    if (!Array.isArray(failed)) throw new TypeError('failed must be an array of { kind, code } elements');
+    const ids: number[] = [];
+    const unknown = new Map<string, Element>();
+    for (const e of failed) {
+      const id = e && typeof e.code === 'string' ? elementId(this.core.model, e.kind, e.code) : -1;
+      if (id >= 0) ids.push(id);
+      else {
+        const shown = { kind: e?.kind, code: typeof e?.code === 'string' ? normaliseCode(e.code) : String(e?.code) } as Element;
+        unknown.set(elementKey(shown), shown);
+      }
+    }
+    if (unknown.size > 0) throw new UnknownElementsError([...unknown.values()]);
+    return ids;
+  }
+
+  reach(failed: Element[]): ReachAnswer {
+    const ids = this.resolve(failed);
+    const { lost, fallback } = lostAndFallback(this.core, this.staticFallback, ids, this.scratch);
+    return reachAnswer(this.core, this.networkVersion, lost, fallback);
+  }
+
+  spof(): SpofAnswer {
+    return this.spofAnswer;
+  }
+
+  exposure(limit?: number): ExposureAnswer {
+    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) {
+      throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    }
+    return { networkVersion: this.networkVersion, elements: limit === undefined ? this.exposureRows : this.exposureRows.slice(0, limit) };
+  }
+
+  diversity(): DiversityAnswer {
+    return this.diversityAnswer;
+  }
+
+  unfed(): UnfedAnswer {
+    return this.unfedAnswer;
+  }
+
+  chain(carriageCode: string, direction: ChainDirection, opts?: ChainOptions): ChainAnswer {
+    if (direction !== 'up' && direction !== 'down') throw new RangeError(`direction is up or down (got ${String(direction)})`);
+    const c = this.core.model.carriageIndex.get(normaliseCode(carriageCode));
+    if (c === undefined) throw new UnknownCarriageError(normaliseCode(carriageCode));
+    return chainTree(this.core, this.networkVersion, c, direction, opts);
+  }
+
+  /**
+   * The yardstick for reach: remove the failed elements' nodes and walk every
+   * service graph from its root with a plain typed-array BFS. Returns the
+   * number of carriages lost (no fallback, no answer building).
+   */
+  walkFloor(failed: Element[]): number {
+    const ids = this.resolve(failed);
+    const perService = this.scratch.perService;
+    removedNodesByService(this.core, ids, perService);
+    let lost = 0;
+    this.core.services.forEach((svc, s) => {
+      lost += this.core.walker.floorLost(this.core.full[s], svc.isCarriage, perService[s].data, perService[s].length);
+    });
+    return lost;
+  }
+
+  /**
+   * The obvious method for exposure: per element, remove its nodes and walk
+   * every service graph it has nodes in. Used to time the baseline and to
+   * cross-check the dominator method.
+   */
+  baselineExposure(sample: Element[]): ExposureRow[] {
+    const { model, services, full, walker } = this.core;
+    const perService = this.scratch.perService;
+    const lostNodes = new IntList(1024);
+    const siteStamp = new Uint8Array(model.sites.length);
+    return this.resolve(sample).map((x) => {
+      const touched = removedNodesByService(this.core, [x], perService);
+      const sites: number[] = [];
+      let carriages = 0;
+      let households = 0;
+      for (const s of touched) {
+        lostNodes.clear();
+        carriages += walker.floorLost(full[s], services[s].isCarriage, perService[s].data, perService[s].length, lostNodes);
+        for (let i = 0; i < lostNodes.length; i++) {
+          const site = model.carriageSite[services[s].ref[lostNodes.data[i]]];
+          if (!siteStamp[site]) {
+            siteStamp[site] = 1;
+            sites.push(site);
+            households += model.siteHouseholds[site];
+          }
+        }
+      }
+      for (const site of sites) siteStamp[site] = 0;
+      return { element: model.elements[x], households, carriages };
+    });
+  }
+
+  /** Recomputes single points of failure and exposure for every element (what `build` did), for timing. */
+  recomputeResilience(): { ms: number; elements: number } {
+    const t = performance.now();
+    computeResilience(this.core);
+    return { ms: performance.now() - t, elements: this.core.model.elementCount };
+  }
+
+  /** Every element of the network, in compareElements order. */
+  elements(): readonly Element[] {
+    return this.core.model.elements;
+  }
+}

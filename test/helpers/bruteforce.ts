@@ -1,0 +1,136 @@
+/**
+ * Rules 1-9 of handbook domain.md evaluated directly on the network document:
+ * no graph library, no dominators. "Has programme" is the least fixed point
+ * of rule 3, reached by starting from the origin carriages and sweeping the
+ * feeds until nothing changes. Slow on purpose, obviously right on purpose.
+ */
+import type { NetworkDocument } from '@/shared/schemas/network';
+import type { Element, ReachAnswer } from '@/shared/schemas/analysis';
+import { compareElements } from '@/shared/schemas/analysis';
+
+const sorted = (codes: Iterable<string>) => [...codes].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
+
+export class BruteForce {
+  constructor(readonly doc: NetworkDocument) {}
+
+  private siteOf = (carriage: string) => this.doc.carriages.find((c) => c.code === carriage)!.site;
+
+  /** Carriage codes that have programme under `failed` (rules 1-3); with `reservesDown`, every reserve feed is also down. */
+  programme(failed: Element[], reservesDown = false): Set<string> {
+    const doc = this.doc;
+    const failedSites = new Set(failed.filter((e) => e.kind === 'site').map((e) => e.code));
+    const failedFeeds = new Set(failed.filter((e) => e.kind === 'feed').map((e) => e.code));
+    const failedGroups = new Set(failed.filter((e) => e.kind === 'group').map((e) => e.code));
+    // Rule 1.
+    const siteDown = new Set(
+      doc.sites.filter((s) => failedSites.has(s.code) || (s.groups ?? []).some((g) => failedGroups.has(g))).map((s) => s.code),
+    );
+    const site = new Map(doc.carriages.map((c) => [c.code, c.site]));
+    const origin = new Set(doc.sites.filter((s) => s.role === 'origin').map((s) => s.code));
+    // Rule 2.
+    const feedUp = doc.feeds.filter(
+      (f) =>
+        !failedFeeds.has(f.code) &&
+        !(f.groups ?? []).some((g) => failedGroups.has(g)) &&
+        !siteDown.has(site.get(f.from)!) &&
+        !siteDown.has(site.get(f.to)!) &&
+        !(f.via ?? []).some((v) => siteDown.has(v)) &&
+        !(reservesDown && f.role === 'reserve'),
+    );
+    // Rule 3, least fixed point.
+    const has = new Set(doc.carriages.filter((c) => origin.has(c.site) && !siteDown.has(c.site)).map((c) => c.code));
+    let changed = true;
+    while (changed) {
+      changed = false;
+      for (const f of feedUp) {
+        if (has.has(f.from) && !has.has(f.to) && !siteDown.has(site.get(f.to)!)) {
+          has.add(f.to);
+          changed = true;
+        }
+      }
+    }
+    return has;
+  }
+
+  /** Rules 4, 5 and 7, in the engine's answer shape (without networkVersion). */
+  reach(failed: Element[]): Omit<ReachAnswer, 'networkVersion'> {
+    const doc = this.doc;
+    const before = this.programme([]);
+    const under = this.programme(failed);
+    const underMainOnly = this.programme(failed, true);
+    const lost = doc.carriages.filter((c) => before.has(c.code) && !under.has(c.code));
+    const fallback = doc.carriages.filter((c) => under.has(c.code) && !underMainOnly.has(c.code));
+    const households = new Map(doc.sites.map((s) => [s.code, s.households ?? 0]));
+    const siteLost = new Map<string, string[]>();
+    const siteFallback = new Map<string, string[]>();
+    for (const c of lost) siteLost.set(c.site, [...(siteLost.get(c.site) ?? []), c.service]);
+    for (const c of fallback) siteFallback.set(c.site, [...(siteFallback.get(c.site) ?? []), c.service]);
+    const siteCodes = sorted(new Set([...siteLost.keys(), ...siteFallback.keys()]));
+    let hhLost = 0;
+    let hhFallback = 0;
+    for (const s of siteCodes) {
+      if (siteLost.has(s)) hhLost += households.get(s)!;
+      else hhFallback += households.get(s)!;
+    }
+    const byService = sorted(doc.services.map((s) => s.code))
+      .map((service) => ({
+        service,
+        lost: lost.filter((c) => c.service === service).length,
+        fallback: fallback.filter((c) => c.service === service).length,
+      }))
+      .filter((r) => r.lost > 0 || r.fallback > 0);
+    return {
+      lost: sorted(lost.map((c) => c.code)),
+      fallback: sorted(fallback.map((c) => c.code)),
+      households: { lost: hhLost, fallback: hhFallback },
+      byService,
+      sites: siteCodes.map((site) => ({ site, lost: sorted(siteLost.get(site) ?? []), fallback: sorted(siteFallback.get(site) ?? []) })),
+    };
+  }
+
+  elements(): Element[] {
+    return [
+      ...this.doc.sites.map((s) => ({ kind: 'site' as const, code: s.code })),
+      ...this.doc.feeds.map((f) => ({ kind: 'feed' as const, code: f.code })),
+      ...this.doc.groups.map((g) => ({ kind: 'group' as const, code: g.code })),
+    ].sort(compareElements);
+  }
+
+  /** Rule 8. */
+  unfed(): string[] {
+    const before = this.programme([]);
+    return sorted(this.doc.carriages.filter((c) => !before.has(c.code)).map((c) => c.code));
+  }
+
+  /** Rule 6, for every fed carriage, by trying every element alone. */
+  spof(): { carriage: string; spof: Element[] }[] {
+    const before = this.programme([]);
+    const fed = sorted([...before]);
+    const under = new Map(this.elements().map((x) => [x, this.programme([x])]));
+    return fed.map((carriage) => ({
+      carriage,
+      spof: [...under.entries()]
+        .filter(([x, has]) => !(x.kind === 'site' && x.code === this.siteOf(carriage)) && !has.has(carriage))
+        .map(([x]) => x)
+        .sort(compareElements),
+    }));
+  }
+
+  /** Rule 7: exposure of every element, ranked as the engine ranks it. */
+  exposure(): { element: Element; households: number; carriages: number }[] {
+    return this.elements()
+      .map((element) => {
+        const r = this.reach([element]);
+        return { element, households: r.households.lost, carriages: r.lost.length };
+      })
+      .sort((a, b) => b.households - a.households || compareElements(a.element, b.element));
+  }
+
+  /** Rule 9. */
+  diversity(): { carriage: string; shared: Element[] }[] {
+    const withReserve = new Set(this.doc.feeds.filter((f) => f.role === 'reserve').map((f) => f.to));
+    return this.spof()
+      .filter((r) => withReserve.has(r.carriage) && r.spof.length > 0)
+      .map((r) => ({ carriage: r.carriage, shared: r.spof }));
+  }
+}
