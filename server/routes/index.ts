@@ -4,7 +4,8 @@
  */
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
+import { registerCheckRoutes } from './checks';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [];
+export const routeRegistrars: RouteRegistrar[] = [registerCheckRoutes];

@@ -79,7 +79,7 @@ export const feedSchema = z.strictObject({
   bearingDeg: opt(z.number().finite().min(0, 'bearing is 0-360 deg').max(360, 'bearing is 0-360 deg')),
 });
 
-export const NETWORK_FORMAT = 'network/1';
+export const NETWORK_FORMAT = 'network/1' as const;
 
 /** Top-level shape only; entities are checked one by one so every error is reported. */
 export const networkDocumentShape = z.strictObject({
@@ -100,12 +100,25 @@ export const networkDocumentSchema = z.strictObject({
   feeds: z.array(feedSchema),
 });
 
-export type Site = z.output<typeof siteSchema>;
-export type Service = z.output<typeof serviceSchema>;
-export type Group = z.output<typeof groupSchema>;
-export type Carriage = z.output<typeof carriageSchema>;
-export type Feed = z.output<typeof feedSchema>;
-export type NetworkDocument = z.output<typeof networkDocumentSchema>;
+/** Keys whose value may be undefined become optional keys (the schema's optional fields). */
+type UndefinedKeys<T> = { [K in keyof T]-?: undefined extends T[K] ? K : never }[keyof T];
+type Optionalize<T> = { [K in Exclude<keyof T, UndefinedKeys<T>>]: T[K] } & { [K in UndefinedKeys<T>]?: Exclude<T[K], undefined> };
+type Flat<T> = { [K in keyof T]: T[K] };
+type EntityOf<S extends z.ZodTypeAny> = Flat<Optionalize<z.output<S>>>;
+
+export type Site = EntityOf<typeof siteSchema>;
+export type Service = EntityOf<typeof serviceSchema>;
+export type Group = EntityOf<typeof groupSchema>;
+export type Carriage = EntityOf<typeof carriageSchema>;
+export type Feed = EntityOf<typeof feedSchema>;
+export interface NetworkDocument {
+  format: typeof NETWORK_FORMAT;
+  sites: Site[];
+  services: Service[];
+  groups: Group[];
+  carriages: Carriage[];
+  feeds: Feed[];
+}
 
 export const ENTITY_KINDS = ['sites', 'services', 'groups', 'carriages', 'feeds'] as const;
 export type EntityKind = (typeof ENTITY_KINDS)[number];
