@@ -6,7 +6,7 @@
  *   <TextField label="Email" value={email} onChangeText={setEmail}
  *     error={errors.email} keyboardType="email-address" autoComplete="email" />
  */
-import { useState } from 'react';
+import { useState, type Ref } from 'react';
 import { StyleSheet, Text, TextInput, View, type TextInputProps } from 'react-native';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { webAria } from './webAria';
@@ -20,9 +20,10 @@ export interface TextFieldProps extends Omit<TextInputProps, 'style' | 'accessib
   /** Codes, channels and frequencies read better in the monospaced face. */
   mono?: boolean;
   testID?: string;
+  ref?: Ref<TextInput>;
 }
 
-export function TextField({ label, error, hint, mono, testID, onFocus, onBlur, ...input }: TextFieldProps) {
+export function TextField({ label, error, hint, mono, testID, onFocus, onBlur, ref, ...input }: TextFieldProps) {
   const [focused, setFocused] = useState(false);
   const note = error || hint;
   return (
@@ -30,6 +31,7 @@ export function TextField({ label, error, hint, mono, testID, onFocus, onBlur, .
       <Text style={styles.label}>{label}</Text>
       <TextInput
         {...input}
+        ref={ref}
         accessibilityLabel={label}
         {...webAria({ 'aria-invalid': !!error })}
         testID={testID}

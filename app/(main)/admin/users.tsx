@@ -1,0 +1,5 @@
+import { PeopleScreen } from '@/src/screens/people/PeopleScreen';
+
+export default function PeopleRoute() {
+  return <PeopleScreen />;
+}

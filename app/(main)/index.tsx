@@ -1,0 +1,5 @@
+import { HomeScreen } from '@/src/screens/home/HomeScreen';
+
+export default function HomeRoute() {
+  return <HomeScreen />;
+}

@@ -1,0 +1,42 @@
+/**
+ * Root of the app: loads the shipped fonts (fonts/, nothing fetched at run
+ * time), restores the session, and provides the API/SWR layer. Routes decide
+ * where to go only once the session has been read (see app/(main)/_layout.tsx
+ * and app/sign-in.tsx).
+ */
+import { useFonts } from 'expo-font';
+import { Slot } from 'expo-router';
+import { StatusBar } from 'expo-status-bar';
+import { StyleSheet, View } from 'react-native';
+import { ApiProvider } from '@/src/api/ApiProvider';
+import { SessionProvider } from '@/src/session/SessionProvider';
+import { colors, FONT_NAMES } from '@/src/theme';
+
+export { RouteError as ErrorBoundary } from '@/src/components/RouteError';
+
+export default function RootLayout() {
+  const [loaded, fontError] = useFonts({
+    [FONT_NAMES.text]: require('../fonts/AtkinsonHyperlegible_400Regular.ttf'),
+    [FONT_NAMES.textBold]: require('../fonts/AtkinsonHyperlegible_700Bold.ttf'),
+    [FONT_NAMES.mono]: require('../fonts/IBMPlexMono_400Regular.ttf'),
+    [FONT_NAMES.monoBold]: require('../fonts/IBMPlexMono_600SemiBold.ttf'),
+  });
+  // A font that fails to load falls back to the system face (see theme);
+  // it must not keep the app from starting.
+  if (!loaded && !fontError) return null;
+
+  return (
+    <SessionProvider>
+      <ApiProvider>
+        <View style={styles.root}>
+          <StatusBar style="dark" />
+          <Slot />
+        </View>
+      </ApiProvider>
+    </SessionProvider>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1, backgroundColor: colors.canvas },
+});

@@ -1,0 +1,68 @@
+/**
+ * The invite form's rules: the same limits the server's invite check applies
+ * (POST /api/users: an e-mail address, a name of at most 200 characters,
+ * one of the four roles, a password of 10-200 characters), so the person
+ * sees the problem beside the field before anything is sent.
+ */
+import { z } from 'zod';
+import { ROLES } from '@/shared/api';
+import { isApiError } from '@/src/api/client';
+import type { Invitation } from '@/src/api/queries/accounts';
+
+export const PASSWORD_MIN = 10;
+export const PASSWORD_MAX = 200;
+
+export const invitationSchema = z.object({
+  email: z.string().trim().min(1, 'Enter an email address.').pipe(z.email('That does not look like an email address.')),
+  name: z.string().trim().max(200, 'A name is at most 200 characters.'),
+  role: z.enum(ROLES, { error: 'Pick a role.' }),
+  password: z
+    .string()
+    .min(PASSWORD_MIN, `A starting password has at least ${PASSWORD_MIN} characters.`)
+    .max(PASSWORD_MAX, `A starting password has at most ${PASSWORD_MAX} characters.`),
+});
+
+export type InvitationField = keyof Invitation;
+export type InvitationErrors = Partial<Record<InvitationField | 'form', string>>;
+
+export interface InvitationDraft {
+  email: string;
+  name: string;
+  role: string | null;
+  password: string;
+}
+
+export function checkInvitation(draft: InvitationDraft): { ok: true; invitation: Invitation } | { ok: false; errors: InvitationErrors } {
+  const r = invitationSchema.safeParse(draft);
+  if (r.success) return { ok: true, invitation: r.data };
+  const errors: InvitationErrors = {};
+  for (const issue of r.error.issues) {
+    const field = String(issue.path[0] ?? 'form') as InvitationField | 'form';
+    errors[field] ??= issue.message;
+  }
+  return { ok: false, errors };
+}
+
+const FIELDS: readonly string[] = ['email', 'name', 'role', 'password'];
+
+/**
+ * Places a refusal from the server: a 400's `details` ([{ field, message }])
+ * go beside their fields, a 409 (address already in use) beside the email,
+ * anything else above the form.
+ */
+export function invitationErrorsFromServer(error: unknown): InvitationErrors {
+  if (!isApiError(error)) return { form: 'The invitation could not be sent. Try again.' };
+  if (error.status === 409) return { email: error.message };
+  const errors: InvitationErrors = {};
+  if (error.status === 400 && Array.isArray(error.details)) {
+    for (const d of error.details as unknown[]) {
+      if (!d || typeof d !== 'object') continue;
+      const { field, message } = d as { field?: unknown; message?: unknown };
+      if (typeof field === 'string' && typeof message === 'string' && FIELDS.includes(field)) {
+        errors[field as InvitationField] ??= message;
+      }
+    }
+  }
+  if (Object.keys(errors).length === 0) errors.form = error.message;
+  return errors;
+}
