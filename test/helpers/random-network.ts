@@ -116,7 +116,7 @@ export function nationalNetwork(o: NationalNetworkOptions): NetworkDocument {
   const pad = (i: number) => String(i).padStart(6, '0');
   let feedNumber = 0;
   const addSite = (i: number, role: Site['role'], lat: number, lon: number, list: string[]) => {
-    const region = Math.min(regions - 1, Math.floor(((lon + 6) / 12) * regions));
+    const region = Math.max(0, Math.min(regions - 1, Math.floor(((lon + 6) / 12) * regions)));
     const site: Site = {
       code: `ST${pad(i)}`,
       name: `Site ${pad(i)}`,
