@@ -17,7 +17,7 @@ export function checkEntity<K extends EntityKind>(
   sink: IssueSink,
 ): z.output<(typeof entitySchemas)[K]> | undefined {
   const result = entitySchemas[kind].safeParse(raw);
-  if (result.success) return result.data as z.output<(typeof entitySchemas)[K]>;
+  if (result.success) return withoutAbsent(result.data) as z.output<(typeof entitySchemas)[K]>;
   const code = codeOf(raw);
   for (const issue of result.error.issues) {
     if (issue.code === 'unrecognized_keys') {
@@ -33,6 +33,14 @@ export function checkEntity<K extends EntityKind>(
     sink.error(kind, index, code, field || undefined, rule, detail);
   }
   return undefined;
+}
+
+/** A null optional field parses to undefined; drop the key so that export and round trips see it absent. */
+function withoutAbsent<T extends object>(entity: T): T {
+  for (const key of Object.keys(entity)) {
+    if ((entity as Record<string, unknown>)[key] === undefined) delete (entity as Record<string, unknown>)[key];
+  }
+  return entity;
 }
 
 function describe(issue: ZodIssue, field: string, value: unknown): { rule: string; detail: string } {

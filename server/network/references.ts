@@ -92,7 +92,9 @@ function checkFeed(view: NetworkView, sink: IssueSink, entry: Entry): void {
   if (source && target && source !== target) {
     const sourceService = refAt(source.raw, 'service');
     const targetService = refAt(target.raw, 'service');
-    if (sourceService !== undefined && targetService !== undefined && sourceService !== targetService) {
+    const known = (service: string | undefined) => service !== undefined && (view.byCode.services.has(service) || view.unreadable.has('services'));
+    // An unknown service is reported on its carriage; a mismatch with it would say nothing new.
+    if (known(sourceService) && known(targetService) && sourceService !== targetService) {
       sink.error('feeds', entry.index, code, 'to', 'service-mismatch',
         `source carriage ${from} carries service ${sourceService} but target carriage ${to} carries ${targetService}; both ends of a feed carry the same service`);
     }
