@@ -1,0 +1,193 @@
+import JSZip from 'jszip';
+import { describe, expect, it } from 'vitest';
+import { entitySchemas, ENTITY_KINDS } from '@/shared/schemas/network';
+import { CSV_COLUMNS, cellText, cellValue } from './csv-columns';
+import { CSV_FILE_NAMES, documentToCsv, documentToZip, kindOfFile, readCsvFiles } from './csv';
+import { readNetworkUpload, validateCsvFiles } from './upload';
+import { smallNetwork } from '@/test/fixtures/small-network';
+import { generateNetwork } from '@/scripts/generator';
+
+describe('CSV columns', () => {
+  it('name exactly the fields of each schema, in the handbook order', () => {
+    for (const kind of ENTITY_KINDS) {
+      expect(CSV_COLUMNS[kind].map(([c]) => c)).toEqual(Object.keys(entitySchemas[kind].shape));
+    }
+  });
+
+  it.each([
+    ['', 'number', undefined],
+    ['  ', 'string', undefined],
+    ['12.5', 'number', 12.5],
+    ['-3e2', 'number', -300],
+    ['0x1F', 'number', '0x1F'],
+    ['Infinity', 'number', 'Infinity'],
+    ['abc', 'number', 'abc'],
+    ['TRUE', 'boolean', true],
+    ['false', 'boolean', false],
+    ['yes', 'boolean', 'yes'],
+    ['G1; G2;;', 'list', ['G1', 'G2']],
+    [' 21 ', 'string', ' 21 '],
+  ] as const)('cell %j in a %s column reads as %j', (cell, type, value) => {
+    expect(cellValue(cell, type)).toEqual(value);
+  });
+
+  it('writes lists with ";" and absent values as empty cells', () => {
+    expect(cellText(['A', 'B'])).toBe('A;B');
+    expect(cellText(undefined)).toBe('');
+    expect(cellText(false)).toBe('false');
+    expect(cellText(0.1 + 0.2)).toBe('0.30000000000000004');
+  });
+
+  it('knows the five file names, in any case and inside a folder', () => {
+    expect(kindOfFile('Sites.CSV')).toBe('sites');
+    expect(kindOfFile('export/feeds.csv')).toBe('feeds');
+    expect(kindOfFile('site.csv')).toBeUndefined();
+  });
+});
+
+describe('reading CSV files', () => {
+  it('reads rows into entities, keeping each row number, coercing numbers, booleans and lists', () => {
+    const read = readCsvFiles([
+      { name: 'sites.csv', text: '\uFEFFcode,name,role,lat,lon,groups\nS1,"Hill, North",origin,-38.5,-29.25,G1;G2\n\nS2,Low,relay,1,2,\n' },
+      { name: 'carriages.csv', text: 'code,site,service,onChannelRepeater,erpW,channel\nC1,S2,TV,true,150,021\n' },
+    ]);
+    expect(read.errors).toEqual([]);
+    expect(read.raw.sites).toEqual([
+      { code: 'S1', name: 'Hill, North', role: 'origin', lat: -38.5, lon: -29.25, groups: ['G1', 'G2'] },
+      { code: 'S2', name: 'Low', role: 'relay', lat: 1, lon: 2 },
+    ]);
+    expect(read.raw.carriages).toEqual([{ code: 'C1', site: 'S2', service: 'TV', onChannelRepeater: true, erpW: 150, channel: '021' }]);
+    expect(read.rowsOf.sites).toEqual({ file: 'sites.csv', rows: [1, 2] });
+  });
+
+  it('reports a non-number in a number column with its file, row and field, never NaN', () => {
+    const result = validateCsvFiles([{ name: 'sites.csv', text: 'code,name,role,lat,lon\nS1,A,origin,0,0\nS2,B,relay,north,0\n' }]);
+    expect(result.document).toBeNull();
+    expect(result.errors).toEqual([
+      { kind: 'sites', file: 'sites.csv', row: 2, code: 'S2', field: 'lat', rule: 'wrong-type', message: 'site S2: lat must be a number (got "north")' },
+    ]);
+  });
+
+  it('reports unknown files, unknown and repeated columns, and missing required columns', () => {
+    const { errors } = readCsvFiles([
+      { name: 'towers.csv', text: 'code\nT1\n' },
+      { name: 'groups.csv', text: 'code,name,colour,name\nG1,One,red,Again\n' },
+      { name: 'services.csv', text: 'code,kind\nTV,dtt\n' },
+    ]);
+    expect(errors.map((e) => [e.rule, e.file, e.field])).toEqual([
+      ['unknown-file', 'towers.csv', undefined],
+      ['unknown-column', 'groups.csv', 'colour'],
+      ['duplicate-column', 'groups.csv', 'name'],
+      ['missing-column', 'services.csv', 'name'],
+    ]);
+    expect(errors[0].message).toBe('file "towers.csv" is not part of a network: the files are sites.csv, services.csv, groups.csv, carriages.csv, feeds.csv');
+    expect(errors[1].message).toBe('groups.csv: unknown column "colour" (the columns are code, name, note)');
+  });
+
+  it('reports every malformed row with its row number, and keeps the rows after it', () => {
+    const read = readCsvFiles([{ name: 'groups.csv', text: 'code,name\nG1,One\nG2\nG3,Three\nG4,"Four\n' }]);
+    expect(read.errors.map((e) => [e.rule, e.row])).toEqual([
+      ['csv-syntax', 2],
+      ['csv-syntax', 4],
+    ]);
+    expect(read.raw.groups).toEqual([{ code: 'G1', name: 'One' }, { code: 'G3', name: 'Three' }]);
+    expect(read.rowsOf.groups?.rows).toEqual([1, 3]);
+  });
+
+  it('reports the same kind uploaded twice', () => {
+    const { errors } = readCsvFiles([
+      { name: 'a/sites.csv', text: 'code,name,role,lat,lon\n' },
+      { name: 'b/sites.csv', text: 'code,name,role,lat,lon\n' },
+    ]);
+    expect(errors).toEqual([expect.objectContaining({ rule: 'duplicate-file', file: 'b/sites.csv' })]);
+  });
+
+  it('reports an empty file as having no header', () => {
+    const { errors } = readCsvFiles([{ name: 'feeds.csv', text: '' }]);
+    expect(errors).toEqual([expect.objectContaining({ rule: 'missing-header', file: 'feeds.csv' })]);
+  });
+});
+
+describe('CSV export and round trip', () => {
+  it('writes a header with every column, then one row per entity', () => {
+    const files = documentToCsv(smallNetwork());
+    expect(Object.keys(files)).toEqual(Object.values(CSV_FILE_NAMES));
+    const lines = files['feeds.csv'].trimEnd().split('\n');
+    expect(lines[0]).toBe('code,from,to,medium,role,via,groups,rxFrequencyMHz,rxChannel,rxAntenna,bearingDeg');
+    expect(lines[3]).toBe('M1.FM1.M,O1.FM1,M1.FM1,microwave,main,H1,,7500,,,');
+    expect(lines).toHaveLength(1 + smallNetwork().feeds.length);
+  });
+
+  it('document -> CSV zip -> document gives back the same document (small network)', async () => {
+    const doc = smallNetwork();
+    const zip = await documentToZip(doc);
+    const result = await readNetworkUpload('network.zip', zip);
+    expect(result.errors).toEqual([]);
+    expect(result.document).toEqual(doc);
+  });
+
+  it('document -> CSV zip -> document gives back the same generated network of 300 sites', async () => {
+    const doc = generateNetwork({ sites: 300, seed: 11 });
+    const result = await readNetworkUpload('export.zip', await documentToZip(doc));
+    expect(result.errors).toEqual([]);
+    expect(result.document).toEqual(doc);
+  });
+
+  it('quotes names with commas, quotes and line breaks so they survive', () => {
+    const doc = smallNetwork();
+    doc.sites[0].name = 'Origin "One", the\nold studio';
+    doc.groups[2].note = 'route 7; leased';
+    const files = documentToCsv(doc);
+    const result = validateCsvFiles(Object.entries(files).map(([name, text]) => ({ name, text })));
+    expect(result.document?.sites[0].name).toBe(doc.sites[0].name);
+    expect(result.document?.groups[2].note).toBe('route 7; leased');
+  });
+});
+
+describe('uploads', () => {
+  it('reads a JSON document by its name', async () => {
+    const result = await readNetworkUpload('net.json', Buffer.from(JSON.stringify(smallNetwork())));
+    expect(result.errors).toEqual([]);
+    expect(result.document).toEqual(smallNetwork());
+  });
+
+  it('reports JSON that does not parse', async () => {
+    const result = await readNetworkUpload('net.json', Buffer.from('{"format": '));
+    expect(result.errors).toEqual([expect.objectContaining({ kind: 'document', rule: 'invalid-json', file: 'net.json' })]);
+  });
+
+  it('reads one CSV file alone', async () => {
+    const result = await readNetworkUpload('services.csv', Buffer.from('code,name,kind\nTV,Multiplex,dtt\n'));
+    expect(result.errors).toEqual([]);
+    expect(result.document?.services).toEqual([{ code: 'TV', name: 'Multiplex', kind: 'dtt' }]);
+  });
+
+  it('recognises a zip by its signature whatever its name, and skips archiver metadata', async () => {
+    const zip = new JSZip();
+    zip.file('net/services.csv', 'code,name,kind\nTV,Multiplex,dtt\n');
+    zip.file('__MACOSX/net/._services.csv', 'binary junk');
+    const data = await zip.generateAsync({ type: 'nodebuffer' });
+    const result = await readNetworkUpload('upload.bin', data);
+    expect(result.errors).toEqual([]);
+    expect(result.document?.services).toHaveLength(1);
+  });
+
+  it('reports a broken zip, an empty zip and an unknown file type', async () => {
+    expect((await readNetworkUpload('x.zip', Buffer.from('PK\u0003\u0004 not really'))).errors[0].rule).toBe('bad-zip');
+    expect((await readNetworkUpload('x.zip', await new JSZip().generateAsync({ type: 'nodebuffer' }))).errors[0].rule).toBe('empty-zip');
+    expect((await readNetworkUpload('network.xlsx', Buffer.from('x'))).errors[0]).toMatchObject({ rule: 'unknown-file', file: 'network.xlsx' });
+  });
+
+  it('puts file errors and row errors of a zip in one report', async () => {
+    const zip = new JSZip();
+    zip.file('sites.csv', 'code,name,role,lat,lon,height\nS1,A,origin,0,0,3\nS2,B,main,0,-200,4\n');
+    zip.file('readme.txt', 'hello');
+    const result = await readNetworkUpload('n.zip', await zip.generateAsync({ type: 'nodebuffer' }));
+    expect(result.document).toBeNull();
+    expect(result.errors.map((e) => [e.rule, e.file, e.row, e.field])).toEqual([
+      ['unknown-column', 'sites.csv', undefined, 'height'],
+      ['unknown-file', 'readme.txt', undefined, undefined],
+      ['out-of-range', 'sites.csv', 2, 'lon'],
+    ]);
+  });
+});
