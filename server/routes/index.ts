@@ -5,7 +5,9 @@
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { registerCheckRoutes } from './checks';
+import { registerInventoryRoutes } from './inventory';
+import { registerNetworkRoutes } from './network';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [registerCheckRoutes];
+export const routeRegistrars: RouteRegistrar[] = [registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes];

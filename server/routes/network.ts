@@ -1,0 +1,90 @@
+/**
+ * The network as a whole (handbook interchange.md sections 1 and 2), paths
+ * relative to /api:
+ *
+ *   POST /network/import   ?dryRun=true|false ?replace=true|false
+ *        body: the network document (application/json), or multipart/form-data
+ *        with one or more `file` fields: a .json document, CSV files named by
+ *        their kind (sites.csv, ...), or zips of them
+ *        -> 200 the import report; 422 the report when it lists errors
+ *   GET  /network/export   ?format=json (default) | csv (a zip of the five CSV files)
+ *   GET  /audit            admin only: ?page ?pageSize ?kind ?code ?action
+ *        -> { items: [{ id, at, userEmail, action, entityKind, entityCode,
+ *             before, after, networkVersion }], total, page, pageSize }, newest first
+ */
+import type { RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import { can } from '@/shared/api';
+import { ApiError, badRequest, parseOr400 } from '../http/errors';
+import type { RouteTable } from '../http/routes';
+import type { AppContext } from '../context';
+import { importNetwork } from '../services/importer';
+import { readUploads } from '../services/import/uploads';
+import { loadNetworkDocument } from '../services/networkLoader';
+import { AUDIT_ACTIONS, AUDIT_KINDS, listAudit, type AuditAction, type AuditKind } from '../services/audit';
+import { documentToZip } from '../network/csv';
+import { MAX_PAGE_SIZE } from '../services/inventory/read';
+import { actorOf } from './inventory';
+
+const MAX_FILES = 10;
+
+const flag = (name: string) => z.enum(['true', 'false'], { error: `${name} is true or false` }).default('false').transform((v) => v === 'true');
+const importQuerySchema = z.strictObject({ dryRun: flag('dryRun'), replace: flag('replace') });
+const exportQuerySchema = z.strictObject({ format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json') });
+const auditQuerySchema = z.strictObject({
+  page: z.coerce.number({ error: 'page must be a whole number' }).int('page must be a whole number').min(1, 'page is at least 1').default(1),
+  pageSize: z.coerce.number({ error: 'pageSize must be a whole number' }).int().min(1).max(MAX_PAGE_SIZE, `pageSize is at most ${MAX_PAGE_SIZE}`).default(50),
+  kind: z.enum(AUDIT_KINDS as [AuditKind, ...AuditKind[]], { error: `kind is one of ${AUDIT_KINDS.join(', ')}` }).optional(),
+  code: z.string().min(1).max(64).optional(),
+  action: z.enum(AUDIT_ACTIONS as [AuditAction, ...AuditAction[]], { error: `action is one of ${AUDIT_ACTIONS.join(', ')}` }).optional(),
+});
+
+/** multer for multipart requests only; a body it cannot read is the client's 400, never a 500. */
+function multipartFiles(limitMb: number): RequestHandler {
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: Math.floor(limitMb * 1024 * 1024), files: MAX_FILES } }).array('file', MAX_FILES);
+  return (req, res, next) => {
+    if (!req.is('multipart/form-data')) return next();
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) return next(err);
+      next(badRequest(`the upload cannot be read: ${(err as Error).message ?? String(err)}`));
+    });
+  };
+}
+
+export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
+  const sequelize = ctx.db.sequelize;
+
+  routes.add('post', '/network/import', can.editNetwork, multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
+    const { dryRun, replace } = parseOr400(importQuerySchema, req.query, 'query');
+    let input: Awaited<ReturnType<typeof readUploads>>;
+    if (req.is('multipart/form-data')) {
+      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      if (files.length === 0) throw badRequest('no file was sent: put the network in a multipart field named "file"', [{ field: 'file', message: 'required' }]);
+      input = await readUploads(files.map((f) => ({ name: f.originalname, data: f.buffer })));
+    } else if (req.is('application/json')) {
+      input = { raw: req.body, sourceErrors: [] };
+    } else {
+      throw new ApiError(415, 'unsupported-media-type', 'send the network document as application/json, or files as multipart/form-data in the field "file"');
+    }
+    const report = await importNetwork(ctx.db, input.raw, { dryRun, replace, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors });
+    if (report.ok && !report.dryRun && report.networkVersion !== undefined) await ctx.network.refresh(report.networkVersion);
+    res.status(report.errors.length > 0 ? 422 : 200).json(report);
+  });
+
+  routes.add('get', '/network/export', can.read, async (req, res) => {
+    const { format } = parseOr400(exportQuerySchema, req.query, 'query');
+    const { document, version } = await loadNetworkDocument(sequelize);
+    res.set('X-Network-Version', String(version));
+    if (format === 'csv') {
+      res.type('application/zip').attachment(`network-v${version}.zip`).send(await documentToZip(document));
+      return;
+    }
+    res.attachment(`network-v${version}.json`).json(document);
+  });
+
+  routes.add('get', '/audit', can.manageUsers, async (req, res) => {
+    res.json(await listAudit(sequelize, parseOr400(auditQuerySchema, req.query, 'query')));
+  });
+}

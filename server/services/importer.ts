@@ -1,0 +1,137 @@
+/**
+ * Imports a network document (handbook interchange.md section 1, "Import
+ * rules"): everything is validated first and every problem reported; then,
+ * in one transaction, entities are upserted by code (unchanged ones are not
+ * touched, so their versions stay), with `replace` whatever the document
+ * leaves out is deleted, and the network version moves once if anything
+ * changed. A dry run answers the same report and writes nothing. One audit
+ * row records each import that was carried out.
+ */
+import crypto from 'node:crypto';
+import { ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
+import type { ImportIssue, ImportReport } from '@/shared/schemas/import';
+import type { Database } from '../db';
+import { validateDocument } from '../network/validate';
+import type { RowsOf } from '../network/issues';
+import { loadNetworkDocument } from './networkLoader';
+import type { Actor } from './audit';
+import { countsOf, emptyCounts, planImport, type ImportPlan } from './import/plan';
+import { checkKeptFeeds } from './import/storedConflicts';
+import { RollBack, withNetworkWrite, type NetworkWrite } from './inventory/networkWrite';
+import { deleteByCodes, writeEntities } from './inventory/tables';
+import { databaseRefusal } from './inventory/dbErrors';
+
+export interface ImportOptions {
+  dryRun?: boolean;
+  /** make the network equal to the document: delete what it leaves out */
+  replace?: boolean;
+  actor?: Actor;
+  /** for a document read from CSV (server/network/csv.ts readCsvFiles): each entity's file and row */
+  rowsOf?: RowsOf;
+  /** problems found reading the upload itself (file names, headers, CSV syntax), reported first */
+  sourceErrors?: ImportIssue[];
+}
+
+type Checked = { document: NetworkDocument; warnings: ImportIssue[] } | { document: null; errors: ImportIssue[]; warnings: ImportIssue[] };
+
+/** Validates against the stored network: an upsert may refer to stored entities, a replace may not. */
+function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions, replace: boolean): Checked {
+  // an upload that could not be read at all has nothing more to validate
+  if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [] };
+  const result = validateDocument(raw, { rowsOf: opts.rowsOf, context: replace ? undefined : stored });
+  const errors = [...(opts.sourceErrors ?? []), ...result.errors];
+  if (errors.length === 0 && result.document && !replace) errors.push(...checkKeptFeeds(stored, result.document, opts.rowsOf));
+  if (errors.length > 0 || !result.document) return { document: null, errors, warnings: result.warnings };
+  return { document: result.document, warnings: result.warnings };
+}
+
+function receivedCounts(raw: unknown): Record<EntityKind, number> {
+  const out = {} as Record<EntityKind, number>;
+  for (const kind of ENTITY_KINDS) {
+    const list = raw !== null && typeof raw === 'object' ? (raw as Record<string, unknown>)[kind] : undefined;
+    out[kind] = Array.isArray(list) ? list.length : 0;
+  }
+  return out;
+}
+
+export async function importNetwork(db: Database, raw: unknown, opts: ImportOptions = {}): Promise<ImportReport> {
+  const dryRun = opts.dryRun === true;
+  const replace = opts.replace === true;
+  const received = receivedCounts(raw);
+  const failed = (errors: ImportIssue[], warnings: ImportIssue[], networkVersion?: number): ImportReport => ({
+    ok: false, dryRun, replace, counts: emptyCounts(received), errors, warnings, ...(networkVersion !== undefined ? { networkVersion } : {}),
+  });
+
+  if (dryRun) {
+    const { document: stored, version } = await loadNetworkDocument(db.sequelize);
+    const checked = check(raw, stored, opts, replace);
+    if (!checked.document) return failed(checked.errors, checked.warnings, version);
+    const plan = planImport(stored, checked.document, replace);
+    return { ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version };
+  }
+
+  try {
+    const outcome = await withNetworkWrite(db.sequelize, opts.actor ?? {}, async (w) => {
+      const { document: stored } = await loadNetworkDocument(db.sequelize, w.transaction);
+      const checked = check(raw, stored, opts, replace);
+      if (!checked.document) throw new RollBack(failed(checked.errors, checked.warnings));
+      const plan = planImport(stored, checked.document, replace);
+      await carryOut(w, plan);
+      const counts = countsOf(plan, received);
+      if (plan.changed) w.markChanged();
+      w.audit({ action: 'import', entityKind: 'network', after: { replace, counts, warnings: checked.warnings.length } });
+      return { ok: true, dryRun, replace, counts, errors: [], warnings: checked.warnings } as ImportReport;
+    });
+    return { ...outcome.result, networkVersion: outcome.networkVersion };
+  } catch (err) {
+    const refusal = databaseRefusal(err);
+    if (!refusal) throw err;
+    return failed([{ kind: 'document', rule: 'database-refused', message: `nothing was imported: ${refusal.message}` }], []);
+  }
+}
+
+/**
+ * The order keeps every foreign key and the one-carriage-per-(site, service)
+ * rule satisfied at each statement: dropped feeds go first, then the things
+ * carriages refer to, then carriages (after any that hold a wanted place have
+ * stepped aside), then feeds and their via-sites and groups, and last what
+ * `replace` drops, referrers before the referred.
+ */
+async function carryOut(w: NetworkWrite, plan: ImportPlan): Promise<void> {
+  const k = plan.kinds;
+  const written = (kind: EntityKind) => [...k[kind].create, ...k[kind].update];
+  await deleteByCodes(w, 'feeds', k.feeds.remove);
+  await writeEntities(w, 'services', written('services'));
+  await writeEntities(w, 'groups', written('groups'));
+  await writeEntities(w, 'sites', written('sites'));
+  const parking = await parkCarriages(w, plan.park);
+  await writeEntities(w, 'carriages', written('carriages'));
+  await writeEntities(w, 'feeds', written('feeds'));
+  await deleteByCodes(w, 'carriages', k.carriages.remove);
+  if (parking.length > 0) await deleteByCodes(w, 'services', parking);
+  await deleteByCodes(w, 'sites', k.sites.remove);
+  await deleteByCodes(w, 'groups', k.groups.remove);
+  await deleteByCodes(w, 'services', k.services.remove);
+}
+
+/**
+ * Moves each carriage in `codes` onto a service of its own, made for the
+ * length of this transaction, so its (site, service) place is free. Each of
+ * them is then either written to its new place or deleted, and the parking
+ * services are deleted again before commit; nothing of them is ever visible.
+ */
+async function parkCarriages(w: NetworkWrite, codes: readonly string[]): Promise<string[]> {
+  if (codes.length === 0) return [];
+  const prefix = `.parking-${crypto.randomBytes(6).toString('hex')}-`;
+  const parking = codes.map((_, i) => `${prefix}${i}`);
+  await w.sequelize.query(`INSERT INTO services (code, name, kind) SELECT code, 'parking', 'other' FROM unnest($1::text[]) AS u(code)`, {
+    bind: [parking],
+    transaction: w.transaction,
+  });
+  await w.sequelize.query(
+    `UPDATE carriages c SET service_id = s.id FROM unnest($1::text[], $2::text[]) AS u(carriage, parking)
+     JOIN services s ON s.code = u.parking WHERE c.code = u.carriage`,
+    { bind: [codes, parking], transaction: w.transaction },
+  );
+  return parking;
+}

@@ -1,0 +1,64 @@
+/**
+ * Every change to the network runs through here: one transaction that first
+ * locks the network-version row, so writers (imports and single edits) take
+ * turns and each one reads the network as the previous one left it; the
+ * version is bumped once (its NOTIFY goes out on commit, server/db/index.ts)
+ * and the audit rows carry that version. A write that changes nothing keeps
+ * the version where it is.
+ */
+import type { Sequelize } from 'sequelize';
+import { bumpNetworkVersion } from '../../db';
+import { recordAudit, type Actor, type AuditEntry } from '../audit';
+import type { Tx } from './tables';
+
+export interface NetworkWrite extends Tx {
+  /** the network version when the lock was taken */
+  readonly startVersion: number;
+  audit(entry: AuditEntry): void;
+  /** the network changed even if no audit entry says so on its own (an import's single entry) */
+  markChanged(): void;
+}
+
+export interface WriteResult<R> {
+  result: R;
+  networkVersion: number;
+  changed: boolean;
+}
+
+/** Thrown inside a write to roll it back and hand a value back instead of an error. */
+export class RollBack<R> extends Error {
+  constructor(readonly value: R) {
+    super('rolled back');
+  }
+}
+
+export async function withNetworkWrite<R>(sequelize: Sequelize, actor: Actor, work: (w: NetworkWrite) => Promise<R>): Promise<WriteResult<R>> {
+  let startVersion = 0;
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const [locked] = await sequelize.query('SELECT version FROM network_state WHERE id = 1 FOR UPDATE', { transaction });
+      startVersion = Number((locked as { version: number }[])[0].version);
+      const entries: AuditEntry[] = [];
+      let changed = false;
+      const w: NetworkWrite = {
+        sequelize,
+        transaction,
+        startVersion,
+        audit: (entry) => {
+          entries.push(entry);
+          if (entry.action !== 'import') changed = true;
+        },
+        markChanged: () => {
+          changed = true;
+        },
+      };
+      const result = await work(w);
+      const networkVersion = changed ? await bumpNetworkVersion(sequelize, transaction) : startVersion;
+      if (entries.length > 0) await recordAudit(sequelize, transaction, actor, networkVersion, entries);
+      return { result, networkVersion, changed };
+    });
+  } catch (err) {
+    if (err instanceof RollBack) return { result: err.value as R, networkVersion: startVersion, changed: false };
+    throw err;
+  }
+}

@@ -1,0 +1,96 @@
+/**
+ * How each kind is read: one SELECT giving the document shape (codes, not
+ * ids; group and via lists as arrays) plus version and last change, and the
+ * whitelists a list request may sort, search and filter by. Only names from
+ * these tables ever reach SQL text; every value a client sends is a bind
+ * parameter.
+ */
+import type { EntityKind } from '@/shared/schemas/network';
+import { MEDIA, FEED_ROLES, SITE_ROLES } from '@/shared/schemas/network';
+
+export interface Filter {
+  /** SQL with `?` where the bound value goes */
+  sql: string;
+  /** allowed values, when the filter is an enum */
+  values?: readonly string[];
+}
+
+export interface KindQuery {
+  /** the select list: document fields, id, version and updatedAt */
+  columns: string;
+  /** the main table, aliased `e`, with the joins the columns, sorts and filters use */
+  from: string;
+  sorts: Record<string, string>;
+  /** expressions a text search looks in */
+  search: string[];
+  filters: Record<string, Filter>;
+}
+
+const siteGroups = `ARRAY(SELECT g.code FROM site_groups sg JOIN risk_groups g ON g.id = sg.group_id WHERE sg.site_id = e.id ORDER BY g.code)`;
+const feedGroups = `ARRAY(SELECT g.code FROM feed_groups fg JOIN risk_groups g ON g.id = fg.group_id WHERE fg.feed_id = e.id ORDER BY g.code)`;
+const feedVia = `ARRAY(SELECT s.code FROM feed_via_sites v JOIN sites s ON s.id = v.site_id WHERE v.feed_id = e.id ORDER BY v.position)`;
+const stamp = `e.version, e.updated_at AS "updatedAt"`;
+
+export const QUERIES: Record<EntityKind, KindQuery> = {
+  sites: {
+    columns: `e.id, e.code, e.name, e.role, e.lat, e.lon, e.ground_height_m AS "groundHeightM", e.mast_height_m AS "mastHeightM",
+              e.households, ${siteGroups} AS groups, ${stamp}`,
+    from: 'sites e',
+    sorts: {
+      code: 'e.code', name: 'e.name', role: 'e.role', lat: 'e.lat', lon: 'e.lon', groundHeightM: 'e.ground_height_m',
+      mastHeightM: 'e.mast_height_m', households: 'e.households', updatedAt: 'e.updated_at',
+    },
+    search: ['e.code', 'e.name'],
+    filters: {
+      role: { sql: 'e.role = ?', values: SITE_ROLES },
+      group: { sql: 'EXISTS (SELECT 1 FROM site_groups sg JOIN risk_groups g ON g.id = sg.group_id WHERE sg.site_id = e.id AND g.code = ?)' },
+    },
+  },
+  services: {
+    columns: `e.id, e.code, e.name, e.kind, ${stamp}`,
+    from: 'services e',
+    sorts: { code: 'e.code', name: 'e.name', kind: 'e.kind', updatedAt: 'e.updated_at' },
+    search: ['e.code', 'e.name'],
+    filters: {},
+  },
+  groups: {
+    columns: `e.id, e.code, e.name, e.note, ${stamp}`,
+    from: 'risk_groups e',
+    sorts: { code: 'e.code', name: 'e.name', updatedAt: 'e.updated_at' },
+    search: ['e.code', 'e.name'],
+    filters: {},
+  },
+  carriages: {
+    columns: `e.id, e.code, si.code AS site, sv.code AS service, e.frequency_mhz AS "frequencyMHz", e.channel, e.erp_w AS "erpW",
+              e.polarisation, e.antenna_height_m AS "antennaHeightM", e.on_channel_repeater AS "onChannelRepeater", ${stamp}`,
+    from: 'carriages e JOIN sites si ON si.id = e.site_id JOIN services sv ON sv.id = e.service_id',
+    sorts: {
+      code: 'e.code', site: 'si.code', service: 'sv.code', frequencyMHz: 'e.frequency_mhz', channel: 'e.channel',
+      erpW: 'e.erp_w', antennaHeightM: 'e.antenna_height_m', updatedAt: 'e.updated_at',
+    },
+    search: ['e.code', 'si.code', 'sv.code'],
+    filters: {
+      service: { sql: 'sv.code = ?' },
+      site: { sql: 'si.code = ?' },
+    },
+  },
+  feeds: {
+    columns: `e.id, e.code, a.code AS "from", b.code AS "to", e.medium, e.role, ${feedVia} AS via, ${feedGroups} AS groups,
+              e.rx_frequency_mhz AS "rxFrequencyMHz", e.rx_channel AS "rxChannel", e.rx_antenna AS "rxAntenna", e.bearing_deg AS "bearingDeg", ${stamp}`,
+    from: `feeds e JOIN carriages a ON a.id = e.from_carriage_id JOIN carriages b ON b.id = e.to_carriage_id
+             JOIN sites sa ON sa.id = a.site_id JOIN sites sb ON sb.id = b.site_id JOIN services sv ON sv.id = a.service_id`,
+    sorts: {
+      code: 'e.code', from: 'a.code', to: 'b.code', medium: 'e.medium', role: 'e.role', service: 'sv.code',
+      fromSite: 'sa.code', toSite: 'sb.code', bearingDeg: 'e.bearing_deg', updatedAt: 'e.updated_at',
+    },
+    search: ['e.code', 'a.code', 'b.code', 'sa.code', 'sb.code', 'sv.code'],
+    filters: {
+      medium: { sql: 'e.medium = ?', values: MEDIA },
+      role: { sql: 'e.role = ?', values: FEED_ROLES },
+      service: { sql: 'sv.code = ?' },
+      fromSite: { sql: 'sa.code = ?' },
+      toSite: { sql: 'sb.code = ?' },
+      group: { sql: 'EXISTS (SELECT 1 FROM feed_groups fg JOIN risk_groups g ON g.id = fg.group_id WHERE fg.feed_id = e.id AND g.code = ?)' },
+    },
+  },
+};

@@ -1,0 +1,131 @@
+/**
+ * Deleting one entity. What depends on it is never removed silently: a site
+ * with carriages or feeds routed via it, a service with carriages, a
+ * carriage with feeds, a group with members are refused with 409 naming
+ * them (the first 20 and the count). With `cascade` the dependents are
+ * deleted too (a group's members only leave the group), in the same
+ * transaction, each with its own audit row.
+ *
+ * Dependents: site -> its carriages, their feeds, and feeds routed via it;
+ * service -> its carriages and their feeds; carriage -> its feeds in and
+ * out; group -> the sites and feeds in it (their membership).
+ */
+import type { Sequelize } from 'sequelize';
+import type { EntityKind } from '@/shared/schemas/network';
+import { conflict, notFound } from '../../http/errors';
+import type { Actor } from '../audit';
+import { withNetworkWrite, type NetworkWrite, type WriteResult } from './networkWrite';
+import { findByCode, findWhere, type Found } from './read';
+import { canonical, NOUN, type Fields } from './shape';
+import { deleteByCodes, writeEntities } from './tables';
+import { auditShape, refusalsAsApiErrors } from './write';
+
+const SHOWN = 20;
+
+type DependentKind = 'carriages' | 'feeds' | 'sites';
+/** SQL conditions (on the dependent kind's query, queries.ts) selecting the dependents of the entity with code $1. */
+const DEPENDENTS: Partial<Record<EntityKind, Partial<Record<DependentKind, string>>>> = {
+  sites: {
+    carriages: 'si.code = $1',
+    feeds: `sa.code = $1 OR sb.code = $1 OR EXISTS (SELECT 1 FROM feed_via_sites v JOIN sites s ON s.id = v.site_id WHERE v.feed_id = e.id AND s.code = $1)`,
+  },
+  services: { carriages: 'sv.code = $1', feeds: 'sv.code = $1' },
+  carriages: { feeds: 'a.code = $1 OR b.code = $1' },
+  groups: {
+    sites: 'EXISTS (SELECT 1 FROM site_groups sg JOIN risk_groups g ON g.id = sg.group_id WHERE sg.site_id = e.id AND g.code = $1)',
+    feeds: 'EXISTS (SELECT 1 FROM feed_groups fg JOIN risk_groups g ON g.id = fg.group_id WHERE fg.feed_id = e.id AND g.code = $1)',
+  },
+};
+
+export interface DeleteOutcome {
+  deleted: Partial<Record<EntityKind, string[]>>;
+  /** entities changed rather than deleted: the members a deleted group was taken out of */
+  updated: Partial<Record<EntityKind, string[]>>;
+}
+
+const listed = (codes: string[], total: number) => (total > codes.length ? `${codes.join(', ')} and ${total - codes.length} more` : codes.join(', '));
+const plural = (n: number, noun: string) => `${n} ${noun}${n === 1 ? '' : 's'}`;
+
+export async function deleteEntity(
+  sequelize: Sequelize,
+  kind: EntityKind,
+  code: string,
+  opts: { version: number; cascade: boolean },
+  actor: Actor,
+): Promise<WriteResult<DeleteOutcome>> {
+  return refusalsAsApiErrors(() =>
+    withNetworkWrite(sequelize, actor, async (w) => {
+      const current = await findByCode(sequelize, kind, code, w.transaction);
+      if (!current) throw notFound(`no ${NOUN[kind]} with code ${code}`, { code });
+      const currentVersion = current.entity.version as number;
+      if (currentVersion !== opts.version) {
+        throw conflict(`${NOUN[kind]} ${code} was changed since you read it (you sent version ${opts.version}, it is now at ${currentVersion}); reload and try again`, {
+          currentVersion,
+          current: current.entity,
+        });
+      }
+      const dependents = await findDependents(w, kind, code);
+      const outcome: DeleteOutcome = { deleted: {}, updated: {} };
+      if (dependents.some(([, found]) => found.length > 0)) {
+        if (!opts.cascade) refuse(kind, code, dependents);
+        if (kind === 'groups') await leaveGroup(w, code, dependents, outcome);
+        else await deleteDependents(w, dependents, outcome);
+      }
+      await deleteByCodes(w, kind, [code]);
+      w.audit({ action: 'delete', entityKind: kind, entityCode: code, before: auditShape(current.entity) });
+      outcome.deleted[kind] = [...(outcome.deleted[kind] ?? []), code];
+      return outcome;
+    }),
+  );
+}
+
+async function findDependents(w: NetworkWrite, kind: EntityKind, code: string): Promise<Array<[DependentKind, Found[]]>> {
+  const out: Array<[DependentKind, Found[]]> = [];
+  for (const [dependent, condition] of Object.entries(DEPENDENTS[kind] ?? {}) as Array<[DependentKind, string]>) {
+    out.push([dependent, await findWhere(w.sequelize, dependent, condition, [code], { transaction: w.transaction })]);
+  }
+  return out;
+}
+
+function refuse(kind: EntityKind, code: string, dependents: Array<[DependentKind, Found[]]>): never {
+  const details: Record<string, { count: number; codes: string[] }> = {};
+  const parts: string[] = [];
+  for (const [dependent, found] of dependents) {
+    if (found.length === 0) continue;
+    const codes = found.slice(0, SHOWN).map((f) => f.entity.code as string);
+    details[dependent] = { count: found.length, codes };
+    parts.push(`${plural(found.length, NOUN[dependent])} (${listed(codes, found.length)})`);
+  }
+  const what = kind === 'groups' ? 'has members' : 'still has';
+  const fix = kind === 'groups' ? 'take them out of the group first, or delete with cascade=true to take them out' : 'delete them first, or delete with cascade=true to delete them too';
+  throw conflict(`${NOUN[kind]} ${code} ${what}: ${parts.join(' and ')}; ${fix}`, { dependents: details });
+}
+
+/** Feeds first, then carriages: a carriage cannot go while a feed refers to it. */
+async function deleteDependents(w: NetworkWrite, dependents: Array<[DependentKind, Found[]]>, outcome: DeleteOutcome): Promise<void> {
+  for (const kind of ['feeds', 'carriages'] as const) {
+    const found = dependents.find(([k]) => k === kind)?.[1] ?? [];
+    if (found.length === 0) continue;
+    const codes = found.map((f) => f.entity.code as string);
+    await deleteByCodes(w, kind, codes);
+    for (const f of found) w.audit({ action: 'delete', entityKind: kind, entityCode: f.entity.code as string, before: auditShape(f.entity) });
+    outcome.deleted[kind] = codes;
+  }
+}
+
+async function leaveGroup(w: NetworkWrite, group: string, dependents: Array<[DependentKind, Found[]]>, outcome: DeleteOutcome): Promise<void> {
+  for (const [kind, found] of dependents) {
+    if (found.length === 0 || (kind !== 'sites' && kind !== 'feeds')) continue;
+    const next = found.map((f) => {
+      const entity: Fields = canonical(kind, f.entity);
+      entity.groups = ((entity.groups as string[] | undefined) ?? []).filter((g) => g !== group);
+      return entity;
+    });
+    const written = new Map((await writeEntities(w, kind, next)).map((r) => [r.code, r.version]));
+    found.forEach((f, i) => {
+      const after = { ...canonical(kind, next[i]), version: written.get(f.entity.code as string) };
+      w.audit({ action: 'update', entityKind: kind, entityCode: f.entity.code as string, before: auditShape(f.entity), after });
+    });
+    outcome.updated[kind] = found.map((f) => f.entity.code as string);
+  }
+}
