@@ -11,6 +11,7 @@
 import type { ChainAnswer, ChainNode } from '@/shared/schemas/analysis';
 import { geodesicInverse } from '@/shared/rf/geodesy';
 import type { EngineCore } from './core';
+import { listOf } from './model';
 
 export type ChainDirection = 'up' | 'down';
 
@@ -23,10 +24,10 @@ function carriageNode(core: EngineCore, c: number): ChainNode {
   const { model } = core;
   const site = model.sites[model.carriageSite[c]];
   return {
-    carriage: model.carriages[c].code,
-    site: site.code,
+    carriage: model.carriageCodes[c],
+    site: model.siteCodes[model.carriageSite[c]],
     siteName: site.name,
-    service: model.services[model.carriageService[c]].code,
+    service: model.serviceCodes[model.carriageService[c]],
     origin: model.siteOrigin[model.carriageSite[c]] === 1,
     onAir: core.fed[c] === 1,
     children: [],
@@ -61,7 +62,7 @@ export function chainTree(core: EngineCore, networkVersion: number, start: numbe
     const c = entryCarriage[head];
     const node = entryNode[head];
     if (direction === 'up' && node.origin) continue;
-    const feeds = Array.from(direction === 'up' ? model.feedsInto[c] : model.feedsOutOf[c]).sort(byRoleThenCode);
+    const feeds = Array.from(listOf(direction === 'up' ? model.feedsInto : model.feedsOutOf, c)).sort(byRoleThenCode);
     if (direction === 'up' && feeds.length === 0) {
       node.deadEnd = true;
       continue;
@@ -71,13 +72,13 @@ export function chainTree(core: EngineCore, networkVersion: number, start: numbe
       const source = model.feedFrom[f];
       const child = carriageNode(core, next);
       child.via = {
-        feed: model.feeds[f].code,
+        feed: model.feedCodes[f],
         medium: model.feedMedium[f],
         role: model.feedRole[f],
         up: core.fed[source] === 1,
         distanceKm: distanceKm(core, model.carriageSite[source], model.carriageSite[model.feedTo[f]]),
-        hops: Array.from(model.feedVia[f], (s) => model.sites[s].code),
-        warnings: opts.warningsFor?.(model.feeds[f].code) ?? [],
+        hops: Array.from(listOf(model.feedVia, f), (s) => model.siteCodes[s]),
+        warnings: opts.warningsFor?.(model.feedCodes[f]) ?? [],
       };
       node.children.push(child);
       if (onPath(head, next)) {

@@ -1,18 +1,19 @@
 /**
- * The engine's compiled state: the integer model, the graphology graphs, their
- * CSR compilation, a dominator tree per service for the full graph and for the
+ * The engine's compiled state: the integer model, the flow graph of each
+ * service (graphs.ts) and its CSR compilation, a dominator tree per service for the full graph and for the
  * main-only graph (rule 5), and the element -> node index.
  */
 import type { NetworkDocument } from '@/shared/schemas/network';
 import { buildNetworkModel, type NetworkModel } from './model';
-import { buildServiceGraphs, compileServiceGraph, type CompiledService, type ServiceGraph } from './graphs';
+import { buildFlowSpecs, compileFlowSpec, type CompiledService, type FlowSpec } from './graphs';
 import { immediateDominators } from './dominators';
 import { indexDominatorTree } from './dominator-tree';
 import { RemovalWalker, type FlowView } from './removal-walk';
 
 export interface BuildTimings {
   modelMs: number;
-  graphologyMs: number;
+  /** deciding every service graph's nodes and edges */
+  flowMs: number;
   compileMs: number;
   /** immediate dominators of every service's full graph */
   idomMs: number;
@@ -22,7 +23,7 @@ export interface BuildTimings {
 
 export interface EngineCore {
   model: NetworkModel;
-  graphs: ServiceGraph[];
+  specs: FlowSpec[];
   services: CompiledService[];
   full: FlowView[];
   main: FlowView[];
@@ -49,17 +50,16 @@ export function buildCore(doc: NetworkDocument): EngineCore {
   const modelMs = now() - t;
 
   t = now();
-  const graphs = buildServiceGraphs(model);
-  const graphologyMs = now() - t;
+  const specs = buildFlowSpecs(model);
+  const flowMs = now() - t;
 
   t = now();
   const services: CompiledService[] = [];
   let base = 0;
-  graphs.forEach((g, s) => {
-    const compiled = compileServiceGraph(g, model, s, base);
-    services.push(compiled);
-    base += compiled.n;
-  });
+  for (const spec of specs) {
+    services.push(compileFlowSpec(spec, model, base));
+    base += spec.n;
+  }
   const totalNodes = base;
   const carriageNode = new Int32Array(model.carriages.length).fill(-1);
   const nodeService = new Int32Array(totalNodes);
@@ -105,7 +105,7 @@ export function buildCore(doc: NetworkDocument): EngineCore {
 
   return {
     model,
-    graphs,
+    specs,
     services,
     full,
     main,
@@ -118,6 +118,6 @@ export function buildCore(doc: NetworkDocument): EngineCore {
     totalNodes,
     totalEdges,
     walker: new RemovalWalker(maxN),
-    timings: { modelMs, graphologyMs, compileMs, idomMs, treesMs },
+    timings: { modelMs, flowMs, compileMs, idomMs, treesMs },
   };
 }

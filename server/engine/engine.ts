@@ -18,13 +18,13 @@ import type {
 } from '@/shared/schemas/analysis';
 import { elementKey } from '@/shared/schemas/analysis';
 import { buildCore, type BuildTimings, type EngineCore } from './core';
-import { elementId, normaliseCode } from './model';
+import { elementId, listOf, normaliseCode } from './model';
 import { computeResilience, type Resilience } from './resilience';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
 import { IntList } from './removal-walk';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
-import type { ServiceGraph } from './graphs';
+import { toGraphology, type ServiceGraph } from './graphs';
 import type { Csr } from './csr';
 
 export { UnknownElementsError, UnknownCarriageError } from './errors';
@@ -59,6 +59,7 @@ export class NetworkEngine {
   private readonly unfedAnswer: UnfedAnswer;
   private readonly diversityAnswer: DiversityAnswer;
   private readonly exposureRows: ExposureRow[];
+  private readonly graphology: (ServiceGraph | undefined)[] = [];
 
   private constructor(core: EngineCore, networkVersion: number, started: number) {
     this.core = core;
@@ -76,9 +77,9 @@ export class NetworkEngine {
     const { spofOffsets, spofElements } = this.resilience;
     const spofOf = (c: number) => Array.from(spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]), (x) => model.elements[x]);
     const placed = (c: number) => ({
-      carriage: model.carriages[c].code,
-      service: model.services[model.carriageService[c]].code,
-      site: model.sites[model.carriageSite[c]].code,
+      carriage: model.carriageCodes[c],
+      service: model.serviceCodes[model.carriageService[c]],
+      site: model.siteCodes[model.carriageSite[c]],
     });
     const spofRows: SpofAnswer['carriages'] = [];
     const unfedRows: UnfedAnswer['carriages'] = [];
@@ -89,8 +90,8 @@ export class NetworkEngine {
         continue;
       }
       const spof = spofOf(c);
-      spofRows.push({ carriage: model.carriages[c].code, spof });
-      const hasReserve = Array.from(model.feedsInto[c]).some((f) => model.feedReserve[f] === 1);
+      spofRows.push({ carriage: model.carriageCodes[c], spof });
+      const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
       if (hasReserve && spof.length > 0) diversityRows.push({ ...placed(c), shared: spof });
     }
     this.spofAnswer = { networkVersion, carriages: spofRows };
@@ -139,16 +140,21 @@ export class NetworkEngine {
     return this.core.model.carriageIndex.has(normaliseCode(code));
   }
 
-  /** The graphology model of one service (read only: the engine does not watch it). */
+  /**
+   * The graphology model of one service, built on first use and kept (read
+   * only: the engine answers from its compiled arrays, not from this graph).
+   */
   serviceGraph(serviceCode: string): ServiceGraph | undefined {
     const s = this.core.model.serviceIndex.get(normaliseCode(serviceCode));
-    return s === undefined ? undefined : this.core.graphs[s];
+    if (s === undefined) return undefined;
+    this.graphology[s] ??= toGraphology(this.core.specs[s], this.core.model);
+    return this.graphology[s];
   }
 
   /** The compiled full graph of every service (root = node 0), e.g. to compare dominators with another implementation. */
   flowGraphs(): { service: string; graph: Csr; idom: Int32Array }[] {
     return this.core.services.map((svc, s) => ({
-      service: this.core.model.services[s].code,
+      service: this.core.model.serviceCodes[s],
       graph: svc.full,
       idom: this.core.full[s].tree.idom,
     }));

@@ -1,6 +1,7 @@
 /**
- * One graphology graph per service (handbook domain.md, "How to compute it
- * fast"), and its compilation to integer-indexed typed arrays.
+ * One graph per service (handbook domain.md, "How to compute it fast"): the
+ * single adapter from the network model to flow graphs, their graphology form
+ * and their compilation to integer-indexed typed arrays.
  *
  * Nodes: a virtual root; one node per carriage (in one service a site has at
  * most one carriage, so the carriage node also stands for "its site is up");
@@ -16,8 +17,11 @@
  * (feed, via-site) to the via-site and the via-site's groups, a hop
  * (feed, group) to the group (rule 2).
  *
- * graphology stays the model other server code inspects; the engine's hot
- * loops run over the compiled CSR arrays instead (see csr.ts for why).
+ * `buildFlowSpecs` decides nodes and edges once, as typed arrays. From that
+ * one description come both the graphology graph (the model other server
+ * code inspects, built on first use: at national scale, ~470k nodes, building
+ * it costs seconds of keyed-object allocation) and the CSR arrays the engine's
+ * hot loops run over (see csr.ts for why).
  */
 import GraphModule from 'graphology';
 import type { Element } from '@/shared/schemas/analysis';
@@ -64,46 +68,130 @@ export const carriageKey = (code: string) => `carriage:${code}`;
 export const feedKey = (code: string) => `feed:${code}`;
 export const hopKey = (feed: string, e: Element) => `hop:${feed}:${e.kind}:${e.code}`;
 
-/** One graph per service, indexed by service id (model order = service code order). */
-export function buildServiceGraphs(model: NetworkModel): ServiceGraph[] {
-  const graphs = model.services.map((s) => {
-    const g = new Graph({ type: 'directed', multi: false, allowSelfLoops: false });
-    g.setAttribute('service', s.code);
-    g.addNode(ROOT_KEY, { kind: 'root' });
-    return g;
-  });
-  model.carriages.forEach((c, i) => {
-    const g = graphs[model.carriageService[i]];
-    const site = model.carriageSite[i];
-    const origin = model.siteOrigin[site] === 1;
-    g.addNode(carriageKey(c.code), { kind: 'carriage', carriage: c.code, site: model.sites[site].code, origin });
-    if (origin) g.addDirectedEdge(ROOT_KEY, carriageKey(c.code), { reserve: false });
-  });
-  model.feeds.forEach((f, i) => {
-    const g = graphs[model.carriageService[model.feedFrom[i]]];
-    const edge = { reserve: model.feedReserve[i] === 1 };
-    let previous = carriageKey(model.carriages[model.feedFrom[i]].code);
-    const hops: Element[] = [
-      ...Array.from(model.feedVia[i], (s) => model.elements[s]),
-      ...Array.from(model.feedGroups[i], (gr) => model.elements[model.groupBase + gr]),
-    ];
-    for (const element of hops) {
-      const key = hopKey(f.code, element);
-      g.addNode(key, { kind: 'hop', feed: f.code, element });
-      g.addDirectedEdge(previous, key, edge);
-      previous = key;
-    }
-    g.addNode(feedKey(f.code), { kind: 'feed', feed: f.code, role: f.role });
-    g.addDirectedEdge(previous, feedKey(f.code), edge);
-    g.addDirectedEdge(feedKey(f.code), carriageKey(model.carriages[model.feedTo[i]].code), edge);
-  });
-  return graphs;
-}
-
 export const NODE_ROOT = 0;
 export const NODE_CARRIAGE = 1;
 export const NODE_FEED = 2;
 export const NODE_HOP = 3;
+
+/** The nodes and edges of one service graph. Local node 0 is the root. */
+export interface FlowSpec {
+  service: number;
+  n: number;
+  kind: Uint8Array;
+  /** carriage id, feed id, or the hop's element id; -1 for the root */
+  ref: Int32Array;
+  /** the feed a hop node lies on; -1 for other nodes */
+  hopFeed: Int32Array;
+  m: number;
+  source: Int32Array;
+  target: Int32Array;
+  /** 1 on every edge of a reserve feed's path */
+  reserve: Uint8Array;
+}
+
+/** The flow graph of every service, indexed by service id. */
+export function buildFlowSpecs(model: NetworkModel): FlowSpec[] {
+  const serviceCount = model.services.length;
+  const nodes = new Int32Array(serviceCount).fill(1);
+  const edges = new Int32Array(serviceCount);
+  const C = model.carriages.length;
+  const F = model.feeds.length;
+  for (let c = 0; c < C; c++) {
+    nodes[model.carriageService[c]]++;
+    if (model.siteOrigin[model.carriageSite[c]]) edges[model.carriageService[c]]++;
+  }
+  for (let f = 0; f < F; f++) {
+    const s = model.carriageService[model.feedFrom[f]];
+    const hops = model.feedVia.offsets[f + 1] - model.feedVia.offsets[f] + model.feedGroups.offsets[f + 1] - model.feedGroups.offsets[f];
+    nodes[s] += 1 + hops;
+    edges[s] += 2 + hops;
+  }
+  const specs: FlowSpec[] = Array.from({ length: serviceCount }, (_, s) => ({
+    service: s,
+    n: nodes[s],
+    kind: new Uint8Array(nodes[s]),
+    ref: new Int32Array(nodes[s]).fill(-1),
+    hopFeed: new Int32Array(nodes[s]).fill(-1),
+    m: edges[s],
+    source: new Int32Array(edges[s]),
+    target: new Int32Array(edges[s]),
+    reserve: new Uint8Array(edges[s]),
+  }));
+  const nextNode = new Int32Array(serviceCount).fill(1);
+  const nextEdge = new Int32Array(serviceCount);
+  const edge = (spec: FlowSpec, a: number, b: number, reserve: number) => {
+    const e = nextEdge[spec.service]++;
+    spec.source[e] = a;
+    spec.target[e] = b;
+    spec.reserve[e] = reserve;
+  };
+  const local = new Int32Array(C);
+  for (let c = 0; c < C; c++) {
+    const spec = specs[model.carriageService[c]];
+    const u = nextNode[spec.service]++;
+    local[c] = u;
+    spec.kind[u] = NODE_CARRIAGE;
+    spec.ref[u] = c;
+    if (model.siteOrigin[model.carriageSite[c]]) edge(spec, 0, u, 0);
+  }
+  const hop = (spec: FlowSpec, f: number, element: number, previous: number, reserve: number) => {
+    const u = nextNode[spec.service]++;
+    spec.kind[u] = NODE_HOP;
+    spec.ref[u] = element;
+    spec.hopFeed[u] = f;
+    edge(spec, previous, u, reserve);
+    return u;
+  };
+  for (let f = 0; f < F; f++) {
+    const spec = specs[model.carriageService[model.feedFrom[f]]];
+    const reserve = model.feedReserve[f];
+    let previous = local[model.feedFrom[f]];
+    const { feedVia, feedGroups } = model;
+    for (let k = feedVia.offsets[f]; k < feedVia.offsets[f + 1]; k++) previous = hop(spec, f, feedVia.ids[k], previous, reserve);
+    for (let k = feedGroups.offsets[f]; k < feedGroups.offsets[f + 1]; k++) previous = hop(spec, f, model.groupBase + feedGroups.ids[k], previous, reserve);
+    const u = nextNode[spec.service]++;
+    spec.kind[u] = NODE_FEED;
+    spec.ref[u] = f;
+    edge(spec, previous, u, reserve);
+    edge(spec, u, local[model.feedTo[f]], reserve);
+  }
+  return specs;
+}
+
+/** The graphology key and attributes of local node u. */
+export function flowNode(spec: FlowSpec, model: NetworkModel, u: number): { key: string; attributes: FlowNode } {
+  const ref = spec.ref[u];
+  switch (spec.kind[u]) {
+    case NODE_CARRIAGE: {
+      const site = model.carriageSite[ref];
+      const carriage = model.carriageCodes[ref];
+      return { key: carriageKey(carriage), attributes: { kind: 'carriage', carriage, site: model.siteCodes[site], origin: model.siteOrigin[site] === 1 } };
+    }
+    case NODE_FEED:
+      return { key: feedKey(model.feedCodes[ref]), attributes: { kind: 'feed', feed: model.feedCodes[ref], role: model.feedRole[ref] } };
+    case NODE_HOP: {
+      const feed = model.feedCodes[spec.hopFeed[u]];
+      const element = model.elements[ref];
+      return { key: hopKey(feed, element), attributes: { kind: 'hop', feed, element } };
+    }
+    default:
+      return { key: ROOT_KEY, attributes: { kind: 'root' } };
+  }
+}
+
+/** The graphology graph of one service: the same nodes (in local id order) and edges as the spec. */
+export function toGraphology(spec: FlowSpec, model: NetworkModel): ServiceGraph {
+  const g = new Graph({ type: 'directed', multi: false, allowSelfLoops: false });
+  g.setAttribute('service', model.serviceCodes[spec.service]);
+  const keys: string[] = new Array(spec.n);
+  for (let u = 0; u < spec.n; u++) {
+    const { key, attributes } = flowNode(spec, model, u);
+    keys[u] = key;
+    g.addNode(key, attributes);
+  }
+  for (let e = 0; e < spec.m; e++) g.addDirectedEdge(keys[spec.source[e]], keys[spec.target[e]], { reserve: spec.reserve[e] === 1 });
+  return g;
+}
 
 /** A service graph as typed arrays. Local node 0 is the root. */
 export interface CompiledService {
@@ -126,74 +214,59 @@ export interface CompiledService {
   mainIn: Csr;
 }
 
-export function compileServiceGraph(graph: ServiceGraph, model: NetworkModel, service: number, base: number): CompiledService {
-  const n = graph.order;
-  const ids = new Map<string, number>();
-  const kind = new Uint8Array(n);
-  const ref = new Int32Array(n).fill(-1);
+export function compileFlowSpec(spec: FlowSpec, model: NetworkModel, base: number): CompiledService {
+  const { n, kind, ref } = spec;
   const isCarriage = new Uint8Array(n);
   const ownerOffsets = new Int32Array(n + 1);
-  const ownerList: number[] = [];
-  const siteWithGroups = (site: number) => {
-    ownerList.push(site);
-    for (const g of model.siteGroups[site]) ownerList.push(model.groupBase + g);
-  };
-  const lookup = (map: Map<string, number>, code: string, what: string) => {
-    const id = map.get(code);
-    if (id === undefined) throw new Error(`service graph ${String(graph.getAttribute('service'))}: ${what} ${code} is not in the network`);
-    return id;
-  };
-  let next = 0;
-  graph.forEachNode((key, a) => {
-    const u = next++;
-    ids.set(key, u);
-    if (a.kind === 'root') {
-      if (u !== 0) throw new Error('the root must be the first node of a service graph');
-      kind[u] = NODE_ROOT;
-    } else if (a.kind === 'carriage') {
-      kind[u] = NODE_CARRIAGE;
-      isCarriage[u] = 1;
-      ref[u] = lookup(model.carriageIndex, a.carriage, 'carriage');
-      siteWithGroups(model.carriageSite[ref[u]]);
-    } else if (a.kind === 'feed') {
-      kind[u] = NODE_FEED;
-      ref[u] = lookup(model.feedIndex, a.feed, 'feed');
-      ownerList.push(model.feedBase + ref[u]);
-    } else {
-      kind[u] = NODE_HOP;
-      if (a.element.kind === 'site') {
-        ref[u] = lookup(model.siteIndex, a.element.code, 'site');
-        siteWithGroups(ref[u]);
-      } else {
-        ref[u] = model.groupBase + lookup(model.groupIndex, a.element.code, 'group');
-        ownerList.push(ref[u]);
-      }
+  let count = 0;
+  const sg = model.siteGroups;
+  const groupCount = (site: number) => sg.offsets[site + 1] - sg.offsets[site];
+  const ownerCount = (u: number) => {
+    switch (kind[u]) {
+      case NODE_CARRIAGE:
+        return 1 + groupCount(model.carriageSite[ref[u]]);
+      case NODE_FEED:
+        return 1;
+      case NODE_HOP:
+        return ref[u] < model.feedBase ? 1 + groupCount(ref[u]) : 1;
+      default:
+        return 0;
     }
-    ownerOffsets[u + 1] = ownerList.length;
-  });
-
-  const m = graph.size;
-  const sources = new Int32Array(m);
-  const targets = new Int32Array(m);
-  const notReserve = new Uint8Array(m);
-  let e = 0;
-  graph.forEachEdge((_edge, a, s, t) => {
-    sources[e] = ids.get(s)!;
-    targets[e] = ids.get(t)!;
-    notReserve[e] = a.reserve ? 0 : 1;
-    e++;
-  });
-  const full = csrFromEdges(n, sources, targets, m);
-  const main = csrFromEdges(n, sources, targets, m, notReserve);
+  };
+  for (let u = 0; u < n; u++) {
+    count += ownerCount(u);
+    ownerOffsets[u + 1] = count;
+  }
+  const owners = new Int32Array(count);
+  const siteWithGroups = (at: number, site: number) => {
+    owners[at] = site;
+    for (let k = sg.offsets[site]; k < sg.offsets[site + 1]; k++) owners[++at] = model.groupBase + sg.ids[k];
+  };
+  for (let u = 0; u < n; u++) {
+    const at = ownerOffsets[u];
+    if (kind[u] === NODE_CARRIAGE) {
+      isCarriage[u] = 1;
+      siteWithGroups(at, model.carriageSite[ref[u]]);
+    } else if (kind[u] === NODE_FEED) {
+      owners[at] = model.feedBase + ref[u];
+    } else if (kind[u] === NODE_HOP) {
+      if (ref[u] < model.feedBase) siteWithGroups(at, ref[u]);
+      else owners[at] = ref[u];
+    }
+  }
+  const keepMain = new Uint8Array(spec.m);
+  for (let e = 0; e < spec.m; e++) keepMain[e] = spec.reserve[e] ? 0 : 1;
+  const full = csrFromEdges(n, spec.source, spec.target, spec.m);
+  const main = csrFromEdges(n, spec.source, spec.target, spec.m, keepMain);
   return {
-    service,
+    service: spec.service,
     base,
     n,
     kind,
     ref,
     isCarriage,
     ownerOffsets,
-    owners: Int32Array.from(ownerList),
+    owners,
     full,
     fullIn: reverseCsr(full),
     main,

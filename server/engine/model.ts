@@ -20,25 +20,91 @@ export class NetworkModelError extends Error {
 /** Codes are case-sensitive as given; only surrounding white space is dropped. */
 export const normaliseCode = (code: string): string => code.trim();
 
-const byCode = <T extends { code: string }>(a: T, b: T) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0);
-
+/**
+ * The items of one kind in code order (the document's own objects, not copies:
+ * a national network has hundreds of thousands), their trimmed codes and a
+ * code -> id map.
+ */
 function sortedIndex<T extends { code: string }>(kind: string, items: T[]): { items: T[]; index: Map<string, number>; codes: string[] } {
-  const copy = items.map((item) => ({ ...item, code: normaliseCode(item.code) }));
-  copy.sort(byCode);
+  const trimmed = items.map((item) => normaliseCode(item.code));
+  const order = Array.from(trimmed.keys()).sort((a, b) => (trimmed[a] < trimmed[b] ? -1 : trimmed[a] > trimmed[b] ? 1 : 0));
   const index = new Map<string, number>();
-  copy.forEach((item, i) => {
-    if (index.has(item.code)) throw new NetworkModelError(`${kind} ${item.code}: the code is used twice`);
-    index.set(item.code, i);
+  const codes: string[] = new Array(order.length);
+  const sorted: T[] = new Array(order.length);
+  order.forEach((from, i) => {
+    const code = trimmed[from];
+    if (index.has(code)) throw new NetworkModelError(`${kind} ${code}: the code is used twice`);
+    index.set(code, i);
+    codes[i] = code;
+    sorted[i] = items[from];
   });
-  return { items: copy, index, codes: copy.map((i) => i.code) };
+  return { items: sorted, index, codes };
+}
+
+/**
+ * Lists of ids per item without one small array per item (hundreds of
+ * thousands of tiny typed arrays cost more to allocate than the data):
+ * item i's list is ids[offsets[i] .. offsets[i + 1]).
+ */
+export interface IdLists {
+  offsets: Int32Array;
+  ids: Int32Array;
+}
+
+/** Item i's list as a view (allocates a view: keep out of hot loops). */
+export const listOf = (l: IdLists, i: number): Int32Array => l.ids.subarray(l.offsets[i], l.offsets[i + 1]);
+
+/** Builds IdLists item by item; repeats within one item's list are dropped. */
+class IdListBuilder {
+  private offsets: Int32Array;
+  private ids: Int32Array;
+  private length = 0;
+  private item = 0;
+  constructor(items: number, capacity: number) {
+    this.offsets = new Int32Array(items + 1);
+    this.ids = new Int32Array(Math.max(16, capacity));
+  }
+  add(id: number): void {
+    for (let k = this.offsets[this.item]; k < this.length; k++) if (this.ids[k] === id) return;
+    if (this.length === this.ids.length) {
+      const bigger = new Int32Array(this.ids.length * 2);
+      bigger.set(this.ids);
+      this.ids = bigger;
+    }
+    this.ids[this.length++] = id;
+  }
+  /** closes the current item's list */
+  next(): void {
+    this.offsets[++this.item] = this.length;
+  }
+  done(): IdLists {
+    return { offsets: this.offsets, ids: this.ids.slice(0, this.length) };
+  }
+}
+
+/** Groups (item -> key) pairs by key, items ascending within a key. */
+function invert(keyCount: number, keys: Int32Array): IdLists {
+  const offsets = new Int32Array(keyCount + 1);
+  for (let i = 0; i < keys.length; i++) offsets[keys[i] + 1]++;
+  for (let k = 0; k < keyCount; k++) offsets[k + 1] += offsets[k];
+  const fill = offsets.slice(0, keyCount);
+  const ids = new Int32Array(keys.length);
+  for (let i = 0; i < keys.length; i++) ids[fill[keys[i]]++] = i;
+  return { offsets, ids };
 }
 
 export interface NetworkModel {
+  /** the document's entities in code order; their `code` fields may still carry white space: use the *Codes arrays */
   sites: Site[];
   services: Service[];
   groups: Group[];
   carriages: Carriage[];
   feeds: Feed[];
+  siteCodes: string[];
+  serviceCodes: string[];
+  groupCodes: string[];
+  carriageCodes: string[];
+  feedCodes: string[];
   siteIndex: Map<string, number>;
   serviceIndex: Map<string, number>;
   groupIndex: Map<string, number>;
@@ -46,8 +112,8 @@ export interface NetworkModel {
   feedIndex: Map<string, number>;
   siteOrigin: Uint8Array;
   siteHouseholds: Float64Array;
-  /** group ids of each site, without repeats */
-  siteGroups: Int32Array[];
+  /** group ids of each site */
+  siteGroups: IdLists;
   carriageSite: Int32Array;
   carriageService: Int32Array;
   feedFrom: Int32Array;
@@ -55,23 +121,19 @@ export interface NetworkModel {
   feedReserve: Uint8Array;
   feedMedium: Medium[];
   feedRole: FeedRole[];
-  /** via-site ids of each feed, in path order, without repeats */
-  feedVia: Int32Array[];
-  /** group ids of each feed, without repeats */
-  feedGroups: Int32Array[];
+  /** via-site ids of each feed, in path order */
+  feedVia: IdLists;
+  /** group ids of each feed */
+  feedGroups: IdLists;
   /** feeds into each carriage / out of each carriage, ids ascending (= code order) */
-  feedsInto: Int32Array[];
-  feedsOutOf: Int32Array[];
+  feedsInto: IdLists;
+  feedsOutOf: IdLists;
   /** element ids: sites [0, feedBase), feeds [feedBase, groupBase), groups [groupBase, elementCount) */
   feedBase: number;
   groupBase: number;
   elementCount: number;
   /** one shared, frozen Element object per element id */
   elements: Element[];
-}
-
-function uniqueIds(ids: number[]): Int32Array {
-  return Int32Array.from(new Set(ids));
 }
 
 export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
@@ -81,61 +143,64 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
   const carriages = sortedIndex('carriage', doc.carriages);
   const feeds = sortedIndex('feed', doc.feeds);
 
-  const groupId = (owner: string, code: string) => {
+  // `owner` names the referring entity; it is only built when the reference is wrong.
+  const groupId = (owner: () => string, code: string) => {
     const id = groups.index.get(normaliseCode(code));
-    if (id === undefined) throw new NetworkModelError(`${owner}: group ${normaliseCode(code)} does not exist`);
+    if (id === undefined) throw new NetworkModelError(`${owner()}: group ${normaliseCode(code)} does not exist`);
     return id;
   };
-  const siteId = (owner: string, code: string) => {
+  const siteId = (owner: () => string, code: string) => {
     const id = sites.index.get(normaliseCode(code));
-    if (id === undefined) throw new NetworkModelError(`${owner}: site ${normaliseCode(code)} does not exist`);
+    if (id === undefined) throw new NetworkModelError(`${owner()}: site ${normaliseCode(code)} does not exist`);
     return id;
   };
 
   const S = sites.items.length;
   const siteOrigin = new Uint8Array(S);
   const siteHouseholds = new Float64Array(S);
-  const siteGroups: Int32Array[] = [];
-  sites.items.forEach((site, i) => {
+  const siteGroups = new IdListBuilder(S, S);
+  for (let i = 0; i < S; i++) {
+    const site = sites.items[i];
     siteOrigin[i] = site.role === 'origin' ? 1 : 0;
     siteHouseholds[i] = site.households ?? 0;
-    siteGroups.push(uniqueIds((site.groups ?? []).map((g) => groupId(`site ${site.code}`, g))));
-  });
+    for (const g of site.groups ?? []) siteGroups.add(groupId(() => `site ${sites.codes[i]}`, g));
+    siteGroups.next();
+  }
 
   const C = carriages.items.length;
   const carriageSite = new Int32Array(C);
   const carriageService = new Int32Array(C);
-  carriages.items.forEach((c, i) => {
-    carriageSite[i] = siteId(`carriage ${c.code}`, c.site);
+  for (let i = 0; i < C; i++) {
+    const c = carriages.items[i];
+    carriageSite[i] = siteId(() => `carriage ${carriages.codes[i]}`, c.site);
     const service = services.index.get(normaliseCode(c.service));
-    if (service === undefined) throw new NetworkModelError(`carriage ${c.code}: service ${normaliseCode(c.service)} does not exist`);
+    if (service === undefined) throw new NetworkModelError(`carriage ${carriages.codes[i]}: service ${normaliseCode(c.service)} does not exist`);
     carriageService[i] = service;
-  });
+  }
 
   const F = feeds.items.length;
   const feedFrom = new Int32Array(F);
   const feedTo = new Int32Array(F);
   const feedReserve = new Uint8Array(F);
-  const feedVia: Int32Array[] = [];
-  const feedGroups: Int32Array[] = [];
-  const feedsInto: number[][] = Array.from({ length: C }, () => []);
-  const feedsOutOf: number[][] = Array.from({ length: C }, () => []);
-  feeds.items.forEach((f, i) => {
+  const feedVia = new IdListBuilder(F, F / 4);
+  const feedGroups = new IdListBuilder(F, F / 4);
+  for (let i = 0; i < F; i++) {
+    const f = feeds.items[i];
     const from = carriages.index.get(normaliseCode(f.from));
     const to = carriages.index.get(normaliseCode(f.to));
-    if (from === undefined) throw new NetworkModelError(`feed ${f.code}: source carriage ${normaliseCode(f.from)} does not exist`);
-    if (to === undefined) throw new NetworkModelError(`feed ${f.code}: target carriage ${normaliseCode(f.to)} does not exist`);
+    if (from === undefined) throw new NetworkModelError(`feed ${feeds.codes[i]}: source carriage ${normaliseCode(f.from)} does not exist`);
+    if (to === undefined) throw new NetworkModelError(`feed ${feeds.codes[i]}: target carriage ${normaliseCode(f.to)} does not exist`);
     if (carriageService[from] !== carriageService[to]) {
-      throw new NetworkModelError(`feed ${f.code}: carriages ${carriages.codes[from]} and ${carriages.codes[to]} carry different services`);
+      throw new NetworkModelError(`feed ${feeds.codes[i]}: carriages ${carriages.codes[from]} and ${carriages.codes[to]} carry different services`);
     }
     feedFrom[i] = from;
     feedTo[i] = to;
     feedReserve[i] = f.role === 'reserve' ? 1 : 0;
-    feedVia.push(uniqueIds((f.via ?? []).map((s) => siteId(`feed ${f.code}`, s))));
-    feedGroups.push(uniqueIds((f.groups ?? []).map((g) => groupId(`feed ${f.code}`, g))));
-    feedsInto[to].push(i);
-    feedsOutOf[from].push(i);
-  });
+    for (const v of f.via ?? []) feedVia.add(siteId(() => `feed ${feeds.codes[i]}`, v));
+    feedVia.next();
+    for (const g of f.groups ?? []) feedGroups.add(groupId(() => `feed ${feeds.codes[i]}`, g));
+    feedGroups.next();
+  }
 
   const feedBase = S;
   const groupBase = S + F;
@@ -151,6 +216,11 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     groups: groups.items,
     carriages: carriages.items,
     feeds: feeds.items,
+    siteCodes: sites.codes,
+    serviceCodes: services.codes,
+    groupCodes: groups.codes,
+    carriageCodes: carriages.codes,
+    feedCodes: feeds.codes,
     siteIndex: sites.index,
     serviceIndex: services.index,
     groupIndex: groups.index,
@@ -158,7 +228,7 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     feedIndex: feeds.index,
     siteOrigin,
     siteHouseholds,
-    siteGroups,
+    siteGroups: siteGroups.done(),
     carriageSite,
     carriageService,
     feedFrom,
@@ -166,10 +236,10 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     feedReserve,
     feedMedium: feeds.items.map((f) => f.medium),
     feedRole: feeds.items.map((f) => f.role),
-    feedVia,
-    feedGroups,
-    feedsInto: feedsInto.map((l) => Int32Array.from(l)),
-    feedsOutOf: feedsOutOf.map((l) => Int32Array.from(l)),
+    feedVia: feedVia.done(),
+    feedGroups: feedGroups.done(),
+    feedsInto: invert(C, feedTo),
+    feedsOutOf: invert(C, feedFrom),
     feedBase,
     groupBase,
     elementCount,

@@ -112,21 +112,21 @@ export function reachAnswer(core: EngineCore, networkVersion: number, lost: Int3
     if (e.lost.length > 0) householdsLost += model.siteHouseholds[site];
     else householdsFallback += model.siteHouseholds[site];
     return {
-      site: model.sites[site].code,
-      lost: e.lost.sort((a, b) => a - b).map((s) => model.services[s].code),
-      fallback: e.fallback.sort((a, b) => a - b).map((s) => model.services[s].code),
+      site: model.siteCodes[site],
+      lost: e.lost.sort((a, b) => a - b).map((s) => model.serviceCodes[s]),
+      fallback: e.fallback.sort((a, b) => a - b).map((s) => model.serviceCodes[s]),
     };
   });
   const byService: ReachAnswer['byService'] = [];
   for (let s = 0; s < serviceCount; s++) {
     if (lostByService[s] > 0 || fallbackByService[s] > 0) {
-      byService.push({ service: model.services[s].code, lost: lostByService[s], fallback: fallbackByService[s] });
+      byService.push({ service: model.serviceCodes[s], lost: lostByService[s], fallback: fallbackByService[s] });
     }
   }
   return {
     networkVersion,
-    lost: Array.from(lost, (c) => model.carriages[c].code),
-    fallback: Array.from(fallback, (c) => model.carriages[c].code),
+    lost: Array.from(lost, (c) => model.carriageCodes[c]),
+    fallback: Array.from(fallback, (c) => model.carriageCodes[c]),
     households: { lost: householdsLost, fallback: householdsFallback },
     byService,
     sites,

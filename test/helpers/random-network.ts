@@ -183,7 +183,7 @@ export function nationalNetwork(o: NationalNetworkOptions): NetworkDocument {
       const keep = (code: string) => !(code === `${sites[a].code}.${shared}` || code === `${sites[b].code}.${shared}`);
       const cut = feeds.filter((f) => keep(f.to));
       feeds.length = 0;
-      feeds.push(...cut);
+      for (const f of cut) feeds.push(f);
       addFeed(a, b, shared, 'off-air', 'main', [], []);
       addFeed(b, a, shared, 'off-air', 'main', [], []);
     }
