@@ -74,7 +74,7 @@ export async function listEntities(sequelize: Sequelize, kind: EntityKind, query
   const filter = where.length ? ` WHERE ${where.join(' AND ')}` : '';
   const [countRows] = await sequelize.query(`SELECT count(*)::int AS n FROM ${spec.from}${filter}`, { bind });
   const direction = query.order === 'desc' ? 'DESC' : 'ASC';
-  const order = `${spec.sorts[query.sort]} ${direction} NULLS LAST, e.code ${direction}`;
+  const order = `${spec.sorts[query.sort]} ${direction} NULLS LAST, e.code ASC`;
   const [rows] = await sequelize.query(
     `SELECT ${spec.columns} FROM ${spec.from}${filter} ORDER BY ${order} LIMIT ${param(query.pageSize)} OFFSET ${param((query.page - 1) * query.pageSize)}`,
     { bind },

@@ -96,9 +96,9 @@ function refuse(kind: EntityKind, code: string, dependents: Array<[DependentKind
     details[dependent] = { count: found.length, codes };
     parts.push(`${plural(found.length, NOUN[dependent])} (${listed(codes, found.length)})`);
   }
-  const what = kind === 'groups' ? 'has members' : 'still has';
+  const what = kind === 'groups' ? 'has members:' : 'still has';
   const fix = kind === 'groups' ? 'take them out of the group first, or delete with cascade=true to take them out' : 'delete them first, or delete with cascade=true to delete them too';
-  throw conflict(`${NOUN[kind]} ${code} ${what}: ${parts.join(' and ')}; ${fix}`, { dependents: details });
+  throw conflict(`${NOUN[kind]} ${code} ${what} ${parts.join(' and ')}; ${fix}`, { dependents: details });
 }
 
 /** Feeds first, then carriages: a carriage cannot go while a feed refers to it. */

@@ -92,7 +92,9 @@ export async function updateEntity(sequelize: Sequelize, kind: EntityKind, code:
       const next = canonical(kind, parseOr400(entitySchemas[kind] as never, merged, NOUN[kind]) as Fields);
       if (sameEntity(kind, before, next)) return current.entity;
       throwFindings(await checkRules(w, kind, next, before));
-      await writeEntities(w, kind, [next]);
+      const [written] = await writeEntities(w, kind, [next]);
+      // The network lock already serialises writers; this also catches a writer that went around it.
+      if (written.version !== currentVersion + 1) throw conflict(`${NOUN[kind]} ${code} was changed by someone else meanwhile; reload and try again`, { currentVersion: written.version - 1 });
       const updated = (await findByCode(sequelize, kind, code, w.transaction))!.entity;
       w.audit({ action: 'update', entityKind: kind, entityCode: code, before: auditShape(current.entity), after: auditShape(updated) });
       return updated;
