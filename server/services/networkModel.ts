@@ -4,6 +4,7 @@
  * Built from scratch on every change and swapped in whole (networkStore.ts).
  */
 import type { NetworkDocument, Site, Carriage, Feed, Service, Group } from '@/shared/schemas/network';
+import { NetworkEngine } from '../engine/engine';
 
 export interface NetworkModel {
   networkVersion: number;
@@ -13,6 +14,7 @@ export interface NetworkModel {
   groups: Map<string, Group>;
   carriages: Map<string, Carriage>;
   feeds: Map<string, Feed>;
+  engine: NetworkEngine;
   builtAt: Date;
 }
 
@@ -27,6 +29,7 @@ export function buildNetworkModel(document: NetworkDocument, networkVersion: num
     groups: byCode(document.groups),
     carriages: byCode(document.carriages),
     feeds: byCode(document.feeds),
+    engine: NetworkEngine.build(document, networkVersion),
     builtAt: new Date(),
   };
 }
