@@ -1,0 +1,190 @@
+/**
+ * npm run bench: one run over seeded generated networks of 1,000, 5,000 and
+ * 20,000 sites. For each size: import into PostgreSQL, rebuild the graphs
+ * from PostgreSQL, time the engine (scripts/bench-engine.ts) against the
+ * plain typed-array walk and the remove-and-walk baseline on the same graphs,
+ * time reach over HTTP on loopback, and record the peak RSS.
+ *
+ *   npm run bench -- [--sizes 1000,5000,20000] [--seed 7] [--json FILE]
+ *
+ * Not part of npm test: targets are measured here, never in a timed test.
+ */
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import { loadConfig } from '@/server/config';
+import { openDatabase } from '@/server/db';
+import { importNetwork } from '@/server/services/importer';
+import { loadNetworkDocument } from '@/server/services/networkLoader';
+import { buildNetworkModel } from '@/server/services/networkModel';
+import { startServer } from '@/server/server';
+import { ensureUser } from '@/server/services/users';
+import { benchEngine, type EngineBenchResult } from './bench-engine';
+import { generateNetwork } from './generator';
+import { resolveDatabaseUrl } from './lib/postgres';
+
+function arg(name: string): string | undefined {
+  const i = process.argv.indexOf(`--${name}`);
+  return i >= 0 ? process.argv[i + 1] : undefined;
+}
+
+const sizes = (arg('sizes') ?? '1000,5000,20000').split(',').map((s) => {
+  const n = Number(s);
+  if (!Number.isInteger(n) || n < 10) throw new Error(`--sizes: "${s}" is not a whole number of sites >= 10`);
+  return n;
+});
+const seed = Number(arg('seed') ?? 7);
+const jsonFile = arg('json');
+
+interface SizeResult extends EngineBenchResult {
+  importMs: number;
+  loadFromDbMs: number;
+  /** graph build from PostgreSQL: read every row, build graphs and precompute (what a rebuild after a change costs) */
+  rebuildFromDbMs: number;
+  engineBuildMs: number;
+  httpReachP50Ms: number;
+  httpReachP95Ms: number;
+  rssMb: number;
+}
+
+const pct = (values: number[], p: number) => {
+  const s = [...values].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.max(0, Math.ceil((p / 100) * s.length) - 1))];
+};
+const r3 = (x: number) => Math.round(x * 1000) / 1000;
+const peakRssMb = () => Math.round(process.resourceUsage().maxRSS / 1024);
+
+async function httpReach(databaseUrl: string, siteCodes: string[]): Promise<number[]> {
+  const password = crypto.randomBytes(12).toString('hex');
+  const config = loadConfig({ ...process.env, PORT: '0', DEMO: '0', WEB_DIR: '/nonexistent', JWT_SECRET: crypto.randomBytes(32).toString('hex') });
+  const running = await startServer(databaseUrl, config);
+  try {
+    await ensureUser('bench@headwater.example', password, 'operator', 'Benchmark');
+    const base = running.url.replace('localhost', '127.0.0.1');
+    const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'bench@headwater.example', password }) });
+    const { token } = (await login.json()) as { token: string };
+    const headers = { 'content-type': 'application/json', authorization: `Bearer ${token}` };
+    const times: number[] = [];
+    for (let i = 0; i < siteCodes.length + 10; i++) {
+      const code = siteCodes[i % siteCodes.length];
+      const t0 = performance.now();
+      const res = await fetch(`${base}/api/analysis/reach`, { method: 'POST', headers, body: JSON.stringify({ failed: [{ kind: 'site', code }] }) });
+      await res.arrayBuffer();
+      if (res.status !== 200) throw new Error(`reach over HTTP answered ${res.status}`);
+      if (i >= 10) times.push(performance.now() - t0); // the first ten warm up the connection and the JIT
+    }
+    return times;
+  } finally {
+    await running.close();
+  }
+}
+
+async function benchSize(sites: number): Promise<SizeResult> {
+  console.log(`\n== ${sites.toLocaleString('en')} sites (seed ${seed}) ==`);
+  const doc = generateNetwork({ sites, seed });
+  const { url } = await resolveDatabaseUrl('headwater_bench', { fresh: true });
+  const db = openDatabase(url);
+  try {
+    await db.migrate();
+    let t = performance.now();
+    const report = await importNetwork(db, doc, { actor: { email: 'bench' } });
+    const importMs = performance.now() - t;
+    if (!report.ok) throw new Error(`generated network did not import: ${report.errors.slice(0, 3).map((e) => e.message).join('; ')}`);
+    console.log(`  import ${(importMs / 1000).toFixed(2)} s`);
+
+    t = performance.now();
+    const { document, version } = await loadNetworkDocument(db.sequelize);
+    const loadFromDbMs = performance.now() - t;
+    const model = buildNetworkModel(document, version);
+    const rebuildFromDbMs = performance.now() - t;
+    console.log(`  rebuild from PostgreSQL ${(rebuildFromDbMs / 1000).toFixed(2)} s (read ${(loadFromDbMs / 1000).toFixed(2)} s)`);
+    void model;
+
+    const engine = benchEngine(document, { seed, networkx: true });
+    console.log(`  engine: reach one p95 ${engine.reachOneP95Ms} ms, multi p95 ${engine.reachMultiP95Ms} ms, spof+exposure ${engine.spofAllMs} ms`);
+
+    const rnd = (() => {
+      let s = seed >>> 0;
+      return () => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
+    })();
+    const codes = Array.from({ length: 200 }, () => document.sites[Math.floor(rnd() * document.sites.length)].code);
+    const http = await httpReach(url, codes);
+    const result: SizeResult = {
+      ...engine,
+      engineBuildMs: engine.buildMs,
+      buildMs: r3(rebuildFromDbMs),
+      importMs: r3(importMs),
+      loadFromDbMs: r3(loadFromDbMs),
+      rebuildFromDbMs: r3(rebuildFromDbMs),
+      httpReachP50Ms: r3(pct(http, 50)),
+      httpReachP95Ms: r3(pct(http, 95)),
+      rssMb: peakRssMb(),
+    };
+    console.log(`  HTTP reach p95 ${result.httpReachP95Ms} ms; peak RSS so far ${result.rssMb} MB`);
+    return result;
+  } finally {
+    await db.close();
+  }
+}
+
+function table(results: SizeResult[]) {
+  const rows: [string, (r: SizeResult) => string][] = [
+    ['sites', (r) => r.sites.toLocaleString('en')],
+    ['graph nodes / edges', (r) => `${r.nodes.toLocaleString('en')} / ${r.edges.toLocaleString('en')}`],
+    ['import (s)', (r) => (r.importMs / 1000).toFixed(2)],
+    ['rebuild from PostgreSQL (ms)', (r) => r.buildMs.toFixed(0)],
+    ['  of which engine build (ms)', (r) => r.engineBuildMs.toFixed(0)],
+    ['reach one site p50 / p95 (ms)', (r) => `${r.reachOneP50Ms.toFixed(3)} / ${r.reachOneP95Ms.toFixed(3)}`],
+    ['reach 2-5 elements p95 (ms)', (r) => r.reachMultiP95Ms.toFixed(2)],
+    ['plain walk, same failures, p95 (ms)', (r) => r.walkFloorP95Ms.toFixed(2)],
+    ['  ratio reach / walk', (r) => `${r.reachMultiToFloorP95.toFixed(2)}x`],
+    ['HTTP reach one site p95 (ms)', (r) => r.httpReachP95Ms.toFixed(2)],
+    ['spof + exposure, every element (ms)', (r) => r.spofAllMs.toFixed(0)],
+    ['remove-and-walk baseline, est. (ms)', (r) => r.baselineSpofAllMsEstimate.toFixed(0)],
+    ['  speed-up over baseline', (r) => `${(r.baselineSpofAllMsEstimate / r.spofAllMs).toFixed(0)}x`],
+    ['dominators, ours (ms)', (r) => r.idomMs.toFixed(1)],
+    ['dominators, networkx (ms)', (r) => (r.networkxIdomMs === null ? 'n/a' : r.networkxIdomMs.toFixed(0))],
+    ['  speed-up over networkx', (r) => (r.networkxIdomMs === null ? 'n/a' : `${(r.networkxIdomMs / r.idomMs).toFixed(0)}x`)],
+    ['peak RSS (MB)', (r) => String(r.rssMb)],
+  ];
+  const w0 = Math.max(...rows.map(([k]) => k.length));
+  const cols = results.map((r) => rows.map(([, f]) => f(r)));
+  const widths = cols.map((c) => Math.max(...c.map((s) => s.length)));
+  console.log('\n' + rows.map(([k], i) => `${k.padEnd(w0)}  ${cols.map((c, j) => c[i].padStart(widths[j])).join('  ')}`).join('\n'));
+}
+
+(async () => {
+  const results: SizeResult[] = [];
+  for (const n of sizes) results.push(await benchSize(n));
+  table(results);
+  if (jsonFile) {
+    const out = {
+      when: new Date().toISOString(),
+      seed,
+      node: process.version,
+      entries: results.map((r) => ({
+        sites: r.sites,
+        nodes: r.nodes,
+        edges: r.edges,
+        buildMs: r.buildMs,
+        engineBuildMs: r.engineBuildMs,
+        importMs: r.importMs,
+        reachOneP50Ms: r.reachOneP50Ms,
+        reachOneP95Ms: r.reachOneP95Ms,
+        reachMultiP95Ms: r.reachMultiP95Ms,
+        walkFloorMs: r.walkFloorMs,
+        walkFloorP95Ms: r.walkFloorP95Ms,
+        spofAllMs: r.spofAllMs,
+        baselineSpofAllMsEstimate: r.baselineSpofAllMsEstimate,
+        idomMs: r.idomMs,
+        networkxIdomMs: r.networkxIdomMs,
+        httpReachP95Ms: r.httpReachP95Ms,
+        rssMb: r.rssMb,
+      })),
+    };
+    fs.writeFileSync(jsonFile, JSON.stringify(out, null, 2) + '\n');
+    console.log(`\nwrote ${jsonFile}`);
+  }
+})().catch((e) => {
+  console.error(`bench failed: ${e.stack ?? e}`);
+  process.exit(1);
+});
