@@ -5,6 +5,7 @@
  */
 import type { z } from 'zod';
 import { entitySchemas, type EntityKind } from '@/shared/schemas/network';
+import { isCanonical } from './canonical';
 import { codeOf, shown, type IssueSink } from './issues';
 
 type ZodIssue = z.core.$ZodIssue;
@@ -16,6 +17,7 @@ export function checkEntity<K extends EntityKind>(
   index: number,
   sink: IssueSink,
 ): z.output<(typeof entitySchemas)[K]> | undefined {
+  if (isCanonical(kind, raw)) return raw as z.output<(typeof entitySchemas)[K]>;
   const result = entitySchemas[kind].safeParse(raw);
   if (result.success) return withoutAbsent(result.data) as z.output<(typeof entitySchemas)[K]>;
   const code = codeOf(raw);

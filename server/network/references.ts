@@ -53,7 +53,8 @@ function checkCarriages(view: NetworkView, sink: IssueSink): void {
     if (service !== undefined) resolve(view, sink, 'carriages', entry, 'service', 'services', service, 'service');
   }
   // Stored carriages come first in the map, so a clash with a stored carriage is reported on the document's one.
-  const atSite = new Map<string, Entry>();
+  // service -> site -> first carriage: a few services, so no string keys are built per carriage.
+  const atSite = new Map<string, Map<string, Entry>>();
   for (const entry of view.byCode.carriages.values()) markSiteService(atSite, entry, sink);
   for (const entry of view.doc.carriages) {
     const code = refAt(entry.raw, 'code');
@@ -61,14 +62,15 @@ function checkCarriages(view: NetworkView, sink: IssueSink): void {
   }
 }
 
-function markSiteService(atSite: Map<string, Entry>, entry: Entry, sink: IssueSink): void {
+function markSiteService(atSite: Map<string, Map<string, Entry>>, entry: Entry, sink: IssueSink): void {
   const site = refAt(entry.raw, 'site');
   const service = refAt(entry.raw, 'service');
   if (site === undefined || service === undefined) return;
-  const key = `${site}\u0000${service}`;
-  const first = atSite.get(key);
+  let sites = atSite.get(service);
+  if (!sites) atSite.set(service, (sites = new Map()));
+  const first = sites.get(site);
   if (!first) {
-    atSite.set(key, entry);
+    sites.set(site, entry);
     return;
   }
   if (entry.index < 0) return;

@@ -10,6 +10,13 @@ export interface Entry {
   /** position in the document's array, or -1 for an entity of the stored network */
   index: number;
   raw: Record<string, unknown>;
+  // Scratch fields the warning pass fills in, so that it needs no maps of its own.
+  /** carriages: dense position in the warning pass's graph */
+  slot?: number;
+  /** sites: how many carriages the site has */
+  carriages?: number;
+  /** sites: whether a reserve feed comes into one of its carriages */
+  hasReserve?: boolean;
 }
 
 export interface NetworkView {
@@ -30,7 +37,6 @@ export function buildView(lists: Partial<Record<EntityKind, unknown[]>>, unreada
     for (const stored of context?.[kind] ?? []) {
       map.set(stored.code, { index: -1, raw: stored as unknown as Record<string, unknown> });
     }
-    const inDocument = new Set<string>();
     const list = lists[kind] ?? [];
     for (let index = 0; index < list.length; index++) {
       const item = list[index];
@@ -38,10 +44,10 @@ export function buildView(lists: Partial<Record<EntityKind, unknown[]>>, unreada
       const entry: Entry = { index, raw: item as Record<string, unknown> };
       entries.push(entry);
       const code = refAt(entry.raw, 'code');
-      if (code !== undefined && !inDocument.has(code)) {
-        inDocument.add(code);
-        map.set(code, entry);
-      }
+      if (code === undefined) continue;
+      // The document's first entity with a code wins over a stored one and over its own duplicates.
+      const held = map.get(code);
+      if (held === undefined || held.index < 0) map.set(code, entry);
     }
     doc[kind] = entries;
     byCode[kind] = map;

@@ -15,21 +15,24 @@ import { refAt, type Entry, type NetworkView } from './view';
 export function findWarnings(view: NetworkView, sink: IssueSink): void {
   const carriages = [...view.byCode.carriages.values()];
   const n = carriages.length;
-  const id = new Map<string, number>();
-  carriages.forEach((c, i) => id.set(refAt(c.raw, 'code') as string, i));
-  const siteOf = carriages.map((c) => refAt(c.raw, 'site'));
-  const roleOf = (site: string | undefined) => (site === undefined ? undefined : view.byCode.sites.get(site)?.raw.role);
+  carriages.forEach((c, i) => (c.slot = i));
+  const siteOf = carriages.map((c) => {
+    const code = refAt(c.raw, 'site');
+    return code === undefined ? undefined : view.byCode.sites.get(code);
+  });
+  for (const site of siteOf) if (site) site.carriages = (site.carriages ?? 0) + 1;
+  const slotOf = (code: string | undefined) => (code === undefined ? undefined : view.byCode.carriages.get(code)?.slot);
 
   const from: number[] = [];
   const to: number[] = [];
-  const sitesWithReserve = new Set<string>();
   for (const feed of view.byCode.feeds.values()) {
-    const f = id.get(refAt(feed.raw, 'from') ?? '');
-    const t = id.get(refAt(feed.raw, 'to') ?? '');
+    const f = slotOf(refAt(feed.raw, 'from'));
+    const t = slotOf(refAt(feed.raw, 'to'));
     if (f === undefined || t === undefined || f === t) continue;
     from.push(f);
     to.push(t);
-    if (feed.raw.role === 'reserve' && siteOf[t] !== undefined) sitesWithReserve.add(siteOf[t] as string);
+    const site = siteOf[t];
+    if (feed.raw.role === 'reserve' && site) site.hasReserve = true;
   }
   const graph = compressedSparseRows(n, from, to);
 
@@ -37,7 +40,7 @@ export function findWarnings(view: NetworkView, sink: IssueSink): void {
   const queue = new Int32Array(n);
   let tail = 0;
   for (let i = 0; i < n; i++) {
-    if (roleOf(siteOf[i]) === 'origin') {
+    if (siteOf[i]?.raw.role === 'origin') {
       reached[i] = 1;
       queue[tail++] = i;
     }
@@ -57,19 +60,17 @@ export function findWarnings(view: NetworkView, sink: IssueSink): void {
 
   for (let i = 0; i < n; i++) {
     const entry = carriages[i];
-    const role = roleOf(siteOf[i]);
-    if (entry.index < 0 || graph.indegree[i] > 0 || role === undefined || role === 'origin') continue;
+    const site = siteOf[i];
+    const role = site?.raw.role;
+    if (entry.index < 0 || graph.indegree[i] > 0 || site === undefined || role === 'origin') continue;
     sink.warn('carriages', entry.index, refAt(entry.raw, 'code'), undefined, 'no-feed',
-      `no feed comes into it, so it has no programme (site ${siteOf[i]} is a ${String(role)}, not an origin)`);
+      `no feed comes into it, so it has no programme (site ${refAt(site.raw, 'code')} is a ${String(role)}, not an origin)`);
   }
 
-  const carriagesAtSite = new Map<string, number>();
-  for (const site of siteOf) if (site !== undefined) carriagesAtSite.set(site, (carriagesAtSite.get(site) ?? 0) + 1);
   for (const site of view.byCode.sites.values()) {
-    const code = refAt(site.raw, 'code') as string;
-    const count = carriagesAtSite.get(code) ?? 0;
-    if (site.index < 0 || site.raw.role !== 'relay' || count === 0 || sitesWithReserve.has(code)) continue;
-    sink.warn('sites', site.index, code, undefined, 'no-reserve',
+    const count = site.carriages ?? 0;
+    if (site.index < 0 || site.raw.role !== 'relay' || count === 0 || site.hasReserve) continue;
+    sink.warn('sites', site.index, refAt(site.raw, 'code'), undefined, 'no-reserve',
       `no reserve feed comes into any of its ${count} carriage${count === 1 ? '' : 's'}, so one failure upstream takes this relay off air`);
   }
 }
