@@ -151,6 +151,11 @@ describe('uploads', () => {
     expect(result.document).toEqual(smallNetwork());
   });
 
+  it('reads a JSON document saved with a byte order mark', async () => {
+    const result = await readNetworkUpload('net.JSON', Buffer.from(`\uFEFF${JSON.stringify(smallNetwork())}`));
+    expect(result.errors).toEqual([]);
+  });
+
   it('reports JSON that does not parse', async () => {
     const result = await readNetworkUpload('net.json', Buffer.from('{"format": '));
     expect(result.errors).toEqual([expect.objectContaining({ kind: 'document', rule: 'invalid-json', file: 'net.json' })]);

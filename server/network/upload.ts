@@ -18,7 +18,8 @@ export async function readNetworkUpload(name: string, data: Uint8Array, opts: Om
   if (/\.json$/i.test(name)) {
     let raw: unknown;
     try {
-      raw = JSON.parse(Buffer.from(data).toString('utf8'));
+      // Some editors save UTF-8 with a byte order mark, which JSON.parse refuses.
+      raw = JSON.parse(Buffer.from(data).toString('utf8').replace(/^\uFEFF/, ''));
     } catch (err) {
       return failed([{ kind: 'document', file: name, rule: 'invalid-json', message: `${name} is not valid JSON: ${(err as Error).message}` }]);
     }

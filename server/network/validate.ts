@@ -2,7 +2,9 @@
  * Validates a network document (handbook interchange.md section 1) and reports
  * every error, not the first: the document's shape, each entity against its
  * schema, then the rules between entities; and the warnings that let an
- * import go ahead. The document is returned only when there is no error.
+ * import go ahead. The document is returned only when there is no error;
+ * entities already in the schema's output form are returned as the very
+ * objects given (see canonical.ts), so do not change the input afterwards.
  */
 import type { ImportIssue } from '@/shared/schemas/import';
 import {
