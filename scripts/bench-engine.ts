@@ -9,6 +9,7 @@
  * "every element's exposure" is extrapolated from a timed sample and says so.
  */
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import type { Element } from '@/shared/schemas/analysis';
@@ -44,6 +45,8 @@ export interface EngineBenchResult {
   /** reach of 2-5 random elements (sites, feeds, groups drawn alike) */
   reachMultiP50Ms: number;
   reachMultiP95Ms: number;
+  /** reach of 2-5 random sites (each site has nodes in most service graphs) */
+  reachMultiSitesP95Ms: number;
   /** plain typed-array BFS of every service graph with the same failed elements removed */
   walkFloorMs: number;
   walkFloorP95Ms: number;
@@ -58,6 +61,8 @@ export interface EngineBenchResult {
   idomMs: number;
   /** networkx immediate_dominators over the same graphs; null without networkx */
   networkxIdomMs: number | null;
+  /** 1-minute load average before and after (other work on the machine inflates every time above) */
+  loadAverage: [number, number];
 }
 
 function percentile(values: number[], p: number): number {
@@ -71,12 +76,14 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
   const trials = opts.trials ?? 200;
   const sampleSize = opts.baselineSample ?? 200;
   const rnd = prng(opts.seed ?? 1);
+  const loadBefore = os.loadavg()[0];
 
   let t = performance.now();
   const engine = NetworkEngine.build(doc, 1);
   const buildMs = performance.now() - t;
   const elements = engine.elements();
   const sites = elements.filter((e) => e.kind === 'site');
+  if (sites.length === 0) throw new Error('the network has no sites to fail');
   const anyElement = () => elements[Math.floor(rnd() * elements.length)];
   const timed = (f: () => unknown) => {
     const s = performance.now();
@@ -100,6 +107,11 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     multi.push(timed(() => engine.reach(failed)));
     floor.push(timed(() => engine.walkFloor(failed)));
   }
+
+  const multiSites = Array.from({ length: trials }, () => {
+    const failed = Array.from({ length: 2 + Math.floor(rnd() * 4) }, () => sites[Math.floor(rnd() * sites.length)]);
+    return timed(() => engine.reach(failed));
+  });
 
   const spofAllMs = engine.recomputeResilience().ms;
   const sample = Array.from({ length: sampleSize }, anyElement);
@@ -126,6 +138,7 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     reachOneP95Ms: round(percentile(one, 95)),
     reachMultiP50Ms: round(percentile(multi, 50)),
     reachMultiP95Ms: round(percentile(multi, 95)),
+    reachMultiSitesP95Ms: round(percentile(multiSites, 95)),
     walkFloorMs: round(percentile(floor, 50)),
     walkFloorP95Ms: round(percentile(floor, 95)),
     reachMultiToFloorP95: round(percentile(multi, 95) / percentile(floor, 95)),
@@ -134,6 +147,7 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     baselineSampleSize: sampleSize,
     idomMs: round(idomMs),
     networkxIdomMs: networkxIdomMs === null ? null : round(networkxIdomMs),
+    loadAverage: [round(loadBefore), round(os.loadavg()[0])],
   };
 }
 

@@ -26,19 +26,31 @@ export const normaliseCode = (code: string): string => code.trim();
  * code -> id map.
  */
 function sortedIndex<T extends { code: string }>(kind: string, items: T[]): { items: T[]; index: Map<string, number>; codes: string[] } {
-  const trimmed = items.map((item) => normaliseCode(item.code));
-  const order = Array.from(trimmed.keys()).sort((a, b) => (trimmed[a] < trimmed[b] ? -1 : trimmed[a] > trimmed[b] ? 1 : 0));
+  const n = items.length;
+  const codes: string[] = new Array(n);
+  let ascending = true;
+  for (let i = 0; i < n; i++) {
+    codes[i] = normaliseCode(items[i].code);
+    if (i > 0 && !(codes[i - 1] < codes[i])) ascending = false;
+  }
   const index = new Map<string, number>();
-  const codes: string[] = new Array(order.length);
-  const sorted: T[] = new Array(order.length);
-  order.forEach((from, i) => {
-    const code = trimmed[from];
-    if (index.has(code)) throw new NetworkModelError(`${kind} ${code}: the code is used twice`);
-    index.set(code, i);
-    codes[i] = code;
-    sorted[i] = items[from];
-  });
-  return { items: sorted, index, codes };
+  // Exports and generators usually list codes in order already: then no sort and no repeats.
+  if (ascending) {
+    for (let i = 0; i < n; i++) index.set(codes[i], i);
+    return { items: items.slice(), index, codes };
+  }
+  for (let i = 0; i < n; i++) {
+    if (index.has(codes[i])) throw new NetworkModelError(`${kind} ${codes[i]}: the code is used twice`);
+    index.set(codes[i], i);
+  }
+  // The default sort compares UTF-16 code units, the same order as `<` and compareElements.
+  const sortedCodes = codes.slice().sort();
+  const sorted: T[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    sorted[i] = items[index.get(sortedCodes[i])!];
+    index.set(sortedCodes[i], i);
+  }
+  return { items: sorted, index, codes: sortedCodes };
 }
 
 /**
@@ -143,15 +155,17 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
   const carriages = sortedIndex('carriage', doc.carriages);
   const feeds = sortedIndex('feed', doc.feeds);
 
-  // `owner` names the referring entity; it is only built when the reference is wrong.
-  const groupId = (owner: () => string, code: string) => {
+  // The referring entity is named only when a reference is wrong (a national network makes ~10^6 look-ups).
+  const missing = (kind: string, owner: string[], i: number, what: string, code: string) =>
+    new NetworkModelError(`${kind} ${owner[i]}: ${what} ${normaliseCode(code)} does not exist`);
+  const groupId = (kind: string, owner: string[], i: number, code: string) => {
     const id = groups.index.get(normaliseCode(code));
-    if (id === undefined) throw new NetworkModelError(`${owner()}: group ${normaliseCode(code)} does not exist`);
+    if (id === undefined) throw missing(kind, owner, i, 'group', code);
     return id;
   };
-  const siteId = (owner: () => string, code: string) => {
+  const siteId = (kind: string, owner: string[], i: number, code: string) => {
     const id = sites.index.get(normaliseCode(code));
-    if (id === undefined) throw new NetworkModelError(`${owner()}: site ${normaliseCode(code)} does not exist`);
+    if (id === undefined) throw missing(kind, owner, i, 'site', code);
     return id;
   };
 
@@ -163,7 +177,7 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     const site = sites.items[i];
     siteOrigin[i] = site.role === 'origin' ? 1 : 0;
     siteHouseholds[i] = site.households ?? 0;
-    for (const g of site.groups ?? []) siteGroups.add(groupId(() => `site ${sites.codes[i]}`, g));
+    if (site.groups) for (const g of site.groups) siteGroups.add(groupId('site', sites.codes, i, g));
     siteGroups.next();
   }
 
@@ -172,9 +186,9 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
   const carriageService = new Int32Array(C);
   for (let i = 0; i < C; i++) {
     const c = carriages.items[i];
-    carriageSite[i] = siteId(() => `carriage ${carriages.codes[i]}`, c.site);
+    carriageSite[i] = siteId('carriage', carriages.codes, i, c.site);
     const service = services.index.get(normaliseCode(c.service));
-    if (service === undefined) throw new NetworkModelError(`carriage ${carriages.codes[i]}: service ${normaliseCode(c.service)} does not exist`);
+    if (service === undefined) throw missing('carriage', carriages.codes, i, 'service', c.service);
     carriageService[i] = service;
   }
 
@@ -188,17 +202,17 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     const f = feeds.items[i];
     const from = carriages.index.get(normaliseCode(f.from));
     const to = carriages.index.get(normaliseCode(f.to));
-    if (from === undefined) throw new NetworkModelError(`feed ${feeds.codes[i]}: source carriage ${normaliseCode(f.from)} does not exist`);
-    if (to === undefined) throw new NetworkModelError(`feed ${feeds.codes[i]}: target carriage ${normaliseCode(f.to)} does not exist`);
+    if (from === undefined) throw missing('feed', feeds.codes, i, 'source carriage', f.from);
+    if (to === undefined) throw missing('feed', feeds.codes, i, 'target carriage', f.to);
     if (carriageService[from] !== carriageService[to]) {
       throw new NetworkModelError(`feed ${feeds.codes[i]}: carriages ${carriages.codes[from]} and ${carriages.codes[to]} carry different services`);
     }
     feedFrom[i] = from;
     feedTo[i] = to;
     feedReserve[i] = f.role === 'reserve' ? 1 : 0;
-    for (const v of f.via ?? []) feedVia.add(siteId(() => `feed ${feeds.codes[i]}`, v));
+    if (f.via) for (const v of f.via) feedVia.add(siteId('feed', feeds.codes, i, v));
     feedVia.next();
-    for (const g of f.groups ?? []) feedGroups.add(groupId(() => `feed ${feeds.codes[i]}`, g));
+    if (f.groups) for (const g of f.groups) feedGroups.add(groupId('feed', feeds.codes, i, g));
     feedGroups.next();
   }
 

@@ -162,7 +162,7 @@ export function nationalNetwork(o: NationalNetworkOptions): NetworkDocument {
     const parent = origins + Math.floor(rnd() * (i - origins));
     const p = sites[parent];
     const parentList = carried[parent];
-    const list = parentList.filter((s) => dtt.includes(s) || rnd() < 0.25);
+    const list = parentList.filter((s) => dtt.includes(s) || rnd() < 0.45);
     addSite(i, 'relay', p.lat + (rnd() - 0.5) * 0.4, p.lon + (rnd() - 0.5) * 0.6, list.length > 0 ? list : [parentList[0]]);
     const mine = carried[i];
     const line = rnd() < 0.1;
