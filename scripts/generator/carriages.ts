@@ -38,12 +38,13 @@ export function buildCarriages(prng: Prng, layout: Layout): CarriageTable {
       const main = draft.role === 'main';
       const parentCarriage = draft.parent >= 0 ? carriages[at[draft.parent * SERVICE_COUNT + k]] : undefined;
       let tuning: Tuning;
+      let onChannel = false;
       if (spec.kind === 'dab') {
         tuning = dabTuning(spec.block as string);
       } else if (spec.kind === 'dtt') {
         if (parentCarriage?.channel !== undefined && !usedChannels.has(parentCarriage.channel) && prng.chance(ON_CHANNEL_SHARE)) {
           tuning = { channel: parentCarriage.channel, frequencyMHz: parentCarriage.frequencyMHz as number };
-          carriage.onChannelRepeater = true;
+          onChannel = true;
         } else {
           const avoid = new Set(usedChannels);
           if (parentCarriage?.channel !== undefined) avoid.add(parentCarriage.channel);
@@ -64,6 +65,7 @@ export function buildCarriages(prng: Prng, layout: Layout): CarriageTable {
       carriage.polarisation = spec.kind === 'dtt' ? (main ? 'H' : prng.chance(0.7) ? 'V' : 'H') : spec.kind === 'fm' ? (main ? 'M' : 'V') : 'V';
       const mast = draft.site.mastHeightM ?? 30;
       carriage.antennaHeightM = Math.round(mast * prng.between(0.6, 0.95));
+      if (onChannel) carriage.onChannelRepeater = true;
     }
   });
   return { carriages, at };

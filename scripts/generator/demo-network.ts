@@ -112,7 +112,6 @@ function buildCarriages(prng: Prng, drafts: Map<string, Draft>): Map<string, Car
       } else if (kind === 'dtt') {
         if (parent && (d.site.code === region.ON_CHANNEL_RELAY || code === region.CLASH_CARRIAGE)) {
           tuning = { channel: parent.channel, frequencyMHz: parent.frequencyMHz as number };
-          if (d.site.code === region.ON_CHANNEL_RELAY) c.onChannelRepeater = true;
         } else {
           tuning = pickUhf(prng, new Set([...usedChannels, ...neighbours.flatMap((n) => n.channel ?? [])]));
         }
@@ -131,6 +130,7 @@ function buildCarriages(prng: Prng, drafts: Map<string, Draft>): Map<string, Car
       c.erpW = erp(prng, kind, d.site.role === 'main', service === 'LCL');
       c.polarisation = kind === 'dtt' ? (d.site.role === 'main' ? 'H' : prng.chance(0.75) ? 'V' : 'H') : kind === 'fm' ? (d.site.role === 'main' ? 'M' : 'V') : 'V';
       c.antennaHeightM = Math.round((d.site.mastHeightM ?? 30) * prng.between(0.6, 0.95));
+      if (kind === 'dtt' && d.site.code === region.ON_CHANNEL_RELAY) c.onChannelRepeater = true;
     }
   }
   return carriages;
@@ -166,9 +166,9 @@ function buildFeeds(prng: Prng, drafts: Map<string, Draft>, carriages: Map<strin
     if (medium === 'line') return { code, from: from.code, to: to.code, medium: 'line', role, groups: [need(arg, `route of ${code}`)] };
     if (medium === 'satellite') return { code, from: from.code, to: to.code, medium: 'satellite', role, groups: [SAT], rxAntenna: 'dish 2.4 m' };
     if (medium === 'off-air') return offAir(code, carriage(need(arg, `source of ${code}`), to.service), to, role);
-    const feed: Feed = { code, from: from.code, to: to.code, medium: 'microwave', role, rxFrequencyMHz: linkMHz, rxAntenna: 'dish 1.8 m' };
-    if (arg) feed.via = [arg];
-    else {
+    const feed: Feed = { code, from: from.code, to: to.code, medium: 'microwave', role, ...(arg ? { via: [arg] } : {}), rxFrequencyMHz: linkMHz, rxAntenna: 'dish 1.8 m' };
+    // Through a hop the dish points at the hop, not at the source: record a bearing only on a direct path.
+    if (!arg) {
       const here = site(to.site);
       const there = site(from.site);
       feed.bearingDeg = normaliseDeg(round(bearingTo(here.lat, here.lon, there.lat, there.lon).bearingDeg, 1));
