@@ -1,0 +1,76 @@
+import { describe, expect, it } from 'vitest';
+import { CHECK_NAMES, type FeedCheck } from '@/shared/schemas/checks';
+import { CHECK_SHORT, CHECK_TITLES, checkState, confidenceWords, limitWords, stateWords, valueWords } from './checkWords';
+
+const base: FeedCheck = { name: 'field-strength', value: 60.2, unit: 'dBuV/m', limit: 56, ok: true, note: 'free space from 1000 W e.r.p.' };
+
+describe('checkState and stateWords', () => {
+  it('says passes or fails for a check with a limit', () => {
+    expect(stateWords(base)).toMatchObject({ state: 'passes', words: 'passes', shape: 'solid' });
+    expect(stateWords({ ...base, value: 50, ok: false })).toMatchObject({ state: 'fails', words: 'fails', shape: 'cross' });
+  });
+
+  it('says a figure without a limit is for reference, not that it passes', () => {
+    const loss: FeedCheck = { name: 'free-space-loss', value: 121.99, unit: 'dB', ok: true, note: 'free space at 600 MHz' };
+    expect(stateWords(loss)).toMatchObject({ state: 'figure', words: 'for reference', shape: null });
+  });
+
+  it('names the missing field when a value was not computed', () => {
+    const c: FeedCheck = { ...base, value: null, limit: undefined, ok: null, note: 'not computed: erpW missing on carriage C12' };
+    expect(checkState(c)).toBe('notComputed');
+    expect(stateWords(c).words).toBe('not computed: erpW missing on carriage C12');
+    expect(stateWords(c).shape).toBe('ring');
+  });
+
+  it('says does not apply and keeps the reason apart', () => {
+    const c: FeedCheck = { name: 'clearance', value: null, unit: 'm', ok: null, note: 'not applicable: off-air feed; earth bulge, Fresnel zone and clearance are screened for microwave feeds' };
+    const w = stateWords(c);
+    expect(w.state).toBe('notApplicable');
+    expect(w.words).toBe('does not apply');
+    expect(w.reason).toMatch(/^off-air feed; earth bulge/);
+  });
+
+  it('tells a computed value with no limit to compare from one not computed', () => {
+    const c: FeedCheck = { ...base, limit: null, ok: null, note: 'free space from 50 W e.r.p.; no limit compared: no planning minimum for AM in the handbook sources' };
+    expect(stateWords(c)).toMatchObject({ state: 'figure', words: 'no limit to compare' });
+  });
+
+  it('still reads a failure with no value (an ERP of 0) as a failure', () => {
+    expect(checkState({ ...base, value: null, ok: false, note: 'erpW is 0 on carriage C3' })).toBe('fails');
+  });
+});
+
+describe('limitWords and valueWords', () => {
+  it('say which way each limit works', () => {
+    expect(limitWords(base)).toBe('planning minimum 56.0 dBµV/m');
+    expect(limitWords({ name: 'horizon', limit: 84.432, unit: 'km' })).toBe('radio horizon 84.4 km');
+    expect(limitWords({ name: 'bearing-record', limit: 5, unit: 'deg' })).toBe('within 5.0°');
+    expect(limitWords({ name: 'channel-clash', limit: 8, unit: 'MHz' })).toBe('at least 8.0 MHz');
+    expect(limitWords({ name: 'clearance', limit: 0, unit: 'm' })).toBe('at least 0.0 m');
+  });
+
+  it('give nothing when there is no limit, and no value rather than 0', () => {
+    expect(limitWords({ name: 'earth-bulge', limit: undefined, unit: 'm' })).toBeNull();
+    expect(limitWords({ name: 'field-strength', limit: null, unit: 'dBuV/m' })).toBeNull();
+    expect(valueWords({ value: null, unit: 'dB' })).toBe('no value');
+    expect(valueWords({ value: 0, unit: 'm' })).toBe('0.0 m');
+  });
+});
+
+describe('confidenceWords', () => {
+  it('flags recalled and secondary limits only', () => {
+    expect(confidenceWords('recalled')).toBe('planning value recalled, unconfirmed');
+    expect(confidenceWords('secondary')).toBe('planning value from a secondary source');
+    expect(confidenceWords('confirmed')).toBeNull();
+    expect(confidenceWords(undefined)).toBeNull();
+  });
+});
+
+describe('titles', () => {
+  it('name every check the API can send', () => {
+    for (const n of CHECK_NAMES) {
+      expect(CHECK_TITLES[n]).toMatch(/\w/);
+      expect(CHECK_SHORT[n]).toMatch(/\w/);
+    }
+  });
+});
