@@ -52,6 +52,19 @@ describe('NetworkEngine: bad input', () => {
 });
 
 describe('NetworkEngine: lookups and the graphology model', () => {
+  it('answers on an empty network and on a site with no carriage', () => {
+    const empty = NetworkEngine.build({ format: 'network/1', sites: [], services: [], groups: [], carriages: [], feeds: [] }, 0);
+    expect(empty.spof().carriages).toEqual([]);
+    expect(empty.exposure().elements).toEqual([]);
+    expect(empty.counts.nodes).toBe(0);
+    const bare = NetworkEngine.build(
+      { format: 'network/1', sites: [{ code: 'A', name: 'Bare hill', role: 'relay', lat: 0, lon: 0 }], services: [], groups: [], carriages: [], feeds: [] },
+      0,
+    );
+    expect(bare.reach([{ kind: 'site', code: 'A' }])).toEqual({ networkVersion: 0, lost: [], fallback: [], households: { lost: 0, fallback: 0 }, byService: [], sites: [] });
+    expect(bare.exposure().elements).toEqual([{ element: { kind: 'site', code: 'A' }, households: 0, carriages: 0 }]);
+  });
+
   it('trims codes and keeps their case', () => {
     const doc = twoPathNetwork('diverse');
     doc.sites[0].code = ' P1 ';
