@@ -21,6 +21,8 @@ const SAT_GROUP: Record<Exclude<Family, 'local'>, Group> = {
   tv: { code: 'SAT-TV', name: 'Satellite transponder, TV distribution' },
   radio: { code: 'SAT-RADIO', name: 'Satellite transponder, radio distribution' },
 };
+const MIN_OFF_AIR_KM = 5;
+const MAX_OFF_AIR_KM = 60;
 const RX_ANTENNA: Record<string, readonly string[]> = {
   dtt: ['UHF yagi', 'UHF log-periodic', 'UHF panel'],
   fm: ['FM yagi', 'FM dipole'],
@@ -104,7 +106,12 @@ export function buildFeeds(prng: Prng, layout: Layout, table: CarriageTable, cou
   // Relays: reserve plans first, so the unfed carriages can be chosen where nothing depends on them.
   const treeRelays = new Map<number, number[]>();
   const loopSites = new Set(layout.loopPairs.flat());
-  for (const s of layout.relays) if (!loopSites.has(s)) (treeRelays.get(sites[s].tree) ?? treeRelays.set(sites[s].tree, []).get(sites[s].tree)!).push(s);
+  for (const s of layout.relays) {
+    if (loopSites.has(s)) continue;
+    const list = treeRelays.get(sites[s].tree);
+    if (list) list.push(s);
+    else treeRelays.set(sites[s].tree, [s]);
+  }
   const reserves: Array<{ to: number; from: number; kind: 'alt' | 'same' | 'line' }> = [];
   const isSource = new Uint8Array(sites.length);
   for (const list of treeRelays.values()) {
@@ -149,7 +156,10 @@ export function buildFeeds(prng: Prng, layout: Layout, table: CarriageTable, cou
   for (const plan of reserves) {
     const target = sites[plan.to];
     const source = sites[plan.from];
-    const toward = bearingTo(target.site.lat, target.site.lon, source.site.lat, source.site.lon).bearingDeg;
+    const path = bearingTo(target.site.lat, target.site.lon, source.site.lat, source.site.lon);
+    // Off-air paths keep to the span relays have from their parents (5-60 km).
+    if (plan.kind === 'alt' && (path.distanceKm < MIN_OFF_AIR_KM || path.distanceKm > MAX_OFF_AIR_KM)) continue;
+    const toward = path.bearingDeg;
     for (const k of target.services) {
       const at = carriageAt(table, plan.from, k);
       const to = carriageOf(plan.to, k);
