@@ -21,14 +21,16 @@ export default function RootLayout() {
     [FONT_NAMES.mono]: require('../fonts/IBMPlexMono_400Regular.ttf'),
     [FONT_NAMES.monoBold]: require('../fonts/IBMPlexMono_600SemiBold.ttf'),
   });
-  // A font that fails to load falls back to the system face (see theme);
-  // it must not keep the app from starting.
-  if (!loaded && !fontError) return null;
+  // A font that fails to load falls back to the system face (see theme); it
+  // must not keep the app from starting. The routes stay mounted while fonts
+  // load (only hidden): returning null here loses the deep link on the web,
+  // which then opens at "/".
+  const ready = loaded || !!fontError;
 
   return (
     <SessionProvider>
       <ApiProvider>
-        <View style={styles.root}>
+        <View style={[styles.root, !ready && styles.hidden]}>
           <StatusBar style="dark" />
           <Slot />
         </View>
@@ -39,4 +41,5 @@ export default function RootLayout() {
 
 const styles = StyleSheet.create({
   root: { flex: 1, backgroundColor: colors.canvas },
+  hidden: { opacity: 0 },
 });

@@ -3,23 +3,29 @@
  * a signed-out visitor to /sign-in (remembering where they were going, so a
  * shared link still works after signing in), and otherwise draws the shell.
  */
-import { Redirect, usePathname, type Href } from 'expo-router';
-import { Platform, StyleSheet, View } from 'react-native';
+import { Redirect, useGlobalSearchParams, usePathname, useSegments, type Href } from 'expo-router';
+import { useEffect, useRef } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { SessionCache } from '@/src/api/ApiProvider';
 import { AppShell } from '@/src/components/nav/AppShell';
 import { LoadingState } from '@/src/components/states';
-import { signInHref } from '@/src/session/nextPath';
+import { queryFromParams, signInHref } from '@/src/session/nextPath';
 import { useSession } from '@/src/session/SessionProvider';
 import { colors } from '@/src/theme';
-
-// The query exactly as typed; route params (like a site code in the path)
-// are already in the pathname and must not be repeated.
-function currentSearch(): string {
-  return Platform.OS === 'web' && typeof window !== 'undefined' ? window.location.search : '';
-}
 
 export default function SignedInLayout() {
   const session = useSession();
   const pathname = usePathname();
+  const params = useGlobalSearchParams();
+  const segments = useSegments();
+  const here = `${pathname}${queryFromParams(params, segments)}`;
+  // Where the person was while signed in. Once the shell (and the group's
+  // navigator inside it) unmounts on sign-out, usePathname reads "/", so the
+  // place to come back to is remembered here.
+  const lastPlace = useRef<string | null>(null);
+  useEffect(() => {
+    if (session.status === 'signedIn') lastPlace.current = here;
+  });
 
   if (session.status === 'restoring') {
     return (
@@ -30,10 +36,14 @@ export default function SignedInLayout() {
   }
   if (session.status === 'signedOut') {
     // After choosing to sign out there is nothing to come back to.
-    const href = session.lastSignOut === 'chosen' ? '/sign-in' : signInHref(pathname, currentSearch());
+    const href = session.lastSignOut === 'chosen' ? '/sign-in' : signInHref(lastPlace.current ?? here);
     return <Redirect href={href as Href} />;
   }
-  return <AppShell />;
+  return (
+    <SessionCache>
+      <AppShell />
+    </SessionCache>
+  );
 }
 
 const styles = StyleSheet.create({

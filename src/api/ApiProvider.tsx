@@ -1,24 +1,26 @@
 /**
- * Gives every screen an authenticated `send` and configures SWR with it.
- * A 401 answer to a request made with the current token ends the session
- * (the shell then redirects to sign-in); a 401 for an older token is ignored,
- * so a slow answer cannot sign out the person who just signed in again.
+ * The authenticated `send` every screen uses, and the SWR cache of one
+ * signed-in session.
+ *
+ * `ApiProvider` (root layout) gives `send`. A 401 answer to a request made
+ * with the current token ends the session (the shell then redirects to
+ * sign-in); a 401 for an older token is ignored, so a slow answer cannot sign
+ * out the person who has just signed in again.
+ *
+ * `SessionCache` (signed-in layout) gives SWR a fresh cache for each
+ * sign-in. It unmounts on sign-out, so nothing fetched for one person (or an
+ * in-flight request SWR would otherwise reuse for up to its deduping
+ * interval) reaches the next person on the same device.
  */
-import { createContext, useCallback, useContext, useEffect, useMemo, useRef, type ReactNode } from 'react';
-import { SWRConfig, useSWRConfig, type SWRConfiguration } from 'swr';
+import { createContext, useCallback, useContext, useMemo, type ReactNode } from 'react';
+import { SWRConfig, type SWRConfiguration } from 'swr';
 import { useSession } from '@/src/session/SessionProvider';
 import { isApiError, request, type RequestOptions } from './client';
+import { retryable } from './retry';
 
 export type Send = (path: string, options?: Omit<RequestOptions, 'token'>) => Promise<unknown>;
 
 const SendContext = createContext<Send | null>(null);
-
-/** Client errors other than timeouts and rate limits will not change on retry. */
-function retryable(error: unknown): boolean {
-  if (!isApiError(error)) return true;
-  if (error.status === 408 || error.status === 429) return true;
-  return error.status === 0 || error.status >= 500;
-}
 
 export function ApiProvider({ children }: { children: ReactNode }) {
   const { tokenRef, signOut } = useSession();
@@ -36,37 +38,21 @@ export function ApiProvider({ children }: { children: ReactNode }) {
     [tokenRef, signOut],
   );
 
-  const swrConfig = useMemo<SWRConfiguration>(
+  return <SendContext.Provider value={send}>{children}</SendContext.Provider>;
+}
+
+export function SessionCache({ children }: { children: ReactNode }) {
+  const send = useSend();
+  const config = useMemo<SWRConfiguration>(
     () => ({
+      provider: () => new Map(),
       fetcher: (key: string) => send(key),
       shouldRetryOnError: retryable,
       errorRetryCount: 3,
     }),
     [send],
   );
-
-  return (
-    <SendContext.Provider value={send}>
-      <SWRConfig value={swrConfig}>
-        <ForgetOnUserChange />
-        {children}
-      </SWRConfig>
-    </SendContext.Provider>
-  );
-}
-
-/** Answers cached for one person must never show to the next one on this device. */
-function ForgetOnUserChange() {
-  const { user } = useSession();
-  const { mutate } = useSWRConfig();
-  const last = useRef(user?.id ?? null);
-  useEffect(() => {
-    const id = user?.id ?? null;
-    if (id === last.current) return;
-    last.current = id;
-    void mutate(() => true, undefined, { revalidate: false });
-  }, [user?.id, mutate]);
-  return null;
+  return <SWRConfig value={config}>{children}</SWRConfig>;
 }
 
 export function useSend(): Send {

@@ -24,3 +24,21 @@ export function signInHref(pathname: string, search = ''): string {
   const target = safeNextPath(`${pathname}${search}`);
   return target === FALLBACK ? '/sign-in' : `/sign-in?next=${encodeURIComponent(target)}`;
 }
+
+/**
+ * The query string of the current place, rebuilt from Expo Router's global
+ * search params minus the route's own path params (the names in "[code]" or
+ * "[...rest]" segments), which are already part of the pathname.
+ */
+export function queryFromParams(params: Record<string, string | string[] | undefined>, segments: readonly string[]): string {
+  const pathParams = new Set(
+    segments.map((s) => /^\[(?:\.\.\.)?([^\]]+)\]$/.exec(s)?.[1]).filter((n): n is string => n !== undefined),
+  );
+  const q = new URLSearchParams();
+  for (const [k, v] of Object.entries(params)) {
+    if (pathParams.has(k) || v === undefined) continue;
+    for (const one of Array.isArray(v) ? v : [v]) q.append(k, one);
+  }
+  const s = q.toString();
+  return s ? `?${s}` : '';
+}

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { readPersistedSession, SIGNED_OUT, writePersistedSession } from './persisted';
-import { safeNextPath, signInHref } from './nextPath';
+import { queryFromParams, safeNextPath, signInHref } from './nextPath';
 
 const user = { id: 7, email: 'ana@example.test', name: 'Ana', role: 'operator' as const };
 
@@ -47,5 +47,19 @@ describe('signInHref', () => {
   });
   it('omits next for home', () => {
     expect(signInHref('/')).toBe('/sign-in');
+  });
+});
+
+describe('queryFromParams', () => {
+  it('keeps query params and drops the route\'s own path params', () => {
+    expect(queryFromParams({ code: 'HILL-1', tab: 'feeds' }, ['(main)', 'sites', '[code]'])).toBe('?tab=feeds');
+    expect(queryFromParams({ rest: ['a', 'b'], q: 'x' }, ['(main)', 'docs', '[...rest]'])).toBe('?q=x');
+  });
+  it('repeats a param given several times and encodes values', () => {
+    expect(queryFromParams({ failed: ['S1', 'S 2'] }, ['(main)', 'reach'])).toBe('?failed=S1&failed=S+2');
+  });
+  it('is empty when there is no query', () => {
+    expect(queryFromParams({}, ['(main)'])).toBe('');
+    expect(queryFromParams({ code: 'X' }, ['(main)', 'sites', '[code]'])).toBe('');
   });
 });

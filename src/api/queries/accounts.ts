@@ -1,7 +1,8 @@
 /** People who may sign in (admin only on the server: shared/api.ts `can.manageUsers`). */
-import { mutate } from 'swr';
+import { useMemo } from 'react';
+import { useSWRConfig } from 'swr';
 import { api, type Role } from '@/shared/api';
-import type { Send } from '../ApiProvider';
+import { useSend } from '../ApiProvider';
 import { accountsAnswerSchema } from '../schemas';
 import { useApiQuery } from '../useApiQuery';
 
@@ -18,22 +19,31 @@ export interface Invitation {
   password: string;
 }
 
-export async function inviteAccount(send: Send, invitation: Invitation) {
-  const answer = await send(api.users, { method: 'POST', body: invitation });
-  await mutate(accountsKey());
-  return answer;
-}
-
 export interface AccountChange {
   role?: Role;
   disabled?: boolean;
 }
 
-export async function changeAccount(send: Send, id: number | string, change: AccountChange) {
-  if (change.role === undefined && change.disabled === undefined) {
-    throw new Error('changeAccount: give a role or disabled to change');
-  }
-  const answer = await send(api.user(id), { method: 'PATCH', body: change });
-  await mutate(accountsKey());
-  return answer;
+/** Invite and change accounts; each refreshes the list when the server has answered. */
+export function useAccountActions() {
+  const send = useSend();
+  const { mutate } = useSWRConfig();
+  return useMemo(
+    () => ({
+      invite: async (invitation: Invitation) => {
+        const answer = await send(api.users, { method: 'POST', body: invitation });
+        await mutate(accountsKey());
+        return answer;
+      },
+      change: async (id: number | string, change: AccountChange) => {
+        if (change.role === undefined && change.disabled === undefined) {
+          throw new Error('changing an account needs a role or disabled');
+        }
+        const answer = await send(api.user(id), { method: 'PATCH', body: change });
+        await mutate(accountsKey());
+        return answer;
+      },
+    }),
+    [send, mutate],
+  );
 }

@@ -24,7 +24,7 @@ const SHAPES: Record<IconName, Shape> = {
   // Three sites joined by feeds.
   network: { paths: ['M7.3 7.4 10.6 15', 'M16.7 7.4 13.4 15', 'M7.7 5.5h8.6'], rings: [[5.5, 5.5, 2.3], [18.5, 5.5, 2.3], [12, 18, 2.3]] },
   // A main path below and a reserve path (dashed) bridging over it.
-  resilience: { paths: ['M3 16h18'], dashed: ['M5 16c0-8 14-8 14 0'], dots: [[5, 16, 2], [19, 16, 2]] },
+  resilience: { paths: ['M3 18h18'], dashed: ['M5 18C5 5 19 5 19 18'], dots: [[5, 18, 2.2], [19, 18, 2.2]] },
   // A list of records.
   inventory: { paths: ['M9 6h11', 'M9 12h11', 'M9 18h11', 'M4 4.5h2.5V7H4z', 'M4 10.5h2.5V13H4z', 'M4 16.5h2.5V19H4z'] },
   // A clipboard with a tick.
@@ -56,7 +56,7 @@ export function Icon({ name, size = 24, color = colors.ink, weight = 2 }: IconPr
         <Path key={d} d={d} {...stroke} />
       ))}
       {shape.dashed?.map((d) => (
-        <Path key={d} d={d} {...stroke} strokeDasharray="2.5 2.5" strokeLinecap="butt" />
+        <Path key={d} d={d} {...stroke} strokeDasharray="3 2.4" strokeLinecap="butt" />
       ))}
       {shape.rings?.map(([cx, cy, r]) => (
         <Circle key={`r${cx},${cy}`} cx={cx} cy={cy} r={r} {...stroke} />

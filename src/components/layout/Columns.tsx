@@ -1,6 +1,6 @@
 /**
- * Lays its children out in columns: one on a phone, two on a wide window,
- * three on a roomy one (src/breakpoints.ts), never more than `max`.
+ * Lays its children out in columns: one on a phone (or `phone`), two on a
+ * wide window, three on a roomy one (src/breakpoints.ts), never more than `max`.
  * Children keep their order, filling rows left to right.
  *
  *   <Columns max={3}>{tiles}</Columns>
@@ -14,14 +14,16 @@ export interface ColumnsProps {
   children?: ReactNode;
   /** Upper limit on columns (default 3). */
   max?: 1 | 2 | 3;
+  /** Columns on a phone (default 1); 2 suits small tiles such as counts. */
+  phone?: 1 | 2;
   /** Gap between cells in px (default space.md). */
   gap?: number;
   testID?: string;
 }
 
-export function Columns({ children, max = 3, gap = space.md, testID }: ColumnsProps) {
+export function Columns({ children, max = 3, phone = 1, gap = space.md, testID }: ColumnsProps) {
   const { columns } = useBreakpoints();
-  const n = Math.min(columns, max);
+  const n = Math.min(Math.max(columns, phone), max);
   const items = Children.toArray(children);
   // Negative margins with half-gap padding keep equal gutters and exact
   // percentage widths; percentage widths with `gap` would overflow the row.

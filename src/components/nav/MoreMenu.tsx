@@ -23,7 +23,7 @@ export function MoreMenu() {
         <View style={styles.list}>
           {places.map((d) => (
             <Link key={d.id} href={d.href as Href} asChild>
-              <Pressable accessibilityRole="link" accessibilityLabel={d.label} testID={`more-${d.id}`} style={({ pressed }) => [styles.item, pressed && styles.pressed]}>
+              <Pressable accessibilityRole="link" accessibilityLabel={d.label} testID={`more-${d.id}`} style={styles.item}>
                 <Icon name={d.icon} color={colors.accent} />
                 <View style={styles.texts}>
                   <Text style={styles.label}>{d.label}</Text>
@@ -59,5 +59,4 @@ const styles = StyleSheet.create({
   label: { ...type.label, fontSize: 17 },
   blurb: { ...type.small },
   account: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, padding: space.lg },
-  pressed: { backgroundColor: colors.accentSoft },
 });

@@ -29,7 +29,8 @@ export function NavLink({ href, label, icon, current, layout, testID }: NavLinkP
         accessibilityState={{ selected: current }}
         {...webAria({ 'aria-current': current ? 'page' : undefined })}
         testID={testID}
-        style={({ pressed }) => [tab ? styles.tab : styles.row, current && (tab ? styles.tabCurrent : styles.rowCurrent), pressed && styles.pressed]}
+        // Link asChild merges plain style objects only (no arrays, no style functions).
+        style={StyleSheet.flatten([tab ? styles.tab : styles.row, current && (tab ? styles.tabCurrent : styles.rowCurrent)])}
       >
         <Icon name={icon} size={tab ? 24 : 22} color={ink} weight={current ? 2.4 : 2} />
         <Text style={[tab ? styles.tabLabel : styles.rowLabel, { color: current ? colors.accent : colors.ink }, current && styles.labelCurrent]} numberOfLines={tab ? 2 : 1}>
@@ -69,5 +70,4 @@ const styles = StyleSheet.create({
   rowCurrent: { backgroundColor: colors.accentSoft, borderLeftColor: colors.accent },
   rowLabel: { fontFamily: fonts.text, fontSize: 17, lineHeight: 22 },
   labelCurrent: { fontFamily: fonts.textBold },
-  pressed: { opacity: 0.75 },
 });

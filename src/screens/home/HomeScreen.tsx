@@ -20,7 +20,7 @@ function Counts({ summary }: { summary: NetworkSummary }) {
     return <EmptyState title="The network is empty" message="No sites or services have been entered yet. Add them in Inventory, or import a network document there." testID="network-empty" />;
   }
   return (
-    <Columns max={3}>
+    <Columns max={3} phone={2}>
       <CountTile
         label="Sites"
         count={counts.sites}

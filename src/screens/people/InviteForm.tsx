@@ -2,8 +2,7 @@
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { ROLES } from '@/shared/api';
-import { useSend } from '@/src/api/ApiProvider';
-import { inviteAccount } from '@/src/api/queries/accounts';
+import { useAccountActions } from '@/src/api/queries/accounts';
 import { Button } from '@/src/components/Button';
 import { Card } from '@/src/components/Card';
 import { Choice } from '@/src/components/Choice';
@@ -21,7 +20,7 @@ const ROLE_HINTS: Record<(typeof ROLES)[number], string> = {
 };
 
 export function InviteForm() {
-  const send = useSend();
+  const actions = useAccountActions();
   const [draft, setDraft] = useState<InvitationDraft>(EMPTY);
   const [errors, setErrors] = useState<InvitationErrors>({});
   const [busy, setBusy] = useState(false);
@@ -40,7 +39,7 @@ export function InviteForm() {
     setErrors({});
     setBusy(true);
     try {
-      await inviteAccount(send, checked.invitation);
+      await actions.invite(checked.invitation);
       setDraft(EMPTY);
       setDone(`${checked.invitation.email} can now sign in as ${checked.invitation.role}. Give them the starting password in person or by phone.`);
     } catch (e) {

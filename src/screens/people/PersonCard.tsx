@@ -6,8 +6,7 @@
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { ROLES, type Role } from '@/shared/api';
-import { useSend } from '@/src/api/ApiProvider';
-import { changeAccount, type AccountChange } from '@/src/api/queries/accounts';
+import { useAccountActions, type AccountChange } from '@/src/api/queries/accounts';
 import type { Account } from '@/src/api/schemas';
 import { Badge } from '@/src/components/Badge';
 import { Button } from '@/src/components/Button';
@@ -24,7 +23,7 @@ function joinedOn(createdAt: string): string {
 }
 
 export function PersonCard({ account, isSelf }: { account: Account; isSelf: boolean }) {
-  const send = useSend();
+  const actions = useAccountActions();
   const [mode, setMode] = useState<Mode>('view');
   const [role, setRole] = useState<Role>(account.role);
   const [busy, setBusy] = useState(false);
@@ -35,7 +34,7 @@ export function PersonCard({ account, isSelf }: { account: Account; isSelf: bool
     setBusy(true);
     setFailure(null);
     try {
-      await changeAccount(send, account.id, change);
+      await actions.change(account.id, change);
       setMode('view');
     } catch (e) {
       setFailure(describeError(e));
