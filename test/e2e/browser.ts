@@ -72,3 +72,19 @@ export async function shot(page: Page, name: string) {
   fs.mkdirSync(ARTIFACTS, { recursive: true });
   await page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: false });
 }
+
+/** A bearer token for API calls made beside the browser (to compare screen and API). */
+export async function apiToken(role: Role): Promise<string> {
+  const u = demoUser(role);
+  const r = await fetch(`${baseUrl()}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: u.email, password: u.password }) });
+  if (!r.ok) throw new Error(`API sign-in as ${role} failed: ${r.status}`);
+  return ((await r.json()) as { token: string }).token;
+}
+
+export async function apiGet<T>(path: string, role: Role = 'viewer'): Promise<T> {
+  const r = await fetch(`${baseUrl()}${path}`, { headers: { authorization: `Bearer ${await apiToken(role)}` } });
+  if (!r.ok) throw new Error(`GET ${path} answered ${r.status}`);
+  return (await r.json()) as T;
+}
+
+export const digits = (s: string | null) => Number((s ?? '').replace(/[^0-9]/g, ''));
