@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { ROLES } from '@/shared/api';
+import { carriageSchema, ENTITY_KINDS, feedSchema, groupSchema, serviceSchema, siteSchema } from '@/shared/schemas/network';
 
 export const userSchema = z.object({
   id: z.union([z.number(), z.string()]),
@@ -39,3 +40,102 @@ export const accountSchema = userSchema.extend({
 export type Account = z.infer<typeof accountSchema>;
 
 export const accountsAnswerSchema = z.object({ users: z.array(accountSchema) });
+
+// ---- Inventory, import and audit answers (server/routes/inventory.ts, network.ts) ----
+// Entities reuse the shared document schemas (shared/schemas/network.ts) as
+// plain objects, so a field the server adds later is ignored, not fatal.
+const stamp = { version: z.number().int(), updatedAt: z.string() };
+export const storedSiteSchema = z.object({ ...siteSchema.shape, ...stamp });
+export const storedServiceSchema = z.object({ ...serviceSchema.shape, ...stamp });
+export const storedGroupSchema = z.object({ ...groupSchema.shape, ...stamp });
+export const storedCarriageSchema = z.object({ ...carriageSchema.shape, ...stamp });
+export const storedFeedSchema = z.object({ ...feedSchema.shape, ...stamp });
+export type StoredSite = z.infer<typeof storedSiteSchema>;
+export type StoredService = z.infer<typeof storedServiceSchema>;
+export type StoredGroup = z.infer<typeof storedGroupSchema>;
+export type StoredCarriage = z.infer<typeof storedCarriageSchema>;
+export type StoredFeed = z.infer<typeof storedFeedSchema>;
+
+export const storedEntitySchemas = {
+  sites: storedSiteSchema,
+  services: storedServiceSchema,
+  groups: storedGroupSchema,
+  carriages: storedCarriageSchema,
+  feeds: storedFeedSchema,
+} as const;
+export type StoredEntities = { [K in keyof typeof storedEntitySchemas]: z.infer<(typeof storedEntitySchemas)[K]> };
+
+export const pageOf = <T extends z.ZodTypeAny>(item: T) =>
+  z.object({ items: z.array(item), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+
+export const siteDetailSchema = z.object({
+  site: storedSiteSchema,
+  carriages: z.array(storedCarriageSchema),
+  feedsIn: z.array(storedFeedSchema),
+  feedsOut: z.array(storedFeedSchema),
+  feedsVia: z.array(storedFeedSchema),
+});
+export const serviceDetailSchema = z.object({
+  service: storedServiceSchema,
+  counts: z.object({ carriages: z.number(), feeds: z.number() }),
+});
+export const groupDetailSchema = z.object({
+  group: storedGroupSchema,
+  members: z.object({ sites: z.array(z.string()), feeds: z.array(z.string()) }),
+});
+export const carriageDetailSchema = z.object({
+  carriage: storedCarriageSchema,
+  site: storedSiteSchema.optional(),
+  service: storedServiceSchema.optional(),
+  feedsIn: z.array(storedFeedSchema),
+  feedsOut: z.array(storedFeedSchema),
+});
+const feedEndSchema = z.object({ carriage: storedCarriageSchema.optional(), site: storedSiteSchema.optional() });
+export const feedDetailSchema = z.object({
+  feed: storedFeedSchema,
+  source: feedEndSchema,
+  target: feedEndSchema,
+  via: z.array(storedSiteSchema),
+});
+export type SiteDetail = z.infer<typeof siteDetailSchema>;
+export type ServiceDetail = z.infer<typeof serviceDetailSchema>;
+export type GroupDetail = z.infer<typeof groupDetailSchema>;
+export type CarriageDetail = z.infer<typeof carriageDetailSchema>;
+export type FeedDetail = z.infer<typeof feedDetailSchema>;
+
+const importIssueSchema = z.object({
+  kind: z.enum([...ENTITY_KINDS, 'document']),
+  index: z.number().int().optional(),
+  row: z.number().int().optional(),
+  file: z.string().optional(),
+  code: z.string().optional(),
+  field: z.string().optional(),
+  rule: z.string(),
+  message: z.string(),
+});
+const kindCountsSchema = z.object({ received: z.number(), created: z.number(), updated: z.number(), unchanged: z.number(), deleted: z.number() });
+export const importReportSchema = z.object({
+  ok: z.boolean(),
+  dryRun: z.boolean(),
+  replace: z.boolean(),
+  counts: z.object({ sites: kindCountsSchema, services: kindCountsSchema, groups: kindCountsSchema, carriages: kindCountsSchema, feeds: kindCountsSchema }),
+  errors: z.array(importIssueSchema),
+  warnings: z.array(importIssueSchema),
+  networkVersion: z.number().optional(),
+});
+
+export const AUDIT_KINDS = [...ENTITY_KINDS, 'network'] as const;
+export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import'] as const;
+export const auditItemSchema = z.object({
+  id: z.number(),
+  at: z.string(),
+  userEmail: z.string().nullable(),
+  action: z.enum(AUDIT_ACTIONS),
+  entityKind: z.enum(AUDIT_KINDS),
+  entityCode: z.string().nullable(),
+  before: z.unknown(),
+  after: z.unknown(),
+  networkVersion: z.number().nullable(),
+});
+export type AuditItem = z.infer<typeof auditItemSchema>;
+export const auditPageSchema = pageOf(auditItemSchema);

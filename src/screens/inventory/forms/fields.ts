@@ -1,0 +1,83 @@
+/**
+ * The fields of each kind's form, in the handbook's order (interchange.md
+ * section 1), with the label a person sees (and a screen reader reads) and
+ * how the typed text turns into the document's value.
+ */
+import { FEED_ROLES, MEDIA, POLARISATIONS, SERVICE_KINDS, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
+
+export type FieldType =
+  /** a code (monospaced text) */
+  | 'code'
+  | 'text'
+  /** a decimal number */
+  | 'number'
+  /** a whole number */
+  | 'int'
+  /** one of `options` */
+  | 'choice'
+  /** a list of codes typed as "A; B" */
+  | 'codes'
+  /** yes or no */
+  | 'flag';
+
+export interface FieldSpec {
+  name: string;
+  label: string;
+  type: FieldType;
+  /** for choice fields */
+  options?: readonly string[];
+  /** the unit, said in the hint and shown beside values; labels stay plain ("Latitude") as accessible names */
+  unit?: string;
+  required: boolean;
+  hint?: string;
+  /** a codes list whose order means nothing (groups), so repeats are dropped */
+  isSet?: boolean;
+}
+
+const code: FieldSpec = { name: 'code', label: 'Code', type: 'code', required: true, hint: 'Letters, digits, "-", "_" or "."; it cannot change later.' };
+const name: FieldSpec = { name: 'name', label: 'Name', type: 'text', required: true };
+const groups: FieldSpec = { name: 'groups', label: 'Shared-risk groups', type: 'codes', required: false, isSet: true, hint: 'Group codes separated by ";" (optional).' };
+
+export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
+  sites: [
+    code,
+    name,
+    { name: 'role', label: 'Role', type: 'choice', options: SITE_ROLES, required: true },
+    { name: 'lat', label: 'Latitude', type: 'number', unit: 'deg', required: true, hint: 'WGS84 degrees, -90 to 90 (south is negative).' },
+    { name: 'lon', label: 'Longitude', type: 'number', unit: 'deg', required: true, hint: 'WGS84 degrees, -180 to 180 (west is negative).' },
+    { name: 'groundHeightM', label: 'Ground height', type: 'number', unit: 'm', required: false, hint: 'Metres above sea level (optional).' },
+    { name: 'mastHeightM', label: 'Mast height', type: 'number', unit: 'm', required: false, hint: 'Metres above ground (optional).' },
+    { name: 'households', label: 'Households', type: 'int', required: false, hint: 'Households served (optional).' },
+    groups,
+  ],
+  services: [code, name, { name: 'kind', label: 'Kind', type: 'choice', options: SERVICE_KINDS, required: true }],
+  groups: [code, name, { name: 'note', label: 'Note', type: 'text', required: false, hint: 'What fails together, and why (optional).' }],
+  carriages: [
+    code,
+    { name: 'site', label: 'Site', type: 'code', required: true, hint: 'The code of the site that radiates it.' },
+    { name: 'service', label: 'Service', type: 'code', required: true, hint: 'The code of the service it radiates.' },
+    { name: 'frequencyMHz', label: 'Frequency', type: 'number', unit: 'MHz', required: false, hint: 'MHz (optional).' },
+    { name: 'channel', label: 'Channel', type: 'code', required: false, hint: 'UHF channel or DAB block, e.g. 21 or 12B (optional).' },
+    { name: 'erpW', label: 'ERP', type: 'number', unit: 'W', required: false, hint: 'Effective radiated power in W (optional).' },
+    { name: 'polarisation', label: 'Polarisation', type: 'choice', options: POLARISATIONS, required: false },
+    { name: 'antennaHeightM', label: 'Antenna height', type: 'number', unit: 'm', required: false, hint: 'Metres above ground (optional).' },
+    { name: 'onChannelRepeater', label: 'On-channel repeater', type: 'flag', required: false, hint: 'It may transmit on the channel it receives.' },
+  ],
+  feeds: [
+    code,
+    { name: 'from', label: 'Source carriage', type: 'code', required: true, hint: 'The parent carriage the programme comes from.' },
+    { name: 'to', label: 'Target carriage', type: 'code', required: true, hint: 'The carriage this feed brings programme into.' },
+    { name: 'medium', label: 'Medium', type: 'choice', options: MEDIA, required: true },
+    { name: 'role', label: 'Feed role', type: 'choice', options: FEED_ROLES, required: true },
+    { name: 'via', label: 'Via sites', type: 'codes', required: false, hint: 'Site codes the path passes through, in order, separated by ";" (optional).' },
+    groups,
+    { name: 'rxFrequencyMHz', label: 'Receive frequency', type: 'number', unit: 'MHz', required: false, hint: 'MHz (optional).' },
+    { name: 'rxChannel', label: 'Receive channel', type: 'code', required: false, hint: 'Optional.' },
+    { name: 'rxAntenna', label: 'Receive antenna', type: 'text', required: false, hint: 'Optional.' },
+    { name: 'bearingDeg', label: 'Recorded bearing', type: 'number', unit: 'deg', required: false, hint: 'Degrees from true north, 0-360 (optional).' },
+  ],
+};
+
+export function fieldSpec(kind: EntityKind, field: string): FieldSpec | undefined {
+  return FORM_FIELDS[kind].find((f) => f.name === field);
+}

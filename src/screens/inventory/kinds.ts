@@ -1,0 +1,112 @@
+/**
+ * What the inventory screens need to know about each kind of record: the
+ * words for it, where its screens live, which sorts and filters its list
+ * offers. The sort and filter names are the server's whitelist
+ * (GET /api/<kind>, server/routes/inventory.ts); anything else is a 400.
+ */
+import { FEED_ROLES, MEDIA, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
+
+export interface KindWords {
+  /** "site" */
+  one: string;
+  /** "sites" */
+  many: string;
+  /** "Sites", the list's title */
+  title: string;
+}
+
+export const WORDS: Record<EntityKind, KindWords> = {
+  sites: { one: 'site', many: 'sites', title: 'Sites' },
+  services: { one: 'service', many: 'services', title: 'Services' },
+  groups: { one: 'group', many: 'groups', title: 'Groups' },
+  carriages: { one: 'carriage', many: 'carriages', title: 'Carriages' },
+  feeds: { one: 'feed', many: 'feeds', title: 'Feeds' },
+};
+
+/** "1 site", "3 sites" */
+export function countOf(kind: EntityKind, n: number): string {
+  return `${n.toLocaleString('en')} ${n === 1 ? WORDS[kind].one : WORDS[kind].many}`;
+}
+
+/** The route of a kind's list and of one record (codes are URL-escaped). */
+export const listHref = (kind: EntityKind) => `/${kind}`;
+export const detailHref = (kind: EntityKind, code: string) => `/${kind}/${encodeURIComponent(code)}`;
+
+export interface SortOption {
+  value: string;
+  label: string;
+}
+
+/** The sorts a list offers, the most useful first; each is in the server's whitelist. */
+export const SORTS: Record<EntityKind, readonly SortOption[]> = {
+  sites: [
+    { value: 'code', label: 'Code' },
+    { value: 'name', label: 'Name' },
+    { value: 'role', label: 'Role' },
+    { value: 'households', label: 'Households' },
+    { value: 'updatedAt', label: 'Last changed' },
+  ],
+  services: [
+    { value: 'code', label: 'Code' },
+    { value: 'name', label: 'Name' },
+    { value: 'kind', label: 'Kind' },
+    { value: 'updatedAt', label: 'Last changed' },
+  ],
+  groups: [
+    { value: 'code', label: 'Code' },
+    { value: 'name', label: 'Name' },
+    { value: 'updatedAt', label: 'Last changed' },
+  ],
+  carriages: [
+    { value: 'code', label: 'Code' },
+    { value: 'site', label: 'Site' },
+    { value: 'service', label: 'Service' },
+    { value: 'frequencyMHz', label: 'Frequency' },
+    { value: 'erpW', label: 'ERP' },
+  ],
+  feeds: [
+    { value: 'code', label: 'Code' },
+    { value: 'toSite', label: 'Receiving site' },
+    { value: 'fromSite', label: 'Parent site' },
+    { value: 'medium', label: 'Medium' },
+    { value: 'role', label: 'Role' },
+  ],
+};
+
+export interface FilterSpec {
+  /** the query-string name the server knows */
+  name: string;
+  label: string;
+  /** fixed values; absent for a filter by a service code (chosen from the services) */
+  values?: readonly string[];
+}
+
+export const FILTERS: Record<EntityKind, readonly FilterSpec[]> = {
+  sites: [{ name: 'role', label: 'Site role', values: SITE_ROLES }],
+  services: [],
+  groups: [],
+  carriages: [{ name: 'service', label: 'Service' }],
+  feeds: [
+    { name: 'medium', label: 'Medium', values: MEDIA },
+    { name: 'role', label: 'Feed role', values: FEED_ROLES },
+    { name: 'service', label: 'Service' },
+  ],
+};
+
+/** Filters the list accepts from a link but does not offer as controls (a site's feeds, a group's members). */
+export const LINK_FILTERS: Record<EntityKind, readonly string[]> = {
+  sites: ['group'],
+  services: [],
+  groups: [],
+  carriages: ['site'],
+  feeds: ['fromSite', 'toSite', 'group'],
+};
+
+/** The placeholder of a list's search box: what the server searches in. */
+export const SEARCH_HINT: Record<EntityKind, string> = {
+  sites: 'Code or name',
+  services: 'Code or name',
+  groups: 'Code or name',
+  carriages: 'Carriage, site or service code',
+  feeds: 'Feed, carriage, site or service code',
+};
