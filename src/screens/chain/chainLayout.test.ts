@@ -1,0 +1,121 @@
+import { describe, expect, it } from 'vitest';
+import type { ChainNode } from '@/shared/schemas/analysis';
+import { DEFAULT_SIZES, flattenChain, initialFolds, layoutChain, nodeNotes, ROOT_ID, toggleFold } from './chainLayout';
+
+const node = (carriage: string, children: ChainNode[] = [], extra: Partial<ChainNode> = {}): ChainNode => ({
+  carriage,
+  site: carriage.split('.')[0],
+  siteName: `Site ${carriage}`,
+  service: 'TV',
+  origin: false,
+  onAir: true,
+  children,
+  via: { feed: `${carriage}.M`, medium: 'off-air', role: 'main', up: true, distanceKm: 12.5, hops: [], warnings: [] },
+  ...extra,
+});
+
+// R <- M (main) <- O ; R <- M again (reserve, repeated) : the shape of a relay with main and reserve off the same parent.
+const upTree = node('R.TV', [node('M.TV', [node('O.TV', [], { origin: true })]), node('M.TV', [], { repeated: true })]);
+
+describe('flattenChain', () => {
+  it('lists nodes depth first with path ids', () => {
+    const items = flattenChain(upTree, new Set());
+    expect(items.map((i) => [i.id, i.node.carriage, i.depth])).toEqual([
+      ['0', 'R.TV', 0],
+      ['0.0', 'M.TV', 1],
+      ['0.0.0', 'O.TV', 2],
+      ['0.1', 'M.TV', 1],
+    ]);
+  });
+
+  it('hides what a folded node holds and counts it', () => {
+    const items = flattenChain(upTree, new Set(['0.0']));
+    expect(items.map((i) => i.id)).toEqual(['0', '0.0', '0.1']);
+    expect(items[1]).toMatchObject({ folded: true, hiddenCount: 1, childCount: 1 });
+    const all = flattenChain(upTree, new Set([ROOT_ID]));
+    expect(all).toHaveLength(1);
+    expect(all[0].hiddenCount).toBe(3);
+  });
+
+  it('ignores a fold on a leaf', () => {
+    const items = flattenChain(upTree, new Set(['0.1']));
+    expect(items.find((i) => i.id === '0.1')).toMatchObject({ folded: false, hiddenCount: 0 });
+  });
+});
+
+describe('toggleFold', () => {
+  it('adds and removes without touching the old set', () => {
+    const a = new Set<string>();
+    const b = toggleFold(a, '0.1');
+    expect([...b]).toEqual(['0.1']);
+    expect(a.size).toBe(0);
+    expect(toggleFold(b, '0.1').size).toBe(0);
+  });
+});
+
+describe('initialFolds', () => {
+  // A root with 4 children, each with 5 children, each with 1 child: 1 + 4 + 20 + 20 nodes.
+  const wide = node('X', Array.from({ length: 4 }, (_, i) => node(`A${i}`, Array.from({ length: 5 }, (_, j) => node(`B${i}${j}`, [node(`C${i}${j}`)])))));
+
+  it('opens whole levels while they fit', () => {
+    expect(initialFolds(wide, 100).size).toBe(0);
+    // 1 + 4 + 20 = 25 fit in 30; the next level (20 more) does not, so the 20 B nodes are folded.
+    const f = initialFolds(wide, 30);
+    expect(f.size).toBe(20);
+    expect(flattenChain(wide, f)).toHaveLength(25);
+  });
+
+  it('always opens the root level', () => {
+    const f = initialFolds(wide, 2);
+    expect(f.has(ROOT_ID)).toBe(false);
+    expect(flattenChain(wide, f)).toHaveLength(5);
+  });
+});
+
+describe('layoutChain', () => {
+  it('puts depth left to right and keeps siblings one row apart', () => {
+    const s = DEFAULT_SIZES;
+    const l = layoutChain(upTree, new Set());
+    const at = (id: string) => l.nodes.find((n) => n.item.id === id)!;
+    expect(at('0').x).toBe(s.margin);
+    expect(at('0.0').x).toBe(s.margin + s.boxWidth + s.gap);
+    expect(at('0.0.0').x).toBe(s.margin + 2 * (s.boxWidth + s.gap));
+    expect(Math.abs(at('0.0').y - at('0.1').y)).toBeGreaterThanOrEqual(s.rowHeight);
+    // Everything sits inside the reported size.
+    for (const n of l.nodes) {
+      expect(n.y - s.rowHeight / 2).toBeGreaterThanOrEqual(s.margin - 1e-9);
+      expect(n.y + s.rowHeight / 2).toBeLessThanOrEqual(l.height - s.margin + 1e-9);
+      expect(n.x + s.boxWidth).toBeLessThanOrEqual(l.width - s.margin + 1e-9);
+    }
+  });
+
+  it('draws one line per shown child, from the parent box edge to the child', () => {
+    const l = layoutChain(upTree, new Set());
+    expect(l.links).toHaveLength(3);
+    const toOrigin = l.links.find((k) => k.child.id === '0.0.0')!;
+    const parent = l.nodes.find((n) => n.item.id === '0.0')!;
+    expect(toOrigin.x0).toBe(parent.x + DEFAULT_SIZES.boxWidth);
+    expect(toOrigin.y0).toBe(parent.y);
+  });
+
+  it('shrinks when a subtree is folded, and a lone root is one box', () => {
+    expect(layoutChain(upTree, new Set(['0.0'])).nodes).toHaveLength(3);
+    const lone = layoutChain(node('ONLY'), new Set());
+    expect(lone.nodes).toHaveLength(1);
+    expect(lone.links).toHaveLength(0);
+    expect(lone.width).toBe(2 * DEFAULT_SIZES.margin + DEFAULT_SIZES.boxWidth);
+    expect(lone.height).toBe(2 * DEFAULT_SIZES.margin + DEFAULT_SIZES.rowHeight);
+  });
+});
+
+describe('nodeNotes', () => {
+  it('says in words why a walk stops', () => {
+    expect(nodeNotes(node('O', [], { origin: true }), 'up')).toEqual(['origin']);
+    expect(nodeNotes(node('L', [], { loop: true, onAir: false }), 'up')).toEqual([
+      'off air: no programme with nothing failed',
+      'loop: this carriage is already further along this path, so the walk stops here',
+    ]);
+    expect(nodeNotes(node('D', [], { deadEnd: true }), 'up')[0]).toMatch(/^dead end/);
+    expect(nodeNotes(node('P', [], { repeated: true }), 'down')[0]).toMatch(/what it feeds/);
+  });
+});

@@ -1,0 +1,104 @@
+import { describe, expect, it } from 'vitest';
+import type { NetworkDrawing } from '@/src/api/schemas';
+import { buildDiagram, placeDiagram, siteStatuses } from './diagramModel';
+
+const doc: NetworkDrawing = {
+  sites: [
+    { code: 'O', name: 'Origin House', role: 'origin', lat: -38, lon: -29 },
+    { code: 'M', name: 'Main Hill', role: 'main', lat: -38.2, lon: -29.3, households: 1000 },
+    { code: 'R', name: 'Relay Knoll', role: 'relay', lat: -38.3, lon: -29.1, households: 50 },
+  ],
+  services: [
+    { code: 'TV', name: 'TV', kind: 'dtt' },
+    { code: 'FM', name: 'FM', kind: 'fm' },
+  ],
+  groups: [],
+  carriages: [
+    { code: 'O.TV', site: 'O', service: 'TV' },
+    { code: 'O.FM', site: 'O', service: 'FM' },
+    { code: 'M.TV', site: 'M', service: 'TV' },
+    { code: 'M.FM', site: 'M', service: 'FM' },
+    { code: 'R.TV', site: 'R', service: 'TV' },
+  ],
+  feeds: [
+    { code: 'f1', from: 'O.TV', to: 'M.TV', medium: 'line', role: 'main' },
+    { code: 'f2', from: 'O.FM', to: 'M.FM', medium: 'line', role: 'main' },
+    { code: 'f3', from: 'O.TV', to: 'M.TV', medium: 'satellite', role: 'reserve' },
+    { code: 'f4', from: 'M.TV', to: 'R.TV', medium: 'off-air', role: 'main' },
+    { code: 'f5', from: 'GONE', to: 'R.TV', medium: 'off-air', role: 'reserve' },
+  ],
+};
+
+describe('buildDiagram', () => {
+  it('merges feeds per site pair, medium and role', () => {
+    const m = buildDiagram(doc, null);
+    expect(m.sites.map((s) => s.code)).toEqual(['O', 'M', 'R']);
+    expect(m.sites[0].services).toEqual(['FM', 'TV']);
+    expect(m.sites[1].households).toBe(1000);
+    expect(m.sites[0].households).toBeNull();
+    expect(m.links).toEqual([
+      { from: 0, to: 1, medium: 'line', role: 'main', feeds: 2 },
+      { from: 0, to: 1, medium: 'satellite', role: 'reserve', feeds: 1 },
+      { from: 1, to: 2, medium: 'off-air', role: 'main', feeds: 1 },
+    ]);
+    expect(m.feedCount).toBe(4);
+    expect(m.skippedFeeds).toBe(1);
+  });
+
+  it('keeps only the sites and feeds of a chosen service', () => {
+    const m = buildDiagram(doc, 'FM');
+    expect(m.sites.map((s) => s.code)).toEqual(['O', 'M']);
+    expect(m.sites[1].carriages).toEqual(['M.FM']);
+    expect(m.links).toEqual([{ from: 0, to: 1, medium: 'line', role: 'main', feeds: 1 }]);
+    expect(m.skippedFeeds).toBe(0);
+  });
+
+  it('draws nothing for a service nobody carries', () => {
+    const m = buildDiagram(doc, 'NONE');
+    expect(m.sites).toEqual([]);
+    expect(m.links).toEqual([]);
+  });
+});
+
+describe('placeDiagram', () => {
+  it('places sites inside the box and indexes link ends', () => {
+    const m = buildDiagram(doc, null);
+    const p = placeDiagram(m, 390, 500, 20);
+    for (let i = 0; i < 3; i++) {
+      expect(p.xs[i]).toBeGreaterThanOrEqual(20 - 1e-9);
+      expect(p.xs[i]).toBeLessThanOrEqual(370 + 1e-9);
+    }
+    // North is up: the origin (furthest north) has the smallest y.
+    expect(p.ys[0]).toBeLessThan(p.ys[1]);
+    expect(Array.from(p.linkFrom)).toEqual([0, 0, 1]);
+    expect(Array.from(p.linkTo)).toEqual([1, 1, 2]);
+  });
+});
+
+describe('siteStatuses', () => {
+  const reach = {
+    networkVersion: 1,
+    lost: ['R.TV'],
+    fallback: ['M.FM'],
+    households: { lost: 50, fallback: 1000 },
+    byService: [],
+    sites: [
+      { site: 'R', lost: ['TV'], fallback: [] },
+      { site: 'M', lost: [], fallback: ['FM'] },
+    ],
+  };
+
+  it('marks off air before on reserve, in words', () => {
+    const s = siteStatuses(reach, null);
+    expect(s.get('R')).toBe('off-air');
+    expect(s.get('M')).toBe('on-reserve');
+    expect(s.has('O')).toBe(false);
+  });
+
+  it('looks only at the filtered service', () => {
+    const s = siteStatuses(reach, 'TV');
+    expect(s.get('R')).toBe('off-air');
+    expect(s.has('M')).toBe(false);
+    expect(siteStatuses(undefined, null).size).toBe(0);
+  });
+});
