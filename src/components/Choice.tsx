@@ -40,6 +40,7 @@ export function Choice<T extends string>({ label, options, value, onChange, disa
               accessibilityRole="radio"
               accessibilityLabel={o.label}
               accessibilityState={{ checked: chosen, disabled: !!disabled }}
+              aria-checked={chosen}
               disabled={disabled}
               onPress={() => onChange(o.value)}
               testID={testID ? `${testID}-${o.value}` : undefined}

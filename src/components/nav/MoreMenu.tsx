@@ -23,7 +23,7 @@ export function MoreMenu() {
         <View style={styles.list}>
           {places.map((d) => (
             <Link key={d.id} href={d.href as Href} asChild>
-              <Pressable accessibilityRole="link" accessibilityLabel={d.label} testID={`more-${d.id}`} style={styles.item}>
+              <Pressable accessibilityRole="link" testID={`more-${d.id}`} style={styles.item}>
                 <Icon name={d.icon} color={colors.accent} />
                 <View style={styles.texts}>
                   <Text style={styles.label}>{d.label}</Text>

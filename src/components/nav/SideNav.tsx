@@ -11,12 +11,12 @@ export const SIDE_NAV_WIDTH = 248;
 
 export function SideNav({ pathname, role }: { pathname: string; role: Role | null }) {
   return (
-    <View style={styles.side} testID="side-nav">
+    <View style={styles.side} role="navigation" aria-label="Main" testID="side-nav">
       <ScrollView contentContainerStyle={styles.content}>
         <View style={styles.brand}>
           <BrandMark />
         </View>
-        <View role="navigation" aria-label="Main" style={styles.links}>
+        <View style={styles.links}>
           {destinationsFor(role).map((d) => (
             <NavLink key={d.id} href={d.href} label={d.label} icon={d.icon} current={isCurrent(d, pathname)} layout="row" testID={`nav-${d.id}`} />
           ))}

@@ -59,7 +59,7 @@ export function SignInScreen() {
       <Head>
         <title>Sign in · Headwater</title>
       </Head>
-      <ScrollView contentContainerStyle={styles.scroll} keyboardShouldPersistTaps="handled">
+      <ScrollView contentContainerStyle={styles.scroll} keyboardShouldPersistTaps="handled" role="main">
         <View style={styles.card} role="form" aria-label="Sign in">
           <BrandMark size={32} />
           <Text style={styles.title} {...heading(1)}>
