@@ -13,7 +13,9 @@ import { CODE_PATTERN, FEED_ROLES, MEDIA, POLARISATIONS, SERVICE_KINDS, SITE_ROL
 type Rec = Record<string, unknown>;
 type FieldCheck = (value: unknown) => boolean;
 
-const isCode: FieldCheck = (v) => typeof v === 'string' && CODE_PATTERN.test(v);
+// A module-level copy: an imported binding may be read through a getter on every use.
+const CODE = CODE_PATTERN;
+const isCode: FieldCheck = (v) => typeof v === 'string' && CODE.test(v);
 const isCodeList: FieldCheck = (v) => Array.isArray(v) && v.every(isCode);
 const isNumber = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
 const nonNegative: FieldCheck = (v) => isNumber(v) && v >= 0;

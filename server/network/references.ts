@@ -8,7 +8,7 @@
  */
 import { ENTITY_KINDS, type EntityKind } from '@/shared/schemas/network';
 import { KIND_NOUN, type IssueSink } from './issues';
-import { refAt, refListAt, type Entry, type NetworkView } from './view';
+import { forEachRef, refAt, type Entry, type NetworkView } from './view';
 
 export function checkReferences(view: NetworkView, sink: IssueSink): void {
   checkDuplicateCodes(view, sink);
@@ -40,9 +40,9 @@ function resolve(view: NetworkView, sink: IssueSink, kind: EntityKind, entry: En
 }
 
 function checkGroupList(view: NetworkView, sink: IssueSink, kind: 'sites' | 'feeds', entry: Entry): void {
-  for (const [i, code] of refListAt(entry.raw, 'groups')) {
+  forEachRef(entry.raw, 'groups', (i, code) => {
     resolve(view, sink, kind, entry, `groups[${i}]`, 'groups', code, 'group');
-  }
+  });
 }
 
 function checkCarriages(view: NetworkView, sink: IssueSink): void {
@@ -94,21 +94,24 @@ function checkFeed(view: NetworkView, sink: IssueSink, entry: Entry): void {
   if (source && target && source !== target) {
     const sourceService = refAt(source.raw, 'service');
     const targetService = refAt(target.raw, 'service');
-    const known = (service: string | undefined) => service !== undefined && (view.byCode.services.has(service) || view.unreadable.has('services'));
     // An unknown service is reported on its carriage; a mismatch with it would say nothing new.
-    if (known(sourceService) && known(targetService) && sourceService !== targetService) {
+    if (knownService(view, sourceService) && knownService(view, targetService) && sourceService !== targetService) {
       sink.error('feeds', entry.index, code, 'to', 'service-mismatch',
         `source carriage ${from} carries service ${sourceService} but target carriage ${to} carries ${targetService}; both ends of a feed carry the same service`);
     }
   }
   const sourceSite = source ? refAt(source.raw, 'site') : undefined;
   const targetSite = target ? refAt(target.raw, 'site') : undefined;
-  for (const [i, site] of refListAt(entry.raw, 'via')) {
+  forEachRef(entry.raw, 'via', (i, site) => {
     resolve(view, sink, 'feeds', entry, `via[${i}]`, 'sites', site, 'via-site');
     const end = site === sourceSite ? `the source site (of carriage ${from})` : site === targetSite ? `the target site (of carriage ${to})` : undefined;
     if (end) {
       sink.error('feeds', entry.index, code, `via[${i}]`, 'via-endpoint', `via-site ${site} is ${end}; a via-site is a hop between the two ends`);
     }
-  }
+  });
   checkGroupList(view, sink, 'feeds', entry);
+}
+
+function knownService(view: NetworkView, service: string | undefined): boolean {
+  return service !== undefined && (view.byCode.services.has(service) || view.unreadable.has('services'));
 }

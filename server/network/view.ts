@@ -55,19 +55,21 @@ export function buildView(lists: Partial<Record<EntityKind, unknown[]>>, unreada
   return { doc, byCode, unreadable };
 }
 
+// A module-level copy: an imported binding may be read through a getter on every use.
+const CODE = CODE_PATTERN;
+
 /** A field read as a code, if it is one (a malformed value is reported by the schema check). */
 export function refAt(raw: Record<string, unknown>, key: string): string | undefined {
   const value = raw[key];
-  return typeof value === 'string' && CODE_PATTERN.test(value) ? value : undefined;
+  return typeof value === 'string' && CODE.test(value) ? value : undefined;
 }
 
-/** A list field read as codes with their positions; items that are not codes are skipped. */
-export function refListAt(raw: Record<string, unknown>, key: string): Array<[number, string]> {
+/** Visits the codes of a list field with their positions; items that are not codes are skipped. */
+export function forEachRef(raw: Record<string, unknown>, key: string, visit: (position: number, code: string) => void): void {
   const value = raw[key];
-  if (!Array.isArray(value)) return [];
-  const out: Array<[number, string]> = [];
-  value.forEach((item, i) => {
-    if (typeof item === 'string' && CODE_PATTERN.test(item)) out.push([i, item]);
-  });
-  return out;
+  if (!Array.isArray(value)) return;
+  for (let i = 0; i < value.length; i++) {
+    const item = value[i];
+    if (typeof item === 'string' && CODE.test(item)) visit(i, item);
+  }
 }
