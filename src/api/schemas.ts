@@ -139,3 +139,101 @@ export const auditItemSchema = z.object({
 });
 export type AuditItem = z.infer<typeof auditItemSchema>;
 export const auditPageSchema = pageOf(auditItemSchema);
+
+// ---- Analysis answers (interchange.md section 2; types in shared/schemas/analysis.ts) ----
+// This part's imports sit with it (imports are hoisted), so parts of this file
+// can be added independently without touching one shared import list.
+import type * as analysisTypes from '@/shared/schemas/analysis';
+import * as networkDoc from '@/shared/schemas/network';
+
+const analysisElementSchema = z.object({ kind: z.enum(networkDoc.ELEMENT_KINDS), code: z.string() });
+const mediumSchema = z.enum(networkDoc.MEDIA);
+const feedRoleSchema = z.enum(networkDoc.FEED_ROLES);
+
+export const reachAnswerSchema = z.object({
+  networkVersion: z.number(),
+  lost: z.array(z.string()),
+  fallback: z.array(z.string()),
+  households: z.object({ lost: z.number(), fallback: z.number() }),
+  byService: z.array(z.object({ service: z.string(), lost: z.number(), fallback: z.number() })),
+  sites: z.array(z.object({ site: z.string(), lost: z.array(z.string()), fallback: z.array(z.string()).optional() })),
+}) satisfies z.ZodType<analysisTypes.ReachAnswer>;
+
+export const exposureAnswerSchema = z.object({
+  networkVersion: z.number(),
+  elements: z.array(z.object({ element: analysisElementSchema, households: z.number(), carriages: z.number() })),
+}) satisfies z.ZodType<analysisTypes.ExposureAnswer>;
+
+const carriagePlaceSchema = { carriage: z.string(), service: z.string(), site: z.string() };
+export const diversityAnswerSchema = z.object({
+  networkVersion: z.number(),
+  carriages: z.array(z.object({ ...carriagePlaceSchema, shared: z.array(analysisElementSchema) })),
+}) satisfies z.ZodType<analysisTypes.DiversityAnswer>;
+
+export const unfedAnswerSchema = z.object({
+  networkVersion: z.number(),
+  carriages: z.array(z.object(carriagePlaceSchema)),
+}) satisfies z.ZodType<analysisTypes.UnfedAnswer>;
+
+export const chainNodeSchema: z.ZodType<analysisTypes.ChainNode> = z.lazy(() =>
+  z.object({
+    carriage: z.string(),
+    site: z.string(),
+    siteName: z.string(),
+    service: z.string(),
+    origin: z.boolean(),
+    via: z
+      .object({
+        feed: z.string(),
+        medium: mediumSchema,
+        role: feedRoleSchema,
+        up: z.boolean(),
+        distanceKm: z.number().nullable(),
+        hops: z.array(z.string()),
+        warnings: z.array(z.string()),
+      })
+      .optional(),
+    onAir: z.boolean(),
+    loop: z.boolean().optional(),
+    deadEnd: z.boolean().optional(),
+    repeated: z.boolean().optional(),
+    children: z.array(chainNodeSchema),
+  }),
+);
+export const chainAnswerSchema = z.object({ networkVersion: z.number(), direction: z.enum(['up', 'down']), root: chainNodeSchema }) satisfies z.ZodType<analysisTypes.ChainAnswer>;
+
+/** The whole network (GET /api/network/export) as the diagram reads it: optional fields it does not draw are left unchecked. */
+export const networkDrawingSchema = z.object({
+  sites: z.array(z.object({ code: z.string(), name: z.string(), role: z.enum(networkDoc.SITE_ROLES), lat: z.number(), lon: z.number(), households: z.number().nullish() })),
+  services: z.array(z.object({ code: z.string(), name: z.string(), kind: z.string() })),
+  groups: z.array(z.object({ code: z.string(), name: z.string() })),
+  carriages: z.array(z.object({ code: z.string(), site: z.string(), service: z.string() })),
+  feeds: z.array(z.object({ code: z.string(), from: z.string(), to: z.string(), medium: mediumSchema, role: feedRoleSchema })),
+});
+export type NetworkDrawing = z.infer<typeof networkDrawingSchema>;
+
+/** One page of a list endpoint as the element search reads it: code and, where the kind has one, name. */
+export const codeNamePageSchema = z.object({
+  items: z.array(z.object({ code: z.string(), name: z.string().optional(), from: z.string().optional(), to: z.string().optional() })),
+  total: z.number(),
+});
+export type CodeNamePage = z.infer<typeof codeNamePageSchema>;
+
+/** GET /api/carriages/:code as the chain screen reads it: the carriage, where it is, and its feeds. */
+const feedLineSchema = z.object({ code: z.string(), from: z.string(), to: z.string(), medium: mediumSchema, role: feedRoleSchema });
+export const carriageFeedsSchema = z.object({
+  carriage: z.object({
+    code: z.string(),
+    site: z.string(),
+    service: z.string(),
+    frequencyMHz: z.number().nullish(),
+    channel: z.string().nullish(),
+    erpW: z.number().nullish(),
+    polarisation: z.string().nullish(),
+  }),
+  site: z.object({ code: z.string(), name: z.string(), role: z.enum(networkDoc.SITE_ROLES) }).optional(),
+  service: z.object({ code: z.string(), name: z.string(), kind: z.string() }).optional(),
+  feedsIn: z.array(feedLineSchema),
+  feedsOut: z.array(feedLineSchema),
+});
+export type CarriageFeeds = z.infer<typeof carriageFeedsSchema>;
