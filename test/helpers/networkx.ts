@@ -25,26 +25,33 @@ export function findNetworkxPython(): { python: string; version: string } | null
   return found;
 }
 
-function edgeText(g: Csr, root: number): string {
-  const parts: string[] = [`${g.n} ${root}`];
+function graphText(g: Csr, root: number): string {
+  const parts: string[] = [`${g.n} ${root} ${g.targets.length}`];
   for (let u = 0; u < g.n; u++) for (let i = g.offsets[u]; i < g.offsets[u + 1]; i++) parts.push(`${u} ${g.targets[i]}`);
   return parts.join('\n');
 }
 
-/** networkx's immediate dominators of `g` from `root` (-1 for root and unreachable) and the time networkx took. */
-export function networkxImmediateDominators(g: Csr, root: number): { idom: Int32Array; ms: number; version: string } {
+/**
+ * networkx's immediate dominators of each graph (-1 for root and unreachable)
+ * and the time networkx took on each; one python process for all of them.
+ */
+export function networkxImmediateDominatorsMany(graphs: { graph: Csr; root: number }[]): { idom: Int32Array; ms: number }[] {
   const py = findNetworkxPython();
   if (!py) throw new Error('no python3 with networkx found (tried /usr/bin/python3 and python3 on PATH)');
-  const r = spawnSync(py.python, [SCRIPT], { input: edgeText(g, root), encoding: 'utf8', maxBuffer: 1 << 30, timeout: 600_000 });
+  const input = [String(graphs.length), ...graphs.map(({ graph, root }) => graphText(graph, root))].join('\n');
+  const r = spawnSync(py.python, [SCRIPT], { input, encoding: 'utf8', maxBuffer: 1 << 30, timeout: 600_000 });
   if (r.status !== 0) throw new Error(`networkx script failed (${String(r.status)}): ${r.stderr}`);
-  const out = JSON.parse(r.stdout) as { idom: number[]; ms: number; networkx: string };
-  return { idom: Int32Array.from(out.idom), ms: out.ms, version: out.networkx };
+  const out = JSON.parse(r.stdout) as { idom: number[]; ms: number }[];
+  return out.map((a) => ({ idom: Int32Array.from(a.idom), ms: a.ms }));
+}
+
+/** networkx's immediate dominators of `g` from `root` (-1 for root and unreachable) and the time networkx took. */
+export function networkxImmediateDominators(g: Csr, root: number): { idom: Int32Array; ms: number } {
+  return networkxImmediateDominatorsMany([{ graph: g, root }])[0];
 }
 
 /** Milliseconds networkx spends in `immediate_dominators` on these graphs together; null without networkx. */
 export function timeNetworkxDominators(graphs: { graph: Csr; root: number }[]): number | null {
   if (!findNetworkxPython()) return null;
-  let ms = 0;
-  for (const { graph, root } of graphs) ms += networkxImmediateDominators(graph, root).ms;
-  return ms;
+  return networkxImmediateDominatorsMany(graphs).reduce((sum, a) => sum + a.ms, 0);
 }

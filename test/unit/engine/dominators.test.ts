@@ -2,8 +2,9 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { immediateDominators, DominatorInputError } from '@/server/engine/dominators';
 import { csrFromPairs, reverseCsr, type Csr } from '@/server/engine/csr';
-import { findNetworkxPython, networkxImmediateDominators } from '@/test/helpers/networkx';
-import { prng } from '@/test/helpers/random-network';
+import { findNetworkxPython, networkxImmediateDominatorsMany } from '@/test/helpers/networkx';
+import { nationalNetwork, prng } from '@/test/helpers/random-network';
+import { NetworkEngine } from '@/server/engine/engine';
 
 type Pairs = [number, number][];
 const idomOf = (n: number, edges: Pairs, root: number) => Array.from(immediateDominators(csrFromPairs(n, edges), root));
@@ -125,16 +126,21 @@ describe('immediateDominators: generated graphs', () => {
       [2000, 2600],
       [5000, 15000],
     ];
+    const graphs = shapes.flatMap(([n, m], k) => Array.from({ length: 5 }, (_, seed) => ({ graph: csrFromPairs(n, randomGraph(1000 * k + seed, n, m)), root: 0 })));
+    const theirs = networkxImmediateDominatorsMany(graphs);
     let compared = 0;
-    shapes.forEach(([n, m], k) => {
-      for (let seed = 0; seed < 5; seed++) {
-        const g = csrFromPairs(n, randomGraph(1000 * k + seed, n, m));
-        const ours = immediateDominators(g, 0);
-        const theirs = networkxImmediateDominators(g, 0);
-        expect(Array.from(ours)).toEqual(Array.from(theirs.idom));
-        compared++;
-      }
+    graphs.forEach(({ graph }, i) => {
+      expect(Array.from(immediateDominators(graph, 0))).toEqual(Array.from(theirs[i].idom));
+      compared++;
     });
     expect(compared).toBe(20);
+  });
+
+  it.skipIf(!nx)(`agrees with networkx on the engine's own service graphs${nx ? '' : ' (skipped: no python3 with networkx found)'}`, () => {
+    const engine = NetworkEngine.build(nationalNetwork({ sites: 1500, seed: 21, services: 4 }), 1);
+    const graphs = engine.flowGraphs();
+    expect(graphs.length).toBe(4);
+    const theirs = networkxImmediateDominatorsMany(graphs.map(({ graph }) => ({ graph, root: 0 })));
+    graphs.forEach(({ idom }, i) => expect(Array.from(idom)).toEqual(Array.from(theirs[i].idom)));
   });
 });
