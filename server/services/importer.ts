@@ -18,7 +18,7 @@ import type { Actor } from './audit';
 import { countsOf, emptyCounts, planImport, type ImportPlan } from './import/plan';
 import { checkKeptFeeds } from './import/storedConflicts';
 import { RollBack, withNetworkWrite, type NetworkWrite } from './inventory/networkWrite';
-import { deleteByCodes, writeEntities } from './inventory/tables';
+import { analyze, deleteByCodes, writeEntities } from './inventory/tables';
 import { databaseRefusal } from './inventory/dbErrors';
 
 export interface ImportOptions {
@@ -32,17 +32,39 @@ export interface ImportOptions {
   sourceErrors?: ImportIssue[];
 }
 
+/** Below this many written rows the planner's old statistics do no harm (tables.ts, analyze). */
+const ANALYZE_AFTER_ROWS = 2000;
+
 type Checked = { document: NetworkDocument; warnings: ImportIssue[] } | { document: null; errors: ImportIssue[]; warnings: ImportIssue[] };
 
 /** Validates against the stored network: an upsert may refer to stored entities, a replace may not. */
 function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions, replace: boolean): Checked {
   // an upload that could not be read at all has nothing more to validate
   if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [] };
-  const result = validateDocument(raw, { rowsOf: opts.rowsOf, context: replace ? undefined : stored });
+  const result = validateDocument(raw, { rowsOf: opts.rowsOf, context: replace ? undefined : storedOutside(stored, raw) });
   const errors = [...(opts.sourceErrors ?? []), ...result.errors];
   if (errors.length === 0 && result.document && !replace) errors.push(...checkKeptFeeds(stored, result.document, opts.rowsOf));
   if (errors.length > 0 || !result.document) return { document: null, errors, warnings: result.warnings };
   return { document: result.document, warnings: result.warnings };
+}
+
+/**
+ * The stored entities the document does not carry. The validator overlays the
+ * document on its context by code, so leaving out what the document replaces
+ * gives the same view, and re-importing a whole network costs no more than
+ * importing it into an empty one.
+ */
+function storedOutside(stored: NetworkDocument, raw: unknown): NetworkDocument {
+  const top = raw !== null && typeof raw === 'object' ? (raw as Record<string, unknown>) : {};
+  const out = { ...stored };
+  for (const kind of ENTITY_KINDS) {
+    const list = top[kind];
+    if (!Array.isArray(list) || list.length === 0) continue;
+    const inDocument = new Set<unknown>();
+    for (const item of list) if (item !== null && typeof item === 'object') inDocument.add((item as { code?: unknown }).code);
+    (out as Record<EntityKind, unknown[]>)[kind] = (stored[kind] as Array<{ code: string }>).filter((e) => !inDocument.has(e.code));
+  }
+  return out;
 }
 
 function receivedCounts(raw: unknown): Record<EntityKind, number> {
@@ -66,7 +88,7 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
     const { document: stored, version } = await loadNetworkDocument(db.sequelize);
     const checked = check(raw, stored, opts, replace);
     if (!checked.document) return failed(checked.errors, checked.warnings, version);
-    const plan = planImport(stored, checked.document, replace);
+    const plan = await planImport(stored, checked.document, replace);
     return { ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version };
   }
 
@@ -75,7 +97,7 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
       const { document: stored } = await loadNetworkDocument(db.sequelize, w.transaction);
       const checked = check(raw, stored, opts, replace);
       if (!checked.document) throw new RollBack(failed(checked.errors, checked.warnings));
-      const plan = planImport(stored, checked.document, replace);
+      const plan = await planImport(stored, checked.document, replace);
       await carryOut(w, plan);
       const counts = countsOf(plan, received);
       if (plan.changed) w.markChanged();
@@ -99,14 +121,21 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
  */
 async function carryOut(w: NetworkWrite, plan: ImportPlan): Promise<void> {
   const k = plan.kinds;
-  const written = (kind: EntityKind) => [...k[kind].create, ...k[kind].update];
+  const write = async (kind: EntityKind) => {
+    await writeEntities(w, kind, k[kind].create, { created: true });
+    await writeEntities(w, kind, k[kind].update);
+  };
+  const many = (...kinds: EntityKind[]) => kinds.reduce((n, kind) => n + k[kind].create.length + k[kind].update.length, 0) >= ANALYZE_AFTER_ROWS;
   await deleteByCodes(w, 'feeds', k.feeds.remove);
-  await writeEntities(w, 'services', written('services'));
-  await writeEntities(w, 'groups', written('groups'));
-  await writeEntities(w, 'sites', written('sites'));
+  await write('services');
+  await write('groups');
+  await write('sites');
+  if (many('services', 'groups', 'sites')) await analyze(w, ['sites', 'services', 'risk_groups', 'site_groups']);
   const parking = await parkCarriages(w, plan.park);
-  await writeEntities(w, 'carriages', written('carriages'));
-  await writeEntities(w, 'feeds', written('feeds'));
+  await write('carriages');
+  if (many('carriages')) await analyze(w, ['carriages']);
+  await write('feeds');
+  if (many('feeds')) await analyze(w, ['feeds', 'feed_via_sites', 'feed_groups']);
   await deleteByCodes(w, 'carriages', k.carriages.remove);
   if (parking.length > 0) await deleteByCodes(w, 'services', parking);
   await deleteByCodes(w, 'sites', k.sites.remove);

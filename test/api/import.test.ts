@@ -6,6 +6,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { NetworkDocument } from '@/shared/schemas/network';
+import { generateNetwork } from '@/scripts/generator';
 import { smallNetwork } from '../fixtures/small-network';
 import { makeTestApp, type TestApp } from '../helpers/testApp';
 
@@ -175,6 +176,23 @@ describe('import', () => {
     expect(r.body.errors.map((e: { rule: string }) => e.rule)).toContain('service-mismatch');
     expect(r.body.errors[0]).toMatchObject({ kind: 'carriages', index: 0, code: 'R1.TV1' });
     expect(await rowCounts()).toEqual(before);
+  });
+});
+
+describe('a generated network', () => {
+  it('imports a few thousand rows (past the statistics refresh), then again with nothing changed', async () => {
+    const doc = generateNetwork({ sites: 600, seed: 3 });
+    const first = await importDoc(doc);
+    expect(first.status).toBe(200);
+    expect(first.body.counts.carriages.created).toBe(doc.carriages.length);
+    expect(doc.carriages.length + doc.feeds.length).toBeGreaterThan(4000);
+    const counts = await rowCounts();
+    expect(counts.feed_via_sites).toBe(doc.feeds.reduce((n, f) => n + (f.via?.length ?? 0), 0));
+    expect(counts.feed_groups).toBe(doc.feeds.reduce((n, f) => n + new Set(f.groups ?? []).size, 0));
+    const v1 = await networkVersion();
+    const again = await importDoc(doc);
+    expect(again.body.counts.feeds).toMatchObject({ unchanged: doc.feeds.length, updated: 0, created: 0 });
+    expect(await networkVersion()).toBe(v1);
   });
 });
 

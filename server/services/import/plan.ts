@@ -7,6 +7,7 @@
 import { ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
 import type { KindCounts } from '@/shared/schemas/import';
 import { canonical, sameEntity, type Fields } from '../inventory/shape';
+import { yieldToEventLoop } from '../inventory/tables';
 
 export interface KindPlan {
   create: Fields[];
@@ -27,22 +28,26 @@ export interface ImportPlan {
   changed: boolean;
 }
 
-export function planImport(stored: NetworkDocument, document: NetworkDocument, replace: boolean): ImportPlan {
+const YIELD_EVERY = 10_000;
+
+/** Compares entity by entity without copying the unchanged ones; yields now and then, as it runs inside a request. */
+export async function planImport(stored: NetworkDocument, document: NetworkDocument, replace: boolean): Promise<ImportPlan> {
   const kinds = {} as Record<EntityKind, KindPlan>;
   let changed = false;
+  let steps = 0;
   for (const kind of ENTITY_KINDS) {
     const before = new Map<string, Fields>();
-    for (const e of stored[kind] as unknown as Fields[]) before.set(e.code as string, canonical(kind, e));
+    for (const e of stored[kind] as unknown as Fields[]) before.set(e.code as string, e);
     const plan: KindPlan = { create: [], update: [], unchanged: 0, remove: [] };
     const seen = new Set<string>();
     for (const e of document[kind] as unknown as Fields[]) {
-      const next = canonical(kind, e);
-      const code = next.code as string;
+      const code = e.code as string;
       seen.add(code);
       const old = before.get(code);
-      if (!old) plan.create.push(next);
-      else if (!sameEntity(kind, old, next)) plan.update.push(next);
+      if (!old) plan.create.push(canonical(kind, e));
+      else if (!sameEntity(kind, old, e)) plan.update.push(canonical(kind, e));
       else plan.unchanged += 1;
+      if (++steps % YIELD_EVERY === 0) await yieldToEventLoop();
     }
     if (replace) for (const code of before.keys()) if (!seen.has(code)) plan.remove.push(code);
     if (plan.create.length || plan.update.length || plan.remove.length) changed = true;

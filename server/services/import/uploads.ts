@@ -36,7 +36,8 @@ export async function readUploads(files: readonly UploadedFile[]): Promise<Uploa
       return { raw: undefined, sourceErrors: [documentIssue('mixed-upload', `upload one network document (.json) on its own, or CSV files; got ${names}`)] };
     }
     try {
-      return { raw: JSON.parse(Buffer.from(json[0].data).toString('utf8')), sourceErrors: [] };
+      // Some editors save UTF-8 with a byte order mark, which JSON.parse refuses.
+      return { raw: JSON.parse(Buffer.from(json[0].data).toString('utf8').replace(/^\uFEFF/, '')), sourceErrors: [] };
     } catch (err) {
       return { raw: undefined, sourceErrors: [documentIssue('invalid-json', `${json[0].name} is not valid JSON: ${(err as Error).message}`, json[0].name)] };
     }

@@ -45,17 +45,35 @@ export function canonical(kind: EntityKind, source: Fields): Fields {
   return out;
 }
 
-/** Same document content (both sides canonical). */
+const absent = (v: unknown) => v === null || v === undefined || (Array.isArray(v) && v.length === 0);
+
+function sameList(x: readonly unknown[], y: readonly unknown[]): boolean {
+  if (x.length !== y.length) return false;
+  for (let i = 0; i < x.length; i++) if (x[i] !== y[i]) return false;
+  return true;
+}
+
+function sameSet(x: readonly unknown[], y: readonly unknown[]): boolean {
+  if (sameList(x, y)) return true;
+  const a = new Set(x);
+  const b = new Set(y);
+  if (a.size !== b.size) return false;
+  for (const v of a) if (!b.has(v)) return false;
+  return true;
+}
+
+/**
+ * Same document content. Either side may be canonical or not (null, undefined
+ * and an empty list all mean absent; group lists compare as sets), so an
+ * import compares each entity without first copying it.
+ */
 export function sameEntity(kind: EntityKind, a: Fields, b: Fields): boolean {
   for (const field of FIELDS[kind]) {
     const x = a[field];
     const y = b[field];
-    if (Array.isArray(x) || Array.isArray(y)) {
-      if (!Array.isArray(x) || !Array.isArray(y) || x.length !== y.length) return false;
-      for (let i = 0; i < x.length; i++) if (x[i] !== y[i]) return false;
-    } else if (x !== y) {
-      return false;
-    }
+    if (x === y || (absent(x) && absent(y))) continue;
+    if (Array.isArray(x) && Array.isArray(y) && (SET_FIELDS.has(field) ? sameSet(x, y) : sameList(x, y))) continue;
+    return false;
   }
   return true;
 }

@@ -69,7 +69,7 @@ const COLUMNS: Record<EntityKind, Column[]> = {
   ],
 };
 
-function upsertSql(kind: EntityKind): string {
+function writeSql(kind: EntityKind, mode: 'insert' | 'upsert'): string {
   const table = TABLE[kind];
   const cols = COLUMNS[kind];
   const input = cols.map((c, i) => `$${i + 1}::${c.type}[]`).join(', ');
@@ -77,16 +77,19 @@ function upsertSql(kind: EntityKind): string {
   const select = cols.map((c, i) => (c.ref ? `r${i}.id` : `u.${c.column}`)).join(', ');
   const joins = cols.map((c, i) => (c.ref ? ` JOIN ${c.ref} r${i} ON r${i}.code = u.${c.column}` : '')).join('');
   const updates = names.filter((n) => n !== 'code').map((n) => `${n} = EXCLUDED.${n}`).join(', ');
-  // The caller sends only rows it found created or changed (a change to a site's groups or a feed's
-  // via-sites is a change to that entity too, which a column comparison here could not see), so every
-  // conflicting row is updated and its optimistic-lock version moves on.
+  // New rows go in with a plain INSERT: ON CONFLICT's speculative insertion costs more per row.
+  // Otherwise the caller sends only rows it found created or changed (a change to a site's groups or
+  // a feed's via-sites is a change to that entity too, which a column comparison here could not
+  // see), so every conflicting row is updated and its optimistic-lock version moves on.
+  const onConflict = mode === 'upsert' ? ` ON CONFLICT (code) DO UPDATE SET ${updates}, version = ${table}.version + 1, updated_at = now()` : '';
   return `INSERT INTO ${table} (${names.join(', ')})
-    SELECT ${select} FROM unnest(${input}) AS u(${names.join(', ')})${joins}
-    ON CONFLICT (code) DO UPDATE SET ${updates}, version = ${table}.version + 1, updated_at = now()
+    SELECT ${select} FROM unnest(${input}) AS u(${names.join(', ')})${joins}${onConflict}
     RETURNING id, code, version`;
 }
 
-const UPSERT_SQL = Object.fromEntries((Object.keys(COLUMNS) as EntityKind[]).map((k) => [k, upsertSql(k)])) as Record<EntityKind, string>;
+const SQL = Object.fromEntries(
+  (Object.keys(COLUMNS) as EntityKind[]).map((k) => [k, { insert: writeSql(k, 'insert'), upsert: writeSql(k, 'upsert') }]),
+) as Record<EntityKind, { insert: string; upsert: string }>;
 
 export interface WrittenRow {
   id: number;
@@ -94,12 +97,13 @@ export interface WrittenRow {
   version: number;
 }
 
-/** Insert new entities and overwrite changed ones, by code. Returns id, code and new version of each. */
-export async function upsertEntities(tx: Tx, kind: EntityKind, entities: readonly Fields[]): Promise<WrittenRow[]> {
+/** Insert new entities and overwrite changed ones, by code (`created`: all are new). Returns id, code and new version of each. */
+export async function upsertEntities(tx: Tx, kind: EntityKind, entities: readonly Fields[], created = false): Promise<WrittenRow[]> {
+  const sql = SQL[kind][created ? 'insert' : 'upsert'];
   const written: WrittenRow[] = [];
   await inBatches(entities, async (batch) => {
     const bind = COLUMNS[kind].map((c) => batch.map((e) => (e[c.field] === undefined ? null : e[c.field])));
-    const [rows] = await tx.sequelize.query(UPSERT_SQL[kind], { bind, transaction: tx.transaction });
+    const [rows] = await tx.sequelize.query(sql, { bind, transaction: tx.transaction });
     const got = rows as WrittenRow[];
     // The joins drop a row whose reference does not resolve; validation should have made that impossible.
     if (got.length !== batch.length) throw new Error(`${kind}: wrote ${got.length} of ${batch.length} rows; a reference did not resolve`);
@@ -121,15 +125,16 @@ export async function deleteByCodes(tx: Tx, kind: EntityKind, codes: readonly st
   return deleted;
 }
 
-/** Replaces the group memberships of these sites or feeds with the lists they carry. */
-export async function replaceGroupMemberships(tx: Tx, kind: 'sites' | 'feeds', entities: readonly Fields[]): Promise<void> {
+/** Replaces the group memberships of these sites or feeds with the lists they carry (`created`: they have none yet). */
+export async function replaceGroupMemberships(tx: Tx, kind: 'sites' | 'feeds', entities: readonly Fields[], created = false): Promise<void> {
   const [join, owner, ownerTable] = kind === 'sites' ? ['site_groups', 'site_id', 'sites'] : ['feed_groups', 'feed_id', 'feeds'];
   await inBatches(entities, async (batch) => {
-    const codes = batch.map((e) => e.code as string);
-    await tx.sequelize.query(`DELETE FROM ${join} WHERE ${owner} IN (SELECT id FROM ${ownerTable} WHERE code = ANY($1::text[]))`, {
-      bind: [codes],
-      transaction: tx.transaction,
-    });
+    if (!created) {
+      await tx.sequelize.query(`DELETE FROM ${join} WHERE ${owner} IN (SELECT id FROM ${ownerTable} WHERE code = ANY($1::text[]))`, {
+        bind: [batch.map((e) => e.code as string)],
+        transaction: tx.transaction,
+      });
+    }
     const owners: string[] = [];
     const groups: string[] = [];
     for (const e of batch) {
@@ -150,13 +155,15 @@ export async function replaceGroupMemberships(tx: Tx, kind: 'sites' | 'feeds', e
   });
 }
 
-/** Replaces the via-site lists of these feeds, keeping their order as positions 0, 1, ... */
-export async function replaceViaSites(tx: Tx, feeds: readonly Fields[]): Promise<void> {
+/** Replaces the via-site lists of these feeds, keeping their order as positions 0, 1, ... (`created`: they have none yet). */
+export async function replaceViaSites(tx: Tx, feeds: readonly Fields[], created = false): Promise<void> {
   await inBatches(feeds, async (batch) => {
-    await tx.sequelize.query(`DELETE FROM feed_via_sites WHERE feed_id IN (SELECT id FROM feeds WHERE code = ANY($1::text[]))`, {
-      bind: [batch.map((f) => f.code as string)],
-      transaction: tx.transaction,
-    });
+    if (!created) {
+      await tx.sequelize.query(`DELETE FROM feed_via_sites WHERE feed_id IN (SELECT id FROM feeds WHERE code = ANY($1::text[]))`, {
+        bind: [batch.map((f) => f.code as string)],
+        transaction: tx.transaction,
+      });
+    }
     const owners: string[] = [];
     const positions: number[] = [];
     const sites: string[] = [];
@@ -179,11 +186,30 @@ export async function replaceViaSites(tx: Tx, feeds: readonly Fields[]): Promise
   });
 }
 
-/** Writes entities of one kind with their join rows (site groups; feed via-sites and groups). */
-export async function writeEntities(tx: Tx, kind: EntityKind, entities: readonly Fields[]): Promise<WrittenRow[]> {
+/**
+ * Writes entities of one kind with their join rows (site groups; feed
+ * via-sites and groups). `created`: none of them is stored yet, so there are
+ * no old join rows to clear.
+ */
+export async function writeEntities(tx: Tx, kind: EntityKind, entities: readonly Fields[], opts: { created?: boolean } = {}): Promise<WrittenRow[]> {
   if (entities.length === 0) return [];
-  const written = await upsertEntities(tx, kind, entities);
-  if (kind === 'sites' || kind === 'feeds') await replaceGroupMemberships(tx, kind, entities);
-  if (kind === 'feeds') await replaceViaSites(tx, entities);
+  const written = await upsertEntities(tx, kind, entities, opts.created);
+  if (kind === 'sites' || kind === 'feeds') await replaceGroupMemberships(tx, kind, entities, opts.created);
+  if (kind === 'feeds') await replaceViaSites(tx, entities, opts.created);
   return written;
+}
+
+/**
+ * Refreshes the planner's statistics of these tables. After thousands of rows
+ * land in a table that was small, the planner still plans for the small one
+ * (a nested loop over a sequential scan for every code joined in the writers
+ * above) and each batch slows down a hundredfold; the next reads of the
+ * whole network suffer the same. ANALYZE samples a bounded number of rows,
+ * so it costs tens of milliseconds, and inside a transaction it counts the
+ * rows that transaction inserted (PostgreSQL source, analyze.c,
+ * acquire_sample_rows: own INSERT_IN_PROGRESS tuples are sampled as live;
+ * checked here: reltuples is right before COMMIT).
+ */
+export async function analyze(tx: Tx, tables: readonly string[]): Promise<void> {
+  await tx.sequelize.query(`ANALYZE ${tables.join(', ')}`, { transaction: tx.transaction });
 }

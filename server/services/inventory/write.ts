@@ -52,7 +52,7 @@ export async function createEntity(sequelize: Sequelize, kind: EntityKind, body:
     withNetworkWrite(sequelize, actor, async (w) => {
       if (await findByCode(sequelize, kind, code, w.transaction)) throw conflict(`${NOUN[kind]} ${code} already exists; codes are unique within a kind`, { code });
       throwFindings(await checkRules(w, kind, entity));
-      await writeEntities(w, kind, [entity]);
+      await writeEntities(w, kind, [entity], { created: true });
       const created = (await findByCode(sequelize, kind, code, w.transaction))!.entity;
       w.audit({ action: 'create', entityKind: kind, entityCode: code, after: auditShape(created) });
       return created;

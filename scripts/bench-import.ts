@@ -1,0 +1,68 @@
+/**
+ * Import benchmark: generated networks of several sizes imported into an
+ * empty database, then imported again (every entity unchanged), then once
+ * more as a dry run. Reports wall time per step and the longest event-loop
+ * stall seen during each (how long another request could have waited).
+ *
+ *   npx tsx scripts/bench-import.ts [sites ...]     (default 1000 5000 20000)
+ *
+ * Uses the local cluster's database `headwater_bench_import`, dropped and
+ * made again for each size, so every first import lands in an empty network.
+ */
+import { monitorEventLoopDelay } from 'node:perf_hooks';
+import { openDatabase } from '@/server/db';
+import { importNetwork } from '@/server/services/importer';
+import { generateNetwork } from './generator';
+import { resolveDatabaseUrl } from './lib/postgres';
+
+const SEED = 7;
+
+async function timed<T>(label: string, run: () => Promise<T>): Promise<T> {
+  const stalls = monitorEventLoopDelay({ resolution: 10 });
+  stalls.enable();
+  const t0 = performance.now();
+  const out = await run();
+  const ms = performance.now() - t0;
+  stalls.disable();
+  console.log(`  ${label.padEnd(22)} ${(ms / 1000).toFixed(2).padStart(7)} s   longest event-loop stall ${(stalls.max / 1e6).toFixed(0).padStart(5)} ms`);
+  return out;
+}
+
+async function benchOne(sites: number) {
+  const { url } = await resolveDatabaseUrl('headwater_bench_import', { fresh: true });
+  const db = openDatabase(url);
+  try {
+    await db.migrate();
+    const t0 = performance.now();
+    const doc = generateNetwork({ sites, seed: SEED });
+    const rows =
+      doc.sites.length + doc.services.length + doc.groups.length + doc.carriages.length + doc.feeds.length +
+      doc.sites.reduce((n, s) => n + (s.groups?.length ?? 0), 0) +
+      doc.feeds.reduce((n, f) => n + (f.via?.length ?? 0) + (f.groups?.length ?? 0), 0);
+    console.log(
+      `\n${sites} sites: ${doc.carriages.length} carriages, ${doc.feeds.length} feeds, ${rows} rows in all, ` +
+        `${(JSON.stringify(doc).length / 1e6).toFixed(1)} MB as JSON (generated in ${((performance.now() - t0) / 1000).toFixed(2)} s)`,
+    );
+    const first = await timed('import (all created)', () => importNetwork(db, doc, { actor: { email: 'bench' } }));
+    if (!first.ok) throw new Error(`import failed: ${first.errors.slice(0, 3).map((e) => e.message).join('; ')}`);
+    if (first.counts.feeds.created !== doc.feeds.length) throw new Error('not every feed was created');
+    const again = await timed('import (all unchanged)', () => importNetwork(db, doc, { actor: { email: 'bench' } }));
+    if (again.counts.feeds.unchanged !== doc.feeds.length || again.networkVersion !== first.networkVersion) throw new Error('second import changed something');
+    await timed('dry run', () => importNetwork(db, doc, { dryRun: true }));
+  } finally {
+    await db.close();
+  }
+}
+
+async function main() {
+  const sizes = process.argv.slice(2).map(Number);
+  for (const sites of sizes.length > 0 ? sizes : [1000, 5000, 20000]) {
+    if (!Number.isInteger(sites) || sites < 1) throw new Error(`a size is a whole number of sites (got ${sites})`);
+    await benchOne(sites);
+  }
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});
