@@ -88,3 +88,13 @@ export async function apiGet<T>(path: string, role: Role = 'viewer'): Promise<T>
 }
 
 export const digits = (s: string | null) => Number((s ?? '').replace(/[^0-9]/g, ''));
+
+/** Keep a measured figure for the closing note (artifacts/e2e/timings.json). */
+export function recordTiming(name: string, ms: number) {
+  fs.mkdirSync(ARTIFACTS, { recursive: true });
+  const file = path.join(ARTIFACTS, 'timings.json');
+  const all = fs.existsSync(file) ? JSON.parse(fs.readFileSync(file, 'utf8')) : {};
+  all[name] = Math.round(ms);
+  fs.writeFileSync(file, JSON.stringify(all, null, 2) + '\n');
+  console.log(`[timing] ${name}: ${Math.round(ms)} ms`);
+}

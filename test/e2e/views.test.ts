@@ -1,0 +1,100 @@
+/**
+ * The analysis views in a real browser at both sizes: every route renders
+ * real data with no console error, the reach screen agrees with the API, and
+ * an axe-core scan finds no serious or critical violation.
+ */
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { NetworkDocument } from '@/shared/schemas/network';
+import type { ReachAnswer } from '@/shared/schemas/analysis';
+import { apiGet, apiToken, baseUrl, digits, launch, openPage, recordTiming, shot, signIn, SIZES } from './browser';
+import { seriousViolations } from './axe';
+
+let browser: Browser;
+let demo: NetworkDocument;
+beforeAll(async () => {
+  browser = await launch();
+  demo = await apiGet<NetworkDocument>('/api/network/export');
+});
+afterAll(async () => browser?.close());
+
+async function apiReach(failed: { kind: string; code: string }[]): Promise<ReachAnswer> {
+  const r = await fetch(`${baseUrl()}/api/analysis/reach`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', authorization: `Bearer ${await apiToken('operator')}` },
+    body: JSON.stringify({ failed }),
+  });
+  return (await r.json()) as ReachAnswer;
+}
+
+const relayCarriage = () => {
+  const feed = demo.feeds.find((f) => f.medium === 'off-air' && f.role === 'main')!;
+  return feed.to;
+};
+
+describe.each(Object.entries(SIZES))('views at %s size', (sizeName, size) => {
+  it('fault reach for an origin shows the same lost count and households as the API', async () => {
+    const origin = demo.sites.find((s) => s.role === 'origin')!;
+    const expected = await apiReach([{ kind: 'site', code: origin.code }]);
+    const { page, errors } = await openPage(browser, size);
+    await signIn(page, 'operator');
+    await page.goto(`${baseUrl()}/reach?fail=site:${origin.code}`);
+    const lost = page.getByTestId('reach-lost-count');
+    await lost.waitFor({ timeout: 20_000 });
+    await page.waitForFunction((n) => document.querySelector('[data-testid="reach-lost-count"]')?.textContent?.replace(/[^0-9]/g, '') === String(n), expected.lost.length, { timeout: 10_000 });
+    expect(digits(await lost.textContent())).toBe(expected.lost.length);
+    expect(digits(await page.getByTestId('reach-households-lost').textContent())).toBe(expected.households.lost);
+    expect(digits(await page.getByTestId('reach-fallback-count').textContent())).toBe(expected.fallback.length);
+    await shot(page, `reach-origin-${sizeName}`);
+    expect(await seriousViolations(page)).toEqual([]);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
+  it('updates the reach on screen after a change to the failure set, and measures how fast', async () => {
+    const main = demo.sites.find((s) => s.role === 'main')!;
+    const { page, errors } = await openPage(browser, size);
+    await signIn(page, 'operator');
+    await page.goto(`${baseUrl()}/reach`);
+    const search = page.getByLabel('Find a site, feed or group');
+    await search.waitFor({ timeout: 20_000 });
+    await search.fill(main.code);
+    const add = page.getByRole('button', { name: new RegExp(`^Add.*${main.code.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first();
+    await add.waitFor({ timeout: 10_000 });
+    const expected = await apiReach([{ kind: 'site', code: main.code }]);
+    const t0 = Date.now();
+    await add.click();
+    await page.waitForFunction((n) => document.querySelector('[data-testid="reach-lost-count"]')?.textContent?.replace(/[^0-9]/g, '') === String(n), expected.lost.length, { timeout: 10_000, polling: 16 });
+    recordTiming(`reach-update-${sizeName}`, Date.now() - t0);
+    expect(new URL(page.url()).searchParams.get('fail')).toContain(`site:${main.code}`);
+    await shot(page, `reach-main-${sizeName}`);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
+  it('draws a carriage with its upstream chain, the network diagram and the resilience review', async () => {
+    const { page, errors } = await openPage(browser, size);
+    await signIn(page, 'engineer');
+    const code = relayCarriage();
+    const routes: [string, string][] = [
+      [`/carriages/${code}`, `chain-${sizeName}`],
+      ['/network', `network-${sizeName}`],
+      ['/resilience', `resilience-${sizeName}`],
+      ['/', `home-attention-${sizeName}`],
+    ];
+    for (const [route, name] of routes) {
+      await page.goto(`${baseUrl()}${route}`);
+      await page.waitForLoadState('networkidle');
+      if (route.startsWith('/carriages')) await page.getByText(code).first().waitFor({ timeout: 20_000 });
+      if (route === '/network') await page.getByTestId('network-diagram').waitFor({ timeout: 20_000 });
+      const body = (await page.locator('body').innerText()).toLowerCase();
+      expect(body, route).not.toContain('something went wrong');
+      expect(body.length, route).toBeGreaterThan(40);
+      await shot(page, name);
+      const v = await seriousViolations(page);
+      expect(v, `${route}: ${JSON.stringify(v)}`).toEqual([]);
+    }
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+});
