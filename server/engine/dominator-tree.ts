@@ -12,6 +12,8 @@ export interface DominatorTree {
   alive: Uint8Array;
   tin: Int32Array;
   tout: Int32Array;
+  /** the marked nodes (carriages), as given */
+  marked: Uint8Array;
   markedPre: Int32Array;
   markStart: Int32Array;
   markEnd: Int32Array;
@@ -62,7 +64,7 @@ export function indexDominatorTree(idom: Int32Array, root: number, marked: Uint8
       markEnd[u] = markedList.length;
     }
   }
-  return { root, idom, alive, tin, tout, markedPre: Int32Array.from(markedList), markStart, markEnd };
+  return { root, idom, alive, tin, tout, marked, markedPre: Int32Array.from(markedList), markStart, markEnd };
 }
 
 /** True when a dominates b (a node dominates itself). */

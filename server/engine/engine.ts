@@ -218,9 +218,9 @@ export class NetworkEngine {
     const perService = this.scratch.perService;
     removedNodesByService(this.core, ids, perService);
     let lost = 0;
-    this.core.services.forEach((svc, s) => {
-      lost += this.core.walker.floorLost(this.core.full[s], svc.isCarriage, perService[s].data, perService[s].length);
-    });
+    for (let s = 0; s < this.core.services.length; s++) {
+      lost += this.core.walker.floorLost(this.core.full[s], perService[s].data, perService[s].length);
+    }
     return lost;
   }
 
@@ -241,7 +241,7 @@ export class NetworkEngine {
       let households = 0;
       for (const s of touched) {
         lostNodes.clear();
-        carriages += walker.floorLost(full[s], services[s].isCarriage, perService[s].data, perService[s].length, lostNodes);
+        carriages += walker.floorLost(full[s], perService[s].data, perService[s].length, lostNodes);
         for (let i = 0; i < lostNodes.length; i++) {
           const site = model.carriageSite[services[s].ref[lostNodes.data[i]]];
           if (!siteStamp[site]) {

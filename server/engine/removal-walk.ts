@@ -145,10 +145,10 @@ export class RemovalWalker {
         }
       }
     }
-    const marked = t.markStart;
+    const marked = t.marked;
     for (let r = 0; r < size; r++) {
       const v = region[r];
-      if (saved[v] !== ep && isMarked(t, v, marked)) out.push(v);
+      if (saved[v] !== ep && marked[v]) out.push(v);
     }
   }
 
@@ -157,7 +157,7 @@ export class RemovalWalker {
    * whole graph from the root, and take the reachable marked nodes not reached
    * (appended to `out` when given). Returns how many there are.
    */
-  floorLost(view: FlowView, marked: Uint8Array, nodes: ArrayLike<number>, count: number, out?: IntList): number {
+  floorLost(view: FlowView, nodes: ArrayLike<number>, count: number, out?: IntList): number {
     const ep = this.nextEpoch();
     const removed = this.removed;
     for (let i = 0; i < count; i++) removed[nodes[i]] = ep;
@@ -179,7 +179,7 @@ export class RemovalWalker {
       }
     }
     let lost = 0;
-    const alive = view.tree.alive;
+    const { alive, marked } = view.tree;
     for (let v = 0; v < alive.length; v++) {
       if (alive[v] && marked[v] && seen[v] !== ep) {
         lost++;
@@ -188,12 +188,6 @@ export class RemovalWalker {
     }
     return lost;
   }
-}
-
-/** A node is marked iff it opens its own marked range with itself. */
-function isMarked(t: DominatorTree, v: number, markStart: Int32Array): boolean {
-  const s = markStart[v];
-  return s >= 0 && s < t.markEnd[v] && t.markedPre[s] === v;
 }
 
 export function emitSubtree(t: DominatorTree, u: number, out: IntList): void {
