@@ -94,6 +94,13 @@ describe('reading CSV files', () => {
     expect(read.rowsOf.groups?.rows).toEqual([1, 3]);
   });
 
+  it('keeps row numbers right after several malformed rows in a row', () => {
+    const read = readCsvFiles([{ name: 'groups.csv', text: 'code,name\nG1,One\nbad\nG3,Three\nbad\nbad\nG6,Six\n"open\n' }]);
+    expect(read.errors.map((e) => e.row)).toEqual([2, 4, 5, 7]);
+    expect(read.rowsOf.groups?.rows).toEqual([1, 3, 6]);
+    expect(read.raw.groups?.map((g) => g.code)).toEqual(['G1', 'G3', 'G6']);
+  });
+
   it('reports the same kind uploaded twice', () => {
     const { errors } = readCsvFiles([
       { name: 'a/sites.csv', text: 'code,name,role,lat,lon\n' },

@@ -72,44 +72,45 @@ export function readCsvFiles(files: readonly CsvFile[]): CsvRead {
 }
 
 function readKindFile(kind: EntityKind, file: CsvFile, errors: ImportIssue[]): { entities: Record<string, unknown>[]; rows: number[] } {
-  const records: Array<{ cells: string[]; row: number }> = [];
-  let ordinal = 0;
+  let records: string[][];
+  // Each skipped record's position among all records (header = 0); err.records counts only the good ones before it.
+  const skipped: number[] = [];
   try {
-    parse(file.text, {
+    records = parse(file.text, {
       bom: true,
       skip_empty_lines: true,
       skip_records_with_error: true,
-      on_record: (cells: string[]) => {
-        records.push({ cells, row: ordinal++ });
-        return null;
-      },
       on_skip: (err) => {
-        const row = ordinal++;
+        const row = (err?.records ?? 0) + skipped.length;
+        skipped.push(row);
         errors.push({ kind, file: file.name, row, rule: 'csv-syntax', message: `${file.name} row ${row}: ${err?.message ?? 'the row cannot be read'}` });
         return undefined;
       },
-    });
+    }) as string[][];
   } catch (err) {
     errors.push({ kind, file: file.name, rule: 'csv-syntax', message: `${file.name} cannot be read as CSV: ${(err as Error).message}` });
     return { entities: [], rows: [] };
   }
-  const header = records.shift();
-  if (!header || header.row !== 0) {
+  if (records.length === 0 || skipped[0] === 0) {
     errors.push({ kind, file: file.name, rule: 'missing-header', message: `${file.name} has no header row: the first row names the columns (${CSV_COLUMNS[kind].map(([c]) => c).join(', ')})` });
     return { entities: [], rows: [] };
   }
-  const columns = headerColumns(kind, file.name, header.cells, errors);
+  const columns = headerColumns(kind, file.name, records[0], errors);
   const entities: Record<string, unknown>[] = [];
   const rows: number[] = [];
-  for (const record of records) {
+  let skipsBefore = 0;
+  for (let j = 1; j < records.length; j++) {
+    while (skipsBefore < skipped.length && skipped[skipsBefore] <= j + skipsBefore) skipsBefore++;
+    const cells = records[j];
     const entity: Record<string, unknown> = {};
-    columns.forEach((column, i) => {
-      if (column === undefined) return;
-      const value = cellValue(record.cells[i] ?? '', column.type);
+    for (let i = 0; i < columns.length; i++) {
+      const column = columns[i];
+      if (column === undefined) continue;
+      const value = cellValue(cells[i] ?? '', column.type);
       if (value !== undefined) entity[column.name] = value;
-    });
+    }
     entities.push(entity);
-    rows.push(record.row);
+    rows.push(j + skipsBefore);
   }
   return { entities, rows };
 }
