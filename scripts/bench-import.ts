@@ -9,6 +9,7 @@
  * Uses the local cluster's database `headwater_bench_import`, dropped and
  * made again for each size, so every first import lands in an empty network.
  */
+import os from 'node:os';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { openDatabase } from '@/server/db';
 import { importNetwork } from '@/server/services/importer';
@@ -17,14 +18,25 @@ import { resolveDatabaseUrl } from './lib/postgres';
 
 const SEED = 7;
 
+/**
+ * Wall time, this process's CPU time (PostgreSQL's own work is not in it),
+ * the longest event-loop stall, and the 1-minute load average when the step
+ * began: on a shared machine the wall time says as much about the neighbours.
+ */
 async function timed<T>(label: string, run: () => Promise<T>): Promise<T> {
   const stalls = monitorEventLoopDelay({ resolution: 10 });
   stalls.enable();
+  const load = os.loadavg()[0];
+  const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const out = await run();
   const ms = performance.now() - t0;
+  const cpu = process.cpuUsage(cpu0);
   stalls.disable();
-  console.log(`  ${label.padEnd(22)} ${(ms / 1000).toFixed(2).padStart(7)} s   longest event-loop stall ${(stalls.max / 1e6).toFixed(0).padStart(5)} ms`);
+  console.log(
+    `  ${label.padEnd(22)} ${(ms / 1000).toFixed(2).padStart(7)} s wall ${((cpu.user + cpu.system) / 1e6).toFixed(2).padStart(7)} s node CPU` +
+      `   longest event-loop stall ${(stalls.max / 1e6).toFixed(0).padStart(5)} ms   load ${load.toFixed(1)} on ${os.cpus().length} CPUs`,
+  );
   return out;
 }
 

@@ -98,11 +98,10 @@ export async function findWhere(
   kind: EntityKind,
   condition: string,
   bind: unknown[],
-  opts: { transaction?: Transaction; limit?: number } = {},
+  opts: { transaction?: Transaction } = {},
 ): Promise<Found[]> {
-  const limit = opts.limit !== undefined ? ` LIMIT ${Math.trunc(opts.limit)}` : '';
   const spec = QUERIES[kind];
-  const [rows] = await sequelize.query(`SELECT ${spec.columns} FROM ${spec.from} WHERE ${condition} ORDER BY e.code${limit}`, { bind, transaction: opts.transaction });
+  const [rows] = await sequelize.query(`SELECT ${spec.columns} FROM ${spec.from} WHERE ${condition} ORDER BY e.code`, { bind, transaction: opts.transaction });
   return (rows as Fields[]).map((r) => ({ id: Number(r.id), entity: storedEntity(kind, r) }));
 }
 
