@@ -5,6 +5,8 @@
  */
 import { z } from 'zod';
 import { ROLES } from '@/shared/api';
+import { CHECK_NAMES, CHECK_SEVERITIES } from '@/shared/schemas/checks';
+import { MEDIA } from '@/shared/schemas/network';
 import { carriageSchema, ENTITY_KINDS, feedSchema, groupSchema, serviceSchema, siteSchema } from '@/shared/schemas/network';
 
 export const userSchema = z.object({
@@ -237,3 +239,55 @@ export const carriageFeedsSchema = z.object({
   feedsOut: z.array(feedLineSchema),
 });
 export type CarriageFeeds = z.infer<typeof carriageFeedsSchema>;
+
+// Feed checks (shared/schemas/checks.ts; handbook interchange.md section 2).
+export const feedCheckSchema = z.object({
+  name: z.enum(CHECK_NAMES),
+  value: z.number().nullable(),
+  unit: z.string(),
+  limit: z.number().nullable().optional(),
+  ok: z.boolean().nullable(),
+  note: z.string(),
+  limitConfidence: z.enum(['confirmed', 'secondary', 'recalled']).optional(),
+});
+
+export const feedChecksAnswerSchema = z.object({
+  feed: z.string(),
+  distanceKm: z.number(),
+  bearingDeg: z.number(),
+  reverseBearingDeg: z.number(),
+  medium: z.enum(MEDIA),
+  checks: z.array(feedCheckSchema),
+  warnings: z.array(z.string()),
+  rxFrequencyMHz: z.number().nullable().optional(),
+});
+export type FeedChecksReply = z.infer<typeof feedChecksAnswerSchema>;
+
+export const checkFailureSchema = z.object({
+  feed: z.string(),
+  from: z.string(),
+  to: z.string(),
+  medium: z.enum(MEDIA),
+  check: feedCheckSchema,
+  severity: z.enum(CHECK_SEVERITIES),
+  margin: z.number().optional(),
+});
+
+export const checksListAnswerSchema = z.object({
+  networkVersion: z.union([z.number(), z.string()]).optional(),
+  failures: z.array(checkFailureSchema),
+});
+export type ChecksListReply = z.infer<typeof checksListAnswerSchema>;
+
+/** A site as the calculator needs it: where it is and how high its antennas can sit. */
+export const sitePositionSchema = z.object({
+  code: z.string(),
+  name: z.string(),
+  lat: z.number(),
+  lon: z.number(),
+  groundHeightM: z.number().nullish(),
+  mastHeightM: z.number().nullish(),
+});
+export type SitePosition = z.infer<typeof sitePositionSchema>;
+
+export const sitePositionsPageSchema = z.object({ items: z.array(sitePositionSchema), total: z.number() });

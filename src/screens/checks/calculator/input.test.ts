@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseCoordinate, parseNumber, parsePowerDbw } from './calculatorInput';
+import { parseCoordinate, parseNumber, parsePowerDbw, visibleError } from './input';
 
 const err = (p: { ok: boolean; error?: string }) => (p.ok ? null : p.error);
 
@@ -60,5 +60,14 @@ describe('parsePowerDbw', () => {
   it('refuses a power of 0 W, which has no level in dB', () => {
     expect(err(parsePowerDbw('0', 'W'))).toBe('Power must be above 0 W (got 0 W)');
     expect(err(parsePowerDbw('', 'dBW'))).toBe('Power is empty: enter a number of dBW');
+  });
+});
+
+describe('visibleError', () => {
+  it('waits until the field has text or was left', () => {
+    expect(visibleError('', false, 'Distance is empty')).toBeNull();
+    expect(visibleError('', true, 'Distance is empty')).toBe('Distance is empty');
+    expect(visibleError('x', false, 'Distance must be a number')).toBe('Distance must be a number');
+    expect(visibleError('5', true, undefined)).toBeNull();
   });
 });

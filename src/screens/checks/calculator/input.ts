@@ -86,3 +86,12 @@ export function parsePowerDbw(text: string, unit: PowerUnit, label = 'Power'): P
   return { ok: true, value: unit === 'dBm' ? db.value - 30 : db.value };
 }
 
+
+/**
+ * An error is shown once the person has typed something or has left the field: an empty
+ * form opening with a column of red messages would shout before anyone did anything.
+ */
+export function visibleError(text: string, touched: boolean, error: string | undefined | null): string | null {
+  if (!error) return null;
+  return touched || text.trim() !== '' ? error : null;
+}

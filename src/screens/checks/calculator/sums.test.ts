@@ -4,7 +4,7 @@
  * section 3 channel plans, section 5 GeographicLib's GeodSolve0.
  */
 import { describe, expect, it } from 'vitest';
-import { channelAt, channelOf, horizonFigures, linkFigures, pathBetween, readPosition } from './calculator';
+import { channelAt, channelOf, channelWords, horizonFigures, linkFigures, pathBetween, readPosition } from './sums';
 
 const value = <T,>(p: { ok: true; value: T } | { ok: false; error: string }): T => {
   if (!p.ok) throw new Error(`expected a value, got error: ${p.error}`);
@@ -136,5 +136,13 @@ describe('horizonFigures (checks.md section 2 worked examples)', () => {
       distanceKm: 'Path length must be above 0 km (got 0 km)',
       frequencyMHz: 'Frequency must be a number of MHz (got "abc")',
     });
+  });
+});
+
+describe('channelWords', () => {
+  it('says centre, edges and width for TV and DAB, and only the raster for FM', () => {
+    expect(channelWords(value(channelOf('uhf-tv', '39')))).toBe('Channel 39, UHF TV: centre 618.0 MHz, 614.0-622.0 MHz (8.0 MHz wide)');
+    expect(channelWords(value(channelOf('dab', '12B')))).toBe('Block 12B, DAB Band III: centre 225.648 MHz, 224.880-226.416 MHz (1.536 MHz wide)');
+    expect(channelWords(value(channelOf('fm', '97.3')))).toBe('97.3 MHz, FM Band II: a carrier on the 100 kHz raster (raster recalled, unconfirmed)');
   });
 });

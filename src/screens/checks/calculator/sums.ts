@@ -6,7 +6,8 @@ import { dabBlock, fmChannel, frequencyToChannel, uhfChannel, vhfChannel, FM_LOW
 import { geodesicInverse } from '@/shared/rf/geodesy';
 import { earthBulgeM, fieldStrengthFromEirpDbw, fieldStrengthFromErpDbw, freeSpaceLossDb, fresnelRadiusM, powerFluxDensityDbw, radioHorizonKm } from '@/shared/rf/propagation';
 import { DIPOLE_GAIN_DBI } from '@/shared/rf/units';
-import { parseCoordinate, parseNumber, parsePowerDbw, type Parsed, type PowerReference, type PowerUnit } from './calculatorInput';
+import { fixed, formatFigure } from '../figures';
+import { parseCoordinate, parseNumber, parsePowerDbw, type Parsed, type PowerReference, type PowerUnit } from './input';
 
 export const BAND_CHOICES: readonly { value: Band; label: string; channelHint: string }[] = [
   { value: 'uhf-tv', label: 'UHF TV', channelHint: `Channel ${UHF_FIRST}-${UHF_LAST}, e.g. 39` },
@@ -178,4 +179,20 @@ export function horizonFigures(text: HorizonText): { figures: HorizonFigures | n
     };
   }
   return { figures: { horizon1Km, horizon2Km, pathHorizonKm: total, midPath }, errors };
+}
+
+/**
+ * A channel in words: "Channel 39, UHF TV: centre 618.0 MHz, 614.0-622.0 MHz (8.0 MHz wide)".
+ * FM has no channel edges in the plan, only carriers on a raster, so none are claimed.
+ */
+export function channelWords(c: ChannelInfo): string {
+  const centre = formatFigure(c.centreMHz, 'MHz');
+  switch (c.band) {
+    case 'fm':
+      return `${centre}, FM Band II: a carrier on the ${fixed(c.widthMHz * 1000, 0)} kHz raster (raster recalled, unconfirmed)`;
+    case 'dab':
+      return `Block ${c.label}, DAB Band III: centre ${centre}, ${fixed(c.lowerMHz, 3)}-${formatFigure(c.upperMHz, 'MHz')} (${formatFigure(c.widthMHz, 'MHz')} wide)`;
+    default:
+      return `Channel ${c.label}, ${bandLabel(c.band)}: centre ${centre}, ${fixed(c.lowerMHz, 1)}-${formatFigure(c.upperMHz, 'MHz')} (${formatFigure(c.widthMHz, 'MHz')} wide)`;
+  }
 }

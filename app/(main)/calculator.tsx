@@ -1,0 +1,5 @@
+import { CalculatorScreen } from '@/src/screens/checks/calculator/CalculatorScreen';
+
+export default function CalculatorRoute() {
+  return <CalculatorScreen />;
+}

@@ -1,0 +1,100 @@
+/**
+ * The failing checks as cards (phone) or a table (wide). Both keep the server's worst-first
+ * order and name the feed (a link to its page), the carriages from -> to, the check, the
+ * value against its limit and the margin.
+ */
+import { Link, type Href } from 'expo-router';
+import { StyleSheet, Text, View } from 'react-native';
+import type { CheckFailure } from '@/shared/schemas/checks';
+import { DataTable } from '@/src/components/DataTable/DataTable';
+import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
+import { CHECK_SHORT, CHECK_TITLES, SEVERITY_WORDS } from './checkWords';
+import { marginWords, valueAgainstLimit } from './failureList';
+import { StateTag } from './StateTag';
+
+const feedHref = (code: string) => `/feeds/${encodeURIComponent(code)}` as Href;
+const failureKey = (f: CheckFailure) => `${f.feed}/${f.check.name}`;
+
+export function FeedLink({ code }: { code: string }) {
+  return (
+    <Link href={feedHref(code)} style={styles.link} accessibilityLabel={`Feed ${code}`} testID={`failure-feed-${code}`}>
+      {code}
+    </Link>
+  );
+}
+
+function Severity({ f }: { f: CheckFailure }) {
+  const s = SEVERITY_WORDS[f.severity];
+  return <StateTag words={s.words} shape={s.shape} tone={s.tone} />;
+}
+
+export function FailureCards({ failures }: { failures: readonly CheckFailure[] }) {
+  return (
+    <View style={styles.cards} role="list" aria-label="Failing checks, worst first">
+      {failures.map((f) => (
+        <View key={failureKey(f)} style={[styles.card, f.severity === 'error' ? styles.cardError : styles.cardWarning]} role="listitem" testID={`failure-${failureKey(f)}`}>
+          <View style={styles.cardHead}>
+            <Severity f={f} />
+            <Text style={styles.checkName}>{CHECK_TITLES[f.check.name]}</Text>
+          </View>
+          <View style={styles.feedLine}>
+            <Text style={styles.key}>Feed</Text>
+            <FeedLink code={f.feed} />
+          </View>
+          <Text style={styles.route}>
+            <Text style={styles.code}>{f.from}</Text>
+            {' → '}
+            <Text style={styles.code}>{f.to}</Text>
+            {`  ·  ${f.medium}`}
+          </Text>
+          <Text style={styles.figures}>
+            <Text style={styles.key}>Value </Text>
+            {valueAgainstLimit(f)}
+          </Text>
+          <Text style={styles.figures}>
+            <Text style={styles.key}>Margin </Text>
+            {marginWords(f)}
+          </Text>
+          <Text style={styles.note} selectable>
+            {f.check.note}
+          </Text>
+        </View>
+      ))}
+    </View>
+  );
+}
+
+export function FailureTable({ failures }: { failures: readonly CheckFailure[] }) {
+  return (
+    <DataTable
+      caption="Failing checks, worst first"
+      rows={failures}
+      rowKey={failureKey}
+      testID="failures-table"
+      columns={[
+        { key: 'severity', label: 'Severity', width: 130, value: (f) => (f.severity === 'error' ? 0 : 1), render: (f) => <Severity f={f} /> },
+        { key: 'feed', label: 'Feed', width: 170, value: (f) => f.feed, render: (f) => <FeedLink code={f.feed} /> },
+        { key: 'route', label: 'From → to', mono: true, width: 220, value: (f) => `${f.from} → ${f.to}` },
+        { key: 'check', label: 'Check', width: 150, value: (f) => CHECK_SHORT[f.check.name] },
+        { key: 'value', label: 'Value against limit', width: 250, sortable: false, value: (f) => valueAgainstLimit(f) },
+        { key: 'margin', label: 'Margin', numeric: true, width: 130, value: (f) => f.margin ?? null, format: (_v, f) => (f.margin === undefined ? 'yes/no check' : marginWords(f)) },
+      ]}
+    />
+  );
+}
+
+const styles = StyleSheet.create({
+  cards: { gap: space.sm },
+  card: { backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, borderLeftWidth: 6, borderRadius: radius.lg, padding: space.md, gap: space.xs },
+  cardError: { borderLeftColor: colors.bad },
+  cardWarning: { borderLeftColor: colors.warn },
+  cardHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  checkName: { ...type.label, fontSize: 17, lineHeight: 22, flexShrink: 1 },
+  feedLine: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  key: { ...type.small, color: colors.inkMuted },
+  link: { fontFamily: fonts.mono, fontSize: 16, color: colors.accent, textDecorationLine: 'underline', minHeight: TOUCH_MIN, paddingVertical: space.sm + 2 },
+  route: { ...type.body, fontSize: 16 },
+  code: { fontFamily: fonts.mono, fontSize: 15 },
+  figures: { ...type.figure, fontFamily: fonts.text, fontSize: 16 },
+  note: { ...type.small, fontSize: 14, lineHeight: 19 },
+});
