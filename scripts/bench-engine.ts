@@ -38,6 +38,8 @@ export interface EngineBenchResult {
   edges: number;
   /** NetworkEngine.build from the document, everything precomputed */
   buildMs: number;
+  /** process CPU time of the build (all threads, GC helpers included): less sensitive to other load than buildMs */
+  buildCpuMs: number;
   buildBreakdownMs: Record<string, number>;
   /** reach of one random site */
   reachOneP50Ms: number;
@@ -54,6 +56,7 @@ export interface EngineBenchResult {
   reachMultiToFloorP95: number;
   /** single points of failure of every fed carriage and exposure of every element */
   spofAllMs: number;
+  spofAllCpuMs: number;
   /** remove-and-walk of a timed sample of elements, scaled to every element (an estimate) */
   baselineSpofAllMsEstimate: number;
   baselineSampleSize: number;
@@ -78,9 +81,15 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
   const rnd = prng(opts.seed ?? 1);
   const loadBefore = os.loadavg()[0];
 
+  const cpu = () => {
+    const u = process.cpuUsage();
+    return (u.user + u.system) / 1000;
+  };
+  let c = cpu();
   let t = performance.now();
   const engine = NetworkEngine.build(doc, 1);
   const buildMs = performance.now() - t;
+  const buildCpuMs = cpu() - c;
   const elements = engine.elements();
   const sites = elements.filter((e) => e.kind === 'site');
   if (sites.length === 0) throw new Error('the network has no sites to fail');
@@ -113,7 +122,9 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     return timed(() => engine.reach(failed));
   });
 
+  c = cpu();
   const spofAllMs = engine.recomputeResilience().ms;
+  const spofAllCpuMs = cpu() - c;
   const sample = Array.from({ length: sampleSize }, anyElement);
   const baselineMs = timed(() => engine.baselineExposure(sample));
 
@@ -133,6 +144,7 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     nodes: counts.nodes,
     edges: counts.edges,
     buildMs: round(buildMs),
+    buildCpuMs: round(buildCpuMs),
     buildBreakdownMs: Object.fromEntries(Object.entries(breakdown).map(([k, v]) => [k, round(v)])),
     reachOneP50Ms: round(percentile(one, 50)),
     reachOneP95Ms: round(percentile(one, 95)),
@@ -143,6 +155,7 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     walkFloorP95Ms: round(percentile(floor, 95)),
     reachMultiToFloorP95: round(percentile(multi, 95) / percentile(floor, 95)),
     spofAllMs: round(spofAllMs),
+    spofAllCpuMs: round(spofAllCpuMs),
     baselineSpofAllMsEstimate: round((baselineMs / sampleSize) * elements.length),
     baselineSampleSize: sampleSize,
     idomMs: round(idomMs),
