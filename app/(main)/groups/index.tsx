@@ -1,0 +1,5 @@
+import { InventoryListScreen } from '@/src/screens/inventory/InventoryListScreen';
+
+export default function GroupsListRoute() {
+  return <InventoryListScreen kind="groups" />;
+}

@@ -1,0 +1,12 @@
+import { can } from '@/shared/api';
+import { useSession } from '@/src/session/SessionProvider';
+
+/**
+ * Whether the signed-in person may change the network (shared/api.ts
+ * `can.editNetwork`). Screens hide edit controls from everyone else; the
+ * server refuses them anyway.
+ */
+export function useCanEdit(): boolean {
+  const { user } = useSession();
+  return !!user && can.editNetwork.includes(user.role);
+}
