@@ -95,10 +95,13 @@ describe('nearestPoint', () => {
 });
 
 describe('showLabels', () => {
-  it('labels only a readable number of sites', () => {
-    expect(showLabels(0)).toBe(false);
-    expect(showLabels(12)).toBe(true);
-    expect(showLabels(60)).toBe(true);
-    expect(showLabels(61)).toBe(false);
+  it('labels only as many sites as the box has room for', () => {
+    expect(showLabels(0, 390, 500)).toBe(false);
+    // 390 x 500 px has room for 21 names.
+    expect(showLabels(21, 390, 500)).toBe(true);
+    expect(showLabels(22, 390, 500)).toBe(false);
+    // A wide box is capped at 80.
+    expect(showLabels(80, 1400, 800)).toBe(true);
+    expect(showLabels(81, 1400, 800)).toBe(false);
   });
 });

@@ -113,8 +113,15 @@ export function nearestPoint(xs: Float64Array, ys: Float64Array, candidates: rea
   return best;
 }
 
-/** Names are drawn only when few enough sites are in view to read them (common practice, no source). */
-export const MAX_LABELS = 60;
-export function showLabels(sitesInView: number): boolean {
-  return sitesInView > 0 && sitesInView <= MAX_LABELS;
+/**
+ * Names are drawn only when few enough sites are in view to read them: about
+ * one name per 9,000 px^2 of diagram (a 12 px label of ~15 characters is
+ * ~100 x 16 px, so this leaves room around each), and never more than
+ * MAX_LABELS. Our own rule of thumb (common practice, no source).
+ */
+export const MAX_LABELS = 80;
+export const PX2_PER_LABEL = 9000;
+export function showLabels(sitesInView: number, width: number, height: number): boolean {
+  const room = Math.min(MAX_LABELS, Math.floor((width * height) / PX2_PER_LABEL));
+  return sitesInView > 0 && sitesInView <= room;
 }

@@ -1,0 +1,217 @@
+/**
+ * The network drawn by position: sites as role shapes, feeds as lines whose
+ * pattern says medium and role, failure marks over the sites. Pan by
+ * dragging, zoom with the wheel, a pinch, or the buttons; tap a site to
+ * choose it. Only what is on screen is drawn, in a dozen paths in all
+ * (./diagramPaths.ts), so a network of thousands of sites stays smooth.
+ */
+import { memo, useEffect, useMemo, useRef } from 'react';
+import { PanResponder, Platform, StyleSheet, View, type GestureResponderEvent, type ViewStyle } from 'react-native';
+import Svg, { Circle, G, Path, Rect, Text as SvgText } from 'react-native-svg';
+import { feedStrokes, MEDIUM_ORDER, ROLE_ORDER } from '@/src/components/charts/feedStyle';
+import { colors, fonts } from '@/src/theme';
+import type { DiagramModel, PlacedDiagram, SiteStatus } from './diagramModel';
+import { crossShape, halfShape, linkPaths, ringShape, siteShape } from './diagramPaths';
+import { cullPoints, cullSegments, nearestPoint, panBy, showLabels, visibleWorld, zoomAt, type View as ViewT } from './viewport';
+
+export interface DrawnCounts {
+  sites: number;
+  links: number;
+  labels: boolean;
+}
+
+export interface NetworkDiagramProps {
+  model: DiagramModel;
+  placed: PlacedDiagram;
+  width: number;
+  height: number;
+  view: ViewT;
+  onView: (v: ViewT) => void;
+  statuses: Map<string, SiteStatus>;
+  selected: number | null;
+  onSelect: (index: number | null) => void;
+  onDrawn: (counts: DrawnCounts, inView: number[]) => void;
+  /** Land outline in diagram px at zoom 1 (optional). */
+  land?: string | null;
+  summary: string;
+}
+
+const SITE_R = { origin: 5, main: 5, relay: 3.5 } as const;
+const TAP_SLOP = 6;
+const TAP_RADIUS = 22;
+
+function Drawing({ model, placed, width, height, view, statuses, selected, land, onDrawn }: Omit<NetworkDiagramProps, 'onView' | 'onSelect' | 'summary'>) {
+  const { xs, ys, linkFrom, linkTo } = placed;
+  const drawn = useMemo(() => {
+    const rect = visibleWorld(view, width, height, 24);
+    const siteIdx = cullPoints(xs, ys, rect);
+    const linkIdx = cullSegments(xs, ys, linkFrom, linkTo, rect, view.k, 1);
+    const paths = linkPaths(xs, ys, model.links, linkIdx, view);
+    const grow = Math.min(2, 1 + Math.log2(view.k) / 4);
+    const byRole: Record<string, string[]> = { origin: [], main: [], relay: [] };
+    const cross: string[] = [];
+    const ring: string[] = [];
+    const half: string[] = [];
+    for (const i of siteIdx) {
+      const s = model.sites[i];
+      const x = xs[i] * view.k + view.tx;
+      const y = ys[i] * view.k + view.ty;
+      const r = SITE_R[s.role] * grow;
+      byRole[s.role].push(siteShape(s.role, x, y, r));
+      const st = statuses.get(s.code);
+      if (st === 'off-air') cross.push(crossShape(x, y, r + 4));
+      else if (st === 'on-reserve') {
+        ring.push(ringShape(x, y, r + 4));
+        half.push(halfShape(x, y, r + 4));
+      }
+    }
+    const labels = showLabels(siteIdx.length, width, height);
+    return { siteIdx, linkIdx, paths, byRole: { origin: byRole.origin.join(''), main: byRole.main.join(''), relay: byRole.relay.join('') }, cross: cross.join(''), ring: ring.join(''), half: half.join(''), labels, grow };
+  }, [xs, ys, linkFrom, linkTo, model, view, width, height, statuses]);
+
+  useEffect(() => {
+    onDrawn({ sites: drawn.siteIdx.length, links: drawn.linkIdx.length, labels: drawn.labels }, drawn.siteIdx);
+  }, [drawn, onDrawn]);
+
+  return (
+    <Svg width={width} height={height} aria-hidden accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+      <Rect x={0} y={0} width={width} height={height} fill={colors.surface} />
+      {land ? <Path d={land} transform={`translate(${view.tx} ${view.ty}) scale(${view.k})`} fill={colors.sunken} stroke="none" /> : null}
+      {ROLE_ORDER.flatMap((role) =>
+        MEDIUM_ORDER.map((medium) => {
+          const d = drawn.paths.get(`${medium}|${role}`);
+          if (!d) return null;
+          return feedStrokes(medium, role, 0.8).map((l, i) => <Path key={`${medium}|${role}|${i}`} d={d} stroke={l.stroke} strokeWidth={l.width} strokeDasharray={l.dash} fill="none" />);
+        }),
+      )}
+      {drawn.ring ? <Path d={drawn.ring} fill={colors.surface} stroke={colors.warn} strokeWidth={2} /> : null}
+      {drawn.half ? <Path d={drawn.half} fill={colors.warn} /> : null}
+      <Path d={drawn.byRole.relay} fill={colors.surface} stroke={colors.ink} strokeWidth={1.5} />
+      <Path d={drawn.byRole.main} fill={colors.accent} stroke={colors.ink} strokeWidth={1.2} />
+      <Path d={drawn.byRole.origin} fill={colors.ink} stroke={colors.ink} strokeWidth={1} />
+      {drawn.cross ? <Path d={drawn.cross} stroke={colors.bad} strokeWidth={3} strokeLinecap="round" fill="none" /> : null}
+      {selected !== null && selected < xs.length ? (
+        <Circle cx={xs[selected] * view.k + view.tx} cy={ys[selected] * view.k + view.ty} r={14} fill="none" stroke={colors.focus} strokeWidth={3} />
+      ) : null}
+      {drawn.labels ? (
+        <G>
+          {/* A white halo under each name keeps it readable over lines (stroke copy first, then the fill). */}
+          {(['halo', 'ink'] as const).map((layer) =>
+            drawn.siteIdx.map((i) => (
+              <SvgText
+                key={`${layer}-${model.sites[i].code}`}
+                x={xs[i] * view.k + view.tx + 9 * drawn.grow}
+                y={ys[i] * view.k + view.ty + 4}
+                fontFamily={fonts.text}
+                fontSize={12}
+                fill={layer === 'ink' ? colors.ink : colors.surface}
+                stroke={layer === 'halo' ? colors.surface : undefined}
+                strokeWidth={layer === 'halo' ? 3 : undefined}
+              >
+                {model.sites[i].name}
+              </SvgText>
+            )),
+          )}
+        </G>
+      ) : null}
+    </Svg>
+  );
+}
+
+const MemoDrawing = memo(Drawing);
+
+type Point = { x: number; y: number };
+const touchesOf = (e: GestureResponderEvent): Point[] => (e.nativeEvent.touches ?? []).map((t) => ({ x: t.pageX, y: t.pageY }));
+
+export function NetworkDiagram(props: NetworkDiagramProps) {
+  const { width, height, view, onView, onSelect, placed, summary } = props;
+  const box = useRef<View>(null);
+  const origin = useRef<Point>({ x: 0, y: 0 });
+  const start = useRef<{ view: ViewT; pinch: number | null; mid: Point | null; moved: boolean }>({ view, pinch: null, mid: null, moved: false });
+  const latest = useRef({ view, width, height, placed, onView, onSelect });
+  latest.current = { view, width, height, placed, onView, onSelect };
+
+  const measure = () => {
+    box.current?.measureInWindow?.((x, y) => {
+      origin.current = { x, y };
+    });
+  };
+
+  const responder = useMemo(
+    () =>
+      PanResponder.create({
+        onStartShouldSetPanResponder: () => true,
+        onMoveShouldSetPanResponder: () => true,
+        onPanResponderGrant: (e) => {
+          measure();
+          const t = touchesOf(e);
+          start.current = { view: latest.current.view, pinch: null, mid: null, moved: false };
+          if (t.length === 2) start.current.pinch = Math.hypot(t[0].x - t[1].x, t[0].y - t[1].y);
+        },
+        onPanResponderMove: (e, g) => {
+          const { width: w, height: h, onView: set } = latest.current;
+          const t = touchesOf(e);
+          if (t.length === 2) {
+            const dist = Math.hypot(t[0].x - t[1].x, t[0].y - t[1].y);
+            const mid = { x: (t[0].x + t[1].x) / 2 - origin.current.x, y: (t[0].y + t[1].y) / 2 - origin.current.y };
+            if (start.current.pinch === null) {
+              start.current = { view: latest.current.view, pinch: dist, mid, moved: true };
+              return;
+            }
+            start.current.moved = true;
+            set(zoomAt(start.current.view, dist / start.current.pinch, mid.x, mid.y, w, h));
+            return;
+          }
+          if (Math.abs(g.dx) > TAP_SLOP || Math.abs(g.dy) > TAP_SLOP) start.current.moved = true;
+          if (start.current.moved && start.current.pinch === null) set(panBy(start.current.view, g.dx, g.dy, w, h));
+        },
+        onPanResponderRelease: (e) => {
+          if (start.current.moved) return;
+          const { placed: p, view: v, onSelect: choose } = latest.current;
+          const sx = e.nativeEvent.pageX - origin.current.x;
+          const sy = e.nativeEvent.pageY - origin.current.y;
+          const all = Array.from({ length: p.xs.length }, (_, i) => i);
+          const hit = nearestPoint(p.xs, p.ys, all, v, sx, sy, TAP_RADIUS);
+          choose(hit >= 0 ? hit : null);
+        },
+        onPanResponderTerminationRequest: () => false,
+      }),
+    [],
+  );
+
+  // The wheel zooms about the pointer (web only; the page must not scroll meanwhile).
+  useEffect(() => {
+    if (Platform.OS !== 'web') return;
+    const node = box.current as unknown as HTMLElement | null;
+    if (!node || typeof node.addEventListener !== 'function') return;
+    const onWheel = (ev: WheelEvent) => {
+      ev.preventDefault();
+      const r = node.getBoundingClientRect();
+      const { view: v, width: w, height: h, onView: set } = latest.current;
+      set(zoomAt(v, Math.exp(-ev.deltaY * 0.0015), ev.clientX - r.left, ev.clientY - r.top, w, h));
+    };
+    node.addEventListener('wheel', onWheel, { passive: false });
+    return () => node.removeEventListener('wheel', onWheel);
+  }, []);
+
+  return (
+    <View
+      ref={box}
+      style={[styles.box, webGestures, { width, height }]}
+      testID="network-diagram"
+      accessibilityRole="image"
+      accessibilityLabel={summary}
+      onLayout={measure}
+      {...responder.panHandlers}
+    >
+      <MemoDrawing {...props} />
+    </View>
+  );
+}
+
+// The browser must leave drags and pinches on the diagram to us (no page scroll or zoom).
+const webGestures = Platform.OS === 'web' ? ({ touchAction: 'none', cursor: 'grab' } as unknown as ViewStyle) : null;
+
+const styles = StyleSheet.create({
+  box: { overflow: 'hidden', borderRadius: 8 },
+});

@@ -1,0 +1,148 @@
+/**
+ * The network at a glance (screens.md, moment 3): sites placed by position,
+ * feeds between them, a service filter (?service=CODE), pan and zoom, and a
+ * failure set overlaid (?fail=..., the same as on the reach screen).
+ */
+import { useRouter } from 'expo-router';
+import { useCallback, useEffect, useMemo, useState } from 'react';
+import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
+import type { Topology } from 'topojson-specification';
+import land110 from 'world-atlas/land-110m.json';
+import { useReach } from '@/src/api/queries/analysis';
+import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
+import { Button } from '@/src/components/Button';
+import { FeedLegend } from '@/src/components/charts/FeedLegend';
+import { countOf, formatCount } from '@/src/components/charts/numbers';
+import { Columns } from '@/src/components/layout/Columns';
+import { Screen } from '@/src/components/layout/Screen';
+import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';
+import { useBreakpoints } from '@/src/hooks/useBreakpoints';
+import { formatFailSet, parseFailSet } from '@/src/screens/reach/failSet';
+import { LinkRow } from '@/src/screens/reach/LinkRow';
+import { colors, space, type } from '@/src/theme';
+import { buildDiagram, placeDiagram, siteStatuses } from './diagramModel';
+import { DIAGRAM_MARKS } from './diagramMarks';
+import { landPath, LAND_SOURCE } from './landOutline';
+import { NetworkDiagram, type DrawnCounts } from './NetworkDiagram';
+import { fitProjection } from './projection';
+import { ServiceFilter } from './ServiceFilter';
+import { SitesInView } from './SitesInView';
+import { SiteCard } from './SiteCard';
+import { IDENTITY, zoomAt, type View as ViewT } from './viewport';
+
+export function NetworkScreen({ service, failParam }: { service: string | null; failParam: string | string[] | undefined }) {
+  const router = useRouter();
+  const { wide } = useBreakpoints();
+  const win = useWindowDimensions();
+  const drawing = useNetworkDrawing();
+  const failed = useMemo(() => parseFailSet(failParam).elements, [failParam]);
+  const failText = formatFailSet(failed);
+  const reach = useReach(failed, failText);
+
+  const [width, setWidth] = useState(0);
+  const height = Math.round(wide ? Math.max(420, Math.min(720, win.height - 240)) : Math.max(320, Math.min(560, win.height * 0.58)));
+  const [view, setView] = useState<ViewT>(IDENTITY);
+  const [selected, setSelected] = useState<number | null>(null);
+  const [legend, setLegend] = useState(false);
+  const [showLand, setShowLand] = useState(false);
+  const [drawn, setDrawn] = useState<{ counts: DrawnCounts; inView: number[] }>({ counts: { sites: 0, links: 0, labels: false }, inView: [] });
+
+  const knownService = !service || !drawing.data || drawing.data.services.some((s) => s.code === service);
+  const model = useMemo(() => (drawing.data ? buildDiagram(drawing.data, knownService ? service : null) : null), [drawing.data, service, knownService]);
+  const placed = useMemo(() => (model && width > 0 ? placeDiagram(model, width, height) : null), [model, width, height]);
+  const statuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, service), [reach.data, service, failed.length]);
+  const land = useMemo(() => {
+    if (!showLand || !model || width === 0) return null;
+    const fit = fitProjection(model.sites, width, height, 28);
+    return fit ? landPath(land110 as unknown as Topology, fit.projection, width, height) : null;
+  }, [showLand, model, width, height]);
+
+  // A new network, filter or box size starts from the whole picture.
+  useEffect(() => {
+    setView(IDENTITY);
+    setSelected(null);
+  }, [model, width, height]);
+
+  const onDrawn = useCallback((counts: DrawnCounts, inView: number[]) => setDrawn({ counts, inView }), []);
+  const zoomBy = (f: number) => setView((v) => zoomAt(v, f, width / 2, height / 2, width, height));
+
+  let statusCounts = { off: 0, reserve: 0 };
+  for (const st of statuses.values()) statusCounts = st === 'off-air' ? { ...statusCounts, off: statusCounts.off + 1 } : { ...statusCounts, reserve: statusCounts.reserve + 1 };
+
+  const summary = model
+    ? `${formatCount(drawn.counts.sites)} of ${countOf(model.sites.length, 'site')} and ${formatCount(drawn.counts.links)} of ${countOf(model.links.length, 'feed line')} drawn (${countOf(model.feedCount, 'feed')}).${drawn.counts.labels ? '' : ' Zoom in to read site names.'}${failed.length > 0 ? ` Failure set: ${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve.` : ''}`
+    : '';
+
+  let body: React.ReactNode;
+  if (drawing.error && !drawing.data) body = <ErrorState what="the network" error={drawing.error} onRetry={() => void drawing.mutate()} testID="network-error" />;
+  else if (!drawing.data || !model) body = <LoadingState what="the network" testID="network-loading" />;
+  else if (drawing.data.sites.length === 0) body = <EmptyState title="The network is empty" message="There are no sites to draw yet. Add them in Inventory, or import a network document." testID="network-empty" />;
+  else if (!knownService) body = <EmptyState title={`No service with code ${service}`} message="Choose a service above, or show them all." testID="network-unknown-service" />;
+  else if (model.sites.length === 0) body = <EmptyState title="Nothing carries this service" message="No site has a carriage of the chosen service." testID="network-no-sites" />;
+  else {
+    const site = selected !== null ? model.sites[selected] : null;
+    body = (
+      <>
+        <View style={styles.tools}>
+          <Button label="+" accessibilityLabel="Zoom in" variant="secondary" onPress={() => zoomBy(1.6)} testID="network-zoom-in" />
+          <Button label="−" accessibilityLabel="Zoom out" variant="secondary" onPress={() => zoomBy(1 / 1.6)} testID="network-zoom-out" />
+          <Button label="Fit" accessibilityLabel="Fit the whole network" variant="secondary" onPress={() => setView(IDENTITY)} />
+          <Button label={legend ? 'Hide legend' : 'Legend'} variant="quiet" onPress={() => setLegend((l) => !l)} testID="network-legend-toggle" />
+          <Button label={showLand ? 'Hide land' : 'Show land'} variant="quiet" onPress={() => setShowLand((s) => !s)} />
+        </View>
+        <View style={styles.diagramWrap} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
+          {placed && width > 0 ? (
+            <NetworkDiagram
+              model={model}
+              placed={placed}
+              width={width}
+              height={height}
+              view={view}
+              onView={setView}
+              statuses={statuses}
+              selected={selected}
+              onSelect={setSelected}
+              onDrawn={onDrawn}
+              land={land}
+              summary={summary}
+            />
+          ) : (
+            <View style={{ height }} />
+          )}
+        </View>
+        <Text style={styles.summary} accessibilityLiveRegion="polite" testID="network-summary">
+          {summary}
+        </Text>
+        {showLand ? <Text style={styles.small}>{`Land: ${LAND_SOURCE}.${land === '' ? ' None of it falls within this area.' : ''}`}</Text> : null}
+        <Text style={styles.small}>Drag to move, wheel or pinch to zoom, tap a site for its summary.</Text>
+        {legend ? <FeedLegend marks={DIAGRAM_MARKS} testID="network-legend" /> : null}
+        <Columns max={2}>
+          {site ? <SiteCard site={site} status={statuses.get(site.code)} failed={failed} onClose={() => setSelected(null)} /> : null}
+          <SitesInView sites={model.sites} inView={drawn.inView} statuses={statuses} onChoose={setSelected} />
+        </Columns>
+      </>
+    );
+  }
+
+  return (
+    <Screen title="Network" subtitle="Sites by position, feeds between them." testID="network-screen">
+      {drawing.data ? (
+        <ServiceFilter services={drawing.data.services} value={service} onChange={(code) => router.setParams({ service: code ?? '' })} />
+      ) : null}
+      {failed.length > 0 ? (
+        <View style={styles.failBox}>
+          <LinkRow href={`/reach?fail=${failText}`} title={`Failure set: ${failed.map((e) => `${e.kind} ${e.code}`).join(', ')}`} detail={reach.data ? `${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve. Open the fault reach.` : reach.error ? 'Could not compute the reach; open the fault reach for details.' : 'Working out what goes off air…'} status={statusCounts.off > 0 ? 'off-air' : 'on-reserve'} />
+        </View>
+      ) : null}
+      {body}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  tools: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  diagramWrap: { width: '100%', borderWidth: 1, borderColor: colors.line, borderRadius: 8, overflow: 'hidden', backgroundColor: colors.surface },
+  summary: { ...type.body, fontSize: 16 },
+  small: { ...type.small },
+  failBox: { borderWidth: 1, borderColor: colors.line, borderRadius: 8, overflow: 'hidden' },
+});

@@ -1,0 +1,59 @@
+/**
+ * The sites now on screen as a list of buttons (failure marks first, then by
+ * households): the keyboard and screen-reader way to pick a site, and a
+ * readable roll-call when the diagram is too dense for names.
+ */
+import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { formatCount } from '@/src/components/charts/numbers';
+import { StatusShape } from '@/src/components/StatusShape';
+import { Capped } from '@/src/screens/reach/Capped';
+import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';
+import type { DiagramSite, SiteStatus } from './diagramModel';
+
+const RANK: Record<SiteStatus, number> = { 'off-air': 0, 'on-reserve': 1 };
+
+export function SitesInView({ sites, inView, statuses, onChoose }: { sites: DiagramSite[]; inView: number[]; statuses: Map<string, SiteStatus>; onChoose: (i: number) => void }) {
+  const ordered = [...inView].sort((a, b) => {
+    const sa = RANK[statuses.get(sites[a].code) as SiteStatus] ?? 2;
+    const sb = RANK[statuses.get(sites[b].code) as SiteStatus] ?? 2;
+    return sa - sb || (sites[b].households ?? 0) - (sites[a].households ?? 0) || sites[a].code.localeCompare(sites[b].code);
+  });
+  return (
+    <View style={styles.wrap} testID="network-sites-in-view">
+      <Text style={styles.title}>{`Sites in view (${formatCount(inView.length)})`}</Text>
+      {ordered.length === 0 ? (
+        <Text style={styles.small}>No site is in view. Press Fit to see the whole network.</Text>
+      ) : (
+        <Capped
+          items={ordered}
+          what="sites in view"
+          first={8}
+          render={(i) => {
+            const s = sites[i];
+            const st = statuses.get(s.code);
+            return (
+              <Pressable key={s.code} accessibilityRole="button" onPress={() => onChoose(i)} style={({ pressed }) => [styles.row, pressed && styles.pressed]}>
+                {st ? <StatusShape shape={st === 'off-air' ? 'cross' : 'half'} color={st === 'off-air' ? colors.bad : colors.warn} size={14} /> : null}
+                <Text style={styles.name}>
+                  {`${s.name} `}
+                  <Text style={styles.code}>{s.code}</Text>
+                  {st ? <Text style={styles.small}>{st === 'off-air' ? '  off air' : '  on reserve'}</Text> : null}
+                </Text>
+              </Pressable>
+            );
+          }}
+        />
+      )}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  title: { ...type.label, fontSize: 17 },
+  row: { minHeight: TOUCH_MIN, flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.md, borderBottomWidth: 1, borderBottomColor: colors.line, backgroundColor: colors.surface },
+  pressed: { backgroundColor: colors.accentSoft },
+  name: { ...type.body, fontSize: 16, flex: 1 },
+  code: { fontFamily: fonts.mono, fontSize: 14, color: colors.inkMuted },
+  small: { ...type.small },
+});

@@ -1,0 +1,38 @@
+/** Legend entries for the marks the network diagram draws besides feed lines (same shapes as ./diagramPaths.ts). */
+import Svg, { Path } from 'react-native-svg';
+import type { LegendMark } from '@/src/components/charts/FeedLegend';
+import { colors } from '@/src/theme';
+import { crossShape, halfShape, ringShape, siteShape } from './diagramPaths';
+
+const sample = (children: React.ReactNode) => (
+  <Svg width={28} height={24} aria-hidden accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+    {children}
+  </Svg>
+);
+
+export const DIAGRAM_MARKS: LegendMark[] = [
+  { key: 'origin', label: 'origin (filled square)', sample: sample(<Path d={siteShape('origin', 14, 12, 5)} fill={colors.ink} />) },
+  { key: 'main', label: 'main station (diamond)', sample: sample(<Path d={siteShape('main', 14, 12, 5)} fill={colors.accent} stroke={colors.ink} strokeWidth={1.2} />) },
+  { key: 'relay', label: 'relay (open circle)', sample: sample(<Path d={siteShape('relay', 14, 12, 4)} fill={colors.surface} stroke={colors.ink} strokeWidth={1.5} />) },
+  {
+    key: 'off',
+    label: 'off air under the failure set (cross)',
+    sample: sample(
+      <>
+        <Path d={siteShape('relay', 14, 12, 4)} fill={colors.surface} stroke={colors.ink} strokeWidth={1.5} />
+        <Path d={crossShape(14, 12, 8)} stroke={colors.bad} strokeWidth={3} strokeLinecap="round" />
+      </>,
+    ),
+  },
+  {
+    key: 'reserve',
+    label: 'on reserve under the failure set (half-filled ring)',
+    sample: sample(
+      <>
+        <Path d={ringShape(14, 12, 8)} fill={colors.surface} stroke={colors.warn} strokeWidth={2} />
+        <Path d={halfShape(14, 12, 8)} fill={colors.warn} />
+        <Path d={siteShape('relay', 14, 12, 4)} fill={colors.surface} stroke={colors.ink} strokeWidth={1.5} />
+      </>,
+    ),
+  },
+];
