@@ -33,7 +33,10 @@ export function indexDominatorTree(idom: Int32Array, root: number, marked: Uint8
   const tout = new Int32Array(n).fill(-1);
   const markStart = new Int32Array(n).fill(-1);
   const markEnd = new Int32Array(n).fill(-1);
-  const markedList: number[] = [];
+  let markedCount = 0;
+  for (let v = 0; v < n; v++) markedCount += marked[v];
+  const markedPre = new Int32Array(markedCount);
+  let mk = 0;
   const stackNode = new Int32Array(n);
   const stackChild = new Int32Array(n);
   let sp = 0;
@@ -44,7 +47,7 @@ export function indexDominatorTree(idom: Int32Array, root: number, marked: Uint8
   tin[root] = clock++;
   alive[root] = 1;
   markStart[root] = 0;
-  if (marked[root]) markedList.push(root);
+  if (marked[root]) markedPre[mk++] = root;
   while (sp > 0) {
     const u = stackNode[sp - 1];
     const c = stackChild[sp - 1];
@@ -53,23 +56,20 @@ export function indexDominatorTree(idom: Int32Array, root: number, marked: Uint8
       const v = children[c];
       tin[v] = clock++;
       alive[v] = 1;
-      markStart[v] = markedList.length;
-      if (marked[v]) markedList.push(v);
+      markStart[v] = mk;
+      if (marked[v]) markedPre[mk++] = v;
       stackNode[sp] = v;
       stackChild[sp] = childOffsets[v];
       sp++;
     } else {
       sp--;
       tout[u] = clock;
-      markEnd[u] = markedList.length;
+      markEnd[u] = mk;
     }
   }
-  return { root, idom, alive, tin, tout, marked, markedPre: Int32Array.from(markedList), markStart, markEnd };
+  // Unreachable marked nodes never enter the preorder; the tail stays unused.
+  return { root, idom, alive, tin, tout, marked, markedPre: markedPre.subarray(0, mk), markStart, markEnd };
 }
-
-/** True when a dominates b (a node dominates itself). */
-export const dominates = (t: DominatorTree, a: number, b: number): boolean =>
-  t.tin[a] >= 0 && t.tin[b] >= 0 && t.tin[a] <= t.tin[b] && t.tin[b] < t.tout[a];
 
 /** Nearest common dominator of two reachable nodes. */
 export function commonDominator(t: DominatorTree, a: number, b: number): number {
