@@ -34,6 +34,8 @@ export function CheckChips<T extends string>({ label, options, chosen, onToggle,
               accessibilityRole="checkbox"
               accessibilityLabel={o.label}
               accessibilityState={{ checked: on }}
+              // react-native-web leaves aria-checked out for a checkbox; axe requires it.
+              aria-checked={on}
               onPress={() => onToggle(o.value)}
               testID={testID ? `${testID}-${o.value}` : undefined}
               style={({ pressed }) => [styles.chip, on && styles.on, pressed && styles.pressed]}

@@ -30,7 +30,7 @@ export function CheckRow({ check }: { check: FeedCheck }) {
       {limit}
       {sure ? <Text style={styles.sure}>{` (${sure})`}</Text> : null}
     </Text>
-  ) : wide ? (
+  ) : wide && state.state === 'figure' ? (
     <Text style={[styles.limit, styles.muted]}>no limit</Text>
   ) : null;
   const tag = <StateTag words={state.words} shape={state.shape} tone={state.tone} testID={`${testID}-state`} />;

@@ -12,31 +12,35 @@ import { ErrorState, LoadingState } from '@/src/components/states';
 import { StatusShape } from '@/src/components/StatusShape';
 import { colors, radius, space, type } from '@/src/theme';
 import { CheckRow } from './CheckRow';
-import { checkState } from './checkWords';
+import { CHECK_SHORT, verdictOf } from './checkWords';
 import { FigureList } from './FigureList';
 import { formatBearing, formatFigure } from './figures';
 import { MastCautions } from './MastCautions';
 import { ScreeningCaution } from './ScreeningCaution';
 
-function Verdict({ answer }: { answer: FeedChecksReply }) {
-  const states = answer.checks.map(checkState);
-  const missing = states.filter((s) => s === 'notComputed').length;
-  const fails = answer.warnings.length > 0;
+const VERDICT_LOOK = {
+  fails: { shape: 'cross', ink: colors.bad, fill: colors.badSoft },
+  clear: { shape: 'solid', ink: colors.good, fill: colors.goodSoft },
+  noneApply: { shape: 'ring', ink: colors.inkMuted, fill: colors.surface },
+} as const;
+
+function VerdictBox({ answer }: { answer: FeedChecksReply }) {
+  const v = verdictOf(answer.checks, answer.warnings);
+  const look = VERDICT_LOOK[v.kind];
   return (
-    <View style={[styles.verdict, fails ? styles.verdictBad : styles.verdictGood]} accessibilityRole={fails ? 'alert' : undefined} testID="feed-checks-verdict">
+    <View style={[styles.verdict, { borderColor: look.ink, backgroundColor: look.fill }]} accessibilityRole={v.kind === 'fails' ? 'alert' : undefined} testID="feed-checks-verdict">
       <View style={styles.verdictHead}>
-        <StatusShape shape={fails ? 'cross' : 'solid'} color={fails ? colors.bad : colors.good} size={18} />
-        <Text style={[styles.verdictTitle, { color: fails ? colors.bad : colors.good }]}>
-          {fails ? `${answer.warnings.length === 1 ? '1 problem' : `${answer.warnings.length} problems`} on this feed` : 'No check fails on this feed'}
-        </Text>
+        <StatusShape shape={look.shape} color={look.ink} size={18} />
+        <Text style={[styles.verdictTitle, { color: v.kind === 'noneApply' ? colors.ink : look.ink }]}>{v.words}</Text>
       </View>
       {answer.warnings.map((w) => (
         <Text key={w} style={styles.warning} selectable>
           {w}
         </Text>
       ))}
-      {missing > 0 ? (
-        <Text style={styles.missing}>{`${missing === 1 ? '1 check was' : `${missing} checks were`} not computed: a value is missing from the record (see below).`}</Text>
+      {v.reason ? <Text style={styles.warning}>{v.reason}</Text> : null}
+      {v.notComputed > 0 ? (
+        <Text style={styles.missing}>{`${v.notComputed === 1 ? '1 check was' : `${v.notComputed} checks were`} not computed: a value is missing from the record (see below).`}</Text>
       ) : null}
     </View>
   );
@@ -59,13 +63,18 @@ export function FeedChecksPanel({ code }: { code: string }) {
     <Section title="Feed checks" note={answer ? `Screening of feed ${answer.feed}, ${answer.medium}` : undefined} testID="feed-checks">
       {answer ? (
         <>
-          <Verdict answer={answer} />
+          <VerdictBox answer={answer} />
           <Geometry answer={answer} />
-          <View style={styles.list} role="list" aria-label={`Checks of feed ${answer.feed}`}>
-            {answer.checks.map((c) => (
-              <CheckRow key={c.name} check={c} />
-            ))}
-          </View>
+          {verdictOf(answer.checks, answer.warnings).kind === 'noneApply' ? (
+            // Eight rows all saying "does not apply" for the same reason tell nothing more than one line.
+            <Text style={styles.noneApply} testID="feed-checks-none-apply">{`Not screened for a ${answer.medium} feed: ${answer.checks.map((c) => CHECK_SHORT[c.name].toLowerCase()).join(', ')}.`}</Text>
+          ) : (
+            <View style={styles.list} role="list" aria-label={`Checks of feed ${answer.feed}`}>
+              {answer.checks.map((c) => (
+                <CheckRow key={c.name} check={c} />
+              ))}
+            </View>
+          )}
           {query.error ? <Text style={styles.stale}>Showing the last checks received; refreshing failed.</Text> : null}
           <ScreeningCaution />
           <MastCautions />
@@ -81,12 +90,11 @@ export function FeedChecksPanel({ code }: { code: string }) {
 
 const styles = StyleSheet.create({
   verdict: { borderWidth: 1, borderLeftWidth: 6, borderRadius: radius.md, padding: space.md, gap: space.xs },
-  verdictBad: { borderColor: colors.bad, backgroundColor: colors.badSoft },
-  verdictGood: { borderColor: colors.good, backgroundColor: colors.goodSoft },
   verdictHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   verdictTitle: { ...type.label, fontSize: 17, lineHeight: 22 },
   warning: { ...type.body, fontSize: 16, lineHeight: 22 },
   missing: { ...type.body, fontSize: 15, lineHeight: 20, color: colors.ink },
   list: { borderWidth: 1, borderColor: colors.line, borderRadius: radius.lg, backgroundColor: colors.surface, overflow: 'hidden' },
   stale: { ...type.small },
+  noneApply: { ...type.small },
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CHECK_NAMES, type FeedCheck } from '@/shared/schemas/checks';
-import { CHECK_SHORT, CHECK_TITLES, checkState, confidenceWords, limitWords, stateWords, valueWords } from './checkWords';
+import { CHECK_SHORT, CHECK_TITLES, checkState, confidenceWords, limitWords, stateWords, valueWords, verdictOf } from './checkWords';
 
 const base: FeedCheck = { name: 'field-strength', value: 60.2, unit: 'dBuV/m', limit: 56, ok: true, note: 'free space from 1000 W e.r.p.' };
 
@@ -72,5 +72,27 @@ describe('titles', () => {
       expect(CHECK_TITLES[n]).toMatch(/\w/);
       expect(CHECK_SHORT[n]).toMatch(/\w/);
     }
+  });
+});
+
+describe('verdictOf', () => {
+  const pass: FeedCheck = base;
+  const fail: FeedCheck = { ...base, value: 50, ok: false };
+  const missing: FeedCheck = { ...base, value: null, limit: undefined, ok: null, note: 'not computed: bearingDeg missing on feed F1' };
+  const na = (why: string): FeedCheck => ({ name: 'clearance', value: null, unit: 'm', ok: null, note: `not applicable: ${why}` });
+
+  it('counts problems from failing checks and warnings, whichever says more', () => {
+    expect(verdictOf([pass, fail, missing], ['Feed F1: too weak.'])).toEqual({ kind: 'fails', words: '1 problem on this feed', notComputed: 1, reason: null });
+    expect(verdictOf([fail, fail], ['a', 'b']).words).toBe('2 problems on this feed');
+  });
+
+  it('says nothing fails, and how many could not be computed', () => {
+    expect(verdictOf([pass, missing, na('microwave only')], [])).toEqual({ kind: 'clear', words: 'No check fails on this feed', notComputed: 1, reason: null });
+  });
+
+  it('says once why no check applies when every check gives the same reason', () => {
+    const why = 'line feed; path checks do not apply (distance and bearing are given for reference)';
+    expect(verdictOf([na(why), na(why)], [])).toEqual({ kind: 'noneApply', words: 'No path check applies to this feed', notComputed: 0, reason: why });
+    expect(verdictOf([na('a'), na('b')], []).reason).toBeNull();
   });
 });

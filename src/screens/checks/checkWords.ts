@@ -136,3 +136,30 @@ export const SEVERITY_WORDS: Readonly<Record<CheckSeverity, { words: string; sha
   error: { words: 'error', shape: 'cross', tone: 'bad' },
   warning: { words: 'warning', shape: 'triangle', tone: 'warn' },
 };
+
+export interface Verdict {
+  /** fails: at least one check fails; clear: none fails; noneApply: no check applies to this medium. */
+  kind: 'fails' | 'clear' | 'noneApply';
+  /** The headline: "2 problems on this feed", "No check fails on this feed", ... */
+  words: string;
+  /** Checks not computed for want of a value in the record. */
+  notComputed: number;
+  /** When no check applies and they all say the same why, that reason once. */
+  reason: string | null;
+}
+
+/** The one-line summary above a feed's checks. */
+export function verdictOf(checks: readonly Pick<FeedCheck, 'ok' | 'note' | 'value' | 'limit'>[], warnings: readonly string[]): Verdict {
+  const states = checks.map(stateWords);
+  const notComputed = states.filter((s) => s.state === 'notComputed').length;
+  const failing = states.filter((s) => s.state === 'fails').length;
+  if (failing > 0 || warnings.length > 0) {
+    const n = Math.max(failing, warnings.length);
+    return { kind: 'fails', words: `${n === 1 ? '1 problem' : `${n} problems`} on this feed`, notComputed, reason: null };
+  }
+  if (states.length > 0 && states.every((s) => s.state === 'notApplicable')) {
+    const reasons = new Set(states.map((s) => s.reason));
+    return { kind: 'noneApply', words: 'No path check applies to this feed', notComputed: 0, reason: reasons.size === 1 ? [...reasons][0] : null };
+  }
+  return { kind: 'clear', words: 'No check fails on this feed', notComputed, reason: null };
+}

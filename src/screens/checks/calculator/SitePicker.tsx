@@ -42,7 +42,8 @@ export function SitePicker({ end, onPick }: { end: string; onPick: (site: SitePo
               <View key={s.code} role="listitem">
                 <Pressable
                   accessibilityRole="button"
-                  accessibilityLabel={`Use ${s.name} (${s.code}) as end ${end}`}
+                  // The name starts with the visible text, so speech input can say what it sees.
+                  accessibilityLabel={`${s.name} ${s.code}, use as end ${end}`}
                   onPress={() => {
                     onPick(s);
                     setText('');
@@ -51,7 +52,7 @@ export function SitePicker({ end, onPick }: { end: string; onPick: (site: SitePo
                   testID={`calc-site-${end}-${s.code}`}
                 >
                   <Text style={styles.name}>{s.name}</Text>
-                  <Text style={styles.code}>{s.code}</Text>
+                  <Text style={styles.code}>{` ${s.code}`}</Text>
                 </Pressable>
               </View>
             ))}
