@@ -10,6 +10,7 @@
  * in the order the panels should appear (most urgent first).
  */
 import type { ComponentType } from 'react';
+import { AttentionList } from './AttentionList';
 
 export interface AttentionPanel {
   /** Stable key, also used as the panel's testID prefix. */
@@ -17,4 +18,4 @@ export interface AttentionPanel {
   Panel: ComponentType;
 }
 
-export const ATTENTION_PANELS: readonly AttentionPanel[] = [];
+export const ATTENTION_PANELS: readonly AttentionPanel[] = [{ id: 'analysis', Panel: AttentionList }];

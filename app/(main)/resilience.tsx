@@ -1,0 +1,5 @@
+import { ResilienceScreen } from '@/src/screens/resilience/ResilienceScreen';
+
+export default function ResilienceRoute() {
+  return <ResilienceScreen />;
+}

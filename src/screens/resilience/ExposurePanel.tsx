@@ -1,0 +1,87 @@
+/**
+ * Elements ranked by exposure (domain.md rule 7: households that lose at
+ * least one service if that element alone fails), sortable, with the whole
+ * ranking downloadable as CSV. Each row opens the fault reach for that element.
+ */
+import { useRouter, type Href } from 'expo-router';
+import { useState } from 'react';
+import { ScrollView, StyleSheet, Text, View } from 'react-native';
+import { api } from '@/shared/api';
+import type { ExposureRow } from '@/shared/schemas/analysis';
+import { useSend } from '@/src/api/ApiProvider';
+import { parseAnswer } from '@/src/api/client';
+import { exposureAnswerSchema } from '@/src/api/schemas';
+import { Button } from '@/src/components/Button';
+import { formatCount } from '@/src/components/charts/numbers';
+import { DataTable } from '@/src/components/DataTable/DataTable';
+import { describeError } from '@/src/components/states';
+import { colors, space, type } from '@/src/theme';
+import { elementWords, type ElementNamer } from './elementNames';
+import { exposureCsv, exposureFileName } from './exposureCsv';
+import { saveCsv } from './saveCsv';
+
+export const EXPOSURE_SHOWN = 100;
+
+export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRow[]; networkVersion: number; name: ElementNamer }) {
+  const router = useRouter();
+  const send = useSend();
+  const [busy, setBusy] = useState(false);
+  const [said, setSaid] = useState<string | null>(null);
+  const ranked = rows.map((r, i) => ({ ...r, rank: i + 1 }));
+
+  const download = async () => {
+    setBusy(true);
+    setSaid(null);
+    try {
+      // The file holds the whole ranking, not only the rows on screen.
+      const path = api.exposure();
+      const all = parseAnswer(exposureAnswerSchema, path, await send(path));
+      const csv = exposureCsv(all.elements.map((r, i) => ({ rank: i + 1, element: r.element, name: name(r.element), households: r.households, carriages: r.carriages })));
+      setSaid(await saveCsv(exposureFileName(all.networkVersion, new Date()), csv));
+    } catch (e) {
+      setSaid(`Could not export: ${describeError(e)}`);
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <View style={styles.wrap}>
+      <View style={styles.tools}>
+        <Button label="Download CSV" icon="inventory" variant="secondary" busy={busy} onPress={() => void download()} testID="exposure-csv" />
+        <Text style={styles.said} accessibilityLiveRegion="polite" testID="exposure-csv-status">
+          {said ?? ''}
+        </Text>
+      </View>
+      {/* The ranking scrolls in its own box so the charts and lists below stay within reach. */}
+      <ScrollView style={styles.tableBox} nestedScrollEnabled focusable accessibilityLabel="Exposure ranking (scrolls)">
+        <DataTable
+        caption="Elements ranked by exposure"
+        testID="exposure-table"
+        rows={ranked}
+        rowKey={(r) => `${r.element.kind}:${r.element.code}`}
+        initialSort={{ column: 'households', direction: 'desc' }}
+        onRowPress={(r) => router.push(`/reach?fail=${r.element.kind}:${r.element.code}` as Href)}
+        rowLabel={(r) => `${elementWords(r.element)}${name(r.element) ? `, ${name(r.element)}` : ''}: ${formatCount(r.households)} households, ${r.carriages} carriages. Open its fault reach.`}
+        columns={[
+          { key: 'rank', label: 'Rank', numeric: true, width: 70, value: (r) => r.rank },
+          { key: 'kind', label: 'Kind', width: 80, value: (r) => r.element.kind },
+          { key: 'code', label: 'Element', mono: true, width: 150, value: (r) => r.element.code },
+          { key: 'name', label: 'Name', width: 180, value: (r) => name(r.element) ?? '' },
+          { key: 'households', label: 'Households', unit: 'lost', numeric: true, width: 140, value: (r) => r.households, format: (v) => formatCount(v as number) },
+          { key: 'carriages', label: 'Carriages', unit: 'lost', numeric: true, width: 130, value: (r) => r.carriages, format: (v) => formatCount(v as number) },
+        ]}
+        />
+      </ScrollView>
+      <Text style={styles.note}>{`Network version ${networkVersion}. Press a row to see what that element's failure takes off air.`}</Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  tools: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', gap: space.md },
+  said: { ...type.small, color: colors.good },
+  note: { ...type.small },
+  tableBox: { maxHeight: 520 },
+});

@@ -1,0 +1,98 @@
+/**
+ * Where are we exposed? (screens.md, moment 4): elements ranked by the
+ * households their failure alone takes off air, carriages whose reserve does
+ * not protect them (diversity gaps), carriages with no programme at all
+ * (unfed), and counts per service, with charts. Two or three columns on a
+ * wide screen, one on a phone.
+ */
+import { useMemo } from 'react';
+import { StyleSheet, Text } from 'react-native';
+import { useDiversity, useExposure, useUnfed } from '@/src/api/queries/analysis';
+import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
+import { BarChart } from '@/src/components/charts/BarChart';
+import { countOf, formatCount } from '@/src/components/charts/numbers';
+import { Card } from '@/src/components/Card';
+import { Columns } from '@/src/components/layout/Columns';
+import { Screen } from '@/src/components/layout/Screen';
+import { Section } from '@/src/components/layout/Section';
+import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';
+import { type } from '@/src/theme';
+import { elementNamer } from './elementNames';
+import { EXPOSURE_SHOWN, ExposurePanel } from './ExposurePanel';
+import { DiversityList, UnfedList } from './GapLists';
+import { ServiceTable } from './ServiceTable';
+
+export function ResilienceScreen() {
+  const exposure = useExposure(EXPOSURE_SHOWN);
+  const diversity = useDiversity();
+  const unfed = useUnfed();
+  const drawing = useNetworkDrawing();
+  const name = useMemo(() => elementNamer(drawing.data), [drawing.data]);
+
+  const top10 = (exposure.data?.elements ?? []).slice(0, 10).map((r) => ({ key: `${r.element.kind}:${r.element.code}`, label: r.element.code, value: r.households }));
+
+  const exposureBody = exposure.data ? (
+    exposure.data.elements.length === 0 ? (
+      <EmptyState title="Nothing is exposed" message="No single element's failure takes any household off air (or the network has no households recorded)." testID="exposure-empty" />
+    ) : (
+      <ExposurePanel rows={exposure.data.elements} networkVersion={exposure.data.networkVersion} name={name} />
+    )
+  ) : exposure.error ? (
+    <ErrorState what="the exposure ranking" error={exposure.error} onRetry={() => void exposure.mutate()} />
+  ) : (
+    <LoadingState what="the exposure ranking" />
+  );
+
+  return (
+    <Screen title="Resilience" subtitle="Single points of failure ranked by households, reserves that are not diverse, and carriages with no programme." testID="resilience-screen">
+      <Columns max={3}>
+        <Card title="Most exposed element" testID="resilience-top">
+          {exposure.data && exposure.data.elements[0] ? (
+            <Text style={styles.big}>{`${exposure.data.elements[0].element.kind} ${exposure.data.elements[0].element.code}: ${formatCount(exposure.data.elements[0].households)} households`}</Text>
+          ) : (
+            <Text style={styles.small}>{exposure.data ? 'None' : exposure.error ? 'Not available' : 'Loading…'}</Text>
+          )}
+        </Card>
+        <Card title="Diversity gaps" testID="resilience-gap-count">
+          <Text style={styles.big}>{diversity.data ? countOf(diversity.data.carriages.length, 'carriage') : diversity.error ? 'Not available' : 'Loading…'}</Text>
+        </Card>
+        <Card title="Unfed carriages" testID="resilience-unfed-count">
+          <Text style={styles.big}>{unfed.data ? countOf(unfed.data.carriages.length, 'carriage') : unfed.error ? 'Not available' : 'Loading…'}</Text>
+        </Card>
+      </Columns>
+
+      <Section title="Exposure" note={`The ${EXPOSURE_SHOWN} elements whose failure alone takes the most households off air. The download holds the whole ranking.`} testID="resilience-exposure">
+        {exposureBody}
+      </Section>
+
+      <Columns max={2}>
+        <Section title="Top 10 by households" testID="resilience-chart">
+          {top10.length > 0 ? <BarChart title="Households lost if this element alone fails" unit="households" rows={top10} testID="exposure-chart" /> : exposure.data ? <Text style={styles.small}>Nothing to chart.</Text> : <LoadingState what="the chart" />}
+        </Section>
+        <Section title="Per service" testID="resilience-services">
+          <ServiceTable
+            drawing={drawing.data}
+            diversity={diversity.data}
+            unfed={unfed.data}
+            error={drawing.error ?? diversity.error ?? unfed.error}
+            onRetry={() => void Promise.all([drawing.mutate(), diversity.mutate(), unfed.mutate()])}
+          />
+        </Section>
+      </Columns>
+
+      <Columns max={2}>
+        <Section title="Diversity gaps" note="Carriages with a reserve feed that still share a single point of failure with their main feed." testID="resilience-diversity">
+          {diversity.data ? <DiversityList gaps={diversity.data.carriages} /> : diversity.error ? <ErrorState what="the diversity gaps" error={diversity.error} onRetry={() => void diversity.mutate()} /> : <LoadingState what="the diversity gaps" />}
+        </Section>
+        <Section title="Unfed carriages" note="A data problem: no programme reaches them even with nothing failed, so they are left out of every reach." testID="resilience-unfed">
+          {unfed.data ? <UnfedList unfed={unfed.data.carriages} /> : unfed.error ? <ErrorState what="the unfed carriages" error={unfed.error} onRetry={() => void unfed.mutate()} /> : <LoadingState what="the unfed carriages" />}
+        </Section>
+      </Columns>
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  big: { ...type.body, fontSize: 18, lineHeight: 24 },
+  small: { ...type.small },
+});
