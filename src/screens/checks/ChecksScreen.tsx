@@ -59,8 +59,6 @@ export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
 
   return (
     <Screen title="Checks" subtitle="Feed checks that fail anywhere in the network, worst first" actions={<CalculatorLink />} testID="checks-screen">
-      <ScreeningCaution />
-
       <Section title="Show" testID="checks-filters">
         <Choice label="Severity" options={SEVERITY_OPTIONS} value={filter.severity} onChange={(severity) => onFilter({ ...filter, severity })} testID="severity" />
         {chipOptions.length > 0 ? (
@@ -101,6 +99,7 @@ export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
         )}
       </Section>
 
+      <ScreeningCaution />
       <MastCautions />
     </Screen>
   );
