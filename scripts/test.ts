@@ -40,7 +40,8 @@ for (const stage of stages) {
   if (fs.existsSync(report)) {
     const j = JSON.parse(fs.readFileSync(report, 'utf8'));
     passed += j.numPassedTests ?? 0;
-    failed += j.numFailedTests ?? 0;
+    // a suite that fails outside any test (a hook, an import) counts as one failure
+    failed += (j.numFailedTests ?? 0) || (j.numFailedTestSuites ?? 0);
     skipped += (j.numPendingTests ?? 0) + (j.numTodoTests ?? 0);
     if ((j.numTotalTestSuites ?? 0) > 0 && j.numTotalTests === 0) broken = true;
   } else {

@@ -43,7 +43,8 @@ beforeAll(async () => {
   const secret = crypto.randomBytes(32).toString('hex');
   for (let i = 0; i < 2; i++) {
     const port = await freePort();
-    const p = spawn(process.execPath, [path.join(ROOT, 'node_modules', 'tsx', 'dist', 'cli.mjs'), path.join(ROOT, 'server', 'main.ts')], {
+    // node itself with tsx as a loader (not the tsx CLI, which relays signals through a second process)
+    const p = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server', 'main.ts')], {
       cwd: ROOT,
       env: { ...process.env, DATABASE_URL: process.env.TEST_DATABASE_URL, PORT: String(port), JWT_SECRET: secret, DEMO: '0', WEB_DIR: '/nonexistent' },
       stdio: ['ignore', 'pipe', 'pipe'],
