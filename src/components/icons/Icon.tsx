@@ -7,7 +7,7 @@
 import Svg, { Circle, Path } from 'react-native-svg';
 import { colors } from '@/src/theme';
 
-export type IconName = 'home' | 'reach' | 'network' | 'resilience' | 'inventory' | 'checks' | 'people' | 'more' | 'signOut' | 'close' | 'retry';
+export type IconName = 'home' | 'reach' | 'network' | 'resilience' | 'inventory' | 'checks' | 'people' | 'calculator' | 'more' | 'signOut' | 'close' | 'retry';
 
 interface Shape {
   paths: string[];
@@ -31,6 +31,7 @@ const SHAPES: Record<IconName, Shape> = {
   checks: { paths: ['M8 4.5H6v16h12v-16h-2', 'M9 3h6v3H9z', 'M8.8 13.2l2.3 2.3 4.2-4.6'] },
   // Two people.
   people: { paths: ['M2.5 20c0-3.6 2.7-6 6-6s6 2.4 6 6', 'M14.5 14.3c.6-.2 1.3-.3 2-.3 3 0 5 2.4 5 6'], rings: [[8.5, 8, 3.2], [16.5, 8.5, 2.6]] },
+  calculator: { paths: ['M5 3h14v18H5z', 'M8 6.5h8v3H8z', 'M8.5 13h1', 'M11.5 13h1', 'M14.5 13h1', 'M8.5 16.5h1', 'M11.5 16.5h1', 'M14.5 16.5h1'] },
   more: { paths: [], dots: [[5, 12, 2], [12, 12, 2], [19, 12, 2]] },
   // Leaving through a door.
   signOut: { paths: ['M10 4H5v16h5', 'M14 8l4 4-4 4', 'M18 12H9'] },

@@ -33,6 +33,7 @@ export const DESTINATIONS: readonly Destination[] = [
     blurb: 'Sites, services, carriages, feeds and groups; import and export',
   },
   { id: 'checks', label: 'Checks', href: '/checks', icon: 'checks', matches: ['/checks'], blurb: 'Warnings from the feed and network checks' },
+  { id: 'calculator', label: 'Calculator', href: '/calculator', icon: 'calculator', matches: ['/calculator'], blurb: 'Channel and frequency, distance and bearing, free-space figures' },
   { id: 'people', label: 'People', href: '/admin/users', icon: 'people', matches: ['/admin'], roles: can.manageUsers, blurb: 'Invite people and set their roles' },
 ];
 
