@@ -5,19 +5,22 @@
  * choose it. Only what is on screen is drawn, in a dozen paths in all
  * (./diagramPaths.ts), so a network of thousands of sites stays smooth.
  */
-import { memo, useEffect, useMemo, useRef } from 'react';
+import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import { PanResponder, Platform, StyleSheet, View, type GestureResponderEvent, type ViewStyle } from 'react-native';
 import Svg, { Circle, G, Path, Rect, Text as SvgText } from 'react-native-svg';
 import { feedStrokes, MEDIUM_ORDER, ROLE_ORDER } from '@/src/components/charts/feedStyle';
 import { colors, fonts } from '@/src/theme';
 import type { DiagramModel, PlacedDiagram, SiteStatus } from './diagramModel';
 import { crossShape, halfShape, linkPaths, ringShape, siteShape } from './diagramPaths';
-import { cullPoints, cullSegments, nearestPoint, panBy, showLabels, visibleWorld, zoomAt, type View as ViewT } from './viewport';
+import { cullPoints, cullSegments, gestureTransform, nearestPoint, panBy, showLabels, showPatterns, visibleWorld, zoomAt, type View as ViewT } from './viewport';
 
 export interface DrawnCounts {
+  /** Sites and feed lines on screen. */
   sites: number;
   links: number;
   labels: boolean;
+  /** False when lines are drawn plain because too many are in view. */
+  patterns: boolean;
 }
 
 export interface NetworkDiagramProps {
@@ -43,10 +46,15 @@ const TAP_RADIUS = 22;
 function Drawing({ model, placed, width, height, view, statuses, selected, land, onDrawn }: Omit<NetworkDiagramProps, 'onView' | 'onSelect' | 'summary'>) {
   const { xs, ys, linkFrom, linkTo } = placed;
   const drawn = useMemo(() => {
-    const rect = visibleWorld(view, width, height, 24);
+    // Drawn a third of the box beyond each edge, so a pan shows content before the redraw.
+    const rect = visibleWorld(view, width, height, Math.max(width, height) / 3);
+    const onScreen = visibleWorld(view, width, height, 8);
     const siteIdx = cullPoints(xs, ys, rect);
     const linkIdx = cullSegments(xs, ys, linkFrom, linkTo, rect, view.k, 1);
-    const paths = linkPaths(xs, ys, model.links, linkIdx, view);
+    const inView = cullPoints(xs, ys, onScreen);
+    const linksInView = cullSegments(xs, ys, linkFrom, linkTo, onScreen, view.k, 1).length;
+    const margin = Math.max(width, height) / 3;
+    const paths = linkPaths(xs, ys, model.links, linkIdx, view, { x0: -margin, y0: -margin, x1: width + margin, y1: height + margin });
     const grow = Math.min(2, 1 + Math.log2(view.k) / 4);
     const byRole: Record<string, string[]> = { origin: [], main: [], relay: [] };
     const cross: string[] = [];
@@ -65,12 +73,13 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
         half.push(halfShape(x, y, r + 4));
       }
     }
-    const labels = showLabels(siteIdx.length, width, height);
-    return { siteIdx, linkIdx, paths, byRole: { origin: byRole.origin.join(''), main: byRole.main.join(''), relay: byRole.relay.join('') }, cross: cross.join(''), ring: ring.join(''), half: half.join(''), labels, grow };
+    const labels = showLabels(inView.length, width, height);
+    const patterns = showPatterns(linkIdx.length);
+    return { siteIdx, inView, linksInView, linkIdx, paths, patterns, byRole: { origin: byRole.origin.join(''), main: byRole.main.join(''), relay: byRole.relay.join('') }, cross: cross.join(''), ring: ring.join(''), half: half.join(''), labels, grow };
   }, [xs, ys, linkFrom, linkTo, model, view, width, height, statuses]);
 
   useEffect(() => {
-    onDrawn({ sites: drawn.siteIdx.length, links: drawn.linkIdx.length, labels: drawn.labels }, drawn.siteIdx);
+    onDrawn({ sites: drawn.inView.length, links: drawn.linksInView, labels: drawn.labels, patterns: drawn.patterns }, drawn.inView);
   }, [drawn, onDrawn]);
 
   return (
@@ -81,6 +90,7 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
         MEDIUM_ORDER.map((medium) => {
           const d = drawn.paths.get(`${medium}|${role}`);
           if (!d) return null;
+          if (!drawn.patterns) return <Path key={`${medium}|${role}`} d={d} stroke={role === 'main' ? colors.ink : colors.accent} strokeWidth={role === 'main' ? 1 : 0.8} fill="none" />;
           return feedStrokes(medium, role, 0.8).map((l, i) => <Path key={`${medium}|${role}|${i}`} d={d} stroke={l.stroke} strokeWidth={l.width} strokeDasharray={l.dash} fill="none" />);
         }),
       )}
@@ -97,7 +107,7 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
         <G>
           {/* A white halo under each name keeps it readable over lines (stroke copy first, then the fill). */}
           {(['halo', 'ink'] as const).map((layer) =>
-            drawn.siteIdx.map((i) => (
+            drawn.inView.map((i) => (
               <SvgText
                 key={`${layer}-${model.sites[i].code}`}
                 x={xs[i] * view.k + view.tx + 9 * drawn.grow}
@@ -123,13 +133,30 @@ const MemoDrawing = memo(Drawing);
 type Point = { x: number; y: number };
 const touchesOf = (e: GestureResponderEvent): Point[] => (e.nativeEvent.touches ?? []).map((t) => ({ x: t.pageX, y: t.pageY }));
 
+const WHEEL_SETTLE_MS = 180;
+
 export function NetworkDiagram(props: NetworkDiagramProps) {
   const { width, height, view, onView, onSelect, placed, summary } = props;
   const box = useRef<View>(null);
   const origin = useRef<Point>({ x: 0, y: 0 });
-  const start = useRef<{ view: ViewT; pinch: number | null; mid: Point | null; moved: boolean }>({ view, pinch: null, mid: null, moved: false });
+  // While a gesture runs, `live` is where it has got to: the drawn picture is
+  // moved and scaled to match, and redrawn once when the gesture ends.
+  const [live, setLiveState] = useState<ViewT | null>(null);
+  const liveRef = useRef<ViewT | null>(null);
+  const setLive = (v: ViewT | null) => {
+    liveRef.current = v;
+    setLiveState(v);
+  };
+  const start = useRef<{ view: ViewT; pinch: number | null; moved: boolean }>({ view, pinch: null, moved: false });
   const latest = useRef({ view, width, height, placed, onView, onSelect });
   latest.current = { view, width, height, placed, onView, onSelect };
+  const wheelTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
+
+  const commit = () => {
+    const v = liveRef.current;
+    if (v) latest.current.onView(v);
+    setLive(null);
+  };
 
   const measure = () => {
     box.current?.measureInWindow?.((x, y) => {
@@ -145,28 +172,31 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
         onPanResponderGrant: (e) => {
           measure();
           const t = touchesOf(e);
-          start.current = { view: latest.current.view, pinch: null, mid: null, moved: false };
+          start.current = { view: liveRef.current ?? latest.current.view, pinch: null, moved: false };
           if (t.length === 2) start.current.pinch = Math.hypot(t[0].x - t[1].x, t[0].y - t[1].y);
         },
         onPanResponderMove: (e, g) => {
-          const { width: w, height: h, onView: set } = latest.current;
+          const { width: w, height: h } = latest.current;
           const t = touchesOf(e);
           if (t.length === 2) {
             const dist = Math.hypot(t[0].x - t[1].x, t[0].y - t[1].y);
             const mid = { x: (t[0].x + t[1].x) / 2 - origin.current.x, y: (t[0].y + t[1].y) / 2 - origin.current.y };
             if (start.current.pinch === null) {
-              start.current = { view: latest.current.view, pinch: dist, mid, moved: true };
+              start.current = { view: liveRef.current ?? latest.current.view, pinch: dist, moved: true };
               return;
             }
             start.current.moved = true;
-            set(zoomAt(start.current.view, dist / start.current.pinch, mid.x, mid.y, w, h));
+            setLive(zoomAt(start.current.view, dist / start.current.pinch, mid.x, mid.y, w, h));
             return;
           }
           if (Math.abs(g.dx) > TAP_SLOP || Math.abs(g.dy) > TAP_SLOP) start.current.moved = true;
-          if (start.current.moved && start.current.pinch === null) set(panBy(start.current.view, g.dx, g.dy, w, h));
+          if (start.current.moved && start.current.pinch === null) setLive(panBy(start.current.view, g.dx, g.dy, w, h));
         },
         onPanResponderRelease: (e) => {
-          if (start.current.moved) return;
+          if (start.current.moved) {
+            commit();
+            return;
+          }
           const { placed: p, view: v, onSelect: choose } = latest.current;
           const sx = e.nativeEvent.pageX - origin.current.x;
           const sy = e.nativeEvent.pageY - origin.current.y;
@@ -174,12 +204,14 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
           const hit = nearestPoint(p.xs, p.ys, all, v, sx, sy, TAP_RADIUS);
           choose(hit >= 0 ? hit : null);
         },
+        onPanResponderTerminate: () => commit(),
         onPanResponderTerminationRequest: () => false,
       }),
-    [],
+    [], // eslint-disable-line react-hooks/exhaustive-deps
   );
 
-  // The wheel zooms about the pointer (web only; the page must not scroll meanwhile).
+  // The wheel zooms about the pointer (web only; the page must not scroll
+  // meanwhile), redrawing once the wheel has been still for a moment.
   useEffect(() => {
     if (Platform.OS !== 'web') return;
     const node = box.current as unknown as HTMLElement | null;
@@ -187,13 +219,19 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
     const onWheel = (ev: WheelEvent) => {
       ev.preventDefault();
       const r = node.getBoundingClientRect();
-      const { view: v, width: w, height: h, onView: set } = latest.current;
-      set(zoomAt(v, Math.exp(-ev.deltaY * 0.0015), ev.clientX - r.left, ev.clientY - r.top, w, h));
+      const { view: v, width: w, height: h } = latest.current;
+      setLive(zoomAt(liveRef.current ?? v, Math.exp(-ev.deltaY * 0.0015), ev.clientX - r.left, ev.clientY - r.top, w, h));
+      if (wheelTimer.current) clearTimeout(wheelTimer.current);
+      wheelTimer.current = setTimeout(commit, WHEEL_SETTLE_MS);
     };
     node.addEventListener('wheel', onWheel, { passive: false });
-    return () => node.removeEventListener('wheel', onWheel);
-  }, []);
+    return () => {
+      node.removeEventListener('wheel', onWheel);
+      if (wheelTimer.current) clearTimeout(wheelTimer.current);
+    };
+  }, []); // eslint-disable-line react-hooks/exhaustive-deps
 
+  const t = live ? gestureTransform(view, live) : null;
   return (
     <View
       ref={box}
@@ -204,14 +242,23 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
       onLayout={measure}
       {...responder.panHandlers}
     >
-      <MemoDrawing {...props} />
+      <View style={[styles.moving, webLayer, t ? { transform: [{ translateX: t.dx }, { translateY: t.dy }, { scale: t.s }] } : null]}>
+        <MemoDrawing {...drawingProps(props)} />
+      </View>
     </View>
   );
 }
 
+function drawingProps({ onView: _v, onSelect: _s, summary: _m, ...rest }: NetworkDiagramProps) {
+  return rest;
+}
+
 // The browser must leave drags and pinches on the diagram to us (no page scroll or zoom).
 const webGestures = Platform.OS === 'web' ? ({ touchAction: 'none', cursor: 'grab' } as unknown as ViewStyle) : null;
+// Its own compositing layer, so moving the drawn picture during a gesture does not repaint it.
+const webLayer = Platform.OS === 'web' ? ({ willChange: 'transform' } as unknown as ViewStyle) : null;
 
 const styles = StyleSheet.create({
   box: { overflow: 'hidden', borderRadius: 8 },
+  moving: { transformOrigin: 'top left' },
 });

@@ -45,7 +45,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   const [selected, setSelected] = useState<number | null>(null);
   const [legend, setLegend] = useState(false);
   const [showLand, setShowLand] = useState(false);
-  const [drawn, setDrawn] = useState<{ counts: DrawnCounts; inView: number[] }>({ counts: { sites: 0, links: 0, labels: false }, inView: [] });
+  const [drawn, setDrawn] = useState<{ counts: DrawnCounts; inView: number[] }>({ counts: { sites: 0, links: 0, labels: false, patterns: true }, inView: [] });
 
   const knownService = !service || !drawing.data || drawing.data.services.some((s) => s.code === service);
   const model = useMemo(() => (drawing.data ? buildDiagram(drawing.data, knownService ? service : null) : null), [drawing.data, service, knownService]);
@@ -70,7 +70,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   for (const st of statuses.values()) statusCounts = st === 'off-air' ? { ...statusCounts, off: statusCounts.off + 1 } : { ...statusCounts, reserve: statusCounts.reserve + 1 };
 
   const summary = model
-    ? `${formatCount(drawn.counts.sites)} of ${countOf(model.sites.length, 'site')} and ${formatCount(drawn.counts.links)} of ${countOf(model.links.length, 'feed line')} drawn (${countOf(model.feedCount, 'feed')}).${drawn.counts.labels ? '' : ' Zoom in to read site names.'}${failed.length > 0 ? ` Failure set: ${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve.` : ''}`
+    ? `${formatCount(drawn.counts.sites)} of ${countOf(model.sites.length, 'site')} and ${formatCount(drawn.counts.links)} of ${countOf(model.links.length, 'feed line')} in view (${countOf(model.feedCount, 'feed')}).${drawn.counts.labels ? '' : ' Zoom in to read site names.'}${drawn.counts.patterns ? '' : ' Lines are plain (main dark, reserve in the accent colour) until fewer are in view; zoom in to see each medium’s pattern.'}${failed.length > 0 ? ` Failure set: ${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve.` : ''}`
     : '';
 
   let body: React.ReactNode;

@@ -17,6 +17,13 @@ describe('linkPaths', () => {
     expect(paths.get('satellite|reserve')).toBe('M1 -1L41 -1');
   });
 
+  it('cuts lines to the clip box and drops those outside it', () => {
+    const paths = linkPaths(xs, ys, links, [0, 1, 2], { k: 1, tx: 0, ty: 0 }, { x0: 0, y0: 0, x1: 15, y1: 10 });
+    expect(paths.get('line|main')).toBe('M0 0L10 5M10 5L15 2.5');
+    expect(paths.get('satellite|reserve')).toBe('M0 0L15 0');
+    expect(linkPaths(xs, ys, links, [0], { k: 1, tx: 0, ty: 0 }, { x0: 50, y0: 50, x1: 60, y1: 60 }).size).toBe(0);
+  });
+
   it('draws only the given indices', () => {
     const paths = linkPaths(xs, ys, links, [2], { k: 1, tx: 0, ty: 0 });
     expect([...paths.keys()]).toEqual(['satellite|reserve']);

@@ -5,21 +5,24 @@
  */
 import type { FeedRole, Medium, SiteRole } from '@/shared/schemas/network';
 import type { DiagramLink } from './diagramModel';
-import type { View } from './viewport';
+import { clipSegment, type Rect, type View } from './viewport';
 
 const r1 = (n: number) => Math.round(n * 10) / 10;
 
 export type StyleKey = `${Medium}|${FeedRole}`;
 
-/** Straight lines per medium and role: "M x y L x y M ...". */
-export function linkPaths(xs: Float64Array, ys: Float64Array, links: readonly DiagramLink[], indices: readonly number[], v: View): Map<StyleKey, string> {
+/** Straight lines per medium and role ("M x y L x y M ..."), cut to `clip` (screen px) when given. */
+export function linkPaths(xs: Float64Array, ys: Float64Array, links: readonly DiagramLink[], indices: readonly number[], v: View, clip?: Rect): Map<StyleKey, string> {
   const parts = new Map<StyleKey, string[]>();
   for (const i of indices) {
     const l = links[i];
+    let seg: [number, number, number, number] | null = [xs[l.from] * v.k + v.tx, ys[l.from] * v.k + v.ty, xs[l.to] * v.k + v.tx, ys[l.to] * v.k + v.ty];
+    if (clip) seg = clipSegment(seg[0], seg[1], seg[2], seg[3], clip);
+    if (!seg) continue;
     const key = `${l.medium}|${l.role}` as StyleKey;
     let list = parts.get(key);
     if (!list) parts.set(key, (list = []));
-    list.push(`M${r1(xs[l.from] * v.k + v.tx)} ${r1(ys[l.from] * v.k + v.ty)}L${r1(xs[l.to] * v.k + v.tx)} ${r1(ys[l.to] * v.k + v.ty)}`);
+    list.push(`M${r1(seg[0])} ${r1(seg[1])}L${r1(seg[2])} ${r1(seg[3])}`);
   }
   return new Map([...parts].map(([k, list]) => [k, list.join('')]));
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { clampView, cullPoints, cullSegments, IDENTITY, MAX_ZOOM, nearestPoint, panBy, showLabels, toScreen, toWorld, visibleWorld, zoomAt } from './viewport';
+import { clampView, clipSegment, cullPoints, cullSegments, gestureTransform, IDENTITY, MAX_ZOOM, nearestPoint, panBy, showLabels, showPatterns, toScreen, toWorld, visibleWorld, zoomAt } from './viewport';
 
 const W = 400;
 const H = 300;
@@ -103,5 +103,61 @@ describe('showLabels', () => {
     // A wide box is capped at 80.
     expect(showLabels(80, 1400, 800)).toBe(true);
     expect(showLabels(81, 1400, 800)).toBe(false);
+  });
+});
+
+describe('showPatterns', () => {
+  it('drops dash patterns only for a dense view', () => {
+    expect(showPatterns(600)).toBe(true);
+    expect(showPatterns(601)).toBe(false);
+  });
+});
+
+describe('gestureTransform', () => {
+  it('moves a drawn point to where the live view puts it', () => {
+    const drawn = { k: 2, tx: 10, ty: -20 };
+    const live = zoomAt(panBy(drawn, 30, 15, W, H), 1.5, 100, 80, W, H);
+    const t = gestureTransform(drawn, live);
+    for (const [wx, wy] of [
+      [0, 0],
+      [123, 45],
+      [300, 200],
+    ]) {
+      const [dxs, dys] = toScreen(drawn, wx, wy);
+      const [lxs, lys] = toScreen(live, wx, wy);
+      expect(dxs * t.s + t.dx).toBeCloseTo(lxs, 9);
+      expect(dys * t.s + t.dy).toBeCloseTo(lys, 9);
+    }
+  });
+
+  it('is the identity when nothing moved', () => {
+    expect(gestureTransform({ k: 3, tx: 5, ty: 6 }, { k: 3, tx: 5, ty: 6 })).toEqual({ s: 1, dx: 0, dy: 0 });
+  });
+});
+
+describe('clipSegment (Liang-Barsky 1984)', () => {
+  const r = { x0: 0, y0: 0, x1: 100, y1: 50 };
+
+  it('keeps a segment wholly inside', () => {
+    expect(clipSegment(10, 10, 90, 40, r)).toEqual([10, 10, 90, 40]);
+  });
+
+  it('cuts a segment that crosses the box at both ends', () => {
+    expect(clipSegment(-100, 25, 200, 25, r)).toEqual([0, 25, 100, 25]);
+    const [x0, y0, x1, y1] = clipSegment(-50, -25, 150, 75, r)!;
+    // The line y = x/2 + 0 enters at (0, 0) and leaves at (100, 50).
+    expect([x0, y0, x1, y1].map((v) => Math.round(v * 1e9) / 1e9)).toEqual([0, 0, 100, 50]);
+  });
+
+  it('drops a segment that misses the box, even when its bounding box overlaps it', () => {
+    expect(clipSegment(-10, 60, 200, 60, r)).toBeNull();
+    // Corner-cutting diagonal passing outside the top-right corner.
+    expect(clipSegment(90, -20, 120, 10, r)).toBeNull();
+  });
+
+  it('handles vertical and horizontal segments and points', () => {
+    expect(clipSegment(50, -10, 50, 80, r)).toEqual([50, 0, 50, 50]);
+    expect(clipSegment(120, 10, 130, 10, r)).toBeNull();
+    expect(clipSegment(5, 5, 5, 5, r)).toEqual([5, 5, 5, 5]);
   });
 });

@@ -125,3 +125,60 @@ export function showLabels(sitesInView: number, width: number, height: number): 
   const room = Math.min(MAX_LABELS, Math.floor((width * height) / PX2_PER_LABEL));
   return sitesInView > 0 && sitesInView <= room;
 }
+
+/**
+ * Dash patterns cost the renderer dearly over thousands of lines (each dash
+ * is its own piece of outline), and cannot be told apart in a dense overview
+ * anyway: above this many lines in view they are drawn plain, and the screen
+ * says so. Our own rule of thumb (common practice, no source).
+ */
+export const MAX_PATTERNED_LINES = 600;
+export function showPatterns(linesInView: number): boolean {
+  return linesInView <= MAX_PATTERNED_LINES;
+}
+
+/**
+ * While a gesture runs, the last drawn picture is moved and scaled as a
+ * whole (a CSS-style transform, cheap) rather than redrawn: the transform
+ * that takes the picture drawn at view `drawn` to where view `live` puts it.
+ * screen_live = screen_drawn * s + (dx, dy), with s = live.k / drawn.k.
+ */
+export function gestureTransform(drawn: View, live: View): { dx: number; dy: number; s: number } {
+  const s = live.k / drawn.k;
+  return { s, dx: live.tx - drawn.tx * s, dy: live.ty - drawn.ty * s };
+}
+
+/**
+ * The part of segment a-b inside `r`, or null when none is: Liang and
+ * Barsky's parametric clipping ("A new concept and method for line
+ * clipping", ACM Transactions on Graphics 3(1), 1984). Long feed lines seen
+ * close up are cut to the screen, so a dash pattern is never laid along
+ * thousands of px nobody sees.
+ */
+export function clipSegment(ax: number, ay: number, bx: number, by: number, r: Rect): [number, number, number, number] | null {
+  const dx = bx - ax;
+  const dy = by - ay;
+  let t0 = 0;
+  let t1 = 1;
+  const edges: Array<[number, number]> = [
+    [-dx, ax - r.x0],
+    [dx, r.x1 - ax],
+    [-dy, ay - r.y0],
+    [dy, r.y1 - ay],
+  ];
+  for (const [p, q] of edges) {
+    if (p === 0) {
+      if (q < 0) return null;
+      continue;
+    }
+    const t = q / p;
+    if (p < 0) {
+      if (t > t1) return null;
+      if (t > t0) t0 = t;
+    } else {
+      if (t < t0) return null;
+      if (t < t1) t1 = t;
+    }
+  }
+  return [ax + t0 * dx, ay + t0 * dy, ax + t1 * dx, ay + t1 * dy];
+}
