@@ -81,7 +81,7 @@ function readKindFile(kind: EntityKind, file: CsvFile, errors: ImportIssue[]): {
       skip_empty_lines: true,
       skip_records_with_error: true,
       on_skip: (err) => {
-        const row = (err?.records ?? 0) + skipped.length;
+        const row = Number(err?.records ?? 0) + skipped.length;
         skipped.push(row);
         errors.push({ kind, file: file.name, row, rule: 'csv-syntax', message: `${file.name} row ${row}: ${err?.message ?? 'the row cannot be read'}` });
         return undefined;

@@ -1,6 +1,7 @@
 import { MemoryStore, rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
-import { can, ROLES } from '@/shared/api';
+import { can } from '@/shared/api';
+import { invitationSchema, personChangeSchema } from '@/shared/schemas/people';
 import { checkPassword, DECOY_HASH } from '../auth/passwords';
 import { signToken } from '../auth/tokens';
 import { ApiError, notFound, parseOr400 } from '../http/errors';
@@ -13,21 +14,6 @@ const loginSchema = z.strictObject({
   email: z.string({ error: 'email is required' }).trim().min(1, 'email is required').max(320),
   password: z.string({ error: 'password is required' }).min(1, 'password is required').max(200),
 });
-
-const inviteSchema = z.strictObject({
-  email: z.string().trim().email('email must be an e-mail address'),
-  name: z.string().trim().max(200).default(''),
-  role: z.enum(ROLES, { error: `role is one of ${ROLES.join(', ')}` }),
-  password: z.string().min(10, 'password must be at least 10 characters').max(200),
-});
-
-const changeSchema = z
-  .strictObject({
-    role: z.enum(ROLES, { error: `role is one of ${ROLES.join(', ')}` }).optional(),
-    disabled: z.boolean().optional(),
-    name: z.string().trim().max(200).optional(),
-  })
-  .refine((v) => Object.keys(v).length > 0, 'send at least one of role, disabled, name');
 
 const BAD_LOGIN = 'email or password not recognised';
 
@@ -69,7 +55,7 @@ export function registerAuthRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('post', '/users', can.manageUsers, async (req, res) => {
-    const input = parseOr400(inviteSchema, req.body);
+    const input = parseOr400(invitationSchema, req.body);
     const user = await inviteUser(input);
     res.status(201).json({ user: user.toPublic() });
   });
@@ -77,7 +63,7 @@ export function registerAuthRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('patch', '/users/:id', can.manageUsers, async (req, res) => {
     const id = Number(req.params.id);
     if (!Number.isInteger(id) || id < 1) throw notFound(`no user with id ${req.params.id}`);
-    const change = parseOr400(changeSchema, req.body);
+    const change = parseOr400(personChangeSchema, req.body);
     const user = await updateUser(id, change, req.auth!.userId);
     res.json({ user: user.toPublic() });
   });

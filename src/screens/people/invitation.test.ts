@@ -22,7 +22,7 @@ describe('checkInvitation', () => {
     if (r.ok) return;
     expect(r.errors.email).toMatch(/does not look like an email/);
     expect(r.errors.name).toMatch(/at most 200/);
-    expect(r.errors.role).toBe('Pick a role.');
+    expect(r.errors.role).toBe('Pick a role: admin, engineer, operator or viewer.');
     expect(r.errors.password).toMatch(/at least 10 characters/);
   });
 
@@ -31,7 +31,7 @@ describe('checkInvitation', () => {
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.errors.email).toBe('Enter an email address.');
-    expect(r.errors.role).toBe('Pick a role.');
+    expect(r.errors.role).toBe('Pick a role: admin, engineer, operator or viewer.');
   });
 
   it('takes a 10-character password and refuses 9 (the server minimum)', () => {

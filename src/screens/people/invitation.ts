@@ -1,26 +1,14 @@
 /**
- * The invite form's rules: the same limits the server's invite check applies
+ * The invite form's rules: the shared schema the server's invite check uses
  * (POST /api/users: an e-mail address, a name of at most 200 characters,
  * one of the four roles, a password of 10-200 characters), so the person
  * sees the problem beside the field before anything is sent.
  */
-import { z } from 'zod';
-import { ROLES } from '@/shared/api';
+import { invitationSchema } from '@/shared/schemas/people';
 import { isApiError } from '@/src/api/client';
 import type { Invitation } from '@/src/api/queries/accounts';
 
-export const PASSWORD_MIN = 10;
-export const PASSWORD_MAX = 200;
-
-export const invitationSchema = z.object({
-  email: z.string().trim().min(1, 'Enter an email address.').pipe(z.email('That does not look like an email address.')),
-  name: z.string().trim().max(200, 'A name is at most 200 characters.'),
-  role: z.enum(ROLES, { error: 'Pick a role.' }),
-  password: z
-    .string()
-    .min(PASSWORD_MIN, `A starting password has at least ${PASSWORD_MIN} characters.`)
-    .max(PASSWORD_MAX, `A starting password has at most ${PASSWORD_MAX} characters.`),
-});
+export { invitationSchema, PASSWORD_MIN, PASSWORD_MAX } from '@/shared/schemas/people';
 
 export type InvitationField = keyof Invitation;
 export type InvitationErrors = Partial<Record<InvitationField | 'form', string>>;
