@@ -34,6 +34,8 @@ export function createApp(ctx: AppContext) {
   );
 
   const api = express.Router();
+  // A whole network document may be tens of megabytes; every other body is small.
+  api.use('/network/import', express.json({ limit: ctx.config.IMPORT_BODY_LIMIT }));
   api.use(express.json({ limit: ctx.config.BODY_LIMIT }));
   const routes = new RouteTable(api, authenticate(ctx.config.JWT_SECRET, isActiveUser));
   registerSystemRoutes(routes, ctx);

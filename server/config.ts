@@ -22,7 +22,8 @@ const envSchema = z.object({
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters').optional(),
   JWT_TTL: z.string().regex(/^\d+[smhd]$/, 'JWT_TTL is like 30m, 8h or 2d').default('12h'),
   WEB_DIR: z.string().default(path.join(REPO_ROOT, 'dist', 'web')),
-  BODY_LIMIT: z.string().default('25mb'),
+  BODY_LIMIT: z.string().default('2mb'),
+  IMPORT_BODY_LIMIT: z.string().default('100mb'),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
 });
 

@@ -40,7 +40,7 @@ const SHAPES: Record<EntityKind, Shape> = {
     optional: {
       groundHeightM: nonNegative,
       mastHeightM: nonNegative,
-      households: (v) => typeof v === 'number' && Number.isSafeInteger(v) && v >= 0,
+      households: (v) => typeof v === 'number' && Number.isSafeInteger(v) && v >= 0 && v <= 2_147_483_647,
       groups: isCodeList,
     },
   },

@@ -161,3 +161,18 @@ describe('validateDocument: against a stored network', () => {
     expect(errors).toEqual([]);
   });
 });
+
+describe('households bound', () => {
+  it('refuses households above the stored integer range, in the fast path too', () => {
+    const doc = {
+      format: 'network/1',
+      sites: [{ code: 'S1', name: 'Big', role: 'origin', lat: 0, lon: 0, households: 3_000_000_000 }],
+      services: [],
+      groups: [],
+      carriages: [],
+      feeds: [],
+    };
+    const r = validateDocument(doc);
+    expect(r.errors.map((e) => e.field)).toContain('households');
+  });
+});

@@ -37,7 +37,7 @@ export const siteSchema = z.strictObject({
   lon: z.number({ error: 'longitude must be a number' }).min(-180, 'longitude is between -180 and 180').max(180, 'longitude is between -180 and 180'),
   groundHeightM: opt(nonNegative('ground height')),
   mastHeightM: opt(nonNegative('mast height')),
-  households: opt(nonNegative('households').int('households is a whole number')),
+  households: opt(nonNegative('households').int('households is a whole number').max(2_147_483_647, 'households is at most 2,147,483,647')),
   groups: opt(z.array(codeSchema)),
 });
 
