@@ -11,6 +11,7 @@ import { Badge, type Tone } from '@/src/components/Badge';
 import { Button } from '@/src/components/Button';
 import { colors, fonts, radius, space, type } from '@/src/theme';
 import { whenText } from '../inventory/format';
+import { FORM_FIELDS } from '../inventory/forms/fields';
 import { detailHref, WORDS } from '../inventory/kinds';
 import { CodeLink } from '../inventory/parts/CodeLink';
 import { fieldChanges } from './auditView';
@@ -22,7 +23,10 @@ const kindWord = (kind: AuditItem['entityKind']) => (kind === 'network' ? 'netwo
 
 export function AuditEntry({ item }: { item: AuditItem }) {
   const [open, setOpen] = useState(false);
-  const changes = open ? fieldChanges(item.before, item.after) : [];
+  const order = item.entityKind === 'network' ? [] : ['code', ...FORM_FIELDS[item.entityKind].map((f) => f.name), 'version'];
+  const changes = open ? fieldChanges(item.before, item.after, order) : [];
+  // Only an update has two sides to compare; a create or delete has one.
+  const compare = item.action === 'update';
   const linkable = item.entityCode && item.entityKind !== 'network' && item.action !== 'delete';
   return (
     <View style={styles.card} testID={`audit-${item.id}`}>
@@ -55,8 +59,8 @@ export function AuditEntry({ item }: { item: AuditItem }) {
           </View>
           {changes.length === 0 ? <Text style={styles.meta}>No fields recorded.</Text> : null}
           {changes.map((c) => (
-            <View key={c.field} style={[styles.row, c.changed && styles.changedRow]}>
-              <Text style={[styles.cell, styles.field]}>{c.changed ? `${c.field} (changed)` : c.field}</Text>
+            <View key={c.field} style={[styles.row, compare && c.changed && styles.changedRow]}>
+              <Text style={[styles.cell, styles.field]}>{compare && c.changed ? `${c.field} (changed)` : c.field}</Text>
               <Text style={[styles.cell, styles.value]} selectable>
                 {c.before}
               </Text>

@@ -35,6 +35,12 @@ describe('fieldChanges', () => {
     ]);
   });
 
+  it('puts the fields in the document\'s order when given one', () => {
+    const before = { lat: 1, version: 1, code: 'S', extra: 'x', name: 'A' };
+    const after = { lat: 2, code: 'S', version: 2, name: 'A' };
+    expect(fieldChanges(before, after, ['code', 'name', 'lat', 'version']).map((c) => c.field)).toEqual(['code', 'name', 'lat', 'version', 'extra']);
+  });
+
   it('writes nested values as JSON', () => {
     expect(showValue({ sites: { created: 1 } })).toBe('{"sites":{"created":1}}');
     expect(showValue([])).toBe('—');

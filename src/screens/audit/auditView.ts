@@ -48,14 +48,18 @@ export function showValue(value: unknown): string {
 const asRecord = (v: unknown): Record<string, unknown> => (v && typeof v === 'object' && !Array.isArray(v) ? (v as Record<string, unknown>) : {});
 
 /**
- * Every field of either side, in the order first seen (before, then after),
- * marked changed when its text differs. For a create or delete one side is
- * empty, so every field shows as changed.
+ * Every field of either side, marked changed when its text differs. Fields
+ * named in `order` come first in that order, the rest as first seen (before,
+ * then after): the log keeps records as JSON, whose key order is the
+ * database's, not the document's. For a create or delete one side is empty,
+ * so every field shows as changed.
  */
-export function fieldChanges(before: unknown, after: unknown): FieldChange[] {
+export function fieldChanges(before: unknown, after: unknown, order: readonly string[] = []): FieldChange[] {
   const b = asRecord(before);
   const a = asRecord(after);
-  const names = [...new Set([...Object.keys(b), ...Object.keys(a)])];
+  const seen = [...new Set([...Object.keys(b), ...Object.keys(a)])];
+  const rank = (f: string) => (order.includes(f) ? order.indexOf(f) : order.length + seen.indexOf(f));
+  const names = [...seen].sort((x, y) => rank(x) - rank(y));
   return names.map((field) => {
     const x = showValue(b[field]);
     const y = showValue(a[field]);

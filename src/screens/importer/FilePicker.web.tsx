@@ -26,8 +26,6 @@ export function FilePicker({ label, onPick, disabled, testID }: FilePickerProps)
           const list = Array.from(event.target.files ?? []);
           const files: UploadFile[] = list.map((f) => ({ name: f.name, size: f.size, part: f }));
           if (files.length) onPick(files);
-          // Let the same file be chosen again after it is fixed on disk.
-          event.target.value = '';
         },
       })}
       <Text style={styles.hint}>A network document (.json), one or more CSV files named after their kind (sites.csv, feeds.csv, ...), or a .zip of them.</Text>

@@ -39,7 +39,7 @@ export function ReportView({ report }: { report: ImportReport }) {
         {report.replace && !failed ? <Text style={styles.body}>{`Replace is on: records not in the file ${report.dryRun ? 'will be' : 'were'} deleted.`}</Text> : null}
       </View>
 
-      {counts.length ? (
+      {counts.length === 0 ? null : wide ? (
         <DataTable
           caption="Records per kind"
           rows={counts}
@@ -54,7 +54,16 @@ export function ReportView({ report }: { report: ImportReport }) {
           ]}
           testID="import-counts"
         />
-      ) : null}
+      ) : (
+        <View style={styles.cards} testID="import-counts">
+          {counts.map((c) => (
+            <Text key={c.kind} style={styles.body}>
+              <Text style={styles.kind}>{`${capital(WORDS[c.kind].many)}: `}</Text>
+              {`${c.received} in file, ${c.created} ${report.dryRun ? 'to create' : 'created'}, ${c.updated} ${report.dryRun ? 'to update' : 'updated'}, ${c.unchanged} unchanged, ${c.deleted} ${report.dryRun ? 'to delete' : 'deleted'}`}
+            </Text>
+          ))}
+        </View>
+      )}
 
       {issues.length ? (
         <View style={styles.issues}>
@@ -66,16 +75,17 @@ export function ReportView({ report }: { report: ImportReport }) {
               rowKey={(r) => r.key}
               columns={[
                 { key: 'severity', label: 'Severity', value: (r) => r.severity, render: (r) => <SeverityBadge severity={r.severity} />, width: 120, sortable: false },
-                { key: 'kind', label: 'Kind', value: (r) => kindWord(r.kind), width: 90, sortable: false },
-                { key: 'where', label: 'Row or item', value: (r) => r.where, width: 130, sortable: false },
-                { key: 'code', label: 'Code', mono: true, value: (r) => r.code ?? '', width: 140, sortable: false },
-                { key: 'field', label: 'Field', mono: true, value: (r) => r.field ?? '', width: 110, sortable: false },
-                { key: 'message', label: 'Message', value: (r) => r.message, width: 420, sortable: false },
+                { key: 'kind', label: 'Kind', value: (r) => kindWord(r.kind), width: 80, sortable: false },
+                { key: 'where', label: 'Row or item', value: (r) => r.where, width: 120, sortable: false },
+                { key: 'code', label: 'Code', mono: true, value: (r) => r.code ?? '', width: 150, sortable: false },
+                { key: 'field', label: 'Field', mono: true, value: (r) => r.field ?? '', width: 90, sortable: false },
+                // A fixed text width: in the table's sideways scroller a long message would otherwise stay on one line.
+                { key: 'message', label: 'Message', value: (r) => r.message, render: (r) => <Text style={styles.message}>{r.message}</Text>, width: 420, sortable: false },
               ]}
               testID="import-issues"
             />
           ) : (
-            <View style={styles.cards} accessibilityRole="list" testID="import-issues">
+            <View style={styles.cards} testID="import-issues">
               {shown.map((r) => (
                 <View key={r.key} style={styles.card}>
                   <SeverityBadge severity={r.severity} />
@@ -106,4 +116,6 @@ const styles = StyleSheet.create({
   card: { gap: space.xs, padding: space.md, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface },
   body: { ...type.body },
   meta: { ...type.small },
+  kind: { fontFamily: fonts.textBold },
+  message: { ...type.body, fontSize: 16, lineHeight: 22, width: 400 },
 });

@@ -108,7 +108,7 @@ function ListBody<K extends EntityKind>({ kind, state, onChange }: { kind: K; st
                   testID="list-table"
                 />
               ) : (
-                <RecordCards rows={rows} lines={view.card} href={(r) => detailHref(kind, r.code)} noun={words.one} />
+                <RecordCards rows={rows} lines={view.card} href={(r) => detailHref(kind, r.code)} />
               )}
               <Pager page={state.page} pageSize={LIST_PAGE_SIZE} total={list.data.total} noun={words.many} onPage={(page) => onChange({ ...state, page })} />
             </>
@@ -134,7 +134,7 @@ function FormMode({ kind, code, prefill, onDone }: { kind: EntityKind; code: str
       {!code ? (
         <EntityForm kind={kind} prefill={prefill} onSaved={(saved) => onDone(saved.code)} onCancel={() => onDone(null)} />
       ) : record ? (
-        <EntityForm key={record.version} kind={kind} stored={record} onSaved={(saved) => onDone(saved.code)} onCancel={() => onDone(code)} onReload={() => void detail.mutate()} />
+        <EntityForm kind={kind} stored={record} onSaved={(saved) => onDone(saved.code)} onCancel={() => onDone(code)} onReload={() => void detail.mutate()} />
       ) : detail.error ? (
         <ErrorState what={`${words.one} ${code}`} error={detail.error} onRetry={() => void detail.mutate()} />
       ) : (

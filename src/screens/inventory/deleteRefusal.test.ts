@@ -4,13 +4,13 @@ import { deleteButtonLabel, deleteRefusal } from './deleteRefusal';
 
 describe('deleteRefusal', () => {
   it('reads the dependents of a site and offers to delete them all', () => {
-    const e = new ApiError(409, 'conflict', 'site M-CORR still has 11 carriages (...) and 56 feeds (...)', {
+    const e = new ApiError(409, 'conflict', 'site M-CORR still has 11 carriages (M-CORR.DBN, M-CORR.DBR) and 56 feeds (M-CORR.DBN.M); delete them first, or delete with cascade=true to delete them too', {
       dependents: { carriages: { count: 11, codes: ['M-CORR.DBN', 'M-CORR.DBR'] }, feeds: { count: 56, codes: ['M-CORR.DBN.M'] } },
     });
     const r = deleteRefusal('sites', e);
     expect(r).toEqual({
       reason: 'dependents',
-      message: e.message,
+      message: 'site M-CORR still has 11 carriages (M-CORR.DBN, M-CORR.DBR) and 56 feeds (M-CORR.DBN.M). Delete them first, or choose below to delete them too.',
       total: 67,
       dependents: [
         { kind: 'carriages', count: 11, codes: ['M-CORR.DBN', 'M-CORR.DBR'] },
@@ -21,10 +21,14 @@ describe('deleteRefusal', () => {
   });
 
   it('says a group\'s members leave it rather than being deleted', () => {
-    const e = new ApiError(409, 'conflict', 'group G has members: 1 site (S1)', { dependents: { sites: { count: 1, codes: ['S1'] } } });
+    const e = new ApiError(409, 'conflict', 'group G has members: 1 site (S1); take them out of the group first, or delete with cascade=true to take them out', {
+      dependents: { sites: { count: 1, codes: ['S1'] } },
+    });
     const r = deleteRefusal('groups', e);
     expect(r.reason).toBe('dependents');
-    if (r.reason === 'dependents') expect(r.cascadeLabel).toBe('Also take its 1 member out of the group (1 site)');
+    if (r.reason !== 'dependents') return;
+    expect(r.cascadeLabel).toBe('Also take its 1 member out of the group (1 site)');
+    expect(r.message).toBe('group G has members: 1 site (S1). Take them out of the group first, or choose below to do it with the delete.');
   });
 
   it('tells a stale version from dependents, and passes other refusals on', () => {

@@ -41,7 +41,10 @@ export function deleteRefusal(kind: EntityKind, error: unknown): DeleteRefusal {
       const total = dependents.reduce((n, d) => n + d.count, 0);
       const list = dependents.map((d) => countOf(d.kind, d.count)).join(' and ');
       const cascadeLabel = kind === 'groups' ? `Also take its ${total} ${total === 1 ? 'member' : 'members'} out of the group (${list})` : `Also delete ${total} ${total === 1 ? 'dependent' : 'dependents'} (${list})`;
-      return { reason: 'dependents', message: error.message, dependents, total, cascadeLabel };
+      // The server ends with how to cascade through its API; the panel offers that as a choice instead.
+      const naming = error.message.replace(/;[^;]*cascade=true[^;]*$/, '');
+      const next = kind === 'groups' ? 'Take them out of the group first, or choose below to do it with the delete.' : 'Delete them first, or choose below to delete them too.';
+      return { reason: 'dependents', message: `${naming}. ${next}`, dependents, total, cascadeLabel };
     }
   }
   return { reason: 'other', message: error.message };

@@ -69,7 +69,6 @@ export function DetailFrame<K extends EntityKind>({ kind, code, title, subtitle,
       <Screen title={`Edit ${words.one} ${code}`} testID={`${kind}-edit-screen`}>
         <InventoryNav current={kind} />
         <EntityForm
-          key={record.version}
           kind={kind}
           stored={record}
           onSaved={() => router.setParams({ edit: undefined })}

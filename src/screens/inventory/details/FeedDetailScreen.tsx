@@ -8,7 +8,7 @@ import { StyleSheet, View } from 'react-native';
 import { Section } from '@/src/components/layout/Section';
 import { FeedChecksPanel } from '@/src/screens/checks/FeedChecksPanel';
 import { space } from '@/src/theme';
-import { whenText, withUnit } from '../format';
+import { figure, whenText, withUnit } from '../format';
 import { detailHref } from '../kinds';
 import { CodeLink } from '../parts/CodeLink';
 import { FieldList } from '../parts/FieldList';
@@ -20,7 +20,7 @@ function End({ carriage, site, testID }: { carriage: string; site?: { code: stri
   return (
     <View style={styles.end} testID={testID}>
       <CodeLink href={detailHref('carriages', carriage)} code={carriage} label={`Carriage ${carriage}`} testID={`${testID}-carriage`} />
-      {site ? <CodeLink href={detailHref('sites', site.code)} code={site.code} note={site.name} label={`Site ${site.code}, ${site.name}`} testID={`${testID}-site`} /> : null}
+      {site ? <CodeLink href={detailHref('sites', site.code)} code={site.code} note={site.name} testID={`${testID}-site`} /> : null}
     </View>
   );
 }
@@ -56,7 +56,7 @@ export function FeedDetailScreen({ code }: { code: string }) {
                 { label: 'Receive frequency', value: withUnit(feed.rxFrequencyMHz, 'MHz', 3), mono: true },
                 { label: 'Receive channel', value: feed.rxChannel ?? '—', mono: true },
                 { label: 'Receive antenna', value: feed.rxAntenna ?? '—' },
-                { label: 'Recorded bearing', value: withUnit(feed.bearingDeg, '° from true north', 1), mono: true },
+                { label: 'Recorded bearing', value: feed.bearingDeg === undefined ? '—' : `${figure(feed.bearingDeg, 1)}° from true north`, mono: true },
                 { label: 'Last changed', value: `${whenText(feed.updatedAt)} (version ${feed.version})` },
               ]}
             />

@@ -30,7 +30,7 @@ export interface LinkItem {
 export function LinkList({ items, empty, testID }: { items: readonly LinkItem[]; empty: string; testID?: string }) {
   if (items.length === 0) return <Text style={styles.empty} testID={testID}>{empty}</Text>;
   return (
-    <View style={styles.list} accessibilityRole="list" testID={testID}>
+    <View style={styles.list} testID={testID}>
       {items.map((i) => (
         <CodeLink key={i.code} href={i.href} code={i.code} note={i.note} testID={testID ? `${testID}-${i.code}` : undefined} />
       ))}

@@ -111,8 +111,14 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
   }
 
   const one = WORDS[kind].one;
+  const marked = submitted ? names.filter((n) => errorOf(n)).length : 0;
   return (
     <Card testID={`${kind}-form`}>
+      <View style={styles.fields}>
+        {fields.map((f) => (
+          <Field key={f.name} spec={f} value={draft[f.name]} error={errorOf(f.name)} locked={!!base && f.name === 'code'} onChange={(v) => set(f.name, v)} onLeave={() => leave(f.name)} kind={kind} />
+        ))}
+      </View>
       {stale ? (
         <View style={styles.stale} accessibilityRole="alert" testID="form-stale">
           <Text style={styles.staleText}>{`⚠ Someone changed this since you opened it. Reload to see the stored ${one}; what you typed here will be replaced.`}</Text>
@@ -122,12 +128,11 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
         <Text style={styles.failure} accessibilityRole="alert" testID="form-error">
           {`⚠ ${formError}`}
         </Text>
+      ) : marked > 0 ? (
+        <Text style={styles.failure} accessibilityRole="alert" testID="form-marked">
+          {`⚠ ${marked === 1 ? 'One field needs' : `${marked} fields need`} a change: see the ${marked === 1 ? 'message' : 'messages'} above.`}
+        </Text>
       ) : null}
-      <View style={styles.fields}>
-        {fields.map((f) => (
-          <Field key={f.name} spec={f} value={draft[f.name]} error={errorOf(f.name)} locked={!!base && f.name === 'code'} onChange={(v) => set(f.name, v)} onLeave={() => leave(f.name)} kind={kind} />
-        ))}
-      </View>
       <View style={styles.buttons}>
         <Button label={`Save ${one}`} onPress={() => void save()} busy={busy} testID="form-save" />
         <Button label="Cancel" variant="quiet" onPress={onCancel} testID="form-cancel" />

@@ -11,7 +11,7 @@ import { colors, fonts, space, TOUCH_MIN } from '@/src/theme';
 export interface CodeLinkProps {
   href: string;
   code: string;
-  /** the accessible name, when more than the code helps ("Feed R-ARV.FMA.M, main, off-air") */
+  /** the accessible name, when more than the visible words helps; it must contain them (WCAG 2.5.3 label in name) */
   label?: string;
   /** words after the code, in the text face */
   note?: string;
@@ -21,7 +21,7 @@ export interface CodeLinkProps {
 export function CodeLink({ href, code, label, note, testID }: CodeLinkProps) {
   return (
     <Link href={href as Href} asChild>
-      <Pressable accessibilityRole="link" accessibilityLabel={label ?? (note ? `${code}, ${note}` : code)} testID={testID} style={styles.link}>
+      <Pressable accessibilityRole="link" accessibilityLabel={label} testID={testID} style={styles.link}>
         <Text style={styles.line}>
           <Text style={styles.code}>{code}</Text>
           {note ? <Text style={styles.note}>{`  ${note}`}</Text> : null}

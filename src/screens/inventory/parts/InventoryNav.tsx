@@ -5,7 +5,7 @@
  * by a bar, bold text and aria-current, not by colour alone.
  */
 import { Link, type Href } from 'expo-router';
-import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
+import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { webAria } from '@/src/components/webAria';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/src/theme';
 
@@ -23,7 +23,7 @@ const PLACES: readonly { id: InventoryPlace; label: string; href: string }[] = [
 export function InventoryNav({ current }: { current: InventoryPlace | null }) {
   return (
     <View role="navigation" aria-label="Inventory" testID="inventory-nav">
-      <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.row}>
+      <View style={styles.row}>
         {PLACES.map((p) => {
           const here = p.id === current;
           return (
@@ -40,13 +40,14 @@ export function InventoryNav({ current }: { current: InventoryPlace | null }) {
             </Link>
           );
         })}
-      </ScrollView>
+      </View>
     </View>
   );
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', gap: space.xs, paddingBottom: space.xxs },
+  // Wrapping rather than scrolling sideways keeps every place, and the current one, in view on a phone.
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   item: {
     minHeight: TOUCH_MIN,
     justifyContent: 'center',

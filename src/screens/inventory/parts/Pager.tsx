@@ -4,6 +4,7 @@
  */
 import { StyleSheet, Text, View } from 'react-native';
 import { Button } from '@/src/components/Button';
+import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { space, type } from '@/src/theme';
 import { pageCount, rangeText } from '../listQuery';
 
@@ -18,19 +19,36 @@ export interface PagerProps {
 }
 
 export function Pager({ page, pageSize, total, noun, onPage, testID = 'pager' }: PagerProps) {
+  const { wide } = useBreakpoints();
   const pages = pageCount(total, pageSize);
-  return (
+  const where = (
+    <Text style={[styles.where, wide && styles.whereWide]} accessibilityLiveRegion="polite" testID={`${testID}-where`}>
+      {`Page ${page} of ${pages}, ${noun} ${rangeText(page, pageSize, total)}`}
+    </Text>
+  );
+  const previous = <Button label="Previous page" variant="secondary" disabled={page <= 1} onPress={() => onPage(page - 1)} testID={`${testID}-previous`} />;
+  const next = <Button label="Next page" variant="secondary" disabled={page >= pages} onPress={() => onPage(page + 1)} testID={`${testID}-next`} />;
+  // On a phone the words take their own line above the two buttons.
+  return wide ? (
     <View style={styles.row} testID={testID}>
-      <Button label="Previous page" variant="secondary" disabled={page <= 1} onPress={() => onPage(page - 1)} testID={`${testID}-previous`} />
-      <Text style={styles.where} accessibilityLiveRegion="polite" testID={`${testID}-where`}>
-        {`Page ${page} of ${pages}, ${noun} ${rangeText(page, pageSize, total)}`}
-      </Text>
-      <Button label="Next page" variant="secondary" disabled={page >= pages} onPress={() => onPage(page + 1)} testID={`${testID}-next`} />
+      {previous}
+      {where}
+      {next}
+    </View>
+  ) : (
+    <View style={styles.column} testID={testID}>
+      {where}
+      <View style={styles.row}>
+        {previous}
+        {next}
+      </View>
     </View>
   );
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm },
-  where: { ...type.small, flexShrink: 1, textAlign: 'center', fontVariant: ['tabular-nums'] },
+  row: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  column: { gap: space.sm },
+  where: { ...type.small, fontVariant: ['tabular-nums'] },
+  whereWide: { flexShrink: 1, textAlign: 'center' },
 });

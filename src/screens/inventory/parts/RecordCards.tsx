@@ -1,6 +1,7 @@
 /**
  * A phone's list of records: one card per record, the whole card a link to
- * the record's page (at least 44 px tall, nothing behind hover).
+ * the record's page (at least 44 px tall, nothing behind hover). The link's
+ * accessible name is its visible text, so what is seen is what is spoken.
  */
 import { Link, type Href } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
@@ -12,20 +13,17 @@ export interface RecordCardsProps<Row> {
   rows: readonly Row[];
   lines: (row: Row) => CardLines;
   href: (row: Row) => string;
-  /** "site", for the accessible name "Site M-CORR, Corrant Beacon" */
-  noun: string;
   testID?: string;
 }
 
-export function RecordCards<Row>({ rows, lines, href, noun, testID = 'record-cards' }: RecordCardsProps<Row>) {
+export function RecordCards<Row>({ rows, lines, href, testID = 'record-cards' }: RecordCardsProps<Row>) {
   return (
-    <View style={styles.list} accessibilityRole="list" testID={testID}>
+    <View style={styles.list} testID={testID}>
       {rows.map((row) => {
         const l = lines(row);
-        const name = `${noun[0].toUpperCase()}${noun.slice(1)} ${l.code}, ${l.title}${l.tag ? `, ${l.tag}` : ''}`;
         return (
           <Link key={l.code} href={href(row) as Href} asChild>
-            <Pressable accessibilityRole="link" accessibilityLabel={name} style={styles.card} testID={`${testID}-${l.code}`}>
+            <Pressable accessibilityRole="link" style={styles.card} testID={`${testID}-${l.code}`}>
               <View style={styles.head}>
                 <Text style={styles.code}>{l.code}</Text>
                 {l.tag ? <Badge label={l.tag} /> : null}
