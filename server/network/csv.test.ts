@@ -2,7 +2,7 @@ import JSZip from 'jszip';
 import { describe, expect, it } from 'vitest';
 import { entitySchemas, ENTITY_KINDS } from '@/shared/schemas/network';
 import { CSV_COLUMNS, cellText, cellValue } from './csv-columns';
-import { CSV_FILE_NAMES, documentToCsv, documentToZip, kindOfFile, readCsvFiles } from './csv';
+import { CSV_FILE_NAMES, documentToCsv, documentToZip, kindOfFile, readCsvFiles, unzipCsvFiles } from './csv';
 import { readNetworkUpload, validateCsvFiles } from './upload';
 import { smallNetwork } from '@/test/fixtures/small-network';
 import { generateNetwork } from '@/scripts/generator';
@@ -201,5 +201,20 @@ describe('uploads', () => {
       ['unknown-file', 'readme.txt', undefined, undefined],
       ['out-of-range', 'sites.csv', 2, 'lon'],
     ]);
+  });
+});
+
+describe('zip size limit', () => {
+  it('refuses a zip that unpacks to more than the limit, naming the limit', async () => {
+    const zip = new JSZip();
+    // 3 MB of one repeated character compresses to a few kB; the limit is lowered to 2 MB for the test
+    zip.file('sites.csv', 'x'.repeat(3_000_000));
+    const data = await zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE' });
+    expect(data.length).toBeLessThan(100_000);
+    const r = await unzipCsvFiles(data, 2_000_000);
+    expect(r.files).toEqual([]);
+    expect(r.errors[0]).toMatchObject({ rule: 'zip-too-large' });
+    expect(r.errors[0].message).toContain('2 MB');
+    expect((await unzipCsvFiles(data, 4_000_000)).files).toHaveLength(1);
   });
 });

@@ -142,20 +142,35 @@ function headerColumns(kind: EntityKind, fileName: string, cells: string[], erro
   return columns;
 }
 
+/** A 20,000-site network is about 30 MB of CSV; leave room, refuse the absurd. */
+export const MAX_UNZIPPED_BYTES = 300_000_000;
+
 /** Entries of a zip as CSV files; folders and the resource-fork copies some archivers add are left out. */
-export async function unzipCsvFiles(data: Uint8Array): Promise<{ files: CsvFile[]; errors: ImportIssue[] }> {
+export async function unzipCsvFiles(data: Uint8Array, maxBytes = MAX_UNZIPPED_BYTES): Promise<{ files: CsvFile[]; errors: ImportIssue[] }> {
   let zip: JSZip;
   try {
     zip = await JSZip.loadAsync(data);
   } catch (err) {
     return { files: [], errors: [{ kind: 'document', rule: 'bad-zip', message: `the upload is not a readable zip: ${(err as Error).message}` }] };
   }
+  // Refuse a zip that would unpack to far more than any network document (a "zip bomb"),
+  // by the sizes its central directory declares, before inflating anything.
+  const declared = Object.values(zip.files).reduce((n, e) => n + ((e as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0), 0);
+  if (declared > maxBytes) {
+    return { files: [], errors: [{ kind: 'document', rule: 'zip-too-large', message: `the zip would unpack to ${(declared / 1e6).toFixed(1)} MB; the limit is ${maxBytes / 1e6} MB` }] };
+  }
   const files: CsvFile[] = [];
+  let unpacked = 0;
   for (const entry of Object.values(zip.files)) {
     const base = entry.name.split('/').pop() ?? '';
     // macOS archivers add "__MACOSX/" and "._name" copies holding file metadata, not data.
     if (entry.dir || entry.name.startsWith('__MACOSX/') || base.startsWith('._')) continue;
-    files.push({ name: entry.name, text: await entry.async('string') });
+    const text = await entry.async('string');
+    unpacked += text.length;
+    if (unpacked > maxBytes) {
+      return { files: [], errors: [{ kind: 'document', rule: 'zip-too-large', message: `the zip unpacks to more than ${maxBytes / 1e6} MB` }] };
+    }
+    files.push({ name: entry.name, text });
   }
   if (files.length === 0) {
     return { files, errors: [{ kind: 'document', rule: 'empty-zip', message: `the zip holds no files: put ${Object.values(CSV_FILE_NAMES).join(', ')} in it` }] };

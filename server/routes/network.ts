@@ -20,7 +20,7 @@ import { ApiError, badRequest, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { importNetwork } from '../services/importer';
-import { readUploads } from '../services/import/uploads';
+import { readUploads } from '../network/upload';
 import { loadNetworkDocument } from '../services/networkLoader';
 import { AUDIT_ACTIONS, AUDIT_KINDS, listAudit, type AuditAction, type AuditKind } from '../services/audit';
 import { documentToZip } from '../network/csv';
