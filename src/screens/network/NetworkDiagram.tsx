@@ -163,6 +163,16 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
       origin.current = { x, y };
     });
   };
+  // Where the box is on the page now. On the web it is read at once (the
+  // page may have scrolled since the last measure, which answers later).
+  const originNow = (): Point => {
+    const node = box.current as unknown as HTMLElement | null;
+    if (Platform.OS === 'web' && node && typeof node.getBoundingClientRect === 'function') {
+      const r = node.getBoundingClientRect();
+      return { x: r.left + window.scrollX, y: r.top + window.scrollY };
+    }
+    return origin.current;
+  };
 
   const responder = useMemo(
     () =>
@@ -171,6 +181,7 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
         onMoveShouldSetPanResponder: () => true,
         onPanResponderGrant: (e) => {
           measure();
+          origin.current = originNow();
           const t = touchesOf(e);
           start.current = { view: liveRef.current ?? latest.current.view, pinch: null, moved: false };
           if (t.length === 2) start.current.pinch = Math.hypot(t[0].x - t[1].x, t[0].y - t[1].y);
@@ -198,8 +209,9 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
             return;
           }
           const { placed: p, view: v, onSelect: choose } = latest.current;
-          const sx = e.nativeEvent.pageX - origin.current.x;
-          const sy = e.nativeEvent.pageY - origin.current.y;
+          const at = originNow();
+          const sx = e.nativeEvent.pageX - at.x;
+          const sy = e.nativeEvent.pageY - at.y;
           const all = Array.from({ length: p.xs.length }, (_, i) => i);
           const hit = nearestPoint(p.xs, p.ys, all, v, sx, sy, TAP_RADIUS);
           choose(hit >= 0 ? hit : null);
@@ -245,6 +257,8 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
       <View style={[styles.moving, webLayer, t ? { transform: [{ translateX: t.dx }, { translateY: t.dy }, { scale: t.s }] } : null]}>
         <MemoDrawing {...drawingProps(props)} />
       </View>
+      {/* Presses land on this plain view: the responder system does not see through SVG elements on the web. */}
+      <View style={StyleSheet.absoluteFill} />
     </View>
   );
 }

@@ -115,11 +115,11 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
         </Text>
         {showLand ? <Text style={styles.small}>{`Land: ${LAND_SOURCE}.${land === '' ? ' None of it falls within this area.' : ''}`}</Text> : null}
         <Text style={styles.small}>Drag to move, wheel or pinch to zoom, tap a site for its summary.</Text>
-        {legend ? <FeedLegend marks={DIAGRAM_MARKS} testID="network-legend" /> : null}
         <Columns max={2}>
           {site ? <SiteCard site={site} status={statuses.get(site.code)} failed={failed} onClose={() => setSelected(null)} /> : null}
-          <SitesInView sites={model.sites} inView={drawn.inView} statuses={statuses} onChoose={setSelected} />
+          {legend ? <FeedLegend marks={DIAGRAM_MARKS} testID="network-legend" /> : null}
         </Columns>
+        <SitesInView sites={model.sites} inView={drawn.inView} statuses={statuses} onChoose={setSelected} />
       </>
     );
   }
