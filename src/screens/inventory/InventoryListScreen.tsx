@@ -4,7 +4,8 @@
  * table on a wide screen and cards on a phone, each row opening its record.
  * `?new=1` turns the screen into the create form (prefilled from the list's
  * filters, so "add a carriage" from a site's page starts with the site);
- * `?edit=<code>` edits a record whose own page has no form of its own.
+ * `?edit=<code>` edits (or deletes) a record whose own page has no form of
+ * its own: a carriage, whose page is its chain view.
  */
 import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { useMemo } from 'react';
@@ -22,9 +23,10 @@ import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { type } from '@/src/theme';
 import { EntityForm, type StoredRecord } from './forms/EntityForm';
 import { FORM_FIELDS } from './forms/fields';
-import { countOf, detailHref, WORDS } from './kinds';
+import { countOf, detailHref, listHref, WORDS } from './kinds';
 import { LIST_PAGE_SIZE, listApiPath, listStateFromParams, routeParamsFor, type ListState } from './listQuery';
 import { ROW_VIEWS } from './listRows';
+import { DeletePanel } from './parts/DeletePanel';
 import { InventoryNav } from './parts/InventoryNav';
 import { ListControls } from './parts/ListControls';
 import { Pager } from './parts/Pager';
@@ -52,6 +54,7 @@ export function InventoryListScreen<K extends EntityKind>({ kind }: { kind: K })
         code={editing}
         prefill={prefill}
         onDone={(code) => (code ? router.replace(detailHref(kind, code) as Href) : router.setParams({ new: undefined, edit: undefined }))}
+        onDeleted={() => router.replace(listHref(kind) as Href)}
       />
     );
   }
@@ -124,7 +127,15 @@ function ListBody<K extends EntityKind>({ kind, state, onChange }: { kind: K; st
   );
 }
 
-function FormMode({ kind, code, prefill, onDone }: { kind: EntityKind; code: string | null; prefill: Record<string, string>; onDone: (code: string | null) => void }) {
+interface FormModeProps {
+  kind: EntityKind;
+  code: string | null;
+  prefill: Record<string, string>;
+  onDone: (code: string | null) => void;
+  onDeleted: () => void;
+}
+
+function FormMode({ kind, code, prefill, onDone, onDeleted }: FormModeProps) {
   const words = WORDS[kind];
   const detail = useEntityDetail(kind, code);
   const record = detail.data ? ((detail.data as unknown as Record<string, unknown>)[words.one] as StoredRecord) : null;
@@ -134,7 +145,12 @@ function FormMode({ kind, code, prefill, onDone }: { kind: EntityKind; code: str
       {!code ? (
         <EntityForm kind={kind} prefill={prefill} onSaved={(saved) => onDone(saved.code)} onCancel={() => onDone(null)} />
       ) : record ? (
-        <EntityForm kind={kind} stored={record} onSaved={(saved) => onDone(saved.code)} onCancel={() => onDone(code)} onReload={() => void detail.mutate()} />
+        <>
+          <EntityForm kind={kind} stored={record} onSaved={(saved) => onDone(saved.code)} onCancel={() => onDone(code)} onReload={() => void detail.mutate()} />
+          <Section title="Remove" testID="detail-remove">
+            <DeletePanel kind={kind} code={code} version={record.version} onDeleted={onDeleted} onReload={() => void detail.mutate()} />
+          </Section>
+        </>
       ) : detail.error ? (
         <ErrorState what={`${words.one} ${code}`} error={detail.error} onRetry={() => void detail.mutate()} />
       ) : (

@@ -159,7 +159,7 @@ interface FieldProps {
 function Field({ kind, spec, value, error, locked, onChange, onLeave }: FieldProps) {
   const testID = `field-${kind}-${spec.name}`;
   if (spec.type === 'choice') {
-    const options = (spec.options ?? []).map((o) => ({ value: o, label: o }));
+    const options = (spec.options ?? []).map((o) => ({ value: o, label: spec.optionLabels?.[o] ?? o }));
     if (!spec.required) options.unshift({ value: NOT_SET, label: 'not set' });
     return (
       <Choice

@@ -26,6 +26,8 @@ export interface FieldSpec {
   type: FieldType;
   /** for choice fields */
   options?: readonly string[];
+  /** words shown for an option, when its value alone is terse ("H" -> "H, horizontal") */
+  optionLabels?: Record<string, string>;
   /** the unit, said in the hint and shown beside values; labels stay plain ("Latitude") as accessible names */
   unit?: string;
   required: boolean;
@@ -59,7 +61,14 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
     { name: 'frequencyMHz', label: 'Frequency', type: 'number', unit: 'MHz', required: false, hint: 'MHz (optional).' },
     { name: 'channel', label: 'Channel', type: 'code', required: false, hint: 'UHF channel or DAB block, e.g. 21 or 12B (optional).' },
     { name: 'erpW', label: 'ERP', type: 'number', unit: 'W', required: false, hint: 'Effective radiated power in W (optional).' },
-    { name: 'polarisation', label: 'Polarisation', type: 'choice', options: POLARISATIONS, required: false },
+    {
+      name: 'polarisation',
+      label: 'Polarisation',
+      type: 'choice',
+      options: POLARISATIONS,
+      optionLabels: { H: 'H, horizontal', V: 'V, vertical', M: 'M, mixed', C: 'C, circular' },
+      required: false,
+    },
     { name: 'antennaHeightM', label: 'Antenna height', type: 'number', unit: 'm', required: false, hint: 'Metres above ground (optional).' },
     { name: 'onChannelRepeater', label: 'On-channel repeater', type: 'flag', required: false, hint: 'It may transmit on the channel it receives.' },
   ],

@@ -55,9 +55,9 @@ describe('site form', () => {
     expect(r.errors.role).toBe('role is one of origin, main, relay');
   });
 
-  it('says a number field holds text that is not a number, with its unit', () => {
+  it('says a number field holds text that is not a number, in the shared schema\'s words', () => {
     const r = checkDraft('sites', { ...draftFromEntity('sites', site), mastHeightM: '40 m', households: '-3' });
-    expect(r).toEqual({ ok: false, errors: { mastHeightM: 'mast height must be a number (m)', households: 'households cannot be negative' } });
+    expect(r).toEqual({ ok: false, errors: { mastHeightM: 'mast height must be a number', households: 'households cannot be negative' } });
   });
 
   it('refuses a bad code in the groups list under the groups field', () => {

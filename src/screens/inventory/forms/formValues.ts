@@ -70,7 +70,7 @@ function convert(kind: EntityKind, draft: Draft): Converted {
     if (f.type === 'number' || f.type === 'int') {
       const n = parseNumber(text);
       if (n === undefined) continue;
-      if (Number.isNaN(n)) errors[f.name] = `${f.label.toLowerCase()} must be a number${f.unit ? ` (${f.unit})` : ''}`;
+      if (Number.isNaN(n)) errors[f.name] = `${f.label.toLowerCase()} must be a number`;
       else entity[f.name] = n;
       continue;
     }
