@@ -11,7 +11,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import Svg, { Line, Rect, Text as SvgText } from 'react-native-svg';
 import { colors, fonts, space, type } from '@/src/theme';
 import { barScale, valuePlacement } from './barScale';
-import { formatCount } from './numbers';
+import { formatCompact, formatCount } from './numbers';
 
 export interface BarRow {
   key: string;
@@ -28,9 +28,11 @@ export function BarChart({ title, unit, rows, testID }: { title: string; unit: s
   const [width, setWidth] = useState(0);
   const labelPx = Math.min(160, Math.max(60, Math.max(...rows.map((r) => r.label.length), 4) * 7.5 + 8));
   const track = Math.max(40, width - labelPx - 12);
+  // About one tick label per 90 px of track, so labels never run into each other.
   const scale = barScale(
     rows.map((r) => r.value),
     track,
+    Math.max(1, Math.min(4, Math.floor(track / 90))),
   );
   const height = TOP + rows.length * ROW + 6;
   const described = `${title} (${unit}): ${rows.map((r) => `${r.label} ${formatCount(r.value)}`).join('; ')}`;
@@ -48,7 +50,7 @@ export function BarChart({ title, unit, rows, testID }: { title: string; unit: s
             })}
             {scale.ticks.map((t, i) => (
               <SvgText key={`l${t}`} x={labelPx + scale.length(t)} y={12} fontFamily={fonts.mono} fontSize={11} fill={colors.inkMuted} textAnchor={i === 0 ? 'start' : i === scale.ticks.length - 1 ? 'end' : 'middle'}>
-                {formatCount(t)}
+                {formatCompact(t)}
               </SvgText>
             ))}
             {rows.map((r, i) => {

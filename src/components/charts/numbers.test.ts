@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { countOf, formatCount, formatKm } from './numbers';
+import { countOf, formatCompact, formatCount, formatKm } from './numbers';
 
 describe('formatCount', () => {
   it('groups thousands with commas and rounds', () => {
@@ -28,5 +28,17 @@ describe('formatKm', () => {
   it('gives one decimal with the unit, or a dash', () => {
     expect(formatKm(41.9999832)).toBe('42.0 km');
     expect(formatKm(null)).toBe('— km');
+  });
+});
+
+describe('formatCompact', () => {
+  it('shortens thousands and millions', () => {
+    expect(formatCompact(0)).toBe('0');
+    expect(formatCompact(950)).toBe('950');
+    expect(formatCompact(1500)).toBe('1.5k');
+    expect(formatCompact(250_000)).toBe('250k');
+    expect(formatCompact(1_000_000)).toBe('1M');
+    expect(formatCompact(2_500_000)).toBe('2.5M');
+    expect(formatCompact(0.5)).toBe('0.5');
   });
 });

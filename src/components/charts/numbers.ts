@@ -19,3 +19,13 @@ export function countOf(n: number, one: string, many = `${one}s`): string {
 export function formatKm(km: number | null | undefined): string {
   return km === null || km === undefined || !Number.isFinite(km) ? '— km' : `${km.toFixed(1)} km`;
 }
+
+/** Short axis labels: 950, 1.5k, 250k, 1M, 2.5M. */
+export function formatCompact(n: number): string {
+  if (!Number.isFinite(n)) throw new RangeError(`formatCompact: ${String(n)} is not a finite number`);
+  const a = Math.abs(n);
+  const trim = (v: number) => String(Math.round(v * 10) / 10);
+  if (a >= 1e6) return `${trim(n / 1e6)}M`;
+  if (a >= 1e3) return `${trim(n / 1e3)}k`;
+  return trim(n);
+}

@@ -30,39 +30,41 @@ export function ReachBreakdown({ reach, failText, names }: { reach: ReachResult;
 
   return (
     <>
-      <Section title="By service" note="Carriages off air and on reserve in each service. Open one to see it on the network diagram." testID="reach-by-service">
-        <Capped
-          items={services}
-          what="services"
-          render={(s) => (
-            <LinkRow
-              key={s.service}
-              href={`/network?service=${encodeURIComponent(s.service)}&fail=${failText}`}
-              title={names.service(s.service) ?? s.service}
-              code={s.service}
-              status={s.lost > 0 ? 'off-air' : 'on-reserve'}
-              detail={[s.lost > 0 ? `${countOf(s.lost, 'carriage')} off air` : null, s.fallback > 0 ? `${countOf(s.fallback, 'carriage')} on reserve` : null].filter(Boolean).join(', ')}
-            />
-          )}
-        />
-      </Section>
+      <Columns max={2}>
+        <Section title="By service" note="Carriages off air and on reserve in each service. Open one to see it on the network diagram." testID="reach-by-service">
+          <Capped
+            items={services}
+            what="services"
+            render={(s) => (
+              <LinkRow
+                key={s.service}
+                href={`/network?service=${encodeURIComponent(s.service)}&fail=${failText}`}
+                title={names.service(s.service) ?? s.service}
+                code={s.service}
+                status={s.lost > 0 ? 'off-air' : 'on-reserve'}
+                detail={[s.lost > 0 ? `${countOf(s.lost, 'carriage')} off air` : null, s.fallback > 0 ? `${countOf(s.fallback, 'carriage')} on reserve` : null].filter(Boolean).join(', ')}
+              />
+            )}
+          />
+        </Section>
 
-      <Section title="By site" note="Households are counted once per site: a site with any carriage off air counts as off air." testID="reach-by-site">
-        <Capped
-          items={sites}
-          what="sites"
-          render={(s) => (
-            <LinkRow
-              key={s.site}
-              href={`/sites/${encodeURIComponent(s.site)}`}
-              title={names.site(s.site) ?? s.site}
-              code={s.site}
-              status={s.lost.length > 0 ? 'off-air' : 'on-reserve'}
-              detail={[s.lost.length > 0 ? `off air: ${s.lost.join(', ')}` : null, s.fallback && s.fallback.length > 0 ? `on reserve: ${s.fallback.join(', ')}` : null].filter(Boolean).join('; ')}
-            />
-          )}
-        />
-      </Section>
+        <Section title="By site" note="Households are counted once per site: a site with any carriage off air counts as off air." testID="reach-by-site">
+          <Capped
+            items={sites}
+            what="sites"
+            render={(s) => (
+              <LinkRow
+                key={s.site}
+                href={`/sites/${encodeURIComponent(s.site)}`}
+                title={names.site(s.site) ?? s.site}
+                code={s.site}
+                status={s.lost.length > 0 ? 'off-air' : 'on-reserve'}
+                detail={[s.lost.length > 0 ? `off air: ${s.lost.join(', ')}` : null, s.fallback && s.fallback.length > 0 ? `on reserve: ${s.fallback.join(', ')}` : null].filter(Boolean).join('; ')}
+              />
+            )}
+          />
+        </Section>
+      </Columns>
 
       <Section title="Carriages" note="Open a carriage to walk its chain." testID="reach-carriages">
         <Columns max={2}>
