@@ -34,7 +34,8 @@ export const DESTINATIONS: readonly Destination[] = [
   },
   { id: 'checks', label: 'Checks', href: '/checks', icon: 'checks', matches: ['/checks'], blurb: 'Warnings from the feed and network checks' },
   { id: 'calculator', label: 'Calculator', href: '/calculator', icon: 'calculator', matches: ['/calculator'], blurb: 'Channel and frequency, distance and bearing, free-space figures' },
-  { id: 'people', label: 'People', href: '/admin/users', icon: 'people', matches: ['/admin'], roles: can.manageUsers, blurb: 'Invite people and set their roles' },
+  { id: 'changes', label: 'Change log', href: '/admin/audit', icon: 'inventory', matches: ['/admin/audit'], roles: can.manageUsers, blurb: 'Who changed what in the network, and when' },
+  { id: 'people', label: 'People', href: '/admin/users', icon: 'people', matches: ['/admin/users'], roles: can.manageUsers, blurb: 'Invite people and set their roles' },
 ];
 
 /** Bottom tabs on a phone, in order; everything else goes under "More". */
