@@ -40,7 +40,12 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   const reach = useReach(failed, failText);
 
   const [width, setWidth] = useState(0);
-  const height = Math.round(wide ? Math.max(420, Math.min(720, win.height - 240)) : Math.max(320, Math.min(560, win.height * 0.58)));
+  // Fixed once per layout kind: a phone browser's window grows and shrinks
+  // as its address bar slides, and the picture must not re-fit under a finger.
+  const height = useMemo(
+    () => Math.round(wide ? Math.max(420, Math.min(720, win.height - 240)) : Math.max(320, Math.min(560, win.height * 0.58))),
+    [wide], // eslint-disable-line react-hooks/exhaustive-deps
+  );
   const [view, setView] = useState<ViewT>(IDENTITY);
   const [selected, setSelected] = useState<number | null>(null);
   const [legend, setLegend] = useState(false);
@@ -57,11 +62,12 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
     return fit ? landPath(land110 as unknown as Topology, fit.projection, width, height) : null;
   }, [showLand, model, width, height]);
 
-  // A new network, filter or box size starts from the whole picture.
+  // A new network or filter starts from the whole picture. (Not a new box
+  // width: a scrollbar coming or going must not throw away the person's view.)
   useEffect(() => {
     setView(IDENTITY);
     setSelected(null);
-  }, [model, width, height]);
+  }, [model]);
 
   const onDrawn = useCallback((counts: DrawnCounts, inView: number[]) => setDrawn({ counts, inView }), []);
   const zoomBy = (f: number) => setView((v) => zoomAt(v, f, width / 2, height / 2, width, height));
@@ -80,7 +86,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   else if (!knownService) body = <EmptyState title={`No service with code ${service}`} message="Choose a service above, or show them all." testID="network-unknown-service" />;
   else if (model.sites.length === 0) body = <EmptyState title="Nothing carries this service" message="No site has a carriage of the chosen service." testID="network-no-sites" />;
   else {
-    const site = selected !== null ? model.sites[selected] : null;
+    const site = selected !== null ? (model.sites[selected] ?? null) : null;
     body = (
       <>
         <View style={styles.tools}>

@@ -8,16 +8,10 @@ import { formatCount } from '@/src/components/charts/numbers';
 import { StatusShape } from '@/src/components/StatusShape';
 import { Capped } from '@/src/screens/reach/Capped';
 import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';
-import type { DiagramSite, SiteStatus } from './diagramModel';
-
-const RANK: Record<SiteStatus, number> = { 'off-air': 0, 'on-reserve': 1 };
+import { orderSitesInView, type DiagramSite, type SiteStatus } from './diagramModel';
 
 export function SitesInView({ sites, inView, statuses, onChoose }: { sites: DiagramSite[]; inView: number[]; statuses: Map<string, SiteStatus>; onChoose: (i: number) => void }) {
-  const ordered = [...inView].sort((a, b) => {
-    const sa = RANK[statuses.get(sites[a].code) as SiteStatus] ?? 2;
-    const sb = RANK[statuses.get(sites[b].code) as SiteStatus] ?? 2;
-    return sa - sb || (sites[b].households ?? 0) - (sites[a].households ?? 0) || sites[a].code.localeCompare(sites[b].code);
-  });
+  const ordered = orderSitesInView(sites, inView, statuses);
   return (
     <View style={styles.wrap} testID="network-sites-in-view">
       <Text style={styles.title}>{`Sites in view (${formatCount(inView.length)})`}</Text>

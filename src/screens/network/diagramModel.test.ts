@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { NetworkDrawing } from '@/src/api/schemas';
-import { buildDiagram, placeDiagram, siteStatuses } from './diagramModel';
+import { buildDiagram, orderSitesInView, placeDiagram, siteStatuses } from './diagramModel';
 
 const doc: NetworkDrawing = {
   sites: [
@@ -100,5 +100,22 @@ describe('siteStatuses', () => {
     expect(s.get('R')).toBe('off-air');
     expect(s.has('M')).toBe(false);
     expect(siteStatuses(undefined, null).size).toBe(0);
+  });
+});
+
+describe('orderSitesInView', () => {
+  const m = buildDiagram(doc, null);
+
+  it('puts off air first, then on reserve, then by households', () => {
+    const statuses = new Map([
+      ['R', 'on-reserve' as const],
+      ['O', 'off-air' as const],
+    ]);
+    expect(orderSitesInView(m.sites, [0, 1, 2], statuses).map((i) => m.sites[i].code)).toEqual(['O', 'R', 'M']);
+    expect(orderSitesInView(m.sites, [0, 1, 2], new Map()).map((i) => m.sites[i].code)).toEqual(['M', 'R', 'O']);
+  });
+
+  it('skips indices left over from a larger view (a filter just narrowed the sites)', () => {
+    expect(orderSitesInView(m.sites, [2, 7, 40, -1], new Map())).toEqual([2]);
   });
 });

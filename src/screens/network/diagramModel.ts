@@ -141,3 +141,21 @@ export function siteStatuses(reach: ReachResult | undefined, service: string | n
   }
   return out;
 }
+
+const STATUS_RANK: Record<SiteStatus, number> = { 'off-air': 0, 'on-reserve': 1 };
+
+/**
+ * The sites on screen in the order a person wants them: off air first, then
+ * on reserve, then by households (most first), then by code. Indices past
+ * the end of `sites` (left from the view of a previous filter for one render)
+ * are skipped.
+ */
+export function orderSitesInView(sites: readonly DiagramSite[], inView: readonly number[], statuses: Map<string, SiteStatus>): number[] {
+  const rank = (i: number) => {
+    const st = statuses.get(sites[i].code);
+    return st ? STATUS_RANK[st] : 2;
+  };
+  return inView
+    .filter((i) => i >= 0 && i < sites.length)
+    .sort((a, b) => rank(a) - rank(b) || (sites[b].households ?? 0) - (sites[a].households ?? 0) || sites[a].code.localeCompare(sites[b].code));
+}
