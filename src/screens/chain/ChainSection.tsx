@@ -21,6 +21,8 @@ import { DEFAULT_SIZES, flattenChain, initialFolds, layoutChain, toggleFold, typ
 import { ChainTree } from './ChainTree';
 
 const ZOOMS = [0.5, 0.75, 1, 1.25] as const;
+/** Past this many carriages, unfolding everything at once would draw more than anyone can read; fold by fold still works. */
+const MAX_UNFOLD_ALL = 300;
 
 const box = (extra: React.ReactNode) => (
   <Svg width={40} height={22} aria-hidden accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
@@ -85,7 +87,7 @@ export function ChainSection({ code, direction }: { code: string; direction: 'up
           <Button label="Smaller" variant="secondary" disabled={zoom === 0} onPress={() => setZoom((z) => Math.max(0, z - 1))} />
           <Button label="Larger" variant="secondary" disabled={zoom === ZOOMS.length - 1} onPress={() => setZoom((z) => Math.min(ZOOMS.length - 1, z + 1))} />
           <Button label={legend ? 'Hide legend' : 'Legend'} variant="quiet" onPress={() => setLegend((l) => !l)} testID="chain-legend-toggle" />
-          {folded.size > 0 ? <Button label="Unfold all" variant="quiet" onPress={() => setFolded(new Set())} /> : null}
+          {folded.size > 0 && total <= MAX_UNFOLD_ALL ? <Button label="Unfold all" variant="quiet" onPress={() => setFolded(new Set())} /> : null}
         </View>
         {legend ? <FeedLegend marks={NODE_MARKS} testID="chain-legend" /> : null}
         <ScrollView horizontal focusable accessibilityLabel="Chain drawing (scrolls sideways)" style={styles.scroller} contentContainerStyle={styles.scrollContent} testID="chain-scroller">

@@ -101,8 +101,8 @@ function FeedLink({ link, direction }: { link: PlacedLink; direction: 'up' | 'do
       </SvgText>
       {warn > 0 ? (
         <G>
-          <Path d={`M${labelX} ${link.y1 + 24} l6 -11 l6 11 z`} stroke={colors.warn} strokeWidth={1.5} fill={colors.warnSoft} strokeLinejoin="round" />
-          <SvgText x={labelX + 16} y={link.y1 + 33} fontFamily={fonts.textBold} fontSize={11} fill={colors.warn}>
+          <Path d={`M${labelX} ${link.y1 + 36} l6 -11 l6 11 z`} stroke={colors.warn} strokeWidth={1.5} fill={colors.warnSoft} strokeLinejoin="round" />
+          <SvgText x={labelX + 16} y={link.y1 + 35} fontFamily={fonts.textBold} fontSize={11} fill={colors.warn}>
             {`${warn} warning${warn === 1 ? '' : 's'}`}
           </SvgText>
         </G>
