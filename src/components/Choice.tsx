@@ -7,7 +7,8 @@
  *     value={role} onChange={setRole} />
  */
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
+import { colors, fonts, space, type } from '@/src/theme';
+import { toggleOn, toggleOnText, toggleOption, togglePressed, toggleText } from './toggleStyles';
 import { StatusShape } from './StatusShape';
 
 export interface ChoiceOption<T extends string> {
@@ -61,21 +62,11 @@ const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   label: { ...type.label },
   options: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  option: {
-    minHeight: TOUCH_MIN,
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: space.sm,
-    paddingHorizontal: space.md,
-    borderWidth: 2,
-    borderColor: colors.line,
-    borderRadius: radius.md,
-    backgroundColor: colors.surface,
-  },
-  chosen: { borderColor: colors.accent, backgroundColor: colors.accentSoft },
-  pressed: { opacity: 0.8 },
+  option: toggleOption,
+  chosen: toggleOn,
+  pressed: togglePressed,
   disabled: { opacity: 0.55 },
-  optionText: { ...type.body, fontSize: 16 },
-  chosenText: { fontFamily: fonts.textBold, color: colors.accent },
+  optionText: toggleText,
+  chosenText: toggleOnText,
   error: { ...type.small, color: colors.bad, fontFamily: fonts.textBold },
 });

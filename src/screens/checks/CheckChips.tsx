@@ -4,7 +4,8 @@
  */
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import Svg, { Path, Rect } from 'react-native-svg';
-import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
+import { colors, radius, space, type } from '@/src/theme';
+import { toggleOn, toggleOnText, toggleOption, togglePressed, toggleText } from '@/src/components/toggleStyles';
 
 export interface ChipOption<T extends string> {
   value: T;
@@ -54,19 +55,9 @@ const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   label: { ...type.label },
   chips: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  chip: {
-    minHeight: TOUCH_MIN,
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: space.sm,
-    paddingHorizontal: space.md,
-    borderWidth: 2,
-    borderColor: colors.line,
-    borderRadius: radius.pill,
-    backgroundColor: colors.surface,
-  },
-  on: { borderColor: colors.accent, backgroundColor: colors.accentSoft },
-  pressed: { opacity: 0.8 },
-  text: { ...type.body, fontSize: 16 },
-  onText: { fontFamily: fonts.textBold, color: colors.accent },
+  chip: { ...toggleOption, borderRadius: radius.pill },
+  on: toggleOn,
+  pressed: togglePressed,
+  text: toggleText,
+  onText: toggleOnText,
 });

@@ -1,7 +1,8 @@
 /** Which service the diagram shows: all, or one (a row of choices that scrolls sideways on a phone). */
 import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
 import { StatusShape } from '@/src/components/StatusShape';
-import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
+import { colors, fonts, space, type } from '@/src/theme';
+import { toggleOn, toggleOption, togglePressed } from '@/src/components/toggleStyles';
 
 export function ServiceFilter({ services, value, onChange }: { services: { code: string; name: string }[]; value: string | null; onChange: (code: string | null) => void }) {
   const options = [{ code: null as string | null, name: 'All services' }, ...[...services].sort((a, b) => a.code.localeCompare(b.code))];
@@ -39,19 +40,9 @@ const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   label: { ...type.label },
   row: { flexDirection: 'row', gap: space.sm, paddingVertical: space.xxs },
-  option: {
-    minHeight: TOUCH_MIN,
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: space.xs,
-    paddingHorizontal: space.md,
-    borderWidth: 2,
-    borderColor: colors.line,
-    borderRadius: radius.md,
-    backgroundColor: colors.surface,
-  },
-  chosen: { borderColor: colors.accent, backgroundColor: colors.accentSoft },
-  pressed: { opacity: 0.8 },
+  option: { ...toggleOption, gap: space.xs },
+  chosen: toggleOn,
+  pressed: togglePressed,
   text: { fontFamily: fonts.mono, fontSize: 15, color: colors.ink },
   chosenText: { fontFamily: fonts.monoBold, color: colors.accent },
 });
