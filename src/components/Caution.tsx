@@ -8,7 +8,7 @@
  *   <Caution title="Screening figures">Path profile ignores clutter.</Caution>
  */
 import type { ReactNode } from 'react';
-import { StyleSheet, Text, View } from 'react-native';
+import { StyleSheet, Text, View, type TextStyle, type ViewStyle } from 'react-native';
 import { colors, radius, space, type } from '@/src/theme';
 import { StatusShape } from './StatusShape';
 
@@ -28,7 +28,8 @@ export function Caution({ title = 'Screening figures', children, testID }: { tit
   );
 }
 
-const styles = StyleSheet.create({
+/** The caution box's parts, shared with other safety notes so they all read alike. */
+export const cautionParts = {
   box: {
     backgroundColor: colors.warnSoft,
     borderColor: colors.warn,
@@ -37,8 +38,10 @@ const styles = StyleSheet.create({
     borderRadius: radius.md,
     padding: space.md,
     gap: space.xs,
-  },
-  head: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  title: { ...type.label, color: colors.warn },
-  body: { ...type.body, fontSize: 16, lineHeight: 22 },
-});
+  } satisfies ViewStyle,
+  head: { flexDirection: 'row', alignItems: 'center', gap: space.sm } satisfies ViewStyle,
+  title: { ...type.label, color: colors.warn } satisfies TextStyle,
+  body: { ...type.body, fontSize: 16, lineHeight: 22 } satisfies TextStyle,
+};
+
+const styles = StyleSheet.create(cautionParts);

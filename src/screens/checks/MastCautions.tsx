@@ -5,7 +5,8 @@
  */
 import { StyleSheet, Text, View } from 'react-native';
 import { StatusShape } from '@/src/components/StatusShape';
-import { colors, radius, space, type } from '@/src/theme';
+import { cautionParts } from '@/src/components/Caution';
+import { colors, type } from '@/src/theme';
 
 export const MAST_CAUTIONS: readonly { title: string; body: string }[] = [
   {
@@ -36,17 +37,7 @@ export function MastCautions({ testID }: { testID?: string }) {
 }
 
 const styles = StyleSheet.create({
-  box: {
-    backgroundColor: colors.surface,
-    borderColor: colors.warn,
-    borderWidth: 1,
-    borderLeftWidth: 6,
-    borderRadius: radius.md,
-    padding: space.md,
-    gap: space.xs,
-  },
-  head: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  title: { ...type.label, color: colors.warn },
-  body: { ...type.body, fontSize: 16, lineHeight: 22 },
+  ...cautionParts,
+  box: { ...cautionParts.box, backgroundColor: colors.surface },
   lead: { fontFamily: type.label.fontFamily },
 });
