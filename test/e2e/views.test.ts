@@ -72,6 +72,20 @@ describe.each(Object.entries(SIZES))('views at %s size', (sizeName, size) => {
     await page.context().close();
   });
 
+  it('overlays a failure set on the network diagram, marking the sites that go off air', async () => {
+    const origin = demo.sites.find((s) => s.role === 'origin')!;
+    const { page, errors } = await openPage(browser, size);
+    await signIn(page, 'operator');
+    await page.goto(`${baseUrl()}/network?fail=site:${origin.code}`);
+    await page.getByTestId('network-diagram').waitFor({ timeout: 20_000 });
+    await page.waitForFunction(() => /Failure set: [0-9,]+ sites? off air/.test(document.querySelector('[data-testid="network-summary"]')?.textContent ?? ''), undefined, { timeout: 15_000 });
+    const summary = (await page.getByTestId('network-summary').textContent()) ?? '';
+    expect(Number(/Failure set: ([0-9,]+)/.exec(summary)![1].replace(/,/g, ''))).toBeGreaterThan(0);
+    await shot(page, `network-fail-${sizeName}`);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
   it('draws a carriage with its upstream chain, the network diagram and the resilience review', async () => {
     const { page, errors } = await openPage(browser, size);
     await signIn(page, 'engineer');
