@@ -21,8 +21,8 @@ beforeEach(async () => t.reset());
 
 const DEMO = path.resolve(__dirname, '../fixtures/demo-network.json');
 
-/** The demo network when its fixture is there, else the small one. */
-const sourceNetwork = (): NetworkDocument => (fs.existsSync(DEMO) ? JSON.parse(fs.readFileSync(DEMO, 'utf8')) : smallNetwork());
+/** The demo network, the richest document the project ships. */
+const sourceNetwork = (): NetworkDocument => JSON.parse(fs.readFileSync(DEMO, 'utf8'));
 
 /** supertest keeps a binary answer as a Buffer only when told how to read it */
 const binary = (res: request.Response, done: (err: Error | null, body: Buffer) => void) => {

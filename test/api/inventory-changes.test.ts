@@ -5,19 +5,14 @@
  * and roles.
  */
 import request from 'supertest';
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { smallNetwork } from '../fixtures/small-network';
-import { makeTestApp, type TestApp } from '../helpers/testApp';
+import { useTestApp, type TestApp } from '../helpers/testApp';
 
+const app = useTestApp({ network: smallNetwork });
 let t: TestApp;
-beforeAll(async () => {
-  t = await makeTestApp();
-});
-afterAll(async () => t?.close());
-beforeEach(async () => {
-  await t.reset();
-  const r = await request(t.app).post('/api/network/import').set(t.auth('engineer')).send(smallNetwork());
-  expect(r.status).toBe(200);
+beforeEach(() => {
+  t = app();
 });
 
 const auditFor = async (kind: string, code: string) => {

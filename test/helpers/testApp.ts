@@ -3,6 +3,9 @@
  * account per role and helpers to reset state between tests.
  */
 import crypto from 'node:crypto';
+import request from 'supertest';
+import { afterAll, beforeAll, beforeEach, expect } from 'vitest';
+import type { NetworkDocument } from '@/shared/schemas/network';
 import { loadConfig } from '@/server/config';
 import { openDatabase } from '@/server/db';
 import { createApp } from '@/server/app';
@@ -63,3 +66,24 @@ export async function makeTestApp() {
 }
 
 export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;
+
+/**
+ * The usual frame of an API test file: one app for the file, and before each
+ * test a reset, then (optionally) `network()` imported through the API.
+ * Returns a getter, since the app exists only once beforeAll has run.
+ */
+export function useTestApp(opts: { network?: () => NetworkDocument } = {}): () => TestApp {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await makeTestApp();
+  });
+  afterAll(async () => t?.close());
+  beforeEach(async () => {
+    await t.reset();
+    if (opts.network) {
+      const r = await request(t.app).post('/api/network/import').set(t.auth('engineer')).send(opts.network());
+      expect(r.status).toBe(200);
+    }
+  });
+  return () => t;
+}
