@@ -145,6 +145,8 @@ describe('GET /api/carriages/:code/chain', () => {
     const r = await request(t.app).get(`/api/carriages/${carriage.code}/chain?direction=down`).set(t.auth('viewer'));
     expect(r.status).toBe(200);
     expect(r.body.direction).toBe('down');
+    expect(r.body.root.carriage).toBe(carriage.code);
+    expect(r.body.root.children.length).toBeGreaterThan(0);
   });
 
   it('answers 404 for an unknown carriage and 400 for a bad direction', async () => {
@@ -171,6 +173,7 @@ describe('feed checks', () => {
     expect(names.has('channel-clash')).toBe(true);
     expect(names.has('bearing-record')).toBe(true);
     const errorsOnly = await request(t.app).get('/api/checks?severity=error').set(t.auth('viewer'));
+    expect(errorsOnly.body.failures.length).toBeGreaterThan(0);
     expect(errorsOnly.body.failures.every((f: { severity: string }) => f.severity === 'error')).toBe(true);
     expect((await request(t.app).get('/api/checks?severity=loud').set(t.auth('viewer'))).status).toBe(400);
   });

@@ -22,11 +22,19 @@ describe('NetworkStore', () => {
     const before = store.model!;
     const version = await t.db.sequelize.transaction((tx) => bumpNetworkVersion(t.db.sequelize, tx));
 
-    const rebuilding = store.refresh(version);
-    // the rebuild is reading PostgreSQL now; readers still see the old, complete model
+    // hold the rebuild inside its read of PostgreSQL: it cannot read the sites while this lock is held
+    const lock = await t.db.sequelize.transaction();
+    await t.db.sequelize.query('LOCK TABLE sites IN ACCESS EXCLUSIVE MODE', { transaction: lock });
+    let finished = false;
+    const rebuilding = store.refresh(version).then(() => (finished = true));
+    await new Promise((r) => setTimeout(r, 300));
+    expect(finished).toBe(false);
+    // meanwhile readers see the old, complete model
     expect(store.model).toBe(before);
     expect(store.model!.networkVersion).toBeLessThan(version);
+    await lock.commit();
     await rebuilding;
+    expect(finished).toBe(true);
     expect(store.model).not.toBe(before);
     expect(store.model!.networkVersion).toBe(version);
     expect(store.model!.engine.networkVersion).toBe(version);

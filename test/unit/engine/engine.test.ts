@@ -107,10 +107,15 @@ describe('NetworkEngine: the yardsticks agree with the engine', () => {
   });
 
   it('walkFloor (plain walk) loses as many carriages as reach, on random failure sets', () => {
+    let withLosses = 0;
     for (let t = 0; t < 40; t++) {
       const failed = Array.from({ length: 1 + (t % 5) }, () => elements[Math.floor(rnd() * elements.length)]);
-      expect(engine.walkFloor(failed)).toBe(engine.reach(failed).lost.length);
+      const lost = engine.reach(failed).lost.length;
+      expect(engine.walkFloor(failed)).toBe(lost);
+      if (lost > 0) withLosses++;
     }
+    // the comparison means something only if failures did take carriages off air
+    expect(withLosses).toBeGreaterThan(5);
   });
 
   it('the generated national network agrees with the brute force for a few failures', () => {
