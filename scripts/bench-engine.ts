@@ -68,12 +68,12 @@ export interface EngineBenchResult {
   loadAverage: [number, number];
 }
 
-function percentile(values: number[], p: number): number {
+export function percentile(values: number[], p: number): number {
   const sorted = [...values].sort((a, b) => a - b);
   return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))];
 }
 
-const round = (ms: number) => Math.round(ms * 1000) / 1000;
+export const round = (ms: number) => Math.round(ms * 1000) / 1000;
 
 export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {}): EngineBenchResult {
   const trials = opts.trials ?? 200;

@@ -18,7 +18,8 @@ import { loadNetworkDocument } from '@/server/services/networkLoader';
 import { buildNetworkModel } from '@/server/services/networkModel';
 import { startServer } from '@/server/server';
 import { ensureUser } from '@/server/services/users';
-import { benchEngine, type EngineBenchResult } from './bench-engine';
+import { benchEngine, percentile, round, type EngineBenchResult } from './bench-engine';
+import { Prng } from './generator/prng';
 import { generateNetwork } from './generator';
 import { resolveDatabaseUrl } from './lib/postgres';
 
@@ -46,11 +47,6 @@ interface SizeResult extends EngineBenchResult {
   rssMb: number;
 }
 
-const pct = (values: number[], p: number) => {
-  const s = [...values].sort((a, b) => a - b);
-  return s[Math.min(s.length - 1, Math.max(0, Math.ceil((p / 100) * s.length) - 1))];
-};
-const r3 = (x: number) => Math.round(x * 1000) / 1000;
 const peakRssMb = () => Math.round(process.resourceUsage().maxRSS / 1024);
 
 async function httpReach(databaseUrl: string, siteCodes: string[]): Promise<number[]> {
@@ -102,21 +98,18 @@ async function benchSize(sites: number): Promise<SizeResult> {
     const engine = benchEngine(document, { seed, networkx: true });
     console.log(`  engine: reach one p95 ${engine.reachOneP95Ms} ms, multi p95 ${engine.reachMultiP95Ms} ms, spof+exposure ${engine.spofAllMs} ms`);
 
-    const rnd = (() => {
-      let s = seed >>> 0;
-      return () => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
-    })();
-    const codes = Array.from({ length: 200 }, () => document.sites[Math.floor(rnd() * document.sites.length)].code);
+    const rnd = new Prng(seed);
+    const codes = Array.from({ length: 200 }, () => document.sites[Math.floor(rnd.next() * document.sites.length)].code);
     const http = await httpReach(url, codes);
     const result: SizeResult = {
       ...engine,
       engineBuildMs: engine.buildMs,
-      buildMs: r3(rebuildFromDbMs),
-      importMs: r3(importMs),
-      loadFromDbMs: r3(loadFromDbMs),
-      rebuildFromDbMs: r3(rebuildFromDbMs),
-      httpReachP50Ms: r3(pct(http, 50)),
-      httpReachP95Ms: r3(pct(http, 95)),
+      buildMs: round(rebuildFromDbMs),
+      importMs: round(importMs),
+      loadFromDbMs: round(loadFromDbMs),
+      rebuildFromDbMs: round(rebuildFromDbMs),
+      httpReachP50Ms: round(percentile(http, 50)),
+      httpReachP95Ms: round(percentile(http, 95)),
       rssMb: peakRssMb(),
     };
     console.log(`  HTTP reach p95 ${result.httpReachP95Ms} ms; peak RSS so far ${result.rssMb} MB`);

@@ -61,9 +61,5 @@ export async function bumpNetworkVersion(sequelize: Sequelize, transaction: Tran
   return version;
 }
 
-export async function currentNetworkVersion(sequelize: Sequelize): Promise<number> {
-  const [rows] = await sequelize.query('SELECT version FROM network_state WHERE id = 1');
-  return Number((rows as { version: number }[])[0].version);
-}
 
 export { User };

@@ -6,8 +6,7 @@ import { badRequest, notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
-import { checksForFeed } from '../checks/networkChecks';
-import { currentModel } from './checks';
+import { cachedFeedChecks, currentModel } from './checks';
 
 const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
 const exposureQuery = z.object({
@@ -49,13 +48,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/carriages/:code/chain', can.analyse, async (req, res) => {
     const { direction } = parseOr400(chainQuery, req.query, 'query');
     const m = currentModel(ctx);
-    const warningsFor = (feedCode: string) => {
-      try {
-        return checksForFeed(m, feedCode).warnings;
-      } catch {
-        return [];
-      }
-    };
+    const warningsFor = (feedCode: string) => cachedFeedChecks(m, feedCode).warnings;
     try {
       res.json(m.engine.chain(String(req.params.code), direction, { warningsFor }));
     } catch (e) {

@@ -1,6 +1,6 @@
 /** Feed engineering screening over the in-memory network (interchange.md section 2). */
 import { can } from '@/shared/api';
-import { checksQuerySchema, type ChecksListAnswer } from '@/shared/schemas/checks';
+import { checksQuerySchema, type ChecksListAnswer, type FeedChecksAnswer } from '@/shared/schemas/checks';
 import { checksForFeed, CheckInputError, networkCheckFailures } from '../checks/networkChecks';
 import { ApiError, notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
@@ -13,16 +13,31 @@ export function currentModel(ctx: AppContext): NetworkModel {
   return m;
 }
 
-// The whole-network list is the same until the network changes: keep one per model.
-const listCache = new WeakMap<NetworkModel, Map<string, ChecksListAnswer>>();
+/**
+ * Screening results only change with the network, so each model keeps its
+ * own: one feed's checks (also read by every chain hop) and the whole list,
+ * computed once at the lowest severity and filtered for the higher one.
+ */
+const cache = new WeakMap<NetworkModel, { feeds: Map<string, FeedChecksAnswer>; failures?: ChecksListAnswer }>();
+function cacheOf(m: NetworkModel) {
+  let c = cache.get(m);
+  if (!c) cache.set(m, (c = { feeds: new Map() }));
+  return c;
+}
+
+/** One feed's checks from the model's cache; throws CheckInputError naming an unknown code. */
+export function cachedFeedChecks(m: NetworkModel, code: string): FeedChecksAnswer {
+  const c = cacheOf(m);
+  let answer = c.feeds.get(code);
+  if (!answer) c.feeds.set(code, (answer = checksForFeed(m, code)));
+  return answer;
+}
 
 export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/feeds/:code/checks', can.read, async (req, res) => {
     const m = currentModel(ctx);
-    const code = String(req.params.code);
-    if (!m.feeds.has(code)) throw notFound(`feed ${code} does not exist`, { kind: 'feed', code });
     try {
-      res.json({ networkVersion: m.networkVersion, ...checksForFeed(m, code) });
+      res.json({ networkVersion: m.networkVersion, ...cachedFeedChecks(m, String(req.params.code)) });
     } catch (e) {
       if (e instanceof CheckInputError) throw notFound(e.message, { code: e.code });
       throw e;
@@ -32,13 +47,8 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/checks', can.read, async (req, res) => {
     const { severity = 'warning' } = parseOr400(checksQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
-    let perModel = listCache.get(m);
-    if (!perModel) listCache.set(m, (perModel = new Map()));
-    let answer = perModel.get(severity);
-    if (!answer) {
-      answer = networkCheckFailures(m.document, { severity, networkVersion: m.networkVersion });
-      perModel.set(severity, answer);
-    }
-    res.json(answer);
+    const c = cacheOf(m);
+    c.failures ??= networkCheckFailures(m.document, { severity: 'warning', networkVersion: m.networkVersion });
+    res.json(severity === 'warning' ? c.failures : { ...c.failures, failures: c.failures.failures.filter((f) => f.severity === 'error') });
   });
 }

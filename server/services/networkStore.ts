@@ -75,8 +75,9 @@ export class NetworkStore<T extends Built> {
     await client.connect();
     await client.query('LISTEN network_changed');
     this.listener = client;
-    // a change may have landed between the first build and LISTEN
-    await this.refresh();
+    // a change may have landed between the first build and LISTEN: rebuild only if one did
+    const [rows] = await this.sequelize.query('SELECT version FROM network_state WHERE id = 1');
+    await this.refresh(Number((rows as { version: number }[])[0].version));
   }
 
   async close() {

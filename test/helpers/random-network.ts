@@ -10,17 +10,12 @@
  *   fed off-air) for timing.
  */
 import type { NetworkDocument, Site, Carriage, Feed, Medium } from '@/shared/schemas/network';
+import { Prng } from '@/scripts/generator/prng';
 
-/** mulberry32 (public-domain 32-bit PRNG, common practice, no source beyond its author's gist). */
+/** The project's seeded generator (mulberry32, scripts/generator/prng.ts) as a plain function. */
 export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const p = new Prng(seed);
+  return () => p.next();
 }
 
 const pick = <T>(rnd: () => number, items: readonly T[]): T => items[Math.floor(rnd() * items.length)];
