@@ -28,7 +28,7 @@ const KINDS = [
   { kind: 'group', list: 'groups' },
 ] as const;
 
-export const elementSearchKey = (q: string, pageSize: number) => ['element-search', q, pageSize] as const;
+export const elementSearchKey = (q: string, pageSize: number) => ['element-search', api.list('sites'), q, pageSize] as const;
 
 export const searchPath = (list: string, q: string, pageSize: number) =>
   `${api.list(list)}?q=${encodeURIComponent(q)}&pageSize=${pageSize}`;

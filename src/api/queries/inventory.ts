@@ -80,8 +80,13 @@ export function useEntityDetail<K extends EntityKind>(kind: K, code: string | nu
   return useApiQuery(code ? inventoryKeys.detail(kind, code) : null, detailSchemas[kind] as unknown as ZodType<DetailOf[K]>, 'network');
 }
 
-/** Keys that change when the network does: everything under /api/ but the account and people answers. */
+/**
+ * Keys that change when the network does: everything under /api/ but the
+ * account and people answers. Array keys (a path plus its parameters) count
+ * when any part is such a path.
+ */
 export function isNetworkKey(key: unknown): boolean {
+  if (Array.isArray(key)) return key.some(isNetworkKey);
   return typeof key === 'string' && key.startsWith('/api/') && !key.startsWith('/api/auth') && !key.startsWith('/api/users');
 }
 

@@ -26,7 +26,7 @@ describe('destinations', () => {
   it('give a phone 4 tabs plus More (5 in the bar) and put the rest under More', () => {
     const admin = phoneLayout('admin');
     expect(admin.tabs.map((d) => d.label)).toEqual(['Home', 'Fault reach', 'Network', 'Resilience']);
-    expect(admin.more.map((d) => d.label)).toEqual(['Inventory', 'Checks', 'Calculator', 'Change log', 'People']);
+    expect(admin.more.map((d) => d.label)).toEqual(['Inventory', 'Checks', 'Calculator', 'Audit log', 'People']);
     expect(phoneLayout('viewer').more.map((d) => d.label)).toEqual(['Inventory', 'Checks', 'Calculator']);
     // Every entry a role may see is reachable on a phone, once.
     for (const role of ROLES) {

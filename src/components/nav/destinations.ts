@@ -34,7 +34,7 @@ export const DESTINATIONS: readonly Destination[] = [
   },
   { id: 'checks', label: 'Checks', href: '/checks', icon: 'checks', matches: ['/checks'], blurb: 'Warnings from the feed and network checks' },
   { id: 'calculator', label: 'Calculator', href: '/calculator', icon: 'calculator', matches: ['/calculator'], blurb: 'Channel and frequency, distance and bearing, free-space figures' },
-  { id: 'changes', label: 'Change log', href: '/admin/audit', icon: 'inventory', matches: ['/admin/audit'], roles: can.manageUsers, blurb: 'Who changed what in the network, and when' },
+  { id: 'changes', label: 'Audit log', href: '/admin/audit', icon: 'inventory', matches: ['/admin/audit'], roles: can.manageUsers, blurb: 'Who changed what in the network, and when' },
   { id: 'people', label: 'People', href: '/admin/users', icon: 'people', matches: ['/admin/users'], roles: can.manageUsers, blurb: 'Invite people and set their roles' },
 ];
 
