@@ -33,8 +33,6 @@ export const SERVICE_SPECS: readonly ServiceSpec[] = [
   { code: 'LOCAL', name: 'Community Radio', kind: 'fm', family: 'local' },
 ];
 
-export const FAMILIES: readonly Family[] = ['tv', 'radio', 'local'];
-
 /** UHF channels the generator assigns (21-48: common practice after the 700 MHz clearance, no source). */
 const UHF_LOW = 21;
 const UHF_HIGH = 48;

@@ -11,7 +11,6 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import { Client } from 'pg';
 
@@ -168,5 +167,3 @@ export async function resolveDatabaseUrl(name: string, opts: { fresh?: boolean }
   await ensureDatabase(cluster.url('postgres'), name, opts.fresh);
   return { url: cluster.url(name), cluster };
 }
-
-export const hostName = () => os.hostname();

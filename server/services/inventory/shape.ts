@@ -5,9 +5,8 @@
  * lists in path order. Import diffs, API answers and audit snapshots all use
  * it, so "unchanged" means the same thing in each of them.
  */
-import { entitySchemas, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
+import { entitySchemas, type EntityKind } from '@/shared/schemas/network';
 
-export type AnyEntity = NetworkDocument[EntityKind][number];
 export type Fields = Record<string, unknown>;
 
 export const NOUN: Record<EntityKind, string> = {

@@ -10,7 +10,7 @@ import { useElementSearch, type ElementHit } from '@/src/api/queries/elementSear
 import { describeError } from '@/src/components/states';
 import { TextField } from '@/src/components/TextField';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
-import { useDebounced } from './useDebounced';
+import { useDebounced } from '@/src/hooks/useDebounced';
 
 const KIND_WORD: Record<Element['kind'], string> = { site: 'site', feed: 'feed', group: 'group' };
 

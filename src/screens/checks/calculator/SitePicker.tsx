@@ -9,7 +9,7 @@ import type { SitePosition } from '@/src/api/schemas';
 import { ErrorState } from '@/src/components/states';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { TextField } from '@/src/components/TextField';
-import { useDebounced } from './useDebounced';
+import { useDebounced } from '@/src/hooks/useDebounced';
 
 export function SitePicker({ end, onPick }: { end: string; onPick: (site: SitePosition) => void }) {
   const [text, setText] = useState('');

@@ -86,7 +86,3 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
     { name: 'bearingDeg', label: 'Recorded bearing', type: 'number', unit: 'deg', required: false, hint: 'Degrees from true north, 0-360 (optional).' },
   ],
 };
-
-export function fieldSpec(kind: EntityKind, field: string): FieldSpec | undefined {
-  return FORM_FIELDS[kind].find((f) => f.name === field);
-}
