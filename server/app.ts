@@ -2,7 +2,6 @@
  * The Express application, apart from `listen` so tests drive it in process.
  * route -> authenticate -> requireRole -> validate -> handler -> service.
  */
-import fs from 'node:fs';
 import path from 'node:path';
 import express from 'express';
 import helmet from 'helmet';
@@ -49,13 +48,13 @@ export function createApp(ctx: AppContext) {
   const webDir = ctx.config.WEB_DIR;
   const index = path.join(webDir, 'index.html');
   app.use(express.static(webDir, { index: false, maxAge: '1h', fallthrough: true }));
-  app.get(/.*/, (req, res, next) => {
-    if (!fs.existsSync(index)) {
-      res.status(503).type('text/plain').send('The web app has not been built yet: run `npm run web:build` (npm start does it for you).');
-      return;
-    }
+  app.get(/.*/, (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(index, (err) => err && next(err));
+    res.sendFile(index, (err) => {
+      if (!err) return;
+      if ((err as NodeJS.ErrnoException).code !== 'ENOENT') return next(err);
+      res.status(503).type('text/plain').send('The web app has not been built yet: run `npm run web:build` (npm start does it for you).');
+    });
   });
   app.use(errorHandler);
 

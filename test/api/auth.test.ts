@@ -122,3 +122,11 @@ describe('GET /api/health', () => {
     expect(typeof r.body.networkVersion).toBe('number');
   });
 });
+
+describe('web app fallback', () => {
+  it('answers a deep link with 503 and a clear sentence when the web app is not built (never a 500)', async () => {
+    const r = await request(t.app).get('/reach?fail=site:X');
+    expect(r.status).toBe(503);
+    expect(r.text).toContain('npm run web:build');
+  });
+});
