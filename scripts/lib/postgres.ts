@@ -1,8 +1,9 @@
 /**
- * The project's own PostgreSQL (handbook architecture.md, "The local PostgreSQL").
+ * The project's own PostgreSQL (docs/architecture.md, "The local PostgreSQL").
  *
  * One private cluster per checkout, on 127.0.0.1 only, on a port of the
- * project's (not 5432). Debian's server binaries are installed when missing.
+ * project's (not 5432). Debian's server binaries are installed when missing
+ * (scripts/lib/debian.ts).
  * PostgreSQL refuses to run as root, so under root the cluster is created and
  * run as the `postgres` user, in a folder that user can reach even when the
  * checkout sits in a root-only folder (as CI's does).
@@ -13,6 +14,7 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { Client } from 'pg';
+import { ensureDebianPackages, findPostgresBinDir } from './debian';
 
 export const REPO_ROOT = path.resolve(__dirname, '..', '..');
 const CHECKOUT_TAG = crypto.createHash('sha1').update(REPO_ROOT).digest('hex').slice(0, 8);
@@ -36,31 +38,10 @@ function log(msg: string) {
   process.stderr.write(`[postgres] ${msg}\n`);
 }
 
-function findBinDir(): string | null {
-  const base = '/usr/lib/postgresql';
-  if (!fs.existsSync(base)) return null;
-  const versions = fs
-    .readdirSync(base)
-    .filter((v) => fs.existsSync(path.join(base, v, 'bin', 'pg_ctl')))
-    .sort((a, b) => Number(b) - Number(a));
-  return versions.length ? path.join(base, versions[0], 'bin') : null;
-}
-
-function installServer(): string {
-  if (!isRoot()) {
-    throw new Error(
-      'PostgreSQL server binaries are missing (no /usr/lib/postgresql/*/bin/pg_ctl). Install Debian\'s "postgresql" package (sudo apt-get install -y postgresql), or set DATABASE_URL to an existing server.',
-    );
-  }
-  log('server binaries missing: installing Debian package "postgresql"');
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  let r = spawnSync('apt-get', ['install', '-y', '-qq', 'postgresql'], { stdio: 'inherit', env });
-  if (r.status !== 0) {
-    spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-    r = spawnSync('apt-get', ['install', '-y', '-qq', 'postgresql'], { stdio: 'inherit', env });
-  }
-  const bin = findBinDir();
-  if (r.status !== 0 || !bin) throw new Error('could not install Debian package "postgresql"');
+function findBinDir(): string {
+  ensureDebianPackages(['postgresql'], 'The local PostgreSQL (or set DATABASE_URL to an existing server)');
+  const bin = findPostgresBinDir();
+  if (!bin) throw new Error('PostgreSQL server binaries are missing (no /usr/lib/postgresql/*/bin/pg_ctl)');
   return bin;
 }
 
@@ -87,7 +68,7 @@ export interface LocalCluster {
 
 /** Bring the cluster up (idempotent). Returns a URL factory for its databases. */
 export async function ensureCluster(): Promise<LocalCluster> {
-  const bin = findBinDir() ?? installServer();
+  const bin = findBinDir();
   const home = clusterHome();
   const data = path.join(home, 'data');
   fs.mkdirSync(home, { recursive: true, mode: 0o700 });
@@ -132,7 +113,7 @@ export async function ensureCluster(): Promise<LocalCluster> {
 }
 
 export function stopCluster(): boolean {
-  const bin = findBinDir();
+  const bin = findPostgresBinDir();
   const data = path.join(clusterHome(), 'data');
   if (!bin || !fs.existsSync(path.join(data, 'PG_VERSION'))) return false;
   const status = runPg(bin, 'pg_ctl', ['status', '-D', data], { allowFail: true });

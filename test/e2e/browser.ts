@@ -21,7 +21,7 @@ export const baseUrl = () => {
 
 export async function launch(): Promise<Browser> {
   const executablePath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
-  if (!fs.existsSync(executablePath)) throw new Error(`Chromium not found at ${executablePath}: install Debian's "chromium" package (.ci/run does)`);
+  if (!fs.existsSync(executablePath)) throw new Error(`Chromium not found at ${executablePath}: install Debian's "chromium" package (npm test does)`);
   return chromium.launch({
     executablePath,
     headless: true,

@@ -119,7 +119,7 @@ describe('immediateDominators: generated graphs', () => {
   });
 
   const nx = findNetworkxPython();
-  // CI installs Debian's python3-networkx and sets HEADWATER_REQUIRE_NETWORKX, so there a missing networkx fails instead of skipping
+  // npm test installs Debian's python3-networkx and, under CI, sets HEADWATER_REQUIRE_NETWORKX, so there a missing networkx fails instead of skipping
   it.runIf(!!process.env.HEADWATER_REQUIRE_NETWORKX)('finds python3 with networkx where it is required', () => {
     expect(nx).not.toBeNull();
   });
