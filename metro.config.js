@@ -4,7 +4,7 @@ const { getDefaultConfig } = require('expo/metro-config');
 const path = require('path');
 
 const config = getDefaultConfig(__dirname);
-const escape = (s) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-const own = (dir) => new RegExp('^' + escape(path.join(__dirname, dir)) + '\\/.*');
+const escapeRegExp = (s) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+const own = (dir) => new RegExp('^' + escapeRegExp(path.join(__dirname, dir)) + '\\/.*');
 config.resolver.blockList = ['server', 'scripts', 'test', '.data', 'artifacts', 'dist'].map(own);
 module.exports = config;

@@ -39,11 +39,10 @@ export function indexDominatorTree(idom: Int32Array, root: number, marked: Uint8
   let mk = 0;
   const stackNode = new Int32Array(n);
   const stackChild = new Int32Array(n);
-  let sp = 0;
+  let sp = 1; // the root is pushed just below
   let clock = 0;
   stackNode[0] = root;
   stackChild[0] = childOffsets[root];
-  sp = 1;
   tin[root] = clock++;
   alive[root] = 1;
   markStart[root] = 0;

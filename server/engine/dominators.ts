@@ -28,12 +28,11 @@ export function depthFirstPostorder(g: Csr, root: number): { order: Int32Array; 
   const stackNode = new Int32Array(n);
   const stackEdge = new Int32Array(n);
   const seen = new Uint8Array(n);
-  let sp = 0;
+  let sp = 1; // the root is pushed just below
   let count = 0;
   seen[root] = 1;
   stackNode[0] = root;
   stackEdge[0] = offsets[root];
-  sp = 1;
   while (sp > 0) {
     const u = stackNode[sp - 1];
     const e = stackEdge[sp - 1];

@@ -105,7 +105,7 @@ function reportLoops(carriages: Entry[], graph: Csr, reached: Uint8Array, sink: 
   const callNode = new Int32Array(n);
   const callEdge = new Int32Array(n);
   const claimed = new Uint8Array(n);
-  let depth = 0;
+  let depth: number;
   let top = 0;
   let counter = 0;
   const loops: number[][] = [];

@@ -4,7 +4,7 @@ import type { AppContext } from '../context';
 
 export function registerSystemRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/health', 'public', async (_req, res) => {
-    let dbUp = false;
+    let dbUp: boolean;
     try {
       await ctx.db.sequelize.query('SELECT 1');
       dbUp = true;

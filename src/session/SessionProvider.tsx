@@ -50,7 +50,7 @@ export function SessionProvider({ children }: { children: ReactNode }) {
 
   useEffect(() => {
     let live = true;
-    AsyncStorage.getItem(SESSION_STORAGE_KEY)
+    void AsyncStorage.getItem(SESSION_STORAGE_KEY)
       .catch(() => null)
       .then((raw) => {
         if (!live) return;

@@ -14,6 +14,7 @@ export function safeNextPath(next: unknown): string {
   // "//host" and "/\host" are read by browsers as another origin.
   if (value.startsWith('//') || value.startsWith('/\\')) return FALLBACK;
   // Control characters (tabs, newlines) are stripped by URL parsers and can hide a "//".
+  // eslint-disable-next-line no-control-regex -- matching control characters is this test's purpose
   if (/[\u0000-\u001f\u007f]/.test(value)) return FALLBACK;
   if (value === '/sign-in' || value.startsWith('/sign-in?') || value.startsWith('/sign-in/')) return FALLBACK;
   return value;

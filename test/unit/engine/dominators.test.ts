@@ -93,7 +93,14 @@ function definitionalIdom(n: number, edges: Pairs, root: number): number[] {
     if (removed === root) return seen;
     const stack = [root];
     seen[root] = true;
-    while (stack.length) for (const v of out[stack.pop()!]) if (v !== removed && !seen[v]) (seen[v] = true), stack.push(v);
+    while (stack.length) {
+      for (const v of out[stack.pop()!]) {
+        if (v !== removed && !seen[v]) {
+          seen[v] = true;
+          stack.push(v);
+        }
+      }
+    }
     return seen;
   };
   const base = reach(-1);

@@ -4,7 +4,7 @@
  */
 import { StyleSheet, Text, View } from 'react-native';
 import type { StoredCarriage, StoredFeed } from '@/src/api/schemas';
-import { space, type } from '@/src/theme';
+import { type } from '@/src/theme';
 import { detailHref } from '../kinds';
 import { erpText, withUnit } from '../format';
 import { CodeLink } from '../parts/CodeLink';
