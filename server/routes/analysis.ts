@@ -8,8 +8,8 @@ import type { AppContext } from '../context';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { cachedFeedChecks, currentModel } from './checks';
 
-const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
-const exposureQuery = z.object({
+export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
+export const exposureQuery = z.object({
   limit: z.coerce.number({ error: 'limit must be a number' }).int('limit is a whole number').min(1, 'limit is at least 1').max(100_000).optional(),
 });
 

@@ -10,7 +10,7 @@ import { findUserByEmail, inviteUser, updateUser } from '../services/users';
 import { User } from '../db/models/user';
 import type { AppContext } from '../context';
 
-const loginSchema = z.strictObject({
+export const loginSchema = z.strictObject({
   email: z.string({ error: 'email is required' }).trim().min(1, 'email is required').max(320),
   password: z.string({ error: 'password is required' }).min(1, 'password is required').max(200),
 });

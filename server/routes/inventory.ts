@@ -34,7 +34,7 @@ import { createEntity, updateEntity } from '../services/inventory/write';
 import { deleteEntity } from '../services/inventory/remove';
 import type { WriteResult } from '../services/inventory/networkWrite';
 
-const deleteQuerySchema = z.strictObject({
+export const deleteQuerySchema = z.strictObject({
   version: z.coerce
     .number({ error: 'version=N is required: the version you read, so a delete never removes a row changed since' })
     .int('version is a whole number')

@@ -30,9 +30,9 @@ import { actorOf } from './inventory';
 const MAX_FILES = 10;
 
 const flag = (name: string) => z.enum(['true', 'false'], { error: `${name} is true or false` }).default('false').transform((v) => v === 'true');
-const importQuerySchema = z.strictObject({ dryRun: flag('dryRun'), replace: flag('replace') });
-const exportQuerySchema = z.strictObject({ format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json') });
-const auditQuerySchema = z.strictObject({
+export const importQuerySchema = z.strictObject({ dryRun: flag('dryRun'), replace: flag('replace') });
+export const exportQuerySchema = z.strictObject({ format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json') });
+export const auditQuerySchema = z.strictObject({
   page: z.coerce.number({ error: 'page must be a whole number' }).int('page must be a whole number').min(1, 'page is at least 1').default(1),
   pageSize: z.coerce.number({ error: 'pageSize must be a whole number' }).int().min(1).max(MAX_PAGE_SIZE, `pageSize is at most ${MAX_PAGE_SIZE}`).default(50),
   kind: z.enum(AUDIT_KINDS as [AuditKind, ...AuditKind[]], { error: `kind is one of ${AUDIT_KINDS.join(', ')}` }).optional(),
