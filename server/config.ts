@@ -1,5 +1,5 @@
 /**
- * Configuration, validated at boot (handbook interchange.md section 3).
+ * Configuration, validated at boot (README.md, "Configuration").
  * The JWT signing secret comes from JWT_SECRET, or is generated once and kept
  * in an ignored folder outside git; it is never a literal in code.
  */

@@ -24,7 +24,7 @@ export const api = {
 export const ROLES = ['admin', 'engineer', 'operator', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];
 
-/** Who may do what (architecture.md, Auth). The server declares these on every route. */
+/** Who may do what (docs/architecture.md, Auth). The server declares these on every route. */
 export const can = {
   read: ['admin', 'engineer', 'operator', 'viewer'] as Role[],
   analyse: ['admin', 'engineer', 'operator', 'viewer'] as Role[],

@@ -8,7 +8,7 @@ describe('breakpointsFor', () => {
     expect(() => breakpointsFor(Number.POSITIVE_INFINITY)).toThrow(/width must be a finite number/);
   });
 
-  it('keeps the handbook boundaries (architecture.md: bottom tabs under ~800 px)', () => {
+  it('keeps the documented boundaries (docs/architecture.md, Client: bottom tabs under 800 px)', () => {
     expect(WIDE_MIN_PX).toBe(800);
     expect(ROOMY_MIN_PX).toBe(1200);
   });

@@ -2,7 +2,7 @@
  * One pure rule turns a window width into named layout flags, so the shell,
  * the layout primitives and any screen agree on where the layout changes.
  *
- * Boundaries (handbook architecture.md, Client; screens.md):
+ * Boundaries (docs/architecture.md, Client; docs/screens.md):
  * - below 800 px: phone layout, bottom tabs, one column;
  * - `wide` from 800 px: side navigation, two columns;
  * - `roomy` from 1200 px: three columns where a screen asks for them.

@@ -1,5 +1,5 @@
 /**
- * Seeded generator of network documents (handbook interchange.md section 1)
+ * Seeded generator of network documents (docs/format.md)
  * with the structure of a real transmission network: a few origins, main
  * stations (about 4 % of sites), relays several hops deep, thirteen services,
  * main and reserve feeds over all four media, microwave paths through hop

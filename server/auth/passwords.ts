@@ -1,6 +1,6 @@
 import bcrypt from 'bcryptjs';
 
-/** bcrypt cost; 10 is the floor the team agreed on (architecture.md, Auth). */
+/** bcrypt cost; 10 is the floor the team agreed on (docs/architecture.md, Auth). */
 export const BCRYPT_COST = 11;
 
 export const hashPassword = (password: string) => bcrypt.hash(password, BCRYPT_COST);

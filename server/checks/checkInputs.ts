@@ -29,7 +29,7 @@ function fromLabel(label: string, kind: ServiceKind, where: string): Read<Freque
 }
 
 /**
- * Receive frequency (handbook interchange.md section 2): the feed's rxFrequencyMHz, else its
+ * Receive frequency (docs/checks.md): the feed's rxFrequencyMHz, else its
  * rxChannel's frequency, else the parent carriage's frequencyMHz, else its channel's frequency.
  * A channel label that is present but unknown stops the search: falling through to the parent
  * would silently use a frequency the record contradicts.
@@ -57,7 +57,7 @@ export function transmitFrequency(carriage: Carriage, kind: ServiceKind): Read<F
 
 /**
  * Antenna height above sea level at one end: ground height + antenna height, else + mast
- * height (handbook interchange.md section 2). The carriage's antenna is taken as the
+ * height (docs/checks.md). The carriage's antenna is taken as the
  * antenna at that end of the feed; there is no separate receive-antenna height field.
  */
 export function antennaHeightAsl(site: Site, carriage: Carriage): Read<number> {

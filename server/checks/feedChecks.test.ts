@@ -30,7 +30,7 @@ describe('distance and bearings', () => {
 });
 
 describe('free-space-loss', () => {
-  // ITU-R P.525 worked value, handbook checks.md section 1: 100 MHz, 10 km -> 92.45 dB.
+  // ITU-R P.525 worked value, docs/checks.md, "Free space": 100 MHz, 10 km -> 92.45 dB.
   it('100 MHz over 10 km is 92.45 dB', () => {
     const c = get(run({ km: 10 }), 'free-space-loss');
     expect(c.value).toBeCloseTo(92.45, 2);
@@ -45,7 +45,7 @@ describe('free-space-loss', () => {
   });
 });
 
-describe('receive frequency order (interchange.md section 2)', () => {
+describe('receive frequency order (docs/checks.md)', () => {
   const rx = (s: Scenario) => run(s).rxFrequencyMHz;
   it('feed rxFrequencyMHz, then rxChannel, then parent frequencyMHz, then parent channel', () => {
     expect(rx({ kind: 'dtt', feed: { rxFrequencyMHz: 610, rxChannel: '39' }, source: { frequencyMHz: 786 } })).toBe(610);
@@ -117,7 +117,7 @@ describe('horizon (k = 4/3, smooth earth, heights above sea level)', () => {
     const c = get(run({ source: { antennaHeightM: 50 } }), 'horizon');
     expect(c.limit).toBeCloseTo(Math.sqrt(2 * 6371 * (4 / 3) * 0.35) + Math.sqrt(2 * 6371 * (4 / 3) * 0.13), 2);
   });
-  // Worked [X] checks.md section 2: 300 m + 10 m -> 84.43 km, so 90 km is beyond.
+  // Worked [X] docs/checks.md, "Horizon, earth bulge, Fresnel zone": 300 m + 10 m -> 84.43 km, so 90 km is beyond.
   it('fails beyond the horizon: 90 km with 300 m and 10 m antennas', () => {
     const a = run({ km: 90, sourceSite: { groundHeightM: 0, mastHeightM: 300 }, targetSite: { groundHeightM: 0, mastHeightM: 10 } });
     const c = get(a, 'horizon');

@@ -1,10 +1,10 @@
 /**
- * Engineering screening of one feed (handbook domain.md "What the engineer also checks",
- * interchange.md section 2). Pure: plain records in, the answer out; no database.
+ * Engineering screening of one feed (docs/domain.md "What the engineer also screens, per feed",
+ * docs/checks.md). Pure: plain records in, the answer out; no database.
  * These are screening checks over free space and a smooth earth, not a coverage prediction.
  */
 import type { Carriage, Feed, ServiceKind, Site } from '@/shared/schemas/network';
-import type { CheckName, FeedCheck, FeedChecksAnswer } from '@/shared/schemas/checks';
+import { CONFIDENCE_WORDS, type CheckName, type Confidence, type FeedCheck, type FeedChecksAnswer } from '@/shared/schemas/checks';
 import { bearingDifferenceDeg, geodesicInverse, normaliseDeg } from '@/shared/rf/geodesy';
 import { wattsToDbw } from '@/shared/rf/units';
 import { earthBulgeM, fieldStrengthFromErpDbw, freeSpaceLossDb, fresnelRadiusM, midPathClearance, pathHorizonKm } from '@/shared/rf/propagation';
@@ -23,7 +23,7 @@ export interface FeedCheckInput {
   serviceKind: ServiceKind;
 }
 
-/** Largest difference between recorded and computed bearing that passes, deg (handbook interchange.md). */
+/** Largest difference between recorded and computed bearing that passes, deg (docs/checks.md). */
 export const BEARING_TOLERANCE_DEG = 5;
 /** Below this the two ends are treated as one position: no path to screen. */
 const SAME_POSITION_KM = 0.001;
@@ -59,6 +59,9 @@ function freeSpaceLoss(ctx: Ctx): FeedCheck {
   return check('free-space-loss', 'dB', v, true, `free space at ${ctx.rx.value.mhz} MHz (${ctx.rx.how}) over ${fmt(ctx.distanceKm, 3)} km, ITU-R P.525`);
 }
 
+/** " (value not checked against the published text)" after a limit's source, or nothing when it was read there. */
+const sureWords = (confidence: Confidence) => (CONFIDENCE_WORDS[confidence] ? ` (${CONFIDENCE_WORDS[confidence]})` : '');
+
 function fieldStrength(ctx: Ctx): FeedCheck {
   const { source, serviceKind } = ctx.input;
   const unit = 'dBuV/m';
@@ -70,7 +73,7 @@ function fieldStrength(ctx: Ctx): FeedCheck {
   const min = offAirFeedMinimum(serviceKind, ctx.rx.ok ? ctx.rx.value.mhz : null);
   if (!min.ok) return check('field-strength', unit, value, null, `${basis}; no limit compared: ${min.reason}`, null);
   const limit = round(min.minimum.valueDbUvPerM, 2);
-  const c = check('field-strength', unit, value, value >= limit, `${basis}; limit ${min.minimum.source}, ${min.minimum.reception} (${min.minimum.confidence} value)`, limit);
+  const c = check('field-strength', unit, value, value >= limit, `${basis}; limit ${min.minimum.source}, ${min.minimum.reception}${sureWords(min.minimum.confidence)}`, limit);
   c.limitConfidence = min.minimum.confidence;
   return c;
 }

@@ -7,7 +7,7 @@ const run = (s: Scenario = {}) => computeFeedChecks(scenario(s));
 const get = (a: FeedChecksAnswer, name: CheckName) => a.checks.find((x) => x.name === name)!;
 
 // 7.5 GHz over 30 km at mid-path: earth bulge 13.24 m (k = 4/3, 1000 d1 d2 / 2ae) and
-// F1 17.31 m (P.530 eq. (2), worked value in handbook checks.md section 2), 0.6 F1 = 10.39 m.
+// F1 17.31 m (P.530 eq. (2), worked value in docs/checks.md, "Horizon, earth bulge, Fresnel zone"), 0.6 F1 = 10.39 m.
 const microwave = (over: Scenario = {}) => run({ km: 30, feed: { medium: 'microwave', rxFrequencyMHz: 7500 }, ...over });
 
 describe('microwave feeds', () => {

@@ -1,5 +1,5 @@
 /**
- * Every feed's failed checks, worst first (handbook interchange.md section 2, `GET /api/checks`).
+ * Every feed's failed checks, worst first (docs/checks.md, `GET /api/checks`).
  * Pure: takes the network's records, no database.
  */
 import type { Carriage, Feed, Service, Site } from '@/shared/schemas/network';

@@ -1,5 +1,5 @@
 /**
- * Chain trees (interchange.md section 2): upstream from a carriage through
+ * Chain trees (docs/api.md): upstream from a carriage through
  * each feed into it to the origins, or downstream to every carriage it feeds.
  *
  * Built breadth first, so each carriage is expanded at its shallowest place;

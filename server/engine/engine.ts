@@ -1,6 +1,6 @@
 /**
  * The analysis engine: one immutable instance per network version, built from
- * a validated network document. Answers rules 1-9 of handbook domain.md.
+ * a validated network document. Answers rules 1-9 of docs/domain.md.
  * Everything that does not depend on a request (dominator trees, unfed
  * carriages, single points of failure, exposure, diversity) is computed in
  * `build`; `reach` and `chain` work from those.

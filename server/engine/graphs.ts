@@ -1,5 +1,5 @@
 /**
- * One graph per service (handbook domain.md, "How to compute it fast"): the
+ * One graph per service (docs/domain.md, "How the engine computes them"): the
  * single adapter from the network model to flow graphs, their graphology form
  * and their compilation to integer-indexed typed arrays.
  *

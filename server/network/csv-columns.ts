@@ -1,5 +1,5 @@
 /**
- * The CSV form of the network document (handbook interchange.md section 1):
+ * The CSV form of the network document (docs/format.md):
  * one file per kind, a header row with the JSON field names, lists separated
  * by ";", an empty cell for an absent field. This table says which column
  * holds what, so cells are read as the type the JSON field has.
@@ -8,7 +8,7 @@ import type { EntityKind } from '@/shared/schemas/network';
 
 export type ColumnType = 'string' | 'number' | 'boolean' | 'list';
 
-/** Columns in the order the handbook lists the fields; export writes them in this order. */
+/** Columns in the order docs/format.md lists the fields; export writes them in this order. */
 export const CSV_COLUMNS: Record<EntityKind, ReadonlyArray<readonly [string, ColumnType]>> = {
   sites: [
     ['code', 'string'], ['name', 'string'], ['role', 'string'], ['lat', 'number'], ['lon', 'number'],

@@ -8,7 +8,7 @@ import { smallNetwork } from '@/test/fixtures/small-network';
 import { generateNetwork } from '@/scripts/generator';
 
 describe('CSV columns', () => {
-  it('name exactly the fields of each schema, in the handbook order', () => {
+  it('name exactly the fields of each schema, in the order docs/format.md lists them', () => {
     for (const kind of ENTITY_KINDS) {
       expect(CSV_COLUMNS[kind].map(([c]) => c)).toEqual(Object.keys(entitySchemas[kind].shape));
     }

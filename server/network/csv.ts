@@ -1,5 +1,5 @@
 /**
- * The network document as CSV files (handbook interchange.md section 1):
+ * The network document as CSV files (docs/format.md):
  * reading sites.csv, services.csv, groups.csv, carriages.csv and feeds.csv
  * (alone or in a zip) into a raw document with the data row of every entity
  * kept for the report, and writing a document back out as the same files.

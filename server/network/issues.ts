@@ -1,5 +1,5 @@
 /**
- * Building import issues (handbook interchange.md section 1, "Import rules"):
+ * Building import issues (docs/format.md, "Import rules"):
  * every issue names its kind, where it sits (JSON index, or CSV file and row),
  * the entity code, the field, a stable rule name and a sentence a person can
  * act on.

@@ -1,5 +1,5 @@
 /**
- * Cross-entity import rules (handbook interchange.md section 1, "Import
+ * Cross-entity import rules (docs/format.md, "Import
  * rules"): duplicate codes, unknown references, a feed between carriages of
  * different services, a feed from a carriage to itself, a via-site that is
  * one end of its feed, two carriages of one service at one site.

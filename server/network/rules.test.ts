@@ -1,5 +1,5 @@
 /**
- * Each import rule (handbook interchange.md section 1) once failing and once
+ * Each import rule (docs/format.md) once failing and once
  * passing: the failing change breaks exactly that rule in the small network;
  * the passing change is the nearest valid value, so the rule is shown to
  * draw its line in the right place.

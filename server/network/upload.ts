@@ -1,5 +1,5 @@
 /**
- * Uploaded files -> a network document (handbook interchange.md section 1):
+ * Uploaded files -> a network document (docs/format.md):
  * one JSON document, or CSV files, each alone or in zips, read together as
  * one document. The kind of upload is told by the file name, else by the zip
  * signature.

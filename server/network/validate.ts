@@ -1,5 +1,5 @@
 /**
- * Validates a network document (handbook interchange.md section 1) and reports
+ * Validates a network document (docs/format.md) and reports
  * every error, not the first: the document's shape, each entity against its
  * schema, then the rules between entities; and the warnings that let an
  * import go ahead. The document is returned only when there is no error;

@@ -1,5 +1,5 @@
 /**
- * Import warnings (handbook interchange.md section 1): a feed loop with no
+ * Import warnings (docs/format.md): a feed loop with no
  * origin upstream, a carriage with no feed at a non-origin site, a relay with
  * no reserve feed. The import goes ahead: the document is still returned.
  */

@@ -1,7 +1,7 @@
 /**
- * Import warnings (handbook interchange.md section 1): the import goes ahead,
+ * Import warnings (docs/format.md): the import goes ahead,
  * but the network has a data problem worth a look.
- * - a feed loop with no origin upstream (domain.md rule 3: such a loop never
+ * - a feed loop with no origin upstream (docs/domain.md rule 3: such a loop never
  *   has programme), with the carriages starved downstream of it;
  * - a carriage with no feed at a site that is not an origin;
  * - a relay with no reserve feed into any of its carriages.

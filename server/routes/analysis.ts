@@ -1,4 +1,4 @@
-/** The analysis API over the in-memory graphs (interchange.md section 2). */
+/** The analysis API over the in-memory graphs (docs/api.md). */
 import { z } from 'zod';
 import { can } from '@/shared/api';
 import { reachRequestSchema } from '@/shared/schemas/analysis';

@@ -1,4 +1,4 @@
-/** Feed engineering screening over the in-memory network (interchange.md section 2). */
+/** Feed engineering screening over the in-memory network (docs/checks.md). */
 import { can } from '@/shared/api';
 import { checksQuerySchema, type ChecksListAnswer, type FeedChecksAnswer } from '@/shared/schemas/checks';
 import { checksForFeed, CheckInputError, networkCheckFailures } from '../checks/networkChecks';

@@ -1,5 +1,5 @@
 /**
- * The network as a whole (handbook interchange.md sections 1 and 2), paths
+ * The network as a whole (docs/format.md and docs/api.md), paths
  * relative to /api:
  *
  *   POST /network/import   ?dryRun=true|false ?replace=true|false

@@ -1,5 +1,5 @@
 /**
- * Imports a network document (handbook interchange.md section 1, "Import
+ * Imports a network document (docs/format.md, "Import
  * rules"): everything is validated first and every problem reported; then,
  * in one transaction, entities are upserted by code (unchanged ones are not
  * touched, so their versions stay), with `replace` whatever the document

@@ -1,6 +1,6 @@
 /**
  * Keeps the in-memory analysis model fresh across processes
- * (architecture.md, "Data flow"): every committed change bumps the network
+ * (docs/architecture.md, "A rebuild"): every committed change bumps the network
  * version and sends NOTIFY network_changed; each server process LISTENs on a
  * dedicated connection and rebuilds. Readers always get the last complete
  * model; a rebuild swaps it in only when finished.

@@ -3,7 +3,7 @@ import { channelsAt, channelToFrequencyMHz, dabBlock, frequencyToChannel, parseC
 import { DAB_BLOCKS } from './dabBlocks';
 
 describe('UHF TV channels 21-69', () => {
-  // [S] TSDuck tsduck.hfbands.xml (base 474 MHz, width 8 MHz), handbook checks.md section 3.
+  // [S] TSDuck tsduck.hfbands.xml (base 474 MHz, width 8 MHz), docs/checks.md, "Channels and frequencies".
   it.each([
     [21, 474, 470, 478],
     [39, 618, 614, 622],
@@ -43,7 +43,7 @@ describe('VHF Band III TV channels 5-12', () => {
 });
 
 describe('T-DAB Band III blocks', () => {
-  // Every entry of the table in handbook checks.md section 3 [S: three secondary sources agree].
+  // Every entry of the table in docs/checks.md, "Channels and frequencies" [S: three secondary sources agree].
   const table: [string, number][] = [
     ['5A', 174.928], ['5B', 176.64], ['5C', 178.352], ['5D', 180.064],
     ['6A', 181.936], ['6B', 183.648], ['6C', 185.36], ['6D', 187.072],

@@ -1,5 +1,5 @@
 /**
- * Channel <-> centre frequency for the broadcast bands in use (handbook checks.md section 3).
+ * Channel <-> centre frequency for the broadcast bands in use (docs/checks.md, "Channels and frequencies").
  * - UHF TV, Europe, Bands IV/V: channels 21-69, 8 MHz, fc = 306 + 8N MHz [S: TSDuck band file,
  *   French CSA rule "306 + 8n"].
  * - VHF Band III TV: channels 5-12, 7 MHz, fc = 177.5 + 7(N - 5) MHz [S: TSDuck].
@@ -31,7 +31,7 @@ export const VHF_LAST = 12;
 export const VHF_WIDTH_MHZ = 7;
 export const FM_LOWER_MHZ = 87.5;
 export const FM_UPPER_MHZ = 108;
-/** [M] recalled from memory, unconfirmed: Region 1 carriers on a 100 kHz raster (checks.md section 3). */
+/** [M] recalled from memory, unconfirmed: Region 1 carriers on a 100 kHz raster (docs/checks.md, "Channels and frequencies"). */
 export const FM_RASTER_MHZ = 0.1;
 
 /** Bands a service kind may use; AM and "other" have no channel plan here. */

@@ -1,6 +1,6 @@
 /**
  * T-DAB Band III block centre frequencies, MHz. A table, not a formula: the spacing is not
- * uniform (5A->5B 1.712 MHz, 5D->6A 1.872 MHz). Values as in handbook checks.md section 3,
+ * uniform (5A->5B 1.712 MHz, 5D->6A 1.872 MHz). Values as in docs/checks.md, "Channels and frequencies",
  * tagged there [S]: three secondary sources agree; plans CEPT WI95revCO07 (Constanta 2007)
  * and GE06. The clause of ETSI EN 300 401 holding the table was not read.
  */
@@ -16,5 +16,5 @@ export const DAB_BLOCKS: Readonly<Record<string, number>> = Object.freeze({
   '13A': 230.784, '13B': 232.496, '13C': 234.208, '13D': 235.776, '13E': 237.488, '13F': 239.2,
 });
 
-/** Occupied bandwidth of a T-DAB block, MHz (handbook checks.md section 3). */
+/** Occupied bandwidth of a T-DAB block, MHz (docs/checks.md, "Channels and frequencies"). */
 export const DAB_BLOCK_WIDTH_MHZ = 1.536;

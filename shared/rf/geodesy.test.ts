@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { bearingDifferenceDeg, geodesicInverse, geodesicInverseRaw, normaliseDeg } from './geodesy';
 
 // Expected values and tolerances: GeographicLib test suite, geographiclib-js
-// geodesic/test/geodesictest.js (handbook checks.md section 5).
+// geodesic/test/geodesictest.js (docs/checks.md, "Distance and bearing").
 /* eslint-disable no-loss-of-precision -- the expected values are quoted digit for digit from the
    reference suite; each parses to the nearest double, and that double is what is compared */
 describe('geodesicInverse on WGS84', () => {

@@ -1,7 +1,7 @@
 /**
  * Ellipsoidal distance and bearings on WGS84 (a = 6378137 m, f = 1/298.257223563),
  * via GeographicLib (Karney, "Algorithms for geodesics", J. Geodesy 87, 2013).
- * A spherical formula misses the published test tolerances (handbook checks.md section 5).
+ * A spherical formula misses the published test tolerances (docs/checks.md, "Distance and bearing").
  */
 import * as geographiclib from 'geographiclib-geodesic';
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { dabMinimum, dvbtMinimum, fmMinimum, offAirFeedMinimum } from './minimums';
 
 describe('FM minimums, ITU-R BS.412-9', () => {
-  // Stereo row [S] (secondary page quoting BS.412); mono row [M] (recalled). checks.md section 4.
+  // Stereo row [S] (secondary page quoting BS.412); mono row [M] (recalled). docs/checks.md, "Planning minimum field strengths".
   it.each([
     ['stereo', 'rural', 54, 'secondary'],
     ['stereo', 'urban', 66, 'secondary'],
@@ -19,7 +19,7 @@ describe('FM minimums, ITU-R BS.412-9', () => {
 });
 
 describe('DVB-T minimums, GE06 RPC1 with 20 log(f/fr)', () => {
-  // Worked [X], checks.md section 4: ch21 -> 53.26, ch60 -> 57.65, ch69 -> 58.41.
+  // Worked [X], docs/checks.md, "Planning minimum field strengths": ch21 -> 53.26, ch60 -> 57.65, ch69 -> 58.41.
   it.each([
     [474, 53.26],
     [786, 57.65],

@@ -1,5 +1,5 @@
 /**
- * Planning minimum field strengths per service kind (handbook checks.md section 4).
+ * Planning minimum field strengths per service kind (docs/checks.md, "Planning minimum field strengths").
  * Each value carries the reception mode it applies to and how sure it is:
  * 'confirmed' = read in the named source [C], 'secondary' = read only in a secondary source [S],
  * 'recalled' = from memory, unconfirmed [M]. The UI shows the confidence beside the limit.
@@ -101,9 +101,9 @@ export function dabMinimum(rpc: DabRpc = 'RPC4'): PlanningMinimum {
 /**
  * The minimum to hold an off-air feed against. A relay receives with a fixed directional
  * antenna on its mast, so fixed rooftop values are used: FM stereo rural at 10 m, DVB-T RPC1.
- * The handbook gives no fixed-reception T-DAB value, so RPC4 (mobile) is used: it asks for
+ * The sources give no fixed-reception T-DAB value, so RPC4 (mobile) is used: it asks for
  * more signal than fixed reception would, so it errs on the safe side. AM and other
- * services have no value in the handbook's sources and are not computed.
+ * services have no value in these sources and are not computed (docs/checks.md).
  */
 export function offAirFeedMinimum(kind: ServiceKind, frequencyMHz: number | null): MinimumLookup {
   switch (kind) {
@@ -117,7 +117,7 @@ export function offAirFeedMinimum(kind: ServiceKind, frequencyMHz: number | null
       return { ok: true, minimum: { ...m, reception: `${m.reception} (no fixed-reception value in the sources; mobile is the stricter bound)` } };
     }
     case 'am':
-      return { ok: false, reason: 'no planning minimum for AM in the handbook sources' };
+      return { ok: false, reason: 'no planning minimum for AM in the sources this check uses' };
     case 'other':
       return { ok: false, reason: 'no planning minimum for service kind "other"' };
   }

@@ -3,12 +3,12 @@ import * as p from './propagation';
 import { wattsToDbw } from './units';
 
 describe('free space (ITU-R P.525)', () => {
-  // [X] 20 log10(4 pi 1e9 / c) = 32.4478, handbook checks.md section 1.
+  // [X] 20 log10(4 pi 1e9 / c) = 32.4478, docs/checks.md, "Free space".
   it('uses the exact constant 32.4478 dB', () => {
     expect(p.FREE_SPACE_CONSTANT_DB).toBeCloseTo(32.4478, 4);
   });
 
-  // Worked values, handbook checks.md section 1 (exact constant).
+  // Worked values, docs/checks.md, "Free space" (exact constant).
   it.each([
     [100, 10, 92.45],
     [600, 50, 121.99],
@@ -17,7 +17,7 @@ describe('free space (ITU-R P.525)', () => {
     expect(p.freeSpaceLossDb(f, d)).toBeCloseTo(expected, 2);
   });
 
-  // NTIA ITM FreeSpaceLoss.cpp uses 32.45 and P.525 prints 32.4: within 0.06 dB (checks.md section 1).
+  // NTIA ITM FreeSpaceLoss.cpp uses 32.45 and P.525 prints 32.4: within 0.06 dB (docs/checks.md, "Free space").
   it('agrees with the 32.4 and 32.45 variants within 0.06 dB', () => {
     const ours = p.freeSpaceLossDb(600, 50);
     const common = 20 * Math.log10(600) + 20 * Math.log10(50);
@@ -32,7 +32,7 @@ describe('free space (ITU-R P.525)', () => {
 });
 
 describe('field strength', () => {
-  // P.1546 Annex 5 eq. (2) and P.525 section 2.1 worked values, handbook checks.md section 1.
+  // P.1546 Annex 5 eq. (2) and P.525 section 2.1 worked values, docs/checks.md, "Free space".
   it('1 kW e.r.p. at 10 km -> 86.9 dB(uV/m)', () => {
     expect(p.fieldStrengthFromErpDbw(wattsToDbw(1000), 10)).toBeCloseTo(86.9, 2);
   });
@@ -67,7 +67,7 @@ describe('horizon, earth bulge, Fresnel zone', () => {
     expect(157 / (157 - 39.25)).toBeCloseTo(p.K_FACTOR, 12);
   });
 
-  // Worked [X], handbook checks.md section 2.
+  // Worked [X], docs/checks.md, "Horizon, earth bulge, Fresnel zone".
   it('radio horizon: 300 m -> 71.39 km; 300 m + 10 m -> 84.43 km', () => {
     expect(p.radioHorizonKm(300)).toBeCloseTo(71.39, 2);
     expect(p.pathHorizonKm(300, 10)).toBeCloseTo(84.43, 2);
@@ -88,7 +88,7 @@ describe('horizon, earth bulge, Fresnel zone', () => {
     expect(p.earthBulgeM(d1, d2, k)).toBeCloseTo(expected, 2);
   });
 
-  // P.530 section 2.2 eq. (2) with the exact constant 17.3145; worked [X] in checks.md.
+  // P.530 section 2.2 eq. (2) with the exact constant 17.3145; worked [X] in docs/checks.md.
   it('Fresnel constant is 17.3145', () => {
     expect(p.FRESNEL_CONSTANT_GHZ).toBeCloseTo(17.3145, 4);
   });

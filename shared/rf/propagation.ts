@@ -1,5 +1,5 @@
 /**
- * Free-space and smooth-earth screening formulas (handbook checks.md sections 1-2).
+ * Free-space and smooth-earth screening formulas (docs/checks.md, "Free space" and "Horizon, earth bulge, Fresnel zone").
  * Units: f in MHz unless the name says GHz; distances in km; heights in m.
  */
 
@@ -114,7 +114,7 @@ export interface MidPathClearance {
 /**
  * Clearance at mid-path over a smooth earth at sea level: the optimistic screening bound
  * (real terrain only lowers it). The 0.6 F1 criterion: at 0.6 F1 clearance the knife-edge
- * loss is about 0 dB, ITU-R P.526 J(nu) with nu = -0.849 (handbook checks.md section 2).
+ * loss is about 0 dB, ITU-R P.526 J(nu) with nu = -0.849 (docs/checks.md, "Horizon, earth bulge, Fresnel zone").
  */
 export function midPathClearance(height1AslM: number, height2AslM: number, distanceKm: number, frequencyGHz: number, k: number = K_FACTOR): MidPathClearance {
   finite('height 1 (m)', height1AslM);

@@ -1,7 +1,7 @@
 /**
  * Power units. dBW = 10 log10(P / 1 W); dBm = dBW + 30.
  * e.i.r.p. = e.r.p. + 2.15 dB: the gain of a half-wave dipole over an isotropic antenna
- * (numeric 1.64). ITU-R BS.561 Annex 1 section 2 (handbook checks.md section 1).
+ * (numeric 1.64). ITU-R BS.561 Annex 1 section 2 (docs/checks.md, "Free space").
  */
 
 /** Half-wave dipole gain over isotropic, dB (ITU-R BS.561). */

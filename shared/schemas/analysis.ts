@@ -1,4 +1,4 @@
-/** Analysis API bodies and answers (handbook interchange.md section 2). */
+/** Analysis API bodies and answers (docs/api.md). */
 import { z } from 'zod';
 import { codeSchema, ELEMENT_KINDS, type ElementKind, type Medium, type FeedRole } from './network';
 

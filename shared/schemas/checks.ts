@@ -1,5 +1,5 @@
 /**
- * Feed engineering screening answers (handbook interchange.md section 2:
+ * Feed engineering screening answers (docs/checks.md:
  * `GET /api/feeds/:code/checks` and `GET /api/checks`).
  */
 import { z } from 'zod';
@@ -17,8 +17,19 @@ export const CHECK_NAMES = [
 ] as const;
 export type CheckName = (typeof CHECK_NAMES)[number];
 
-/** How sure a reference value (e.g. a planning minimum) is: handbook checks.md tags [C], [S], [M]. */
+/**
+ * How sure a reference value (e.g. a planning minimum) is: docs/checks.md marks
+ * [C] confirmed (read in the named source), [S] secondary (read only where another text
+ * quotes it), [M] recalled (from memory, not read in the source).
+ */
 export type Confidence = 'confirmed' | 'secondary' | 'recalled';
+
+/** How a user reads each confidence, beside the source's name; null: the source alone says it. */
+export const CONFIDENCE_WORDS: Readonly<Record<Confidence, string | null>> = {
+  confirmed: null,
+  secondary: 'value from a secondary source quoting it',
+  recalled: 'value not checked against the published text',
+};
 
 export interface FeedCheck {
   name: CheckName;

@@ -1,4 +1,4 @@
-/** The import report (handbook interchange.md section 1, "Import rules"). */
+/** The import report (docs/format.md, "Import rules"). */
 import type { EntityKind } from './network';
 
 export interface ImportIssue {

@@ -1,5 +1,5 @@
 /**
- * The network document, version 1 (handbook interchange.md section 1), as zod
+ * The network document, version 1 (docs/format.md), as zod
  * schemas. The server validates imports and edits with these; the client's
  * forms validate with the same ones, so a message reads the same on both sides.
  */

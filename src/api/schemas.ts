@@ -142,7 +142,7 @@ export const auditItemSchema = z.object({
 export type AuditItem = z.infer<typeof auditItemSchema>;
 export const auditPageSchema = pageOf(auditItemSchema);
 
-// ---- Analysis answers (interchange.md section 2; types in shared/schemas/analysis.ts) ----
+// ---- Analysis answers (docs/api.md; types in shared/schemas/analysis.ts) ----
 // This part's imports sit with it (imports are hoisted), so parts of this file
 // can be added independently without touching one shared import list.
 import type * as analysisTypes from '@/shared/schemas/analysis';
@@ -240,7 +240,7 @@ export const carriageFeedsSchema = z.object({
 });
 export type CarriageFeeds = z.infer<typeof carriageFeedsSchema>;
 
-// Feed checks (shared/schemas/checks.ts; handbook interchange.md section 2).
+// Feed checks (shared/schemas/checks.ts; docs/checks.md).
 export const feedCheckSchema = z.object({
   name: z.enum(CHECK_NAMES),
   value: z.number().nullable(),

@@ -1,5 +1,5 @@
 /**
- * A press target at least 44 px high (screens.md). `label` is also the
+ * A press target at least 44 px high (docs/screens.md). `label` is also the
  * accessible name unless `accessibilityLabel` says more.
  *
  *   <Button label="Sign in" onPress={submit} busy={sending} />

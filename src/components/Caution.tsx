@@ -1,5 +1,5 @@
 /**
- * The screening-figure notice (screens.md: engineering results are screening
+ * The screening-figure notice (docs/screens.md: engineering results are screening
  * figures; the screen says so and points to a full path study and the local
  * licensing rules before anyone acts). Put it next to any computed RF or
  * geometry figure. Extra lines may be passed as children.

@@ -1,5 +1,5 @@
 /**
- * Small shapes that carry a status before its colour does (screens.md:
+ * Small shapes that carry a status before its colour does (docs/screens.md:
  * status in words and shape first, colour second). Each shape is used for one
  * meaning only:
  *   solid    filled disc                 on air, passing

@@ -19,7 +19,7 @@ export const colors = {
   accentInk: '#FFFFFF',
   accentSoft: '#DCECEC',
   focus: '#C26A00',
-  /** Status colours come second to words and shapes (screens.md). */
+  /** Status colours come second to words and shapes (docs/screens.md). */
   good: '#1F6B34',
   goodSoft: '#E1F0E4',
   warn: '#8A5200',

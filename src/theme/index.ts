@@ -1,5 +1,5 @@
 /**
- * Headwater's look (handbook screens.md, "Look and feel"): calm, high contrast
+ * Headwater's look (docs/screens.md, "Labels and looks"): calm, high contrast
  * for a bright equipment room, one accent colour, a legible text face and a
  * monospaced face for codes, channels, frequencies and table figures.
  * Colours live in ./colors.ts (pure, so their contrast is unit-tested).
@@ -37,7 +37,7 @@ export const space = { xxs: 2, xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32, xx
 
 export const radius = { sm: 4, md: 8, lg: 12, pill: 999 } as const;
 
-/** Smallest touch target (screens.md: touch targets >= 44 px). */
+/** Smallest touch target (docs/screens.md: touch targets >= 44 px). */
 export const TOUCH_MIN = 44;
 
 /** Type scale: sizes stay readable at arm's length (body 17 px). */

@@ -1,6 +1,6 @@
 /**
  * The analysis API over HTTP on the demo region, checked against a direct
- * evaluation of the handbook's rules 1-9 (test/helpers/bruteforce.ts), and
+ * evaluation of rules 1-9 of docs/domain.md (test/helpers/bruteforce.ts), and
  * the garbage a client can send.
  */
 import fs from 'node:fs';

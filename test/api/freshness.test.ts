@@ -1,7 +1,7 @@
 /**
  * Two real server processes on one database: a change committed through one
- * reaches the other through LISTEN/NOTIFY within a second (architecture.md,
- * "Data flow").
+ * reaches the other through LISTEN/NOTIFY within a second (docs/architecture.md,
+ * "A rebuild").
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import crypto from 'node:crypto';

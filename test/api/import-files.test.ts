@@ -1,6 +1,6 @@
 /**
  * Import by file upload (JSON, a CSV alone, a zip of CSVs) and export in both
- * formats (handbook interchange.md section 1): a CSV error names its row, and
+ * formats (docs/format.md): a CSV error names its row, and
  * export -> import into an empty database -> export gives the same document.
  */
 import fs from 'node:fs';

@@ -1,5 +1,5 @@
 /**
- * POST /api/network/import with a JSON document (handbook interchange.md
+ * POST /api/network/import with a JSON document (docs/api.md
  * section 1, "Import rules"): all or nothing, dry run, upsert by code,
  * replace, every error listed, and the network version.
  */

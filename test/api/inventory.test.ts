@@ -1,7 +1,7 @@
 /**
  * Inventory CRUD for each kind: create, read with neighbours, list with
  * search, sort, paging and filters, update, delete; and the 4xx answers for
- * bad input (handbook interchange.md section 2: 404 naming the code, 400
+ * bad input (docs/api.md: 404 naming the code, 400
  * naming the field, never a 500).
  */
 import request from 'supertest';

@@ -113,7 +113,7 @@ describe.each(Object.entries(SIZES))('inventory and checks routes at %s size', (
     const channel = page.getByLabel('Channel').first();
     await channel.waitFor({ timeout: 20_000 });
     await channel.fill('39');
-    // 306 + 8 x 39 = 618 MHz (European UHF raster; handbook checks.md section 3)
+    // 306 + 8 x 39 = 618 MHz (European UHF raster; docs/checks.md, "Channels and frequencies")
     await page.waitForFunction(() => /618/.test(document.querySelector('[data-testid="calc-frequency"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
     expect(await page.getByTestId('calc-frequency').textContent()).toMatch(/centre 618(\.0)? MHz/);
     expect(errors).toEqual([]);

@@ -1,5 +1,5 @@
 /**
- * Rules 1-9 of handbook domain.md evaluated directly on the network document:
+ * Rules 1-9 of docs/domain.md evaluated directly on the network document:
  * no graph library, no dominators. "Has programme" is the least fixed point
  * of rule 3, reached by starting from the origin carriages and sweeping the
  * feeds until nothing changes. Slow on purpose, obviously right on purpose.

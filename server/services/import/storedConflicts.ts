@@ -3,7 +3,7 @@
  * The validator checks the document's own feeds; this checks the kept ones
  * against the carriages the document moves: a kept feed whose two carriages
  * would carry different services, or whose via-site would become one of its
- * ends, breaks the same import rules (handbook interchange.md section 1), so
+ * ends, breaks the same import rules (docs/format.md), so
  * the carriage that causes it is reported.
  */
 import type { NetworkDocument } from '@/shared/schemas/network';

@@ -1,5 +1,5 @@
 /**
- * The import's cross-entity rules (handbook interchange.md section 1), applied
+ * The import's cross-entity rules (docs/format.md), applied
  * to one entity about to be created or changed, against the stored network:
  * references must exist, a feed joins two different carriages of one
  * service and no via-site is one of its ends, a site radiates each service

@@ -1,6 +1,6 @@
 /**
  * The one shape an entity has everywhere outside the database: the network
- * document's fields (handbook interchange.md section 1), codes instead of
+ * document's fields (docs/format.md), codes instead of
  * ids, absent rather than null, group lists as sets (sorted by code), via
  * lists in path order. Import diffs, API answers and audit snapshots all use
  * it, so "unchanged" means the same thing in each of them.
@@ -17,7 +17,7 @@ export const NOUN: Record<EntityKind, string> = {
   feeds: 'feed',
 };
 
-/** The document fields of each kind, in the order the handbook lists them. */
+/** The document fields of each kind, in the order docs/format.md lists them. */
 export const FIELDS: Record<EntityKind, readonly string[]> = {
   sites: Object.keys(entitySchemas.sites.shape),
   services: Object.keys(entitySchemas.services.shape),

@@ -1,5 +1,5 @@
 /**
- * The analysis answers (interchange.md section 2): fault reach for a failure
+ * The analysis answers (docs/api.md): fault reach for a failure
  * set, exposure ranking, diversity gaps, unfed carriages and a carriage's
  * chain. All are computed by the server from its in-memory graphs and change
  * only with the network version, except reach, which a fault desk watches.

@@ -1,5 +1,5 @@
 /**
- * Feed engineering screening (handbook interchange.md section 2): one feed's checks
+ * Feed engineering screening (docs/checks.md): one feed's checks
  * (GET /api/feeds/:code/checks) and every failing check in the network (GET /api/checks),
  * plus the small site search the calculator uses to pick two ends of a path.
  */

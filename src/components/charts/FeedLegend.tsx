@@ -1,6 +1,6 @@
 /**
  * What the lines and shapes on the chain tree and the network diagram mean,
- * in words beside a sample of each (screens.md: the legend is always one tap
+ * in words beside a sample of each (docs/screens.md: the legend is always one tap
  * away). Screens pass the extra marks they draw (site roles, status marks).
  */
 import type { ReactNode } from 'react';

@@ -1,6 +1,6 @@
 /**
  * How a feed is drawn on the chain tree and the network diagram. Meaning is
- * carried by line pattern and words first, colour second (screens.md):
+ * carried by line pattern and words first, colour second (docs/screens.md):
  *   medium -> dash pattern: line solid, microwave dash-dot, satellite long
  *             dashes, off-air dots;
  *   role   -> main is one solid stroke; reserve is a double line (a wide

@@ -1,7 +1,7 @@
 /**
  * Navigation and action icons, drawn for Headwater with react-native-svg on a
  * 24 x 24 grid, stroked so they stay crisp at any size. Icons always sit next
- * to a text label (screens.md: icons with labels); they are hidden from
+ * to a text label (docs/screens.md: icons with labels); they are hidden from
  * screen readers so the label is read once.
  */
 import Svg, { Circle, Path } from 'react-native-svg';

@@ -4,7 +4,7 @@ import { colors, fonts } from '@/src/theme';
 
 /**
  * Headwater's mark: a spring at the top and the programme flowing down into
- * two branches (the name's metaphor, screens.md "Look and feel").
+ * two branches (the name's metaphor, docs/screens.md "Labels and looks").
  */
 export function BrandMark({ size = 28, showName = true }: { size?: number; showName?: boolean }) {
   return (

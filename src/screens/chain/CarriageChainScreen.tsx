@@ -1,5 +1,5 @@
 /**
- * A carriage (screens.md, moment 2): what it is, its feeds, and its chain
+ * A carriage (docs/screens.md, Chain): what it is, its feeds, and its chain
  * upstream to the origins or downstream to everything it feeds.
  */
 import { isApiError } from '@/src/api/client';

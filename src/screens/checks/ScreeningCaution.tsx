@@ -1,5 +1,5 @@
 /**
- * The screening notice for feed checks and the calculator (handbook domain.md: these are
+ * The screening notice for feed checks and the calculator (docs/domain.md: these are
  * screening checks, not a coverage prediction; defer to a full path-profile study and to
  * the licensing authority's rules).
  */

@@ -31,7 +31,7 @@ describe('checkState and stateWords', () => {
   });
 
   it('tells a computed value with no limit to compare from one not computed', () => {
-    const c: FeedCheck = { ...base, limit: null, ok: null, note: 'free space from 50 W e.r.p.; no limit compared: no planning minimum for AM in the handbook sources' };
+    const c: FeedCheck = { ...base, limit: null, ok: null, note: 'free space from 50 W e.r.p.; no limit compared: no planning minimum for AM in the sources this check uses' };
     expect(stateWords(c)).toMatchObject({ state: 'figure', words: 'no limit to compare' });
   });
 
@@ -59,8 +59,8 @@ describe('limitWords and valueWords', () => {
 
 describe('confidenceWords', () => {
   it('flags recalled and secondary limits only', () => {
-    expect(confidenceWords('recalled')).toBe('planning value recalled, unconfirmed');
-    expect(confidenceWords('secondary')).toBe('planning value from a secondary source');
+    expect(confidenceWords('recalled')).toBe('value not checked against the published text');
+    expect(confidenceWords('secondary')).toBe('value from a secondary source quoting it');
     expect(confidenceWords('confirmed')).toBeNull();
     expect(confidenceWords(undefined)).toBeNull();
   });

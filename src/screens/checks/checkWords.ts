@@ -1,9 +1,9 @@
 /**
- * Plain words for feed checks (handbook interchange.md section 2): what each check is called
+ * Plain words for feed checks (docs/checks.md): what each check is called
  * on screen, what state it is in, how its limit reads, and how sure the limit is.
- * Status is said in words and shape first, colour second (screens.md).
+ * Status is said in words and shape first, colour second (docs/screens.md).
  */
-import type { CheckName, CheckSeverity, Confidence, FeedCheck } from '@/shared/schemas/checks';
+import { CONFIDENCE_WORDS, type CheckName, type CheckSeverity, type Confidence, type FeedCheck } from '@/shared/schemas/checks';
 import { formatFigure } from './figures';
 
 /** A check's name as a person reads it. */
@@ -89,7 +89,7 @@ export function stateWords(c: Pick<FeedCheck, 'ok' | 'note' | 'value' | 'limit'>
 
 /**
  * Which way a value must lie relative to its limit to pass (from the server's rules,
- * handbook interchange.md section 2): field strength, clearance and channel separation at
+ * docs/checks.md): field strength, clearance and channel separation at
  * least the limit; path length and bearing error at most the limit.
  */
 const LIMIT_SENSE: Partial<Record<CheckName, 'atLeast' | 'atMost'>> = {
@@ -120,16 +120,9 @@ export function valueWords(c: Pick<FeedCheck, 'value' | 'unit'>): string {
   return c.value === null ? 'no value' : formatFigure(c.value, c.unit);
 }
 
-/** Said beside a limit that is not read in its primary source (handbook checks.md tags). */
+/** Said beside a limit that is not read in its primary source (docs/checks.md marks); the note names the source. */
 export function confidenceWords(confidence: Confidence | undefined): string | null {
-  switch (confidence) {
-    case 'recalled':
-      return 'planning value recalled, unconfirmed';
-    case 'secondary':
-      return 'planning value from a secondary source';
-    default:
-      return null;
-  }
+  return confidence ? CONFIDENCE_WORDS[confidence] : null;
 }
 
 export const SEVERITY_WORDS: Readonly<Record<CheckSeverity, { words: string; shape: StateShape; tone: StateTone }>> = {

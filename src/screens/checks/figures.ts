@@ -1,5 +1,5 @@
 /**
- * Numbers with units and a precision that suits each quantity (screens.md: numbers carry
+ * Numbers with units and a precision that suits each quantity (docs/screens.md: numbers carry
  * units and sensible precision). The precision choices are ours (common practice, no source):
  * screening figures are not worth more digits than their inputs carry.
  */

@@ -1,5 +1,5 @@
 /**
- * Import and export of the whole network (handbook interchange.md section 1).
+ * Import and export of the whole network (docs/format.md).
  * Choosing a file runs a dry run at once, so the person sees what the import
  * would do (and every problem in the file) before anything is written;
  * "Commit import" is offered only when that check found no error, and it

@@ -1,5 +1,5 @@
 /**
- * The network at a glance (screens.md, moment 3): sites placed by position,
+ * The network at a glance (docs/screens.md, Network): sites placed by position,
  * feeds between them, a service filter (?service=CODE), pan and zoom, and a
  * failure set overlaid (?fail=..., the same as on the reach screen).
  */

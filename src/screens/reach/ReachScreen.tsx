@@ -1,5 +1,5 @@
 /**
- * Fault reach (screens.md, moment 1): mark sites, feeds or shared-risk
+ * Fault reach (docs/screens.md, Fault reach): mark sites, feeds or shared-risk
  * groups failed and see at once what goes off air and what survives on a
  * reserve. The failure set lives in the address (?fail=site:A,feed:B), so
  * the page can be shared, bookmarked and reloaded.

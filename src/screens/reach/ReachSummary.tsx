@@ -1,6 +1,6 @@
 /**
  * The four figures an operations desk reads first: carriages off air and on
- * reserve, households off air and on reserve (domain.md rules 4, 5 and 7).
+ * reserve, households off air and on reserve (docs/domain.md rules 4, 5 and 7).
  * Each figure's text is the bare number, so it can be read out and tested.
  */
 import { StyleSheet, Text, View } from 'react-native';

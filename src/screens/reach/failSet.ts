@@ -1,7 +1,7 @@
 /**
  * The failure set of the reach screen as it travels in a shareable URL:
  * `?fail=site:S1,feed:F2,group:G3`. Tokens are `kind:code`; codes follow the
- * network document's code rule (interchange.md section 1), so they never hold
+ * network document's code rule (docs/format.md), so they never hold
  * a comma or a colon and need no escaping of their own.
  */
 import { compareElements, elementKey, type Element } from '@/shared/schemas/analysis';

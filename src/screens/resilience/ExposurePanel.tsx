@@ -1,5 +1,5 @@
 /**
- * Elements ranked by exposure (domain.md rule 7: households that lose at
+ * Elements ranked by exposure (docs/domain.md rule 7: households that lose at
  * least one service if that element alone fails), sortable, with the whole
  * ranking downloadable as CSV. Each row opens the fault reach for that element.
  */

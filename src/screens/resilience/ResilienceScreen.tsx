@@ -1,5 +1,5 @@
 /**
- * Where are we exposed? (screens.md, moment 4): elements ranked by the
+ * Where are we exposed? (docs/screens.md, Resilience): elements ranked by the
  * households their failure alone takes off air, carriages whose reserve does
  * not protect them (diversity gaps), carriages with no programme at all
  * (unfed), and counts per service, with charts. Two or three columns on a

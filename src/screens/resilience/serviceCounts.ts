@@ -1,4 +1,4 @@
-/** Per service: carriages, diversity gaps and unfed carriages (domain.md rules 8 and 9), for the resilience review. */
+/** Per service: carriages, diversity gaps and unfed carriages (docs/domain.md rules 8 and 9), for the resilience review. */
 export interface ServiceCount {
   service: string;
   carriages: number;

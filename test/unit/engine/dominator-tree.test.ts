@@ -3,7 +3,7 @@ import { immediateDominators } from '@/server/engine/dominators';
 import { commonDominator, indexDominatorTree } from '@/server/engine/dominator-tree';
 import { csrFromPairs } from '@/server/engine/csr';
 
-// Lengauer & Tarjan (1979) Fig. 1 (R=0, A=1, ... L=12), dominator tree as in handbook checks.md section 6:
+// Lengauer & Tarjan (1979) Fig. 1 (R=0, A=1, ... L=12), dominator tree as in docs/checks.md, "Dominators":
 // R -> {A, B, C, D, E, H, I, K}, C -> {F, G}, G -> J, D -> L; plus an unreachable node 13.
 const [R, A, B, C, D, E, F, G, H, I, J, K, L] = Array.from({ length: 13 }, (_, i) => i);
 const edges: [number, number][] = [

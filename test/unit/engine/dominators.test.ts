@@ -27,7 +27,7 @@ describe('immediateDominators: argument guards', () => {
 
 describe('immediateDominators: published graphs', () => {
   // Lengauer & Tarjan, ACM TOPLAS 1(1):121-141 (1979), Fig. 1; expected array as in
-  // boostorg/graph test/dominator_tree_test.cpp testSet[0] (R=0, A=1, ... L=12), handbook checks.md section 6.
+  // boostorg/graph test/dominator_tree_test.cpp testSet[0] (R=0, A=1, ... L=12), docs/checks.md, "Dominators".
   it('Lengauer-Tarjan Fig. 1', () => {
     const [R, A, B, C, D, E, F, G, H, I, J, K, L] = Array.from({ length: 13 }, (_, i) => i);
     const edges: Pairs = [
@@ -38,7 +38,7 @@ describe('immediateDominators: published graphs', () => {
   });
 
   // Cooper, Harvey & Kennedy, "A Simple, Fast Dominance Algorithm" (2001), Fig. 2 (irreducible);
-  // as in networkx networkx/algorithms/tests/test_dominance.py (handbook checks.md section 6).
+  // as in networkx networkx/algorithms/tests/test_dominance.py (docs/checks.md, "Dominators").
   it('Cooper-Harvey-Kennedy Fig. 2', () => {
     const edges: Pairs = [[1, 2], [2, 1], [3, 2], [4, 1], [5, 3], [5, 4]];
     expect(idomOf(6, edges, 5)).toEqual(expected(6, { 1: 5, 2: 5, 3: 5, 4: 5 }));

@@ -1,6 +1,6 @@
 /**
  * Small hand-built networks whose answers were worked out by hand in the
- * tests (rules 1-9 of handbook domain.md).
+ * tests (rules 1-9 of docs/domain.md).
  */
 import type { NetworkDocument, Site, Feed } from '@/shared/schemas/network';
 

@@ -1,5 +1,5 @@
 /**
- * Rules 1-9 of handbook domain.md on hand-built networks (fixtures.ts); every
+ * Rules 1-9 of docs/domain.md on hand-built networks (fixtures.ts); every
  * expected value below was worked out by hand from the rules.
  */
 import { describe, expect, it } from 'vitest';

@@ -87,7 +87,7 @@ describe('demo network fixture', () => {
       const path = geodesicInverse(here.lat, here.lon, there.lat, there.lon);
       expect(path.distanceKm, f.code).toBeGreaterThanOrEqual(5);
       expect(path.distanceKm, f.code).toBeLessThanOrEqual(60);
-      // 5 deg: the bearing-record screening limit (handbook interchange.md section 2).
+      // 5 deg: the bearing-record screening limit (docs/checks.md).
       if (bearingDifferenceDeg(f.bearingDeg!, path.initialBearingDeg) > 5) wrong.push(f.code);
       else expect(bearingDifferenceDeg(f.bearingDeg!, path.initialBearingDeg), f.code).toBeLessThan(0.06);
     }

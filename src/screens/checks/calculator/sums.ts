@@ -189,7 +189,7 @@ export function channelWords(c: ChannelInfo): string {
   const centre = formatFigure(c.centreMHz, 'MHz');
   switch (c.band) {
     case 'fm':
-      return `${centre}, FM Band II: a carrier on the ${fixed(c.widthMHz * 1000, 0)} kHz raster (raster recalled, unconfirmed)`;
+      return `${centre}, FM Band II: a carrier on the ${fixed(c.widthMHz * 1000, 0)} kHz raster (raster value not checked against the published text)`;
     case 'dab':
       return `Block ${c.label}, DAB Band III: centre ${centre}, ${fixed(c.lowerMHz, 3)}-${formatFigure(c.upperMHz, 'MHz')} (${formatFigure(c.widthMHz, 'MHz')} wide)`;
     default:

@@ -1,5 +1,5 @@
 /**
- * The fields of each kind's form, in the handbook's order (interchange.md
+ * The fields of each kind's form, in the order of docs/format.md (docs/api.md
  * section 1), with the label a person sees (and a screen reader reads) and
  * how the typed text turns into the document's value.
  */
