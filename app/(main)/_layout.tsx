@@ -3,7 +3,7 @@
  * a signed-out visitor to /sign-in (remembering where they were going, so a
  * shared link still works after signing in), and otherwise draws the shell.
  */
-import { Redirect, useGlobalSearchParams, usePathname, useSegments, type Href } from 'expo-router';
+import { Redirect, useGlobalSearchParams, usePathname, useSegments } from 'expo-router';
 import { useEffect, useRef } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { SessionCache } from '@/src/api/ApiProvider';
@@ -37,7 +37,7 @@ export default function SignedInLayout() {
   if (session.status === 'signedOut') {
     // After choosing to sign out there is nothing to come back to.
     const href = session.lastSignOut === 'chosen' ? '/sign-in' : signInHref(lastPlace.current ?? here);
-    return <Redirect href={href as Href} />;
+    return <Redirect href={href} />;
   }
   return (
     <SessionCache>

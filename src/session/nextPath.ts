@@ -5,23 +5,34 @@
  * another site (an "open redirect", OWASP Unvalidated Redirects and Forwards
  * Cheat Sheet).
  */
-const FALLBACK = '/';
+import type { Href } from 'expo-router';
 
-export function safeNextPath(next: unknown): string {
-  const value = Array.isArray(next) ? next[0] : next;
-  if (typeof value !== 'string' || value === '') return FALLBACK;
-  if (!value.startsWith('/')) return FALLBACK;
-  // "//host" and "/\host" are read by browsers as another origin.
-  if (value.startsWith('//') || value.startsWith('/\\')) return FALLBACK;
+/** A place in the app as a string (Expo Router's typed routes). */
+export type AppPath = Extract<Href, string>;
+
+const FALLBACK: AppPath = '/';
+
+/**
+ * A path on this origin, other than the sign-in screen. Checked at run time,
+ * since it arrives in a URL; one that matches no route shows the not-found screen.
+ */
+function isOwnPath(value: string): value is AppPath {
+  if (value === '' || !value.startsWith('/')) return false;
+  // "//host" and "/\\host" are read by browsers as another origin.
+  if (value.startsWith('//') || value.startsWith('/\\')) return false;
   // Control characters (tabs, newlines) are stripped by URL parsers and can hide a "//".
   // eslint-disable-next-line no-control-regex -- matching control characters is this test's purpose
-  if (/[\u0000-\u001f\u007f]/.test(value)) return FALLBACK;
-  if (value === '/sign-in' || value.startsWith('/sign-in?') || value.startsWith('/sign-in/')) return FALLBACK;
-  return value;
+  if (/[\u0000-\u001f\u007f]/.test(value)) return false;
+  return !(value === '/sign-in' || value.startsWith('/sign-in?') || value.startsWith('/sign-in/'));
+}
+
+export function safeNextPath(next: unknown): AppPath {
+  const value = Array.isArray(next) ? next[0] : next;
+  return typeof value === 'string' && isOwnPath(value) ? value : FALLBACK;
 }
 
 /** The sign-in path that brings the person back to `pathname` afterwards. */
-export function signInHref(pathname: string, search = ''): string {
+export function signInHref(pathname: string, search = ''): AppPath {
   const target = safeNextPath(`${pathname}${search}`);
   return target === FALLBACK ? '/sign-in' : `/sign-in?next=${encodeURIComponent(target)}`;
 }

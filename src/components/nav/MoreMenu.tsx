@@ -2,7 +2,7 @@
  * The phone's "More" screen: the places that do not fit in the bottom tabs,
  * each with a line saying what it is for, and the account with sign-out.
  */
-import { Link, type Href } from 'expo-router';
+import { Link } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { useSession } from '@/src/session/SessionProvider';
 import { colors, radius, space, TOUCH_MIN, type } from '@/src/theme';
@@ -22,7 +22,7 @@ export function MoreMenu() {
       <Section title="Places">
         <View style={styles.list}>
           {places.map((d) => (
-            <Link key={d.id} href={d.href as Href} asChild>
+            <Link key={d.id} href={d.href} asChild>
               <Pressable accessibilityRole="link" testID={`more-${d.id}`} style={styles.item}>
                 <Icon name={d.icon} color={colors.accent} />
                 <View style={styles.texts}>

@@ -10,7 +10,7 @@ import { Icon, type IconName } from '../icons/Icon';
 import { webAria } from '../webAria';
 
 export interface NavLinkProps {
-  href: string;
+  href: Href;
   label: string;
   icon: IconName;
   current: boolean;
@@ -22,7 +22,7 @@ export function NavLink({ href, label, icon, current, layout, testID }: NavLinkP
   const ink = current ? colors.accent : colors.inkMuted;
   const tab = layout === 'tab';
   return (
-    <Link href={href as Href} asChild>
+    <Link href={href} asChild>
       <Pressable
         accessibilityRole="link"
         accessibilityLabel={label}

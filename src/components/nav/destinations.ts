@@ -3,13 +3,14 @@
  * bottom tabs. One list drives both the phone tab bar and the wide side
  * navigation, so the two layouts always offer the same places.
  */
+import type { Href } from 'expo-router';
 import { can, type Role } from '@/shared/api';
 import type { IconName } from '../icons/Icon';
 
 export interface Destination {
   id: string;
   label: string;
-  href: string;
+  href: Href;
   icon: IconName;
   /** Path prefixes that belong to this entry (the detail pages under it). */
   matches: string[];

@@ -4,7 +4,7 @@
  * carriage with a link to walk on and a fold button. The drawing above it
  * shows the shape; this says it all in words (and is what a screen reader uses).
  */
-import { Link, type Href } from 'expo-router';
+import { Link } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { FeedSwatch } from '@/src/components/charts/FeedSwatch';
 import { feedWords } from '@/src/components/charts/feedStyle';
@@ -50,7 +50,7 @@ function Hop({ item, direction, onFold, isRoot }: { item: ChainItem; direction: 
               <Text style={styles.code}>{n.carriage}</Text>
             </Text>
           ) : (
-            <Link href={`/carriages/${encodeURIComponent(n.carriage)}?direction=${direction}` as Href} asChild>
+            <Link href={`/carriages/${encodeURIComponent(n.carriage)}?direction=${direction}`} asChild>
               <Pressable accessibilityRole="link" style={styles.open}>
                 <Text style={[styles.name, styles.linkText]}>
                   {`${n.siteName} `}

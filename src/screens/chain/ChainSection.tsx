@@ -3,7 +3,7 @@
  * feeds: the tree drawing (scrolls sideways on a phone, can be shrunk), a
  * legend one tap away, and the hop-by-hop list. Big trees open folded.
  */
-import { useRouter, type Href } from 'expo-router';
+import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 import Svg, { Path, Rect } from 'react-native-svg';
@@ -62,7 +62,7 @@ export function ChainSection({ code, direction }: { code: string; direction: 'up
 
   const setDirection = (d: 'up' | 'down') => router.setParams({ direction: d });
   const onFold = (id: string) => setFolded((f) => toggleFold(f, id));
-  const onOpen = (carriage: string) => router.push(`/carriages/${encodeURIComponent(carriage)}?direction=${direction}` as Href);
+  const onOpen = (carriage: string) => router.push(`/carriages/${encodeURIComponent(carriage)}?direction=${direction}`);
 
   let body: React.ReactNode;
   if (chain.error && !chain.data) body = <ErrorState what={`the ${direction === 'up' ? 'upstream' : 'downstream'} chain`} error={chain.error} onRetry={() => void chain.mutate()} testID="chain-error" />;

@@ -2,7 +2,7 @@
  * Every failing feed check in the network, worst first (GET /api/checks), with filters by
  * kind of check and severity kept in the URL. Cards on a phone, a table on a wide window.
  */
-import { Link, type Href } from 'expo-router';
+import { Link } from 'expo-router';
 import { useMemo } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { CheckSeverity } from '@/shared/schemas/checks';
@@ -32,7 +32,7 @@ export interface ChecksScreenProps {
 
 function CalculatorLink() {
   return (
-    <Link href={'/calculator' as Href} asChild>
+    <Link href={'/calculator'} asChild>
       <Pressable accessibilityRole="link" accessibilityLabel="Open the calculator" style={styles.calcLink} testID="open-calculator">
         <Text style={styles.calcLinkText}>Open the calculator</Text>
       </Pressable>

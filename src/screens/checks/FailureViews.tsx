@@ -12,7 +12,7 @@ import { CHECK_SHORT, CHECK_TITLES, SEVERITY_WORDS } from './checkWords';
 import { marginWords, valueAgainstLimit } from './failureList';
 import { StateTag } from './StateTag';
 
-const feedHref = (code: string) => `/feeds/${encodeURIComponent(code)}` as Href;
+const feedHref = (code: string): Href => `/feeds/${encodeURIComponent(code)}`;
 const failureKey = (f: CheckFailure) => `${f.feed}/${f.check.name}`;
 
 export function FeedLink({ code }: { code: string }) {

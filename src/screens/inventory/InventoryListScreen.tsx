@@ -7,7 +7,7 @@
  * `?edit=<code>` edits (or deletes) a record whose own page has no form of
  * its own: a carriage, whose page is its chain view.
  */
-import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
+import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useMemo } from 'react';
 import { StyleSheet, Text } from 'react-native';
 import { api } from '@/shared/api';
@@ -53,8 +53,8 @@ export function InventoryListScreen<K extends EntityKind>({ kind }: { kind: K })
         kind={kind}
         code={editing}
         prefill={prefill}
-        onDone={(code) => (code ? router.replace(detailHref(kind, code) as Href) : router.setParams({ new: undefined, edit: undefined }))}
-        onDeleted={() => router.replace(listHref(kind) as Href)}
+        onDone={(code) => (code ? router.replace(detailHref(kind, code)) : router.setParams({ new: undefined, edit: undefined }))}
+        onDeleted={() => router.replace(listHref(kind))}
       />
     );
   }
@@ -103,7 +103,7 @@ function ListBody<K extends EntityKind>({ kind, state, onChange }: { kind: K; st
                   columns={view.columns}
                   rows={rows}
                   rowKey={(r) => r.code}
-                  onRowPress={(r) => router.push(detailHref(kind, r.code) as Href)}
+                  onRowPress={(r) => router.push(detailHref(kind, r.code))}
                   rowLabel={(r) => {
                     const l = view.card(r);
                     return `${capital(words.one)} ${l.code}, ${l.title}`;

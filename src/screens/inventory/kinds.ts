@@ -4,6 +4,7 @@
  * offers. The sort and filter names are the server's whitelist
  * (GET /api/<kind>, server/routes/inventory.ts); anything else is a 400.
  */
+import type { Href } from 'expo-router';
 import { FEED_ROLES, MEDIA, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
 
 export interface KindWords {
@@ -29,8 +30,8 @@ export function countOf(kind: EntityKind, n: number): string {
 }
 
 /** The route of a kind's list and of one record (codes are URL-escaped). */
-export const listHref = (kind: EntityKind) => `/${kind}`;
-export const detailHref = (kind: EntityKind, code: string) => `/${kind}/${encodeURIComponent(code)}`;
+export const listHref = (kind: EntityKind): Href => `/${kind}`;
+export const detailHref = (kind: EntityKind, code: string): Href => `/${kind}/${encodeURIComponent(code)}`;
 
 export interface SortOption {
   value: string;

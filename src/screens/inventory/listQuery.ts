@@ -6,6 +6,7 @@
  * into route params. Values the server would refuse (an unknown sort, a
  * filter value outside its list) are dropped here rather than sent.
  */
+import type { Href } from 'expo-router';
 import { api } from '@/shared/api';
 import type { EntityKind } from '@/shared/schemas/network';
 import { FILTERS, LINK_FILTERS, SORTS } from './kinds';
@@ -90,7 +91,7 @@ export function routeParamsFor(kind: EntityKind, state: ListState): Record<strin
 }
 
 /** A link to a list already filtered, e.g. a site's feeds: `/feeds?toSite=S1`. */
-export function filteredListHref(kind: EntityKind, filters: Record<string, string>): string {
+export function filteredListHref(kind: EntityKind, filters: Record<string, string>): Href {
   const known = filterNames(kind);
   const unknown = Object.keys(filters).filter((k) => !known.includes(k));
   if (unknown.length) throw new Error(`filteredListHref: ${kind} lists accept the filters ${known.join(', ')}; got ${unknown.join(', ')}`);

@@ -3,7 +3,7 @@
  * feeds between them, a service filter (?service=CODE), pan and zoom, and a
  * failure set overlaid (?fail=..., the same as on the reach screen).
  */
-import { useRouter, type Href } from 'expo-router';
+import { useRouter } from 'expo-router';
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
 import type { Topology } from 'topojson-specification';
@@ -134,7 +134,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   return (
     <Screen title="Network" subtitle="Sites by position, feeds between them." testID="network-screen">
       {drawing.data ? (
-        <ServiceFilter services={drawing.data.services} value={service} onChange={(code) => router.replace(networkHref(code, failText) as Href)} />
+        <ServiceFilter services={drawing.data.services} value={service} onChange={(code) => router.replace(networkHref(code, failText))} />
       ) : null}
       {failed.length > 0 ? (
         <View style={styles.failBox}>

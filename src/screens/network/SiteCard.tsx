@@ -1,5 +1,5 @@
 /** The chosen site on the diagram: what it is, what it carries, its state under the failure set, and where to go next. */
-import { Link, type Href } from 'expo-router';
+import { Link } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
 import { StatusPill } from '@/src/components/Badge';
@@ -33,7 +33,7 @@ export function SiteCard({ site, status, failed, onClose }: { site: DiagramSite;
       <View style={styles.carriages}>
         {site.carriages.length === 0 ? <Text style={styles.meta}>None in this view.</Text> : null}
         {site.carriages.map((c) => (
-          <Link key={c} href={`/carriages/${encodeURIComponent(c)}` as Href} asChild>
+          <Link key={c} href={`/carriages/${encodeURIComponent(c)}`} asChild>
             <Pressable accessibilityRole="link" style={styles.carriage}>
               <Text style={styles.carriageText}>{c}</Text>
             </Pressable>

@@ -19,7 +19,7 @@ const STATUS: Record<AirStatus, { shape: ShapeName; color: string }> = {
 };
 
 export interface LinkRowProps {
-  href: string;
+  href: Href;
   title: string;
   /** A code shown in the monospaced face after the title. */
   code?: string;
@@ -33,7 +33,7 @@ export interface LinkRowProps {
 export function LinkRow({ href, title, code, detail, status, figure, testID }: LinkRowProps) {
   // The visible words are the accessible name (no separate label that could drift from them).
   return (
-    <Link href={href as Href} asChild>
+    <Link href={href} asChild>
       <Pressable accessibilityRole="link" testID={testID} style={styles.row}>
         {status ? <StatusShape shape={STATUS[status].shape} color={STATUS[status].color} size={16} /> : null}
         <View style={styles.texts}>

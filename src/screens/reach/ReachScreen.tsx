@@ -4,7 +4,7 @@
  * reserve. The failure set lives in the address (?fail=site:A,feed:B), so
  * the page can be shared, bookmarked and reloaded.
  */
-import { useRouter, type Href } from 'expo-router';
+import { useRouter } from 'expo-router';
 import { useCallback, useMemo } from 'react';
 import { ActivityIndicator, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
@@ -48,7 +48,7 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
   const setElements = useCallback(
     (next: readonly Element[]) => {
       const text = formatFailSet(next);
-      router.replace((text ? `/reach?fail=${text}` : '/reach') as Href);
+      router.replace((text ? `/reach?fail=${text}` : '/reach'));
     },
     [router],
   );

@@ -3,7 +3,7 @@
  * least one service if that element alone fails), sortable, with the whole
  * ranking downloadable as CSV. Each row opens the fault reach for that element.
  */
-import { useRouter, type Href } from 'expo-router';
+import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 import { api } from '@/shared/api';
@@ -61,7 +61,7 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
         rows={ranked}
         rowKey={(r) => `${r.element.kind}:${r.element.code}`}
         initialSort={{ column: 'households', direction: 'desc' }}
-        onRowPress={(r) => router.push(`/reach?fail=${r.element.kind}:${r.element.code}` as Href)}
+        onRowPress={(r) => router.push(`/reach?fail=${r.element.kind}:${r.element.code}`)}
         rowLabel={(r) => `${elementWords(r.element)}${name(r.element) ? `, ${name(r.element)}` : ''}: ${formatCount(r.households)} households, ${r.carriages} carriages. Open its fault reach.`}
         columns={[
           { key: 'rank', label: 'Rank', numeric: true, width: 70, value: (r) => r.rank },

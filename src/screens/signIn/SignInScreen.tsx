@@ -4,7 +4,7 @@
  * see src/session/nextPath.ts) or Home.
  */
 import Head from 'expo-router/head';
-import { Redirect, useLocalSearchParams, type Href } from 'expo-router';
+import { Redirect, useLocalSearchParams } from 'expo-router';
 import { useRef, useState } from 'react';
 import { KeyboardAvoidingView, Platform, ScrollView, StyleSheet, Text, View, type TextInput } from 'react-native';
 import { api } from '@/shared/api';
@@ -35,7 +35,7 @@ export function SignInScreen() {
 
   if (session.status === 'restoring') return <LoadingState what="your session" />;
   // Also the way out after a successful sign-in: the session changes and this redirects.
-  if (session.status === 'signedIn') return <Redirect href={next as Href} />;
+  if (session.status === 'signedIn') return <Redirect href={next} />;
 
   async function submit() {
     if (sending) return;

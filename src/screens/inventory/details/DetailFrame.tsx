@@ -3,7 +3,7 @@
  * itself (drawn by the kind's own body), and for engineers and admins the
  * edit form (`?edit=1`, so the back button leaves it) and the delete steps.
  */
-import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
+import { useLocalSearchParams, useRouter } from 'expo-router';
 import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { EntityKind } from '@/shared/schemas/network';
@@ -91,7 +91,7 @@ export function DetailFrame<K extends EntityKind>({ kind, code, title, subtitle,
       {canEdit && record ? (
         <Section title="Remove" testID="detail-remove">
           <View style={styles.remove}>
-            <DeletePanel kind={kind} code={code} version={record.version} onDeleted={() => router.replace(listHref(kind) as Href)} onReload={reload} />
+            <DeletePanel kind={kind} code={code} version={record.version} onDeleted={() => router.replace(listHref(kind))} onReload={reload} />
           </View>
         </Section>
       ) : null}

@@ -2,6 +2,7 @@
  * Lists of links to related records, with a line of facts each, used by the
  * detail pages: a site's carriages, its feeds in and out, a group's members.
  */
+import type { Href } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import type { StoredCarriage, StoredFeed } from '@/src/api/schemas';
 import { type } from '@/src/theme';
@@ -23,7 +24,7 @@ export function feedNote(f: StoredFeed, end: 'from' | 'to'): string {
 
 export interface LinkItem {
   code: string;
-  href: string;
+  href: Href;
   note?: string;
 }
 

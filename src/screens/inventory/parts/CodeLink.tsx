@@ -9,7 +9,7 @@ import { Pressable, StyleSheet, Text } from 'react-native';
 import { colors, fonts, space, TOUCH_MIN } from '@/src/theme';
 
 export interface CodeLinkProps {
-  href: string;
+  href: Href;
   code: string;
   /** the accessible name, when more than the visible words helps; it must contain them (WCAG 2.5.3 label in name) */
   label?: string;
@@ -20,7 +20,7 @@ export interface CodeLinkProps {
 
 export function CodeLink({ href, code, label, note, testID }: CodeLinkProps) {
   return (
-    <Link href={href as Href} asChild>
+    <Link href={href} asChild>
       <Pressable accessibilityRole="link" accessibilityLabel={label} testID={testID} style={styles.link}>
         <Text style={styles.line}>
           <Text style={styles.code}>{code}</Text>

@@ -11,7 +11,7 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/src/theme';
 
 export type InventoryPlace = 'sites' | 'services' | 'carriages' | 'feeds' | 'groups' | 'import';
 
-const PLACES: readonly { id: InventoryPlace; label: string; href: string }[] = [
+const PLACES: readonly { id: InventoryPlace; label: string; href: Href }[] = [
   { id: 'sites', label: 'Sites', href: '/sites' },
   { id: 'services', label: 'Services', href: '/services' },
   { id: 'carriages', label: 'Carriages', href: '/carriages' },
@@ -27,7 +27,7 @@ export function InventoryNav({ current }: { current: InventoryPlace | null }) {
         {PLACES.map((p) => {
           const here = p.id === current;
           return (
-            <Link key={p.id} href={p.href as Href} asChild>
+            <Link key={p.id} href={p.href} asChild>
               <Pressable
                 accessibilityRole="link"
                 accessibilityLabel={p.label}

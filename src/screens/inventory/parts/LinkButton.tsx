@@ -6,9 +6,9 @@ import { Link, type Href } from 'expo-router';
 import { Pressable, StyleSheet, Text } from 'react-native';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/src/theme';
 
-export function LinkButton({ href, label, testID }: { href: string; label: string; testID?: string }) {
+export function LinkButton({ href, label, testID }: { href: Href; label: string; testID?: string }) {
   return (
-    <Link href={href as Href} asChild>
+    <Link href={href} asChild>
       <Pressable accessibilityRole="link" accessibilityLabel={label} testID={testID} style={styles.button}>
         <Text style={styles.label}>{label}</Text>
       </Pressable>

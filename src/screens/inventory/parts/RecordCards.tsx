@@ -12,7 +12,7 @@ import type { CardLines } from '../listRows';
 export interface RecordCardsProps<Row> {
   rows: readonly Row[];
   lines: (row: Row) => CardLines;
-  href: (row: Row) => string;
+  href: (row: Row) => Href;
   testID?: string;
 }
 
@@ -22,7 +22,7 @@ export function RecordCards<Row>({ rows, lines, href, testID = 'record-cards' }:
       {rows.map((row) => {
         const l = lines(row);
         return (
-          <Link key={l.code} href={href(row) as Href} asChild>
+          <Link key={l.code} href={href(row)} asChild>
             <Pressable accessibilityRole="link" style={styles.card} testID={`${testID}-${l.code}`}>
               <View style={styles.head}>
                 <Text style={styles.code}>{l.code}</Text>
