@@ -64,6 +64,8 @@ export function registerAuthRoutes(routes: RouteTable, ctx: AppContext) {
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    // An X-Forwarded-For from an untrusted client is expected noise, not a misconfiguration: TRUST_PROXY decides.
+    validate: { xForwardedForHeader: false },
     handler: (_req, res) => {
       res.status(429).json({ error: { code: 'too-many-attempts', message: 'too many failed sign-ins; wait 15 minutes and try again' } });
     },
