@@ -8,28 +8,20 @@ import path from 'node:path';
 import { loadConfig } from '@/server/config';
 import { openDatabase } from '@/server/db';
 import { startServer, closeOnSignals } from '@/server/server';
-import { ensureUser } from '@/server/services/users';
+import { applyDemoAccounts, DEMO_USERS } from '@/server/services/demoAccounts';
 import { importNetwork } from '@/server/services/importer';
 import { resolveDatabaseUrl, REPO_ROOT } from './lib/postgres';
 import { ensureWebBuild } from './lib/webBuild';
-import type { Role } from '@/shared/api';
 
-interface DemoUser {
-  email: string;
-  name: string;
-  role: Role;
-  password: string;
-}
-
-export const DEMO_USERS: DemoUser[] = JSON.parse(fs.readFileSync(path.join(__dirname, 'demo', 'users.json'), 'utf8')).users;
+export { DEMO_USERS };
 export const DEMO_NETWORK = path.join(REPO_ROOT, 'test', 'fixtures', 'demo-network.json');
 
-/** Demo accounts and, into an empty database, the demo network. */
+/** Demo accounts (a changed password is kept) and, into an empty database, the demo network. */
 export async function loadDemo(databaseUrl: string, log = console.log) {
   const db = openDatabase(databaseUrl);
   try {
     await db.migrate();
-    for (const u of DEMO_USERS) await ensureUser(u.email, u.password, u.role, u.name);
+    await applyDemoAccounts(true);
     const [rows] = await db.sequelize.query('SELECT count(*)::int AS n FROM sites');
     if ((rows as { n: number }[])[0].n === 0) {
       const report = await importNetwork(db, JSON.parse(fs.readFileSync(DEMO_NETWORK, 'utf8')), { actor: { email: 'demo-loader' } });
@@ -53,8 +45,12 @@ async function main() {
 
   console.log(`\nHeadwater is running at ${running.url}  (ready in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
   if (config.DEMO) {
-    console.log('\nDemo users (local try-out only):');
+    console.log('DEMO=1: listening on 127.0.0.1 only, so only this machine can reach it; set DEMO=0 to serve the network.');
+    console.log('\nDemo users (local try-out only; a password changed in the app is kept, so the one below may no longer work):');
     for (const u of DEMO_USERS) console.log(`  ${u.role.padEnd(9)} ${u.email.padEnd(30)} ${u.password}`);
+  } else {
+    console.log(`DEMO=0: listening on every address (${running.host}); no demo account can sign in.`);
+    if (running.demoAccounts.disabled.length > 0) console.log(`Disabled demo accounts left from an earlier demo run: ${running.demoAccounts.disabled.join(', ')}`);
   }
   if (config.ADMIN_EMAIL) console.log(`  admin     ${config.ADMIN_EMAIL.padEnd(30)} (password from ADMIN_PASSWORD)`);
   console.log('\nStop with Ctrl+C; the database keeps running until `npm run stop`.');

@@ -1,42 +1,60 @@
 /**
  * The Express application, apart from `listen` so tests drive it in process.
- * route -> authenticate -> requireRole -> validate -> handler -> service.
+ * route -> authenticate -> requireRole -> body parser -> validate -> handler -> service
+ * (server/http/routes.ts puts the body parser after the checks).
  */
 import path from 'node:path';
-import express from 'express';
+import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { AppContext } from './context';
+import { parseTrustProxy } from './config';
 import { errorHandler, notFoundHandler } from './http/errors';
-import { authenticate, RouteTable } from './http/routes';
-import { isActiveUser } from './services/users';
+import { RouteTable } from './http/routes';
+import { authenticate } from './auth/authenticate';
+import { UserRowCache } from './auth/userRowCache';
+import { loadUserRow } from './services/users';
 import { registerAuthRoutes } from './routes/auth';
 import { registerSystemRoutes } from './routes/system';
 import { routeRegistrars } from './routes';
 
+/**
+ * Security headers. HSTS and the CSP directive upgrade-insecure-requests only
+ * make sense over HTTPS: sent over plain HTTP on a LAN address they make the
+ * browser ask for https:// scripts that nothing serves, and the app is blank.
+ * req.secure is true for a TLS connection, or behind a trusted proxy that
+ * says X-Forwarded-Proto: https.
+ */
+function securityHeaders(): RequestHandler {
+  const directives = {
+    // react-native-web writes style elements at run time
+    'style-src': ["'self'", "'unsafe-inline'"],
+    'img-src': ["'self'", 'data:', 'blob:'],
+    'font-src': ["'self'", 'data:'],
+    'script-src': ["'self'"],
+  };
+  const overHttps = helmet({ contentSecurityPolicy: { useDefaults: true, directives } });
+  const overHttp = helmet({
+    contentSecurityPolicy: { useDefaults: true, directives: { ...directives, 'upgrade-insecure-requests': null } },
+    strictTransportSecurity: false,
+  });
+  return (req, res, next) => (req.secure ? overHttps : overHttp)(req, res, next);
+}
+
 export function createApp(ctx: AppContext) {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        useDefaults: true,
-        directives: {
-          // react-native-web writes style elements at run time
-          'style-src': ["'self'", "'unsafe-inline'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'font-src': ["'self'", 'data:'],
-          'script-src': ["'self'"],
-        },
-      },
-    }),
-  );
+  // Off unless TRUST_PROXY says which proxy to believe: otherwise anyone could
+  // set X-Forwarded-For and get a fresh sign-in allowance per invented address.
+  app.set('trust proxy', parseTrustProxy(ctx.config.TRUST_PROXY));
+  app.use(securityHeaders());
 
   const api = express.Router();
-  // A whole network document may be tens of megabytes; every other body is small.
-  api.use('/network/import', express.json({ limit: ctx.config.IMPORT_BODY_LIMIT }));
-  api.use(express.json({ limit: ctx.config.BODY_LIMIT }));
-  const routes = new RouteTable(api, authenticate(ctx.config.JWT_SECRET, isActiveUser));
+  const routes = new RouteTable(api, authenticate(ctx.config.JWT_SECRET, loadUserRow, new UserRowCache()), {
+    small: ctx.config.BODY_LIMIT,
+    // a whole network document may be tens of megabytes
+    large: ctx.config.IMPORT_BODY_LIMIT,
+    public: '16kb',
+  });
   registerSystemRoutes(routes, ctx);
   registerAuthRoutes(routes, ctx);
   for (const register of routeRegistrars) register(routes, ctx);

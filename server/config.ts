@@ -25,7 +25,23 @@ const envSchema = z.object({
   BODY_LIMIT: z.string().default('2mb'),
   IMPORT_BODY_LIMIT: z.string().default('100mb'),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
+  /** Express 'trust proxy': unset = trust no proxy; see parseTrustProxy */
+  TRUST_PROXY: z.string().trim().max(500).optional(),
 });
+
+/**
+ * TRUST_PROXY as Express takes it: unset, '' or 'false' = no proxy is trusted
+ * (X-Forwarded-* is ignored); 'true' = every hop; a whole number = that many
+ * hops; anything else = a comma-separated list of addresses, subnets or the
+ * names loopback, linklocal, uniquelocal.
+ */
+export function parseTrustProxy(value: string | undefined): boolean | number | string {
+  const v = (value ?? '').trim();
+  if (v === '' || v === 'false' || v === '0') return false;
+  if (v === 'true') return true;
+  if (/^\d+$/.test(v)) return Number(v);
+  return v;
+}
 
 export type Config = Omit<z.output<typeof envSchema>, 'JWT_SECRET'> & { JWT_SECRET: string };
 

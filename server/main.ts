@@ -13,6 +13,7 @@ if (!config.DATABASE_URL) {
 startServer(config.DATABASE_URL, config)
   .then((running) => {
     console.log(`Headwater API listening on ${running.url}`);
+    if (config.DEMO) console.log('DEMO=1: listening on 127.0.0.1 only, with the demo accounts open; set DEMO=0 behind a load balancer.');
     closeOnSignals(running);
   })
   .catch((e) => {

@@ -10,11 +10,15 @@ import type { AppContext } from './context';
 import { NetworkStore } from './services/networkStore';
 import { buildNetworkModel } from './services/networkModel';
 import { ensureUser } from './services/users';
+import { applyDemoAccounts, listenHost, type DemoAccountsResult } from './services/demoAccounts';
 
 export interface RunningServer {
   server: Server;
   ctx: AppContext;
   url: string;
+  /** 127.0.0.1 with DEMO=1 (this machine only), else 0.0.0.0 */
+  host: string;
+  demoAccounts: DemoAccountsResult;
   close(): Promise<void>;
 }
 
@@ -22,14 +26,17 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
   const db = openDatabase(databaseUrl);
   await db.migrate();
   if (config.ADMIN_EMAIL && config.ADMIN_PASSWORD) await ensureUser(config.ADMIN_EMAIL, config.ADMIN_PASSWORD, 'admin', 'Administrator');
+  // DEMO=1: the demo accounts exist (passwords changed since are kept); DEMO=0: any left over are disabled.
+  const demoAccounts = await applyDemoAccounts(config.DEMO);
 
   const network = new NetworkStore(db.sequelize, databaseUrl, buildNetworkModel);
   await network.start();
   const ctx: AppContext = { config, db, network };
   const { app } = createApp(ctx);
 
+  const host = listenHost(config.DEMO);
   const server = await new Promise<Server>((resolve, reject) => {
-    const s = app.listen(config.PORT, '0.0.0.0', () => resolve(s));
+    const s = app.listen(config.PORT, host, () => resolve(s));
     s.on('error', reject);
   });
   const address = server.address();
@@ -47,7 +54,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
       await db.close();
     })());
 
-  return { server, ctx, url: `http://localhost:${port}`, close };
+  return { server, ctx, url: `http://${config.DEMO ? '127.0.0.1' : 'localhost'}:${port}`, host, demoAccounts, close };
 }
 
 /** Close on SIGTERM/SIGINT, then exit. */

@@ -1,52 +1,44 @@
 /**
  * Every API route is declared here with the roles it allows, so the check
  * always runs on the server and the role-matrix test can walk the list.
+ *
+ * Order per route: authenticate -> requireRole -> (temporary password
+ * changed?) -> body parser -> handlers. A body is parsed only once the token
+ * and the role have been checked, so an anonymous 100 MB body, or a small gzip
+ * that inflates to one, is refused with 401 without being read.
  */
-import type { RequestHandler, Router } from 'express';
+import express, { type RequestHandler, type Router } from 'express';
 import type { Role } from '@/shared/api';
-import { ApiError } from './errors';
-import { verifyToken, type TokenClaims } from '../auth/tokens';
+import { requireCurrentPassword, requireRole } from '../auth/authenticate';
+
+export { authenticate, requireRole } from '../auth/authenticate';
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+/** The JSON body limit: small for most routes, large for whole network documents. Multipart bodies are left to the route (multer). */
+export type BodySize = 'small' | 'large';
+
 export interface RouteSpec {
   method: Method;
   path: string;
   roles: readonly Role[] | 'public';
+  body: BodySize;
+  /** open while a temporary password is still to be changed (password change, sign-out) */
+  whilePasswordChangeDue?: boolean;
 }
 
-declare module 'express-serve-static-core' {
-  interface Request {
-    auth?: TokenClaims & { userId: number };
-  }
+export interface RouteOptions {
+  roles: readonly Role[] | 'public';
+  body?: BodySize;
+  whilePasswordChangeDue?: boolean;
 }
 
-/** Reads the bearer token; 401 when it is missing, forged or expired. */
-export function authenticate(secret: string, isActive: (userId: number) => Promise<boolean>): RequestHandler {
-  return async (req, _res, next) => {
-    const header = req.get('authorization') ?? '';
-    const m = /^Bearer\s+(.+)$/i.exec(header);
-    if (!m) return next(new ApiError(401, 'unauthenticated', 'sign in first: no bearer token was sent'));
-    const claims = verifyToken(m[1].trim(), secret);
-    if (!claims) return next(new ApiError(401, 'unauthenticated', 'the session token is not valid or has expired; sign in again'));
-    const userId = Number(claims.sub);
-    try {
-      if (!(await isActive(userId))) return next(new ApiError(401, 'unauthenticated', 'this account is disabled or no longer exists'));
-    } catch (e) {
-      return next(e);
-    }
-    req.auth = { ...claims, userId };
-    next();
-  };
-}
-
-export function requireRole(...roles: Role[]): RequestHandler {
-  return (req, _res, next) => {
-    if (!req.auth) return next(new ApiError(401, 'unauthenticated', 'sign in first'));
-    if (!roles.includes(req.auth.role)) {
-      return next(new ApiError(403, 'forbidden', `this needs one of the roles: ${roles.join(', ')}`));
-    }
-    next();
-  };
+export interface BodyLimits {
+  /** protected routes */
+  small: string;
+  /** protected routes that take a whole network */
+  large: string;
+  /** public routes (sign-in): anyone may send these */
+  public: string;
 }
 
 /** Wrap an async handler so a rejection reaches the error handler. */
@@ -58,15 +50,28 @@ export const handle =
 
 export class RouteTable {
   readonly specs: RouteSpec[] = [];
+  private readonly parsers: Record<BodySize | 'public', RequestHandler>;
+
   constructor(
     private readonly router: Router,
     private readonly auth: RequestHandler,
+    limits: BodyLimits = { small: '2mb', large: '100mb', public: '16kb' },
     private readonly prefix = '/api',
-  ) {}
+  ) {
+    // body-parser counts the limit on the inflated bytes as they stream, so a gzip bomb stops at the limit.
+    const json = (limit: string) => express.json({ limit, inflate: true });
+    this.parsers = { small: json(limits.small), large: json(limits.large), public: json(limits.public) };
+  }
 
-  add(method: Method, path: string, roles: readonly Role[] | 'public', ...handlers: RequestHandler[]) {
-    this.specs.push({ method, path: this.prefix + path, roles });
-    const guards = roles === 'public' ? [] : [this.auth, requireRole(...roles)];
+  /** `roles` is the role list (or 'public'), or options with the roles, the body size and the password-change exemption. */
+  add(method: Method, path: string, roles: readonly Role[] | 'public' | RouteOptions, ...handlers: RequestHandler[]) {
+    const opts: RouteOptions = roles === 'public' || Array.isArray(roles) ? { roles: roles as readonly Role[] | 'public' } : (roles as RouteOptions);
+    const body = opts.body ?? 'small';
+    this.specs.push({ method, path: this.prefix + path, roles: opts.roles, body, ...(opts.whilePasswordChangeDue ? { whilePasswordChangeDue: true } : {}) });
+    const guards =
+      opts.roles === 'public'
+        ? [this.parsers.public]
+        : [this.auth, requireRole(...opts.roles), ...(opts.whilePasswordChangeDue ? [] : [requireCurrentPassword]), this.parsers[body]];
     this.router[method](path, ...guards, ...handlers.map(handle));
   }
 }

@@ -56,7 +56,7 @@ function multipartFiles(limitMb: number): RequestHandler {
 export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
   const sequelize = ctx.db.sequelize;
 
-  routes.add('post', '/network/import', can.editNetwork, multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
+  routes.add('post', '/network/import', { roles: can.editNetwork, body: 'large' }, multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
     const { dryRun, replace } = parseOr400(importQuerySchema, req.query, 'query');
     let input: Awaited<ReturnType<typeof readUploads>>;
     if (req.is('multipart/form-data')) {

@@ -13,11 +13,24 @@ export interface Actor {
   email?: string;
 }
 
-export type AuditAction = 'create' | 'update' | 'delete' | 'import';
-/** An entity kind, or 'network' for an import of a whole document. */
-export type AuditKind = EntityKind | 'network';
-export const AUDIT_KINDS: readonly AuditKind[] = ['sites', 'services', 'groups', 'carriages', 'feeds', 'network'];
-export const AUDIT_ACTIONS: readonly AuditAction[] = ['create', 'update', 'delete', 'import'];
+/** What was done to people: see recordPeopleAudit. */
+export const PEOPLE_ACTIONS = [
+  'invite',
+  'role-change',
+  'disable',
+  'enable',
+  'password-change',
+  'password-set',
+  'sign-in',
+  'sign-in-failed',
+  'sign-out',
+] as const;
+export type PeopleAction = (typeof PEOPLE_ACTIONS)[number];
+export type AuditAction = 'create' | 'update' | 'delete' | 'import' | PeopleAction;
+/** An entity kind, 'network' for an import of a whole document, or 'people' for accounts and sign-ins. */
+export type AuditKind = EntityKind | 'network' | 'people';
+export const AUDIT_KINDS: readonly AuditKind[] = ['sites', 'services', 'groups', 'carriages', 'feeds', 'network', 'people'];
+export const AUDIT_ACTIONS: readonly AuditAction[] = ['create', 'update', 'delete', 'import', ...PEOPLE_ACTIONS];
 
 export interface AuditEntry {
   action: AuditAction;
@@ -33,7 +46,7 @@ export async function recordAudit(
   sequelize: Sequelize,
   transaction: Transaction,
   actor: Actor,
-  networkVersion: number,
+  networkVersion: number | null,
   entries: readonly AuditEntry[],
 ): Promise<void> {
   await inBatches(entries, async (batch) => {
@@ -99,4 +112,29 @@ export async function listAudit(sequelize: Sequelize, q: AuditQuery): Promise<{ 
   );
   const items = (rows as Array<AuditItem & { at: Date }>).map((r) => ({ ...r, at: new Date(r.at).toISOString() }));
   return { items, total: (countRows as { n: number }[])[0].n, page: q.page, pageSize: q.pageSize };
+}
+
+export interface PeopleEntry {
+  action: PeopleAction;
+  /** the e-mail of the account concerned (for a failed sign-in: the e-mail tried, cut to 320 characters) */
+  email: string;
+  before?: unknown;
+  after?: unknown;
+}
+
+/**
+ * An event about people: invitations, role changes, disables, passwords and
+ * sign-ins. Never a password or a hash: callers pass only what is shown.
+ * With a transaction it commits with the change; without one (sign-ins) it
+ * stands alone. No network version: people are not part of the network.
+ */
+export async function recordPeopleAudit(sequelize: Sequelize, actor: Actor, entry: PeopleEntry, transaction?: Transaction): Promise<void> {
+  await sequelize.query(
+    `INSERT INTO audit_log (user_id, user_email, action, entity_kind, entity_code, before, after, network_version)
+     VALUES ($1::int4, $2::text, $3::text, 'people', $4::text, $5::jsonb, $6::jsonb, NULL)`,
+    {
+      bind: [actor.userId ?? null, actor.email ?? null, entry.action, entry.email.slice(0, 320), json(entry.before), json(entry.after)],
+      ...(transaction ? { transaction } : {}),
+    },
+  );
 }

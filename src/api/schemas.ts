@@ -14,6 +14,8 @@ export const userSchema = z.object({
   email: z.string(),
   name: z.string(),
   role: z.enum(ROLES),
+  /** true after an admin set a temporary password: the person must choose a new one first */
+  mustChangePassword: z.boolean().optional(),
 });
 export type User = z.infer<typeof userSchema>;
 
@@ -126,8 +128,10 @@ export const importReportSchema = z.object({
   networkVersion: z.number().optional(),
 });
 
-export const AUDIT_KINDS = [...ENTITY_KINDS, 'network'] as const;
-export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import'] as const;
+export const AUDIT_KINDS = [...ENTITY_KINDS, 'network', 'people'] as const;
+/** What was done to people (server/services/audit.ts PEOPLE_ACTIONS). */
+export const PEOPLE_AUDIT_ACTIONS = ['invite', 'role-change', 'disable', 'enable', 'password-change', 'password-set', 'sign-in', 'sign-in-failed', 'sign-out'] as const;
+export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import', ...PEOPLE_AUDIT_ACTIONS] as const;
 export const auditItemSchema = z.object({
   id: z.number(),
   at: z.string(),

@@ -3,5 +3,9 @@
  * list runs under tsx, vitest and any bundler; add new files at the end.
  */
 import * as initialSchema from './0001-initial-schema';
+import * as userSessions from './0002-user-sessions';
 
-export const migrations = [{ name: '0001-initial-schema', ...initialSchema }];
+export const migrations = [
+  { name: '0001-initial-schema', ...initialSchema },
+  { name: '0002-user-sessions', ...userSessions },
+];

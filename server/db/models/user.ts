@@ -8,12 +8,24 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare role: Role;
   declare passwordHash: string;
   declare disabled: CreationOptional<boolean>;
+  /** bumped by sign-out and password changes; a token issued under an older version is refused */
+  declare tokenVersion: CreationOptional<number>;
+  /** set when an admin gives a temporary password; cleared by the person's own change */
+  declare mustChangePassword: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
   /** What the API shows of a person: never the hash. */
   toPublic() {
-    return { id: this.id, email: this.email, name: this.name, role: this.role, disabled: this.disabled, createdAt: this.createdAt };
+    return {
+      id: this.id,
+      email: this.email,
+      name: this.name,
+      role: this.role,
+      disabled: this.disabled,
+      mustChangePassword: this.mustChangePassword,
+      createdAt: this.createdAt,
+    };
   }
 }
 
@@ -26,6 +38,8 @@ export function defineUser(sequelize: Sequelize) {
       role: { type: DataTypes.TEXT, allowNull: false },
       passwordHash: { type: DataTypes.TEXT, allowNull: false, field: 'password_hash' },
       disabled: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      tokenVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0, field: 'token_version' },
+      mustChangePassword: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false, field: 'must_change_password' },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
     },

@@ -43,6 +43,12 @@ export function useAccountActions() {
         await mutate(accountsKey());
         return answer;
       },
+      /** A temporary password: the person's sessions end and they choose a new one at the next sign-in. */
+      setTemporaryPassword: async (id: number | string, password: string) => {
+        const answer = await send(api.userPassword(id), { method: 'PUT', body: { password } });
+        await mutate(accountsKey());
+        return answer;
+      },
     }),
     [send, mutate],
   );

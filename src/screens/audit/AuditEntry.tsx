@@ -16,18 +16,46 @@ import { detailHref, WORDS } from '../inventory/kinds';
 import { CodeLink } from '../inventory/parts/CodeLink';
 import { fieldChanges } from './auditView';
 
-const ACTION_TONE: Record<AuditItem['action'], Tone> = { create: 'good', update: 'accent', delete: 'bad', import: 'neutral' };
-const ACTION_WORD: Record<AuditItem['action'], string> = { create: 'created', update: 'changed', delete: 'deleted', import: 'imported' };
+const ACTION_TONE: Record<AuditItem['action'], Tone> = {
+  create: 'good',
+  update: 'accent',
+  delete: 'bad',
+  import: 'neutral',
+  invite: 'good',
+  'role-change': 'accent',
+  disable: 'bad',
+  enable: 'good',
+  'password-change': 'neutral',
+  'password-set': 'accent',
+  'sign-in': 'neutral',
+  'sign-in-failed': 'bad',
+  'sign-out': 'neutral',
+};
+const ACTION_WORD: Record<AuditItem['action'], string> = {
+  create: 'created',
+  update: 'changed',
+  delete: 'deleted',
+  import: 'imported',
+  invite: 'invited',
+  'role-change': 'role changed',
+  disable: 'disabled',
+  enable: 'enabled',
+  'password-change': 'own password changed',
+  'password-set': 'temporary password set',
+  'sign-in': 'signed in',
+  'sign-in-failed': 'sign-in refused',
+  'sign-out': 'signed out everywhere',
+};
 
-const kindWord = (kind: AuditItem['entityKind']) => (kind === 'network' ? 'network' : WORDS[kind].one);
+const kindWord = (kind: AuditItem['entityKind']) => (kind === 'network' ? 'network' : kind === 'people' ? 'account' : WORDS[kind].one);
 
 export function AuditEntry({ item }: { item: AuditItem }) {
   const [open, setOpen] = useState(false);
-  const order = item.entityKind === 'network' ? [] : ['code', ...FORM_FIELDS[item.entityKind].map((f) => f.name), 'version'];
+  const order = item.entityKind === 'network' || item.entityKind === 'people' ? [] : ['code', ...FORM_FIELDS[item.entityKind].map((f) => f.name), 'version'];
   const changes = open ? fieldChanges(item.before, item.after, order) : [];
   // Only an update has two sides to compare; a create or delete has one.
   const compare = item.action === 'update';
-  const linkable = item.entityCode && item.entityKind !== 'network' && item.action !== 'delete';
+  const linkable = item.entityCode && item.entityKind !== 'network' && item.entityKind !== 'people' && item.action !== 'delete';
   return (
     <View style={styles.card} testID={`audit-${item.id}`}>
       <View style={styles.head}>
@@ -41,7 +69,7 @@ export function AuditEntry({ item }: { item: AuditItem }) {
           )
         ) : null}
       </View>
-      <Text style={styles.meta}>{`${whenText(item.at)} · by ${item.userEmail ?? 'unknown'}${item.networkVersion !== null ? ` · network version ${item.networkVersion}` : ''}`}</Text>
+      <Text style={styles.meta}>{`${whenText(item.at)} · by ${item.userEmail ?? (item.entityKind === 'people' ? 'nobody signed in' : 'unknown')}${item.networkVersion !== null ? ` · network version ${item.networkVersion}` : ''}`}</Text>
       <Button
         label={open ? 'Hide before and after' : 'Show before and after'}
         variant="quiet"

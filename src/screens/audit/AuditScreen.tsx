@@ -20,7 +20,7 @@ import { AuditEntry } from './AuditEntry';
 import { AUDIT_PAGE_SIZE, auditApiPath, auditFilterFromParams, type AuditKindFilter } from './auditView';
 
 const ALL = 'all';
-const KIND_LABEL: Record<AuditKindFilter, string> = { sites: 'sites', services: 'services', groups: 'groups', carriages: 'carriages', feeds: 'feeds', network: 'imports' };
+const KIND_LABEL: Record<AuditKindFilter, string> = { sites: 'sites', services: 'services', groups: 'groups', carriages: 'carriages', feeds: 'feeds', network: 'imports', people: 'people and sign-ins' };
 
 export function AuditScreen() {
   const { user } = useSession();
@@ -39,7 +39,7 @@ export function AuditScreen() {
   }
 
   return (
-    <Screen title="Audit log" subtitle="Who changed the network, when, and what it was before" testID="audit-screen">
+    <Screen title="Audit log" subtitle="Who changed the network or the people, when, and what it was before; sign-ins too" testID="audit-screen">
       <Choice
         label="Kind"
         options={[{ value: ALL, label: 'all' }, ...AUDIT_KINDS.map((k) => ({ value: k, label: KIND_LABEL[k] }))]}
@@ -50,7 +50,7 @@ export function AuditScreen() {
       <Section title={audit.data ? `${audit.data.total.toLocaleString('en')} ${audit.data.total === 1 ? 'change' : 'changes'}` : 'Changes'} note="Newest first" testID="audit-list">
         {audit.data ? (
           audit.data.total === 0 ? (
-            <EmptyState title="No changes recorded" message={filter.kind ? 'Nothing of this kind has changed yet.' : 'The network has not been changed yet.'} testID="audit-empty" />
+            <EmptyState title="No changes recorded" message={filter.kind ? 'Nothing of this kind has changed yet.' : 'Nothing has been recorded yet.'} testID="audit-empty" />
           ) : (
             <>
               <View style={styles.list}>

@@ -1,7 +1,9 @@
 /**
  * One account on the People screen: who, role, whether they may sign in,
- * and (for anyone but yourself) changing the role or disabling the account.
- * The server refuses changes to your own role or account anyway.
+ * and (for anyone but yourself) changing the role, disabling the account or
+ * setting a temporary password. The server refuses changes to your own role
+ * or account, and demoting or disabling the last active admin; its refusal
+ * is shown as the sentence it sends.
  */
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
@@ -13,9 +15,11 @@ import { Button } from '@/src/components/Button';
 import { Card } from '@/src/components/Card';
 import { Choice } from '@/src/components/Choice';
 import { describeError } from '@/src/components/states';
+import { TextField } from '@/src/components/TextField';
+import { temporaryPasswordSchema } from '@/shared/schemas/people';
 import { colors, fonts, space, type } from '@/src/theme';
 
-type Mode = 'view' | 'role' | 'confirmDisable';
+type Mode = 'view' | 'role' | 'confirmDisable' | 'password';
 
 function joinedOn(createdAt: string): string {
   const d = new Date(createdAt);
@@ -28,7 +32,29 @@ export function PersonCard({ account, isSelf }: { account: Account; isSelf: bool
   const [role, setRole] = useState<Role>(account.role);
   const [busy, setBusy] = useState(false);
   const [failure, setFailure] = useState<string | null>(null);
+  const [temporary, setTemporary] = useState('');
+  const [done, setDone] = useState<string | null>(null);
   const id = `person-${account.id}`;
+
+  async function setPassword() {
+    const checked = temporaryPasswordSchema.safeParse({ password: temporary });
+    if (!checked.success) {
+      setFailure(checked.error.issues[0]?.message ?? 'That password cannot be used.');
+      return;
+    }
+    setBusy(true);
+    setFailure(null);
+    try {
+      await actions.setTemporaryPassword(account.id, temporary);
+      setTemporary('');
+      setMode('view');
+      setDone(`Temporary password set. Give it to ${account.email} in person; their sessions have ended and they must choose a new password at the next sign-in.`);
+    } catch (e) {
+      setFailure(describeError(e));
+    } finally {
+      setBusy(false);
+    }
+  }
 
   async function apply(change: AccountChange) {
     setBusy(true);
@@ -61,6 +87,7 @@ export function PersonCard({ account, isSelf }: { account: Account; isSelf: bool
         )}
       </View>
       <Text style={styles.meta}>Added {joinedOn(account.createdAt)}</Text>
+      {account.mustChangePassword ? <Text style={styles.meta}>Has a temporary password: must choose a new one at the next sign-in.</Text> : null}
 
       {isSelf ? (
         <Text style={styles.meta}>This is your account. Another admin can change its role or disable it.</Text>
@@ -70,6 +97,23 @@ export function PersonCard({ account, isSelf }: { account: Account; isSelf: bool
           <View style={styles.actions}>
             <Button label="Save role" onPress={() => void apply({ role })} busy={busy} disabled={role === account.role} testID={`${id}-save-role`} />
             <Button label="Cancel" variant="quiet" onPress={() => { setRole(account.role); setMode('view'); setFailure(null); }} disabled={busy} />
+          </View>
+        </View>
+      ) : mode === 'password' ? (
+        <View style={styles.block}>
+          <TextField
+            label={`Temporary password for ${account.email}`}
+            value={temporary}
+            onChangeText={setTemporary}
+            hint="At least 10 characters, not a commonly used password. They must change it when they next sign in."
+            autoCapitalize="none"
+            autoCorrect={false}
+            autoComplete="off"
+            testID={`${id}-temporary`}
+          />
+          <View style={styles.actions}>
+            <Button label="Set temporary password" onPress={() => void setPassword()} busy={busy} testID={`${id}-save-password`} />
+            <Button label="Cancel" variant="quiet" onPress={() => { setTemporary(''); setMode('view'); setFailure(null); }} disabled={busy} />
           </View>
         </View>
       ) : mode === 'confirmDisable' ? (
@@ -82,7 +126,8 @@ export function PersonCard({ account, isSelf }: { account: Account; isSelf: bool
         </View>
       ) : (
         <View style={styles.actions}>
-          <Button label="Change role" variant="secondary" accessibilityLabel={`Change role of ${account.email}`} onPress={() => setMode('role')} testID={`${id}-change-role`} />
+          <Button label="Change role" variant="secondary" accessibilityLabel={`Change role of ${account.email}`} onPress={() => { setDone(null); setMode('role'); }} testID={`${id}-change-role`} />
+          <Button label="Set temporary password" variant="secondary" accessibilityLabel={`Set a temporary password for ${account.email}`} onPress={() => { setDone(null); setMode('password'); }} testID={`${id}-set-password`} />
           {account.disabled ? (
             <Button label="Enable" variant="secondary" accessibilityLabel={`Enable ${account.email}`} onPress={() => void apply({ disabled: false })} busy={busy} testID={`${id}-enable`} />
           ) : (
@@ -90,6 +135,11 @@ export function PersonCard({ account, isSelf }: { account: Account; isSelf: bool
           )}
         </View>
       )}
+      {done ? (
+        <Text style={styles.body} accessibilityRole="alert" testID={`${id}-done`}>
+          {done}
+        </Text>
+      ) : null}
       {failure ? (
         <Text style={styles.failure} accessibilityRole="alert" testID={`${id}-error`}>
           {`⚠ ${failure}`}

@@ -8,7 +8,7 @@ import { invitationSchema } from '@/shared/schemas/people';
 import { isApiError } from '@/src/api/client';
 import type { Invitation } from '@/src/api/queries/accounts';
 
-export { invitationSchema, PASSWORD_MIN, PASSWORD_MAX } from '@/shared/schemas/people';
+export { invitationSchema, PASSWORD_MIN, PASSWORD_MAX_BYTES } from '@/shared/schemas/people';
 
 export type InvitationField = keyof Invitation;
 export type InvitationErrors = Partial<Record<InvitationField | 'form', string>>;

@@ -1,7 +1,9 @@
 /**
  * Sign in with email and password. Shows the form and, after a refusal, one
  * plain message; nothing else. On success goes to `next` (a same-origin path,
- * see src/session/nextPath.ts) or Home.
+ * see src/session/nextPath.ts) or Home. After a sign-in with a temporary
+ * password (set by an admin) the person chooses a new one first: the session
+ * starts only with the token the change hands back.
  */
 import Head from 'expo-router/head';
 import { Redirect, useLocalSearchParams } from 'expo-router';
@@ -9,7 +11,9 @@ import { useRef, useState } from 'react';
 import { KeyboardAvoidingView, Platform, ScrollView, StyleSheet, Text, View, type TextInput } from 'react-native';
 import { api } from '@/shared/api';
 import { parseAnswer, request } from '@/src/api/client';
-import { loginAnswerSchema } from '@/src/api/schemas';
+import { loginAnswerSchema, type LoginAnswer } from '@/src/api/schemas';
+import { changePasswordWith } from '@/src/api/queries/ownAccount';
+import { ChangePasswordForm } from '@/src/components/account/ChangePasswordForm';
 import { Button } from '@/src/components/Button';
 import { BrandMark } from '@/src/components/nav/BrandMark';
 import { LoadingState } from '@/src/components/states';
@@ -31,6 +35,8 @@ export function SignInScreen() {
   const [fieldErrors, setFieldErrors] = useState<SignInFieldErrors>({});
   const [failure, setFailure] = useState<string | null>(null);
   const [sending, setSending] = useState(false);
+  /** signed in with a temporary password: the new one must be chosen before the session starts */
+  const [pending, setPending] = useState<LoginAnswer | null>(null);
   const passwordRef = useRef<TextInput>(null);
 
   if (session.status === 'restoring') return <LoadingState what="your session" />;
@@ -46,12 +52,51 @@ export function SignInScreen() {
     setSending(true);
     try {
       const answer = parseAnswer(loginAnswerSchema, api.login, await request(api.login, { method: 'POST', body: { email: email.trim(), password } }));
+      if (answer.user.mustChangePassword) {
+        setPending(answer);
+        setSending(false);
+        return;
+      }
       session.signIn(answer.token, answer.user);
     } catch (e) {
       setFailure(signInFailureMessage(e));
       setPassword('');
       setSending(false);
     }
+  }
+
+  if (pending) {
+    return (
+      <KeyboardAvoidingView style={styles.page} behavior={Platform.OS === 'ios' ? 'padding' : undefined}>
+        <Head>
+          <title>Choose a new password · Headwater</title>
+        </Head>
+        <ScrollView contentContainerStyle={styles.scroll} keyboardShouldPersistTaps="handled" role="main">
+          <View style={styles.card} testID="must-change-password">
+            <BrandMark size={32} />
+            <Text style={styles.title} {...heading(1)}>
+              Choose a new password
+            </Text>
+            <Text style={styles.lead}>
+              {`${pending.user.email} has a temporary password set by an admin. Choose your own before going on; the temporary one then stops working.`}
+            </Text>
+            <ChangePasswordForm
+              currentLabel="Temporary password"
+              submitLabel="Save and continue"
+              onSubmit={async (current, next) => {
+                const answer = await changePasswordWith(pending.token, current, next);
+                session.signIn(answer.token, answer.user);
+              }}
+              onCancel={() => {
+                setPending(null);
+                setPassword('');
+              }}
+              testID="forced-change"
+            />
+          </View>
+        </ScrollView>
+      </KeyboardAvoidingView>
+    );
   }
 
   return (
@@ -120,6 +165,7 @@ const styles = StyleSheet.create({
     gap: space.lg,
   },
   title: { ...type.title },
+  lead: { ...type.body },
   failure: {
     flexDirection: 'row',
     alignItems: 'center',
