@@ -134,3 +134,14 @@ export function capIssues(issues: readonly ImportIssue[], alsoUnlisted = 0, max 
   const shown = issues.length > max ? issues.slice(0, max) : [...issues];
   return { shown, more: issues.length - shown.length + alsoUnlisted };
 }
+
+/** File-level issues of one upload, kept up to KEEP_ISSUES and counted beyond. */
+export class IssueList {
+  readonly list: ImportIssue[] = [];
+  more = 0;
+
+  push(issue: ImportIssue): void {
+    if (this.list.length >= KEEP_ISSUES) this.more++;
+    else this.list.push(issue);
+  }
+}

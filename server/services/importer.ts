@@ -30,6 +30,8 @@ export interface ImportOptions {
   rowsOf?: RowsOf;
   /** problems found reading the upload itself (file names, headers, CSV syntax), reported first */
   sourceErrors?: ImportIssue[];
+  /** more of them, counted only */
+  moreSourceErrors?: number;
 }
 
 /** Below this many written rows the planner's old statistics do no harm (tables.ts, analyze). */
@@ -45,11 +47,11 @@ type Checked = ({ document: NetworkDocument; warnings: ImportIssue[] } | { docum
 /** Validates against the stored network: an upsert may refer to stored entities, a replace may not. */
 function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions, replace: boolean): Checked {
   // an upload that could not be read at all has nothing more to validate
-  if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [] };
+  if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [], moreErrors: opts.moreSourceErrors };
   const result = validateDocument(raw, { rowsOf: opts.rowsOf, context: replace ? undefined : storedOutside(stored, raw) });
   const errors = [...(opts.sourceErrors ?? []), ...result.errors];
   if (errors.length === 0 && result.document && !replace) errors.push(...checkKeptFeeds(stored, result.document, opts.rowsOf));
-  const unlisted = { moreErrors: result.moreErrors, moreWarnings: result.moreWarnings };
+  const unlisted = { moreErrors: (result.moreErrors ?? 0) + (opts.moreSourceErrors ?? 0), moreWarnings: result.moreWarnings };
   if (errors.length > 0 || !result.document) return { document: null, errors, warnings: result.warnings, ...unlisted };
   return { document: result.document, warnings: result.warnings, ...unlisted };
 }
