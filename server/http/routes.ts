@@ -5,6 +5,7 @@
 import type { RequestHandler, Router } from 'express';
 import type { Role } from '@/shared/api';
 import { ApiError } from './errors';
+import { inputGuard } from './inputGuard';
 import { verifyToken, type TokenClaims } from '../auth/tokens';
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -67,6 +68,7 @@ export class RouteTable {
   add(method: Method, path: string, roles: readonly Role[] | 'public', ...handlers: RequestHandler[]) {
     this.specs.push({ method, path: this.prefix + path, roles });
     const guards = roles === 'public' ? [] : [this.auth, requireRole(...roles)];
-    this.router[method](path, ...guards, ...handlers.map(handle));
+    // inputGuard after the body is parsed and before any handler (server/http/inputGuard.ts)
+    this.router[method](path, ...guards, inputGuard, ...handlers.map(handle));
   }
 }
