@@ -1,7 +1,8 @@
 import JSZip from 'jszip';
 import { describe, expect, it } from 'vitest';
 import { entitySchemas, ENTITY_KINDS } from '@/shared/schemas/network';
-import { CSV_COLUMNS, cellText, cellValue } from './csv-columns';
+import fc from 'fast-check';
+import { CSV_COLUMNS, cellText, cellValue, guardCell, unguardCell } from './csv-columns';
 import { CSV_FILE_NAMES, documentToCsv, documentToZip, kindOfFile, readCsvFiles } from './csv';
 import { UPLOAD_LIMITS, UploadLimitError } from './limits';
 import { readNetworkUpload, validateCsvFiles } from './upload';
@@ -219,5 +220,61 @@ describe('zip size limit', () => {
     // under a higher limit the file is read: its one 3 MB "record" is over the record size, reported once
     expect(read.errors.map((e) => e.rule)).toEqual(['csv-syntax']);
     expect(read.errors[0].message.length).toBeLessThan(300);
+  });
+});
+
+describe('spreadsheet formula guard', () => {
+  it.each([
+    ['=SUM(A1)', "'=SUM(A1)"],
+    ['+1', "'+1"],
+    ['-A1', "'-A1"],
+    ['@x', "'@x"],
+    ['\tx', "'\tx"],
+    ['\rx', "'\rx"],
+    ["'=x", "''=x"],
+    ["'abc", "'abc"],
+    ['abc', 'abc'],
+    ['', ''],
+  ])('export writes %j as %j, and import reads it back', (text, cell) => {
+    expect(guardCell(text)).toBe(cell);
+    expect(unguardCell(cell)).toBe(text);
+  });
+
+  it('import takes off exactly one quote, and only before a formula character', () => {
+    expect(cellValue("'=x", 'string')).toBe('=x');
+    expect(cellValue("''=x", 'string')).toBe("'=x");
+    expect(cellValue("'abc", 'string')).toBe("'abc");
+    expect(cellValue("'-A;B", 'list')).toEqual(['-A', 'B']);
+  });
+
+  it('never guards numbers: -12.5 is written and read as a number', () => {
+    expect(cellText(-12.5)).toBe('-12.5');
+    expect(cellValue('-12.5', 'number')).toBe(-12.5);
+    expect(cellText('-12.5')).toBe("'-12.5");
+  });
+
+  it('export then import is the identity on any text', () => {
+    const start = fc.constantFrom('', '=', '+', '-', '@', '\t', '\r', "'", "''", "'=", "''-", 'a');
+    fc.assert(fc.property(start, fc.string(), (head, tail) => {
+      const text = head + tail;
+      expect(unguardCell(guardCell(text))).toBe(text);
+    }), { numRuns: 2000 });
+  });
+
+  it('round-trips a network whose text starts with formula characters through the CSV files', () => {
+    const doc = smallNetwork();
+    doc.sites[0].name = '=HYPERLINK("x")';
+    doc.services[0].name = "'=already quoted";
+    doc.groups[2].note = '-40 dB pad, @ the top';
+    doc.sites[1].lon = -12.5;
+    const files = documentToCsv(doc);
+    expect(files['sites.csv']).toContain(`'=HYPERLINK`);
+    expect(files['sites.csv']).toContain(',-12.5,');
+    const result = validateCsvFiles(Object.entries(files).map(([name, text]) => ({ name, text })));
+    expect(result.errors).toEqual([]);
+    expect(result.document?.sites[0].name).toBe('=HYPERLINK("x")');
+    expect(result.document?.services[0].name).toBe("'=already quoted");
+    expect(result.document?.groups[2].note).toBe('-40 dB pad, @ the top');
+    expect(result.document?.sites[1].lon).toBe(-12.5);
   });
 });
