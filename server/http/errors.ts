@@ -6,6 +6,8 @@
  */
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError, type ZodType } from 'zod';
+import { clip } from '@/shared/clip';
+import { databaseRefusal, refusalError } from '../services/inventory/dbErrors';
 
 export class ApiError extends Error {
   constructor(
@@ -23,8 +25,9 @@ export const notFound = (message: string, details?: unknown) => new ApiError(404
 export const conflict = (message: string, details?: unknown) => new ApiError(409, 'conflict', message, details);
 export const unprocessable = (message: string, details?: unknown) => new ApiError(422, 'invalid', message, details);
 
+/** Each issue's field and message; both cut short, as a field name may be a key someone sent. */
 export function zodDetails(err: ZodError) {
-  return err.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message }));
+  return err.issues.slice(0, 100).map((i) => ({ field: clip(i.path.map(String).join('.')) || '(body)', message: clip(i.message, 200) }));
 }
 
 /** Parse with a zod schema; a failure is a 400 naming each field. */
@@ -63,8 +66,17 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     res.status(400).json({ error: { code: 'bad-upload', message: `upload refused: ${err.message}` } });
     return;
   }
+  // A refusal by the database's constraints is about the input: said in the API's words (dbErrors.ts), never PostgreSQL's.
+  const refusal = databaseRefusal(err);
+  if (refusal) {
+    const e = refusalError(refusal);
+    res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.details ? { details: e.details } : {}) } });
+    return;
+  }
   if (status >= 400 && status < 500) {
-    res.status(status).json({ error: { code: 'bad-request', message: String(err.message ?? 'bad request') } });
+    // only a message its maker marked as safe to show (http-errors' expose), and short
+    const message = err.expose === true && typeof err.message === 'string' ? clip(err.message, 200) : 'the request cannot be read';
+    res.status(status).json({ error: { code: 'bad-request', message } });
     return;
   }
   console.error('[error]', err);

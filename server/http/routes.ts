@@ -12,6 +12,7 @@ import type { Role } from '@/shared/api';
 import { requireCurrentPassword, requireRole } from '../auth/authenticate';
 
 export { authenticate, requireRole } from '../auth/authenticate';
+import { inputGuard } from './inputGuard';
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 /** The JSON body limit: small for most routes, large for whole network documents. Multipart bodies are left to the route (multer). */
@@ -72,6 +73,7 @@ export class RouteTable {
       opts.roles === 'public'
         ? [this.parsers.public]
         : [this.auth, requireRole(...opts.roles), ...(opts.whilePasswordChangeDue ? [] : [requireCurrentPassword]), this.parsers[body]];
-    this.router[method](path, ...guards, ...handlers.map(handle));
+    // inputGuard after the body is parsed and before any handler (server/http/inputGuard.ts)
+    this.router[method](path, ...guards, inputGuard, ...handlers.map(handle));
   }
 }

@@ -76,3 +76,20 @@ describe('isCanonical agrees with the schemas', () => {
     expect(isCanonical('services', { code: 'S', name: 'S', kind: 'fm' })).toBe(true);
   });
 });
+
+describe('isCanonical and the names every object answers to', () => {
+  it('does not count "constructor" or "__proto__" as one of the required fields', () => {
+    const site = JSON.parse('{"code":"S1","name":"One","role":"origin","lat":0,"constructor":1}');
+    expect(isCanonical('sites', site)).toBe(false);
+    const proto = JSON.parse('{"code":"S1","name":"One","role":"origin","lat":0,"lon":0,"__proto__":{}}');
+    expect(() => isCanonical('sites', proto)).not.toThrow();
+    expect(isCanonical('sites', proto)).toBe(false);
+  });
+
+  it('refuses the reserved names as codes, and text PostgreSQL cannot store', () => {
+    for (const code of ['__proto__', 'constructor', 'prototype']) expect(isCanonical('services', { code, name: 'X', kind: 'fm' })).toBe(false);
+    expect(isCanonical('services', { code: 'S', name: 'a\u0000b', kind: 'fm' })).toBe(false);
+    expect(isCanonical('services', { code: 'S', name: 'a\ud800b', kind: 'fm' })).toBe(false);
+    expect(isCanonical('services', { code: 'S', name: 'a\ud83d\udce1b', kind: 'fm' })).toBe(true);
+  });
+});

@@ -8,6 +8,7 @@
  * entities against the schema. Why: at 400k entities the schema's copying
  * and checking is most of the import time.
  */
+import { isStorableText } from '@/shared/text';
 import { CODE_PATTERN, FEED_ROLES, MEDIA, POLARISATIONS, SERVICE_KINDS, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
 
 type Rec = Record<string, unknown>;
@@ -26,8 +27,8 @@ const oneOf = (values: readonly string[]): FieldCheck => {
   return (v) => typeof v === 'string' && set.has(v);
 };
 /** A string the schema's trim() leaves as it is, with a length the schema allows. */
-const trimmed = (max: number): FieldCheck => (v) => typeof v === 'string' && v.length >= 1 && v.length <= max && v.trim() === v;
-const text = (max: number): FieldCheck => (v) => typeof v === 'string' && v.length <= max;
+const trimmed = (max: number): FieldCheck => (v) => typeof v === 'string' && v.length >= 1 && v.length <= max && v.trim() === v && isStorableText(v);
+const text = (max: number): FieldCheck => (v) => typeof v === 'string' && v.length <= max && isStorableText(v);
 
 interface Shape {
   required: Record<string, FieldCheck>;
@@ -81,14 +82,13 @@ export function isCanonical(kind: EntityKind, raw: unknown): raw is Rec {
   for (const key in entity) {
     if (!Object.prototype.hasOwnProperty.call(entity, key)) return false;
     const value = entity[key];
-    const mustHave = shape.required[key];
-    if (mustHave !== undefined) {
-      if (!mustHave(value)) return false;
+    // Own keys only: "constructor" or "__proto__" must not find Object.prototype's members.
+    if (Object.hasOwn(shape.required, key)) {
+      if (!shape.required[key](value)) return false;
       required++;
       continue;
     }
-    const mayHave = shape.optional[key];
-    if (mayHave === undefined || !mayHave(value)) return false;
+    if (!Object.hasOwn(shape.optional, key) || !shape.optional[key](value)) return false;
   }
   return required === REQUIRED_COUNT[kind];
 }

@@ -39,7 +39,34 @@ export const REQUIRED_COLUMNS: Record<EntityKind, readonly string[]> = {
 export const LIST_SEPARATOR = ';';
 
 // A plain decimal number; Number() alone would also take "", "0x1F" and "Infinity".
-const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+// Written so that no two parts can match the same digits (the fraction needs its
+// point), so a long digit run that fails at its end is given up in one pass:
+// the earlier form \d+\.?\d* tried every split of the run (quadratic; a 100 KB
+// cell held the event loop for half a minute).
+const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/**
+ * Spreadsheet formula guard. A spreadsheet takes a cell starting with "=",
+ * "+", "-", "@", a tab or a carriage return as a formula; so export writes a
+ * text cell that starts with one of them, after any number of "'", with one
+ * more "'" in front, and import takes exactly one "'" off a cell that starts
+ * with one or more "'" and then one of them. Every other cell is left as it
+ * is ("'abc" stays "'abc"). So import(export(x)) = x for every text x:
+ * export adds the "'" exactly where import removes it. Numbers and true/false
+ * are written as such and never guarded ("-12.5" stays a number).
+ */
+const GUARDED = /^'+[=+\-@\t\r]/;
+const NEEDS_GUARD = /^'*[=+\-@\t\r]/;
+
+/** A text cell as export writes it. */
+export function guardCell(text: string): string {
+  return NEEDS_GUARD.test(text) ? `'${text}` : text;
+}
+
+/** A cell as import reads it: the one "'" export added, taken off again. */
+export function unguardCell(cell: string): string {
+  return GUARDED.test(cell) ? cell.slice(1) : cell;
+}
 
 /**
  * One cell as the JSON value it stands for; undefined for an empty cell.
@@ -48,8 +75,8 @@ const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
  * "abc")") rather than it becoming NaN.
  */
 export function cellValue(cell: string, type: ColumnType): unknown {
-  const text = cell.trim();
-  if (text === '') return undefined;
+  if (cell.trim() === '') return undefined;
+  const text = unguardCell(cell.trim());
   switch (type) {
     case 'number':
       return DECIMAL.test(text) ? Number(text) : cell;
@@ -60,13 +87,14 @@ export function cellValue(cell: string, type: ColumnType): unknown {
     case 'list':
       return text.split(LIST_SEPARATOR).map((item) => item.trim()).filter((item) => item !== '');
     default:
-      return cell;
+      return unguardCell(cell);
   }
 }
 
-/** A JSON value as its cell: the inverse of cellValue for every valid value. */
+/** A JSON value as its cell, formula-guarded when it is text: the inverse of cellValue for every valid value. */
 export function cellText(value: unknown): string {
   if (value === undefined || value === null) return '';
-  if (Array.isArray(value)) return value.join(LIST_SEPARATOR);
+  if (Array.isArray(value)) return guardCell(value.join(LIST_SEPARATOR));
+  if (typeof value === 'string') return guardCell(value);
   return String(value);
 }

@@ -1,21 +1,29 @@
 /**
- * Uploaded files -> a network document (docs/format.md):
- * one JSON document, or CSV files, each alone or in zips, read together as
- * one document. The kind of upload is told by the file name, else by the zip
- * signature.
+ * Uploaded files -> a network document (docs/format.md): one JSON document, or CSV
+ * files, each alone or in zips, read together as one document. The kind of
+ * upload is told by the file name, else by the zip signature. CSV files are
+ * streamed record by record (csv-read.ts), zip entries inflated as streams
+ * (zip.ts), and every byte and row counts against one budget per request
+ * (limits.ts): passing it throws UploadLimitError, which the route answers
+ * with 413.
  */
+import { Readable } from 'node:stream';
 import type { ImportIssue } from '@/shared/schemas/import';
-import { readCsvFiles, unzipCsvFiles, type CsvFile } from './csv';
+import { clip } from '@/shared/clip';
+import { NETWORK_FORMAT, type EntityKind } from '@/shared/schemas/network';
+import { claimFile, readCsvFiles, type CsvFile, type CsvRead } from './csv';
+import { CsvKindReader, readCsvStream } from './csv-read';
+import { IssueList, type RowsOf } from './issues';
+import { UploadBudget, UploadLimitError, type UploadLimits } from './limits';
 import { validateDocument, type ValidateOptions, type ValidationResult } from './validate';
-import type { RowsOf } from './issues';
+import { BadZipError, zipEntries } from './zip';
 
 // Every zip (local file header) starts with "PK\x03\x04" (PKWARE APPNOTE.TXT, section 4.3.7).
 const ZIP_SIGNATURE = [0x50, 0x4b, 0x03, 0x04];
 
-
 /** One uploaded file, read and validated (file-level errors first). */
-export async function readNetworkUpload(name: string, data: Uint8Array, opts: Omit<ValidateOptions, 'rowsOf'> = {}): Promise<ValidationResult> {
-  const read = await readUploads([{ name, data }]);
+export async function readNetworkUpload(name: string, data: Uint8Array, opts: Omit<ValidateOptions, 'rowsOf'> & { limits?: UploadLimits } = {}): Promise<ValidationResult> {
+  const read = await readUploads([{ name, data }], opts.limits);
   if (read.raw === undefined) return failed(read.sourceErrors);
   const result = validateDocument(read.raw, { ...opts, rowsOf: read.rowsOf });
   const errors = [...read.sourceErrors, ...result.errors];
@@ -43,6 +51,8 @@ export interface UploadRead {
   raw: unknown;
   rowsOf?: RowsOf;
   sourceErrors: ImportIssue[];
+  /** file-level issues found beyond those kept, counted only */
+  moreSourceErrors?: number;
 }
 
 const isZip = (f: UploadedFile) => /\.zip$/i.test(f.name) || ZIP_SIGNATURE.every((byte, i) => f.data[i] === byte);
@@ -51,34 +61,83 @@ const isCsv = (f: UploadedFile) => /\.csv$/i.test(f.name);
 
 const documentIssue = (rule: string, message: string, file?: string): ImportIssue => ({ kind: 'document', rule, message, ...(file ? { file } : {}) });
 
-export async function readUploads(files: readonly UploadedFile[]): Promise<UploadRead> {
+const asBuffer = (data: Uint8Array) => (Buffer.isBuffer(data) ? data : Buffer.from(data.buffer, data.byteOffset, data.byteLength));
+
+function readJson(file: UploadedFile, budget: UploadBudget): UploadRead {
+  budget.addBytes(file.data.byteLength);
+  let text = asBuffer(file.data).toString('utf8');
+  // Some editors save UTF-8 with a byte order mark, which JSON.parse refuses.
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  try {
+    return { raw: JSON.parse(text), sourceErrors: [] };
+  } catch (err) {
+    return { raw: undefined, sourceErrors: [documentIssue('invalid-json', `${file.name} is not valid JSON: ${clip((err as Error).message, 120)}`, file.name)] };
+  }
+}
+
+/** Reads every file of one request into one raw document; throws UploadLimitError past the budget. */
+export async function readUploads(uploaded: readonly UploadedFile[], limits?: UploadLimits): Promise<UploadRead> {
+  const budget = new UploadBudget(limits);
+  const files = uploaded.map((f) => ({ ...f, name: clip(f.name, 120) }));
   const json = files.filter(isJson);
   if (json.length > 0) {
     if (files.length > 1) {
-      const names = files.map((f) => f.name).join(', ');
+      const names = clip(files.map((f) => f.name).join(', '), 200);
       return { raw: undefined, sourceErrors: [documentIssue('mixed-upload', `upload one network document (.json) on its own, or CSV files; got ${names}`)] };
     }
-    try {
-      // Some editors save UTF-8 with a byte order mark, which JSON.parse refuses.
-      return { raw: JSON.parse(Buffer.from(json[0].data).toString('utf8').replace(/^\uFEFF/, '')), sourceErrors: [] };
-    } catch (err) {
-      return { raw: undefined, sourceErrors: [documentIssue('invalid-json', `${json[0].name} is not valid JSON: ${(err as Error).message}`, json[0].name)] };
-    }
+    return readJson(json[0], budget);
   }
 
-  const csv: CsvFile[] = [];
-  const sourceErrors: ImportIssue[] = [];
+  const raw: CsvRead['raw'] = { format: NETWORK_FORMAT };
+  const rowsOf: RowsOf = {};
+  const issues = new IssueList();
+  const seen = new Map<EntityKind, string>();
+  const readOne = async (name: string, open: () => Promise<Readable>) => {
+    const kind = claimFile(name, seen, issues);
+    if (kind === undefined) return;
+    const read = await readCsvStream(await open(), new CsvKindReader(kind, name, issues, budget.limits.maxRecordChars), budget);
+    raw[kind] = read.entities;
+    rowsOf[kind] = { file: name, rows: read.rows };
+  };
+
   for (const file of files) {
     if (isZip(file)) {
-      const unzipped = await unzipCsvFiles(file.data);
-      csv.push(...unzipped.files);
-      sourceErrors.push(...unzipped.errors.map((e) => ({ ...e, file: e.file ?? file.name })));
+      const zipIssues = await readZip(file, budget, readOne);
+      for (const issue of zipIssues) issues.push(issue);
     } else if (isCsv(file)) {
-      csv.push({ name: file.name, text: Buffer.from(file.data).toString('utf8') });
+      await readOne(file.name, async () => Readable.from([asBuffer(file.data)]));
     } else {
-      sourceErrors.push(documentIssue('unknown-file', `"${file.name}" is neither a network document (.json), a zip of CSV files (.zip) nor a CSV file (.csv)`, file.name));
+      issues.push(documentIssue('unknown-file', `"${file.name}" is neither a network document (.json), a zip of CSV files (.zip) nor a CSV file (.csv)`, file.name));
     }
   }
-  const read = readCsvFiles(csv);
-  return { raw: read.raw, rowsOf: read.rowsOf, sourceErrors: [...sourceErrors, ...read.errors] };
+  return { raw, rowsOf, sourceErrors: issues.list, ...(issues.more > 0 ? { moreSourceErrors: issues.more } : {}) };
+}
+
+/** The CSV files of one zip, streamed in turn; a zip that cannot be read is a report issue, a budget overrun is thrown. */
+async function readZip(file: UploadedFile, budget: UploadBudget, readOne: (name: string, open: () => Promise<Readable>) => Promise<void>): Promise<ImportIssue[]> {
+  let opened: Awaited<ReturnType<typeof zipEntries>>;
+  try {
+    opened = await zipEntries(file.data, budget);
+  } catch (err) {
+    if (err instanceof BadZipError) return [documentIssue('bad-zip', err.message, file.name)];
+    throw err;
+  }
+  try {
+    if (opened.entries.length === 0) {
+      return [documentIssue('empty-zip', `the zip holds no files: put sites.csv, services.csv, groups.csv, carriages.csv, feeds.csv in it`, file.name)];
+    }
+    for (const entry of opened.entries) {
+      try {
+        await readOne(entry.name, entry.open);
+      } catch (err) {
+        if (err instanceof UploadLimitError) throw err;
+        // yauzl found the entry's real size, checksum or data not as the directory says
+        const message = err instanceof BadZipError ? err.message : `${entry.name} cannot be read from the zip: ${clip((err as Error).message, 120)}`;
+        return [documentIssue('bad-zip', message, file.name)];
+      }
+    }
+    return [];
+  } finally {
+    opened.close();
+  }
 }

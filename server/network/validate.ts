@@ -33,6 +33,9 @@ export interface ValidationResult {
   document: NetworkDocument | null;
   errors: ImportIssue[];
   warnings: ImportIssue[];
+  /** issues found beyond what the sink keeps (issues.ts KEEP_ISSUES), counted only */
+  moreErrors?: number;
+  moreWarnings?: number;
 }
 
 export function validateDocument(raw: unknown, opts: ValidateOptions = {}): ValidationResult {
@@ -61,9 +64,9 @@ export function validateDocument(raw: unknown, opts: ValidateOptions = {}): Vali
   checkReferences(view, sink);
   findWarnings(view, sink);
 
-  const { errors, warnings } = sink.sorted();
+  const { errors, warnings, moreErrors, moreWarnings } = sink.sorted();
   const document = errors.length === 0 ? ({ format: NETWORK_FORMAT, ...parsed } as NetworkDocument) : null;
-  return { document, errors, warnings };
+  return { document, errors, warnings, moreErrors, moreWarnings };
 }
 
 /** Checks the top level with the shared shape schema; returns the kinds whose list cannot be read. */

@@ -6,7 +6,9 @@
  *        body: the network document (application/json), or multipart/form-data
  *        with one or more `file` fields: a .json document, CSV files named by
  *        their kind (sites.csv, ...), or zips of them
- *        -> 200 the import report; 422 the report when it lists errors
+ *        -> 200 the import report; 422 the report when it lists errors;
+ *           413 an upload past a limit (server/network/limits.ts); 429 with
+ *           Retry-After when imports are queued up (one runs at a time)
  *   GET  /network/export   ?format=json (default) | csv (a zip of the five CSV files)
  *   GET  /audit            admin only: ?page ?pageSize ?kind ?code ?action
  *        -> { items: [{ id, at, userEmail, action, entityKind, entityCode,
@@ -21,6 +23,9 @@ import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { importNetwork } from '../services/importer';
 import { readUploads } from '../network/upload';
+import { UploadLimitError } from '../network/limits';
+import { ImportQueue } from '../services/import/queue';
+import { clip } from '@/shared/clip';
 import { loadNetworkDocument } from '../services/networkLoader';
 import { AUDIT_ACTIONS, AUDIT_KINDS, listAudit, type AuditAction, type AuditKind } from '../services/audit';
 import { documentToZip } from '../network/csv';
@@ -28,6 +33,11 @@ import { MAX_PAGE_SIZE } from '../services/inventory/read';
 import { actorOf } from './inventory';
 
 const MAX_FILES = 10;
+/** Form fields besides the files: none are read, a few are tolerated, none may be large. */
+const MAX_FIELDS = 10;
+const MAX_FIELD_BYTES = 1024;
+/** How long a refused import is told to wait before trying again. */
+const RETRY_AFTER_S = 10;
 
 const flag = (name: string) => z.enum(['true', 'false'], { error: `${name} is true or false` }).default('false').transform((v) => v === 'true');
 export const importQuerySchema = z.strictObject({ dryRun: flag('dryRun'), replace: flag('replace') });
@@ -42,33 +52,67 @@ export const auditQuerySchema = z.strictObject({
 
 /** multer for multipart requests only; a body it cannot read is the client's 400, never a 500. */
 function multipartFiles(limitMb: number): RequestHandler {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: Math.floor(limitMb * 1024 * 1024), files: MAX_FILES } }).array('file', MAX_FILES);
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    limits: {
+      fileSize: Math.floor(limitMb * 1024 * 1024),
+      files: MAX_FILES,
+      fields: MAX_FIELDS,
+      fieldSize: MAX_FIELD_BYTES,
+      fieldNameSize: 100,
+      parts: MAX_FILES + MAX_FIELDS,
+      headerPairs: 100,
+    },
+  }).array('file', MAX_FILES);
   return (req, res, next) => {
     if (!req.is('multipart/form-data')) return next();
     upload(req, res, (err: unknown) => {
       if (!err) return next();
       if (err instanceof multer.MulterError) return next(err);
-      next(badRequest(`the upload cannot be read: ${(err as Error).message ?? String(err)}`));
+      next(badRequest(`the upload cannot be read: ${clip((err as Error).message ?? String(err), 120)}`));
     });
+  };
+}
+
+/** Takes this request's turn in the import queue before its upload is read; gives it back when the answer is done. */
+function importTurn(queue: ImportQueue): RequestHandler {
+  return async (_req, res, next) => {
+    const entered = queue.enter();
+    if (!entered) {
+      res.set('Retry-After', String(RETRY_AFTER_S));
+      throw new ApiError(429, 'import-busy', `another import is running and ${queue.maxWaiting} are waiting; try again in ${RETRY_AFTER_S} seconds`);
+    }
+    const release = await entered;
+    res.once('finish', release);
+    res.once('close', release);
+    next();
   };
 }
 
 export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
   const sequelize = ctx.db.sequelize;
 
-  routes.add('post', '/network/import', { roles: can.editNetwork, body: 'large' }, multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
+  const queue = new ImportQueue();
+  routes.add('post', '/network/import', { roles: can.editNetwork, body: 'large' }, importTurn(queue), multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
     const { dryRun, replace } = parseOr400(importQuerySchema, req.query, 'query');
     let input: Awaited<ReturnType<typeof readUploads>>;
     if (req.is('multipart/form-data')) {
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       if (files.length === 0) throw badRequest('no file was sent: put the network in a multipart field named "file"', [{ field: 'file', message: 'required' }]);
-      input = await readUploads(files.map((f) => ({ name: f.originalname, data: f.buffer })));
+      try {
+        input = await readUploads(files.map((f) => ({ name: f.originalname, data: f.buffer })));
+      } catch (err) {
+        if (err instanceof UploadLimitError) throw new ApiError(413, 'too-large', err.message);
+        throw err;
+      }
     } else if (req.is('application/json')) {
       input = { raw: req.body, sourceErrors: [] };
     } else {
       throw new ApiError(415, 'unsupported-media-type', 'send the network document as application/json, or files as multipart/form-data in the field "file"');
     }
-    const report = await importNetwork(ctx.db, input.raw, { dryRun, replace, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors });
+    const report = await importNetwork(ctx.db, input.raw, {
+      dryRun, replace, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors, moreSourceErrors: input.moreSourceErrors,
+    });
     if (report.ok && !report.dryRun && report.networkVersion !== undefined) await ctx.network.refresh(report.networkVersion);
     res.status(report.errors.length > 0 ? 422 : 200).json(report);
   });

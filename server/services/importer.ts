@@ -12,7 +12,7 @@ import { ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/sc
 import type { ImportIssue, ImportReport } from '@/shared/schemas/import';
 import type { Database } from '../db';
 import { validateDocument } from '../network/validate';
-import type { RowsOf } from '../network/issues';
+import { capIssues, type RowsOf } from '../network/issues';
 import { loadNetworkDocument } from './networkLoader';
 import type { Actor } from './audit';
 import { countsOf, emptyCounts, planImport, type ImportPlan } from './import/plan';
@@ -30,22 +30,30 @@ export interface ImportOptions {
   rowsOf?: RowsOf;
   /** problems found reading the upload itself (file names, headers, CSV syntax), reported first */
   sourceErrors?: ImportIssue[];
+  /** more of them, counted only */
+  moreSourceErrors?: number;
 }
 
 /** Below this many written rows the planner's old statistics do no harm (tables.ts, analyze). */
 const ANALYZE_AFTER_ROWS = 2000;
 
-type Checked = { document: NetworkDocument; warnings: ImportIssue[] } | { document: null; errors: ImportIssue[]; warnings: ImportIssue[] };
+/** Issues found beyond what the validator keeps: only counted (server/network/issues.ts). */
+interface Unlisted {
+  moreErrors?: number;
+  moreWarnings?: number;
+}
+type Checked = ({ document: NetworkDocument; warnings: ImportIssue[] } | { document: null; errors: ImportIssue[]; warnings: ImportIssue[] }) & Unlisted;
 
 /** Validates against the stored network: an upsert may refer to stored entities, a replace may not. */
 function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions, replace: boolean): Checked {
   // an upload that could not be read at all has nothing more to validate
-  if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [] };
+  if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [], moreErrors: opts.moreSourceErrors };
   const result = validateDocument(raw, { rowsOf: opts.rowsOf, context: replace ? undefined : storedOutside(stored, raw) });
   const errors = [...(opts.sourceErrors ?? []), ...result.errors];
   if (errors.length === 0 && result.document && !replace) errors.push(...checkKeptFeeds(stored, result.document, opts.rowsOf));
-  if (errors.length > 0 || !result.document) return { document: null, errors, warnings: result.warnings };
-  return { document: result.document, warnings: result.warnings };
+  const unlisted = { moreErrors: (result.moreErrors ?? 0) + (opts.moreSourceErrors ?? 0), moreWarnings: result.moreWarnings };
+  if (errors.length > 0 || !result.document) return { document: null, errors, warnings: result.warnings, ...unlisted };
+  return { document: result.document, warnings: result.warnings, ...unlisted };
 }
 
 /**
@@ -76,33 +84,45 @@ function receivedCounts(raw: unknown): Record<EntityKind, number> {
   return out;
 }
 
+/** The report as answered: at most MAX_REPORTED_ISSUES errors and warnings each, with the count of the rest. */
+function capped(report: ImportReport, unlisted: Unlisted = {}): ImportReport {
+  const errors = capIssues(report.errors, unlisted.moreErrors ?? 0);
+  const warnings = capIssues(report.warnings, unlisted.moreWarnings ?? 0);
+  return {
+    ...report,
+    errors: errors.shown,
+    warnings: warnings.shown,
+    ...(errors.more > 0 ? { moreErrors: errors.more } : {}),
+    ...(warnings.more > 0 ? { moreWarnings: warnings.more } : {}),
+  };
+}
+
 export async function importNetwork(db: Database, raw: unknown, opts: ImportOptions = {}): Promise<ImportReport> {
   const dryRun = opts.dryRun === true;
   const replace = opts.replace === true;
   const received = receivedCounts(raw);
-  const failed = (errors: ImportIssue[], warnings: ImportIssue[], networkVersion?: number): ImportReport => ({
-    ok: false, dryRun, replace, counts: emptyCounts(received), errors, warnings, ...(networkVersion !== undefined ? { networkVersion } : {}),
-  });
+  const failed = (errors: ImportIssue[], warnings: ImportIssue[], networkVersion?: number, unlisted?: Unlisted): ImportReport =>
+    capped({ ok: false, dryRun, replace, counts: emptyCounts(received), errors, warnings, ...(networkVersion !== undefined ? { networkVersion } : {}) }, unlisted);
 
   if (dryRun) {
     const { document: stored, version } = await loadNetworkDocument(db.sequelize);
     const checked = check(raw, stored, opts, replace);
-    if (!checked.document) return failed(checked.errors, checked.warnings, version);
+    if (!checked.document) return failed(checked.errors, checked.warnings, version, checked);
     const plan = await planImport(stored, checked.document, replace);
-    return { ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version };
+    return capped({ ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version }, checked);
   }
 
   try {
     const outcome = await withNetworkWrite(db.sequelize, opts.actor ?? {}, async (w) => {
       const { document: stored } = await loadNetworkDocument(db.sequelize, w.transaction);
       const checked = check(raw, stored, opts, replace);
-      if (!checked.document) throw new RollBack(failed(checked.errors, checked.warnings));
+      if (!checked.document) throw new RollBack(failed(checked.errors, checked.warnings, undefined, checked));
       const plan = await planImport(stored, checked.document, replace);
       await carryOut(w, plan);
       const counts = countsOf(plan, received);
       if (plan.changed) w.markChanged();
       w.audit({ action: 'import', entityKind: 'network', after: { replace, counts, warnings: checked.warnings.length } });
-      return { ok: true, dryRun, replace, counts, errors: [], warnings: checked.warnings } as ImportReport;
+      return capped({ ok: true, dryRun, replace, counts, errors: [], warnings: checked.warnings }, checked);
     });
     return { ...outcome.result, networkVersion: outcome.networkVersion };
   } catch (err) {

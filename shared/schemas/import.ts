@@ -18,6 +18,9 @@ export interface ImportIssue {
   message: string;
 }
 
+/** A report lists at most this many errors and this many warnings; the rest are counted (moreErrors, moreWarnings). */
+export const MAX_REPORTED_ISSUES = 1000;
+
 export interface KindCounts {
   received: number;
   created: number;
@@ -33,6 +36,10 @@ export interface ImportReport {
   counts: Record<EntityKind, KindCounts>;
   errors: ImportIssue[];
   warnings: ImportIssue[];
+  /** errors found beyond the MAX_REPORTED_ISSUES listed ("and 4,512 more") */
+  moreErrors?: number;
+  /** warnings found beyond the MAX_REPORTED_ISSUES listed */
+  moreWarnings?: number;
   /** the network version after the import (unchanged on a dry run or an error) */
   networkVersion?: number;
 }

@@ -4,11 +4,21 @@
  * forms validate with the same ones, so a message reads the same on both sides.
  */
 import { z } from 'zod';
+import { isStorableText, RESERVED_KEYS, UNSTORABLE_TEXT_MESSAGE } from '../text';
 
-export const CODE_PATTERN = /^[A-Za-z0-9._-]{1,64}$/;
+const CODE_CHARS = /^[A-Za-z0-9._-]{1,64}$/;
+/**
+ * A valid code: the characters, and none of the names every JavaScript object
+ * answers to (a code is a key in maps and objects throughout).
+ */
+export const CODE_PATTERN = /^(?!(?:__proto__|constructor|prototype)$)[A-Za-z0-9._-]{1,64}$/;
 export const codeSchema = z
   .string({ error: 'a code is required' })
-  .regex(CODE_PATTERN, 'a code is 1-64 letters, digits, "-", "_" or "."');
+  .regex(CODE_CHARS, 'a code is 1-64 letters, digits, "-", "_" or "."')
+  .refine((code) => !RESERVED_KEYS.has(code), 'a code cannot be __proto__, constructor or prototype');
+
+/** Free text stored as it is: refuses what PostgreSQL cannot store (shared/text.ts). */
+const storable = <T extends z.ZodString>(s: T) => s.refine(isStorableText, UNSTORABLE_TEXT_MESSAGE);
 
 export const SITE_ROLES = ['origin', 'main', 'relay'] as const;
 export const SERVICE_KINDS = ['dtt', 'fm', 'dab', 'am', 'other'] as const;
@@ -26,7 +36,7 @@ export type ElementKind = (typeof ELEMENT_KINDS)[number];
 /** An optional field: absent, or null (read as absent). */
 const opt = <T extends z.ZodTypeAny>(s: T) => s.nullish().transform((v) => (v ?? undefined) as z.output<T> | undefined);
 
-const name = z.string({ error: 'a name is required' }).trim().min(1, 'a name is required').max(200, 'a name is at most 200 characters');
+const name = storable(z.string({ error: 'a name is required' }).trim().min(1, 'a name is required').max(200, 'a name is at most 200 characters'));
 const nonNegative = (what: string) => z.number({ error: `${what} must be a number` }).finite().min(0, `${what} cannot be negative`);
 
 export const siteSchema = z.strictObject({
@@ -50,7 +60,7 @@ export const serviceSchema = z.strictObject({
 export const groupSchema = z.strictObject({
   code: codeSchema,
   name,
-  note: opt(z.string().max(2000)),
+  note: opt(storable(z.string().max(2000))),
 });
 
 export const carriageSchema = z.strictObject({
@@ -58,7 +68,7 @@ export const carriageSchema = z.strictObject({
   site: codeSchema,
   service: codeSchema,
   frequencyMHz: opt(z.number().finite().positive('frequency must be above 0 MHz')),
-  channel: opt(z.string().trim().min(1).max(16)),
+  channel: opt(storable(z.string().trim().min(1).max(16))),
   erpW: opt(nonNegative('ERP')),
   polarisation: opt(z.enum(POLARISATIONS, { error: 'polarisation is one of H, V, M, C' })),
   antennaHeightM: opt(nonNegative('antenna height')),
@@ -74,8 +84,8 @@ export const feedSchema = z.strictObject({
   via: opt(z.array(codeSchema)),
   groups: opt(z.array(codeSchema)),
   rxFrequencyMHz: opt(z.number().finite().positive('receive frequency must be above 0 MHz')),
-  rxChannel: opt(z.string().trim().min(1).max(16)),
-  rxAntenna: opt(z.string().max(200)),
+  rxChannel: opt(storable(z.string().trim().min(1).max(16))),
+  rxAntenna: opt(storable(z.string().max(200))),
   bearingDeg: opt(z.number().finite().min(0, 'bearing is 0-360 deg').max(360, 'bearing is 0-360 deg')),
 });
 

@@ -125,6 +125,8 @@ export const importReportSchema = z.object({
   counts: z.object({ sites: kindCountsSchema, services: kindCountsSchema, groups: kindCountsSchema, carriages: kindCountsSchema, feeds: kindCountsSchema }),
   errors: z.array(importIssueSchema),
   warnings: z.array(importIssueSchema),
+  moreErrors: z.number().int().optional(),
+  moreWarnings: z.number().int().optional(),
   networkVersion: z.number().optional(),
 });
 

@@ -11,7 +11,7 @@ import type { Sequelize } from 'sequelize';
 import { entitySchemas, versionSchema, type EntityKind } from '@/shared/schemas/network';
 import { ApiError, badRequest, conflict, notFound, parseOr400, unprocessable } from '../../http/errors';
 import type { Actor } from '../audit';
-import { databaseRefusal } from './dbErrors';
+import { databaseRefusal, refusalError } from './dbErrors';
 import { withNetworkWrite, type WriteResult } from './networkWrite';
 import { findByCode } from './read';
 import { checkRules, type RuleFindings } from './rules';
@@ -41,7 +41,7 @@ export async function refusalsAsApiErrors<R>(run: () => Promise<R>): Promise<R> 
     if (err instanceof ApiError) throw err;
     const refusal = databaseRefusal(err);
     if (!refusal) throw err;
-    throw refusal.sqlState === '23505' ? conflict(refusal.message) : unprocessable(refusal.message);
+    throw refusalError(refusal);
   }
 }
 

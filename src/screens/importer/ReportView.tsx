@@ -10,7 +10,7 @@ import { DataTable } from '@/src/components/DataTable/DataTable';
 import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { colors, fonts, radius, space, type } from '@/src/theme';
 import { WORDS } from '../inventory/kinds';
-import { countRows, issueRows, reportHeadline, type IssueRow } from './report';
+import { countRows, issueRows, issueTotals, reportHeadline, type IssueRow } from './report';
 
 /** Issues drawn at most; a file with thousands of problems needs fixing at the source anyway. */
 const SHOWN = 500;
@@ -28,6 +28,8 @@ export function ReportView({ report }: { report: ImportReport }) {
   const shown = issues.slice(0, SHOWN);
   const failed = report.errors.length > 0;
   const counts = countRows(report);
+  const total = issueTotals(report);
+  const plural = (n: number, word: string) => `${n.toLocaleString('en')} ${word}${n === 1 ? '' : 's'}`;
 
   return (
     <View role="region" aria-label="Import report" style={styles.region} testID="import-report">
@@ -67,7 +69,7 @@ export function ReportView({ report }: { report: ImportReport }) {
 
       {issues.length ? (
         <View style={styles.issues}>
-          <Text style={styles.title}>{`Problems found (${report.errors.length} ${report.errors.length === 1 ? 'error' : 'errors'}, ${report.warnings.length} ${report.warnings.length === 1 ? 'warning' : 'warnings'})`}</Text>
+          <Text style={styles.title}>{`Problems found (${plural(total.errors, 'error')}, ${plural(total.warnings, 'warning')})`}</Text>
           {wide ? (
             <DataTable
               caption="Problems found"
@@ -97,7 +99,9 @@ export function ReportView({ report }: { report: ImportReport }) {
               ))}
             </View>
           )}
-          {issues.length > shown.length ? <Text style={styles.meta}>{`Showing the first ${shown.length} of ${issues.length} problems.`}</Text> : null}
+          {issues.length > shown.length || total.unlisted > 0 ? (
+            <Text style={styles.meta} testID="import-unlisted">{`Showing the first ${shown.length.toLocaleString('en')} problems, and ${(issues.length - shown.length + total.unlisted).toLocaleString('en')} more.`}</Text>
+          ) : null}
         </View>
       ) : null}
     </View>

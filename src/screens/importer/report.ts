@@ -74,10 +74,15 @@ export function totals(report: Pick<ImportReport, 'counts'>): KindCounts {
   return sum;
 }
 
+/** Every error and warning found, the listed ones and those counted beyond the report's limit. */
+export function issueTotals(report: Pick<ImportReport, 'errors' | 'warnings' | 'moreErrors' | 'moreWarnings'>): { errors: number; warnings: number; unlisted: number } {
+  const unlisted = (report.moreErrors ?? 0) + (report.moreWarnings ?? 0);
+  return { errors: report.errors.length + (report.moreErrors ?? 0), warnings: report.warnings.length + (report.moreWarnings ?? 0), unlisted };
+}
+
 /** One sentence over the report, for the top of the region and for screen readers. */
 export function reportHeadline(report: ImportReport): string {
-  const e = report.errors.length;
-  const w = report.warnings.length;
+  const { errors: e, warnings: w } = issueTotals(report);
   const t = totals(report);
   const plural = (n: number, word: string) => `${n.toLocaleString('en')} ${word}${n === 1 ? '' : 's'}`;
   if (e > 0) {
