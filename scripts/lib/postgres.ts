@@ -36,7 +36,7 @@ function log(msg: string) {
   process.stderr.write(`[postgres] ${msg}\n`);
 }
 
-function findBinDir(): string | null {
+export function findBinDir(): string | null {
   const base = '/usr/lib/postgresql';
   if (!fs.existsSync(base)) return null;
   const versions = fs
