@@ -22,7 +22,8 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
-export async function startServer(databaseUrl: string, config: Config = loadConfig()): Promise<RunningServer> {
+/** `host`: the address to listen on (all interfaces unless given; the load run keeps to 127.0.0.1). */
+export async function startServer(databaseUrl: string, config: Config = loadConfig(), opts: { host?: string } = {}): Promise<RunningServer> {
   const db = openDatabase(databaseUrl);
   await db.migrate();
   if (config.ADMIN_EMAIL && config.ADMIN_PASSWORD) await ensureUser(config.ADMIN_EMAIL, config.ADMIN_PASSWORD, 'admin', 'Administrator');
@@ -36,7 +37,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
 
   const host = listenHost(config.DEMO);
   const server = await new Promise<Server>((resolve, reject) => {
-    const s = app.listen(config.PORT, host, () => resolve(s));
+    const s = app.listen(config.PORT, opts.host ?? host, () => resolve(s));
     s.on('error', reject);
   });
   const address = server.address();

@@ -38,7 +38,7 @@ function log(msg: string) {
   process.stderr.write(`[postgres] ${msg}\n`);
 }
 
-function findBinDir(): string {
+export function findBinDir(): string {
   ensureDebianPackages(['postgresql'], 'The local PostgreSQL (or set DATABASE_URL to an existing server)');
   const bin = findPostgresBinDir();
   if (!bin) throw new Error('PostgreSQL server binaries are missing (no /usr/lib/postgresql/*/bin/pg_ctl)');

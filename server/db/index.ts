@@ -20,30 +20,86 @@ export interface Database {
   close(): Promise<void>;
 }
 
-export function openDatabase(url: string): Database {
-  const sequelize = new Sequelize(url, {
+/**
+ * Time limits for request connections (see server/db/README.md). A request
+ * never waits long: not for a database that is down (the connection attempt
+ * gives up after `connectTimeoutMs`), not for a lock held by an import
+ * (`lockTimeoutMs`), not for a runaway statement (`statementTimeoutMs`).
+ * Network writes raise their own statement limit inside their transaction
+ * (services/inventory/networkWrite.ts), since an import's statements are large.
+ */
+export interface DatabaseLimits {
+  connectTimeoutMs: number;
+  statementTimeoutMs: number;
+  lockTimeoutMs: number;
+  /** how long a request waits for a free pooled connection */
+  acquireTimeoutMs: number;
+  poolMax: number;
+}
+
+export const DEFAULT_LIMITS: DatabaseLimits = {
+  connectTimeoutMs: 2500,
+  statementTimeoutMs: 10_000,
+  lockTimeoutMs: 3000,
+  acquireTimeoutMs: 8000,
+  poolMax: 20,
+};
+
+/**
+ * node-postgres whose clients always have an 'error' listener. Sequelize adds
+ * its own only once a new connection's promise has resumed; a server shutting
+ * down in that instant ('terminating connection due to administrator
+ * command') would otherwise be an uncaught exception that ends the process.
+ * The guard marks the connection invalid, so the pool drops it.
+ */
+class GuardedClient extends pg.Client {
+  constructor(config?: string | pg.ClientConfig) {
+    super(config);
+    this.on('error', () => {
+      (this as unknown as { _invalid: boolean })._invalid = true;
+    });
+  }
+}
+const guardedPg = Object.assign(Object.create(pg) as typeof pg, { Client: GuardedClient });
+
+function connect(url: string, limits: DatabaseLimits | null) {
+  return new Sequelize(url, {
     dialect: 'postgres',
+    dialectModule: guardedPg,
     logging: false,
-    pool: { max: 10, min: 0, idle: 10_000 },
+    pool: { max: limits?.poolMax ?? 2, min: 0, idle: 10_000, acquire: limits?.acquireTimeoutMs ?? 60_000 },
     define: { underscored: true },
+    dialectOptions: limits
+      ? { connectionTimeoutMillis: limits.connectTimeoutMs, statement_timeout: limits.statementTimeoutMs, lock_timeout: limits.lockTimeoutMs, keepAlive: true }
+      : {},
   });
+}
+
+export function openDatabase(url: string, limits: Partial<DatabaseLimits> = {}): Database {
+  const sequelize = connect(url, { ...DEFAULT_LIMITS, ...limits });
   defineUser(sequelize);
   defineInventory(sequelize);
   defineAudit(sequelize);
-
-  const umzug = new Umzug({
-    migrations: migrations.map((m) => ({ name: m.name, up: m.up, down: m.down })),
-    context: sequelize.getQueryInterface(),
-    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
-    logger: undefined,
-  });
 
   return {
     sequelize,
     url,
     async migrate() {
-      const done = await umzug.up();
-      return done.map((m) => m.name);
+      // migrations run on connections of their own, without the request time limits:
+      // rebuilding an index on a large table may take minutes
+      const plain = connect(url, null);
+      try {
+        const umzug = new Umzug({
+          migrations: migrations.map((m) => ({ name: m.name, up: m.up, down: m.down })),
+          context: plain.getQueryInterface(),
+          storage: new SequelizeStorage({ sequelize: plain, tableName: 'schema_migrations' }),
+          logger: undefined,
+        });
+        const done = await umzug.up();
+        return done.map((m) => m.name);
+      } finally {
+        await plain.close();
+      }
     },
     close: () => sequelize.close(),
   };

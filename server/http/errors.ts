@@ -8,6 +8,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError, type ZodType } from 'zod';
 import { clip } from '@/shared/clip';
 import { databaseRefusal, refusalError } from '../services/inventory/dbErrors';
+import { databaseTrouble } from './databaseTrouble';
 
 export class ApiError extends Error {
   constructor(
@@ -64,6 +65,12 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   }
   if (typeof err?.code === 'string' && err.code.startsWith('LIMIT_')) {
     res.status(400).json({ error: { code: 'bad-upload', message: `upload refused: ${err.message}` } });
+    return;
+  }
+  const trouble = databaseTrouble(err);
+  if (trouble) {
+    res.set('Retry-After', String(trouble.retryAfterS));
+    res.status(trouble.status).json({ error: { code: trouble.code, message: trouble.message } });
     return;
   }
   // A refusal by the database's constraints is about the input: said in the API's words (dbErrors.ts), never PostgreSQL's.

@@ -27,6 +27,7 @@ import { UploadLimitError } from '../network/limits';
 import { ImportQueue } from '../services/import/queue';
 import { clip } from '@/shared/clip';
 import { loadNetworkDocument } from '../services/networkLoader';
+import { exportJson } from '../services/exportCache';
 import { AUDIT_ACTIONS, AUDIT_KINDS, listAudit, type AuditAction, type AuditKind } from '../services/audit';
 import { documentToZip } from '../network/csv';
 import { MAX_PAGE_SIZE } from '../services/inventory/read';
@@ -119,13 +120,14 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
 
   routes.add('get', '/network/export', can.read, async (req, res) => {
     const { format } = parseOr400(exportQuerySchema, req.query, 'query');
-    const { document, version } = await loadNetworkDocument(sequelize);
-    res.set('X-Network-Version', String(version));
-    if (format === 'csv') {
-      res.type('application/zip').attachment(`network-v${version}.zip`).send(await documentToZip(document));
+    if (format === 'json') {
+      const { version, body } = await exportJson(ctx);
+      res.set('X-Network-Version', String(version)).attachment(`network-v${version}.json`).type('application/json').send(body);
       return;
     }
-    res.attachment(`network-v${version}.json`).json(document);
+    const { document, version } = await loadNetworkDocument(sequelize);
+    res.set('X-Network-Version', String(version));
+    res.type('application/zip').attachment(`network-v${version}.zip`).send(await documentToZip(document));
   });
 
   routes.add('get', '/audit', can.manageUsers, async (req, res) => {

@@ -1,22 +1,12 @@
 import { can } from '@/shared/api';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
+import { checkHealth } from '../services/health';
 
 export function registerSystemRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/health', 'public', async (_req, res) => {
-    let dbUp: boolean;
-    try {
-      await ctx.db.sequelize.query('SELECT 1');
-      dbUp = true;
-    } catch {
-      dbUp = false;
-    }
-    const model = ctx.network.model;
-    if (!dbUp || !model) {
-      res.status(503).json({ ok: false, db: dbUp ? 'up' : 'down', networkVersion: model?.networkVersion ?? null });
-      return;
-    }
-    res.json({ ok: true, db: 'up', networkVersion: model.networkVersion });
+    const health = await checkHealth(ctx);
+    res.status(health.ok ? 200 : 503).json(health);
   });
 
   routes.add('get', '/network/summary', can.read, async (_req, res) => {

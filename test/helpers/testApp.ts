@@ -10,7 +10,7 @@ import { loadConfig } from '@/server/config';
 import { openDatabase } from '@/server/db';
 import { createApp } from '@/server/app';
 import type { AppContext } from '@/server/context';
-import { NetworkStore } from '@/server/services/networkStore';
+import { NetworkStore, type NetworkStoreOptions } from '@/server/services/networkStore';
 import { buildNetworkModel } from '@/server/services/networkModel';
 import { User } from '@/server/db/models/user';
 import { hashPassword } from '@/server/auth/passwords';
@@ -20,12 +20,13 @@ import { ROLES, type Role } from '@/shared/api';
 export const TEST_PASSWORD = `pw-${crypto.randomBytes(6).toString('hex')}`;
 export const emailFor = (role: Role) => `${role}@test.example`;
 
-export async function makeTestApp() {
+/** `build` replaces the model builder (to make a rebuild fail); `store` tunes the network store's timers. */
+export async function makeTestApp(opts: { build?: typeof buildNetworkModel; store?: NetworkStoreOptions } = {}) {
   const url = process.env.TEST_DATABASE_URL;
   if (!url) throw new Error('TEST_DATABASE_URL is not set: run API tests through vitest --project api');
   const config = loadConfig({ ...process.env, DATABASE_URL: url, JWT_SECRET: crypto.randomBytes(32).toString('hex'), WEB_DIR: '/nonexistent' });
   const db = openDatabase(url);
-  const network = new NetworkStore(db.sequelize, url, buildNetworkModel);
+  const network = new NetworkStore(db.sequelize, url, opts.build ?? buildNetworkModel, opts.store);
   const ctx: AppContext = { config, db, network };
   const { app, routes } = createApp(ctx);
   const userIds = new Map<Role, number>();

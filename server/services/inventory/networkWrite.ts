@@ -5,6 +5,12 @@
  * version is bumped once (its NOTIFY goes out on commit, server/db/index.ts)
  * and the audit rows carry that version. A write that changes nothing keeps
  * the version where it is.
+ *
+ * Time limits: waiting for the version row is bounded by the connection's
+ * lock_timeout (a few seconds, server/db/index.ts), so an edit that arrives
+ * while an import writes gets a 409 "network-busy" soon instead of hanging;
+ * once the lock is held, the statements of a large import may run longer than
+ * a request's usual limit, so this transaction raises it for itself.
  */
 import type { Sequelize } from 'sequelize';
 import { bumpNetworkVersion } from '../../db';
@@ -32,10 +38,14 @@ export class RollBack<R> extends Error {
   }
 }
 
+/** The statement limit inside a network write (a 20,000-site import writes tens of thousands of rows per statement). */
+export const WRITE_STATEMENT_TIMEOUT_MS = 120_000;
+
 export async function withNetworkWrite<R>(sequelize: Sequelize, actor: Actor, work: (w: NetworkWrite) => Promise<R>): Promise<WriteResult<R>> {
   let startVersion = 0;
   try {
     return await sequelize.transaction(async (transaction) => {
+      await sequelize.query(`SET LOCAL statement_timeout = ${WRITE_STATEMENT_TIMEOUT_MS}`, { transaction });
       const [locked] = await sequelize.query('SELECT version FROM network_state WHERE id = 1 FOR UPDATE', { transaction });
       startVersion = Number((locked as { version: number }[])[0].version);
       const entries: AuditEntry[] = [];

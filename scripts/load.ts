@@ -1,0 +1,232 @@
+/**
+ * npm run load: the server under concurrent load, on loopback only, with the
+ * 20,000-site generated network (scripts/generator) in a database of its own
+ * (headwater_load on the local cluster, made afresh).
+ *
+ *   npm run load -- [--seconds 60] [--connections 50] [--sites 20000] [--seed 7] [--out docs/bench/load-YYYY-MM-DD]
+ *
+ * Four read scenarios, each `connections` connections for `seconds` seconds
+ * (autocannon): fault reach, a carriage chain, a list page with a search, the
+ * JSON export. Then 20 editors rename sites while an import of 10,000 changed
+ * sites runs. Records requests/s, p50/p99 latency, errors and non-2xx answers
+ * in OUT.json and OUT.txt and checks the targets: no errors, no non-2xx
+ * (409 "network-busy" during the import is intended), reach p99 <= 50 ms, no
+ * acknowledged edit lost. Not part of npm test.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import readline from 'node:readline';
+import autocannon from 'autocannon';
+import { openDatabase } from '@/server/db';
+import { importNetwork } from '@/server/services/importer';
+import { ensureUser } from '@/server/services/users';
+import type { NetworkDocument } from '@/shared/schemas/network';
+import { generateNetwork } from './generator';
+import { Prng } from './generator/prng';
+import { REPO_ROOT, resolveDatabaseUrl } from './lib/postgres';
+import { editsDuringImport, type EditRunResult } from './load/edits';
+
+function arg(name: string, fallback: string): string {
+  const i = process.argv.indexOf(`--${name}`);
+  return i >= 0 && process.argv[i + 1] !== undefined ? process.argv[i + 1] : fallback;
+}
+function wholeArg(name: string, fallback: number, min: number): number {
+  const v = Number(arg(name, String(fallback)));
+  if (!Number.isInteger(v) || v < min) throw new Error(`--${name} must be a whole number >= ${min}`);
+  return v;
+}
+
+const seconds = wholeArg('seconds', 60, 1);
+const connections = wholeArg('connections', 50, 1);
+const siteCount = wholeArg('sites', 20_000, 100);
+const seed = wholeArg('seed', 7, 0);
+const day = new Date().toISOString().slice(0, 10);
+const out = path.resolve(arg('out', path.join(REPO_ROOT, 'docs', 'bench', `load-${day}`)));
+const EDITORS = 20;
+const REACH_P99_TARGET_MS = 50;
+
+interface ScenarioResult {
+  name: string;
+  connections: number;
+  seconds: number;
+  requests: number;
+  requestsPerSecond: number;
+  latencyP50Ms: number;
+  latencyP99Ms: number;
+  latencyMaxMs: number;
+  errors: number;
+  timeouts: number;
+  non2xx: number;
+  statusCodes: Record<string, number>;
+  megabytesPerSecond: number;
+}
+
+/** The server in a child process on 127.0.0.1; resolves with its base URL. */
+function startChild(databaseUrl: string): Promise<{ child: ChildProcess; base: string }> {
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(__dirname, 'load', 'server.ts')], {
+    cwd: REPO_ROOT,
+    env: { ...process.env, DATABASE_URL: databaseUrl, JWT_SECRET: crypto.randomBytes(32).toString('hex'), NODE_ENV: 'production' },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  return new Promise((resolve, reject) => {
+    const lines = readline.createInterface({ input: child.stdout! });
+    lines.on('line', (line) => {
+      const m = /^LISTENING (http:\/\/127\.0\.0\.1:\d+)/.exec(line);
+      if (m) resolve({ child, base: m[1] });
+    });
+    child.on('exit', (code) => reject(new Error(`the server under load exited (${code}) before it listened`)));
+  });
+}
+
+async function login(base: string, email: string, password: string): Promise<string> {
+  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  if (r.status !== 200) throw new Error(`sign-in as ${email} answered ${r.status}`);
+  return ((await r.json()) as { token: string }).token;
+}
+
+/** One autocannon run; `next` gives each request's method, path and body in turn. */
+async function scenario(name: string, base: string, token: string, next: () => { method: 'GET' | 'POST'; path: string; body?: string }): Promise<ScenarioResult> {
+  process.stdout.write(`  ${name}: ${connections} connections for ${seconds} s ... `);
+  const result = await autocannon({
+    url: base,
+    connections,
+    duration: seconds,
+    timeout: 10,
+    headers: { authorization: `Bearer ${token}`, 'content-type': 'application/json' },
+    requests: [
+      {
+        setupRequest: (req) => {
+          const r = next();
+          return { ...req, method: r.method, path: r.path, body: r.body };
+        },
+      },
+    ],
+  });
+  const statusCodes: Record<string, number> = {};
+  for (const [code, stat] of Object.entries(result.statusCodeStats ?? {})) statusCodes[code] = (stat as { count: number }).count;
+  const r: ScenarioResult = {
+    name,
+    connections,
+    seconds,
+    requests: result.requests.total,
+    requestsPerSecond: Math.round(result.requests.average * 10) / 10,
+    latencyP50Ms: result.latency.p50,
+    latencyP99Ms: result.latency.p99,
+    latencyMaxMs: result.latency.max,
+    errors: result.errors,
+    timeouts: result.timeouts,
+    non2xx: result.non2xx,
+    statusCodes,
+    megabytesPerSecond: Math.round((result.throughput.average / 1e6) * 10) / 10,
+  };
+  console.log(`${r.requestsPerSecond} req/s, p50 ${r.latencyP50Ms} ms, p99 ${r.latencyP99Ms} ms, errors ${r.errors}, non-2xx ${r.non2xx}`);
+  return r;
+}
+
+function rotate<T>(items: T[]): () => T {
+  let i = 0;
+  return () => items[i++ % items.length];
+}
+
+function readScenarios(doc: NetworkDocument) {
+  const rnd = new Prng(seed);
+  const pick = <T>(xs: T[], n: number) => Array.from({ length: n }, () => xs[Math.floor(rnd.next() * xs.length)]);
+  const mains = doc.sites.filter((s) => s.role === 'main').map((s) => s.code);
+  const role = new Map(doc.sites.map((site) => [site.code, site.role]));
+  const relayCarriages = doc.carriages.filter((c) => role.get(c.site) === 'relay').map((c) => c.code);
+  const words = [...new Set(doc.sites.flatMap((s) => s.name.split(/\s+/)).filter((w) => w.length >= 4))];
+  return {
+    reach: rotate(pick(mains, 500).map((code) => JSON.stringify({ failed: [{ kind: 'site', code }] }))),
+    chain: rotate(pick(relayCarriages, 500).map((code) => `/api/carriages/${encodeURIComponent(code)}/chain?direction=up`)),
+    search: rotate(pick(words, 200).map((w, i) => `/api/sites?q=${encodeURIComponent(w.toLowerCase())}&page=${1 + (i % 2)}&pageSize=50`)),
+  };
+}
+
+function targets(reads: ScenarioResult[], edits: EditRunResult) {
+  const reach = reads.find((r) => r.name === 'fault reach')!;
+  const editNon2xx = Object.entries(edits.edits.byStatus).filter(([s]) => s !== '200' && s !== '409').reduce((n, [, c]) => n + c, 0);
+  return {
+    noErrors: reads.every((r) => r.errors === 0 && r.timeouts === 0),
+    noNon2xx: reads.every((r) => r.non2xx === 0) && editNon2xx === 0 && edits.importStatus === 200,
+    reachP99: reach.latencyP99Ms <= REACH_P99_TARGET_MS,
+    noEditLost: edits.lost.length === 0 && edits.refusedButStored.length === 0,
+  };
+}
+
+function report(meta: Record<string, unknown>, reads: ScenarioResult[], edits: EditRunResult, met: ReturnType<typeof targets>): string {
+  const lines = [`Load run ${meta.date} (${meta.sites} sites, seed ${meta.seed}; ${meta.cpus} CPUs, Node ${meta.node}; server and load generator on 127.0.0.1)`, ''];
+  lines.push(`${'scenario'.padEnd(22)}${'req/s'.padStart(9)}${'p50 ms'.padStart(9)}${'p99 ms'.padStart(9)}${'max ms'.padStart(9)}${'errors'.padStart(8)}${'non-2xx'.padStart(9)}${'MB/s'.padStart(8)}`);
+  for (const r of reads) {
+    lines.push(`${r.name.padEnd(22)}${String(r.requestsPerSecond).padStart(9)}${String(r.latencyP50Ms).padStart(9)}${String(r.latencyP99Ms).padStart(9)}${String(r.latencyMaxMs).padStart(9)}${String(r.errors + r.timeouts).padStart(8)}${String(r.non2xx).padStart(9)}${String(r.megabytesPerSecond).padStart(8)}`);
+  }
+  lines.push('', `${reads[0].connections} connections, ${reads[0].seconds} s per scenario.`, '');
+  const byStatus = Object.entries(edits.edits.byStatus).map(([s, n]) => `${s}: ${n}`).join(', ');
+  lines.push(`Edits during an import: ${EDITORS} editors, import of ${meta.importedSites} changed sites answered ${edits.importStatus} after ${edits.importMs} ms.`);
+  lines.push(`  ${edits.edits.total} edits (read + PATCH), answers ${byStatus}; p50 ${edits.edits.p50Ms} ms, p99 ${edits.edits.p99Ms} ms.`);
+  lines.push(`  acknowledged edits missing from the database: ${edits.lost.length}; refused edits found stored: ${edits.refusedButStored.length}.`);
+  lines.push('', 'Targets:');
+  lines.push(`  no errors or timeouts ................ ${met.noErrors ? 'met' : 'NOT MET'}`);
+  lines.push(`  no non-2xx (except 409 during import)  ${met.noNon2xx ? 'met' : 'NOT MET'}`);
+  lines.push(`  fault reach p99 <= ${REACH_P99_TARGET_MS} ms ............ ${met.reachP99 ? 'met' : 'NOT MET'}`);
+  lines.push(`  no acknowledged edit lost ............ ${met.noEditLost ? 'met' : 'NOT MET'}`);
+  return lines.join('\n') + '\n';
+}
+
+async function main() {
+  console.log(`Load run: ${siteCount.toLocaleString('en')} sites, seed ${seed}, ${connections} connections x ${seconds} s per scenario`);
+  const doc = generateNetwork({ sites: siteCount, seed });
+  const { url } = await resolveDatabaseUrl('headwater_load', { fresh: true });
+  const db = openDatabase(url);
+  let child: ChildProcess | undefined;
+  try {
+    await db.migrate();
+    const loaded = await importNetwork(db, doc, { actor: { email: 'load-run' } });
+    if (!loaded.ok) throw new Error(`the generated network did not import: ${loaded.errors.slice(0, 3).map((e) => e.message).join('; ')}`);
+    const password = crypto.randomBytes(12).toString('hex');
+    await ensureUser('load-operator@headwater.example', password, 'operator', 'Load operator');
+    await ensureUser('load-engineer@headwater.example', password, 'engineer', 'Load engineer');
+    const started = await startChild(url);
+    child = started.child;
+    const base = started.base;
+    console.log(`server under load at ${base}`);
+    const operator = await login(base, 'load-operator@headwater.example', password);
+    const engineer = await login(base, 'load-engineer@headwater.example', password);
+
+    const s = readScenarios(doc);
+    const reads: ScenarioResult[] = [];
+    reads.push(await scenario('fault reach', base, operator, () => ({ method: 'POST', path: '/api/analysis/reach', body: s.reach() })));
+    reads.push(await scenario('carriage chain', base, operator, () => ({ method: 'GET', path: s.chain() })));
+    reads.push(await scenario('list page with search', base, operator, () => ({ method: 'GET', path: s.search() })));
+    reads.push(await scenario('export (JSON)', base, operator, () => ({ method: 'GET', path: '/api/network/export' })));
+
+    // the import renames the first half of the sites; the editors work on the other half
+    const half = Math.floor(doc.sites.length / 2);
+    const imported = doc.sites.slice(0, half).map((site) => ({ ...site, name: `${site.name} (imported)` }));
+    const importBody = JSON.stringify({ format: doc.format, sites: imported, services: [], groups: [], carriages: [], feeds: [] });
+    const editSites = doc.sites.slice(half, half + EDITORS * 50).map((site) => site.code);
+    console.log(`  ${EDITORS} editors while an import of ${imported.length.toLocaleString('en')} changed sites runs ...`);
+    const edits = await editsDuringImport({ base, token: engineer, sites: editSites, workers: EDITORS, importBody, sequelize: db.sequelize, afterMs: 2000 });
+    console.log(`  import ${edits.importStatus} in ${edits.importMs} ms; edits ${JSON.stringify(edits.edits.byStatus)}; lost ${edits.lost.length}`);
+
+    const met = targets(reads, edits);
+    const meta = { date: new Date().toISOString(), sites: siteCount, seed, importedSites: imported.length, cpus: (await import('node:os')).cpus().length, node: process.versions.node };
+    fs.mkdirSync(path.dirname(out), { recursive: true });
+    fs.writeFileSync(`${out}.json`, JSON.stringify({ ...meta, reads, edits, targets: met }, null, 2) + '\n');
+    const text = report(meta, reads, edits, met);
+    fs.writeFileSync(`${out}.txt`, text);
+    console.log(`\n${text}\nrecorded in ${out}.json and ${out}.txt`);
+  } finally {
+    if (child && child.exitCode === null) {
+      child.kill('SIGTERM');
+      await new Promise((r) => child!.once('exit', r));
+    }
+    await db.close();
+  }
+}
+
+main().catch((e) => {
+  console.error(`load run failed: ${e.message ?? e}`);
+  process.exit(1);
+});
