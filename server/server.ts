@@ -10,6 +10,7 @@ import type { AppContext } from './context';
 import { NetworkStore } from './services/networkStore';
 import { buildNetworkModel } from './services/networkModel';
 import { ensureUser } from './services/users';
+import { OperationsEvents } from './operations/events';
 
 export interface RunningServer {
   server: Server;
@@ -25,7 +26,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
 
   const network = new NetworkStore(db.sequelize, databaseUrl, buildNetworkModel);
   await network.start();
-  const ctx: AppContext = { config, db, network };
+  const ctx: AppContext = { config, db, network, events: new OperationsEvents() };
   const { app } = createApp(ctx);
 
   const server = await new Promise<Server>((resolve, reject) => {

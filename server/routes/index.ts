@@ -8,7 +8,8 @@ import { registerAnalysisRoutes } from './analysis';
 import { registerCheckRoutes } from './checks';
 import { registerInventoryRoutes } from './inventory';
 import { registerNetworkRoutes } from './network';
+import { registerOperationsRoutes } from './operations';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes];
+export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerOperationsRoutes];

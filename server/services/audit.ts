@@ -14,9 +14,9 @@ export interface Actor {
 }
 
 export type AuditAction = 'create' | 'update' | 'delete' | 'import';
-/** An entity kind, or 'network' for an import of a whole document. */
-export type AuditKind = EntityKind | 'network';
-export const AUDIT_KINDS: readonly AuditKind[] = ['sites', 'services', 'groups', 'carriages', 'feeds', 'network'];
+/** An entity kind, 'network' for an import of a whole document, or a planned work or incident (server/operations). */
+export type AuditKind = EntityKind | 'network' | 'works' | 'incidents';
+export const AUDIT_KINDS: readonly AuditKind[] = ['sites', 'services', 'groups', 'carriages', 'feeds', 'network', 'works', 'incidents'];
 export const AUDIT_ACTIONS: readonly AuditAction[] = ['create', 'update', 'delete', 'import'];
 
 export interface AuditEntry {

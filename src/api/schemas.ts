@@ -126,7 +126,7 @@ export const importReportSchema = z.object({
   networkVersion: z.number().optional(),
 });
 
-export const AUDIT_KINDS = [...ENTITY_KINDS, 'network'] as const;
+export const AUDIT_KINDS = [...ENTITY_KINDS, 'network', 'works', 'incidents'] as const;
 export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import'] as const;
 export const auditItemSchema = z.object({
   id: z.number(),

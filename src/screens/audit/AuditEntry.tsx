@@ -19,15 +19,18 @@ import { fieldChanges } from './auditView';
 const ACTION_TONE: Record<AuditItem['action'], Tone> = { create: 'good', update: 'accent', delete: 'bad', import: 'neutral' };
 const ACTION_WORD: Record<AuditItem['action'], string> = { create: 'created', update: 'changed', delete: 'deleted', import: 'imported' };
 
-const kindWord = (kind: AuditItem['entityKind']) => (kind === 'network' ? 'network' : WORDS[kind].one);
+const OTHER_WORD: Record<string, string> = { network: 'network', works: 'planned work', incidents: 'incident' };
+const isEntity = (kind: AuditItem['entityKind']): kind is EntityKind => !(kind in OTHER_WORD);
+const kindWord = (kind: AuditItem['entityKind']) => (isEntity(kind) ? WORDS[kind].one : OTHER_WORD[kind]);
 
 export function AuditEntry({ item }: { item: AuditItem }) {
   const [open, setOpen] = useState(false);
-  const order = item.entityKind === 'network' ? [] : ['code', ...FORM_FIELDS[item.entityKind].map((f) => f.name), 'version'];
+  const kind = item.entityKind;
+  const order = isEntity(kind) ? ['code', ...FORM_FIELDS[kind].map((f) => f.name), 'version'] : [];
   const changes = open ? fieldChanges(item.before, item.after, order) : [];
   // Only an update has two sides to compare; a create or delete has one.
   const compare = item.action === 'update';
-  const linkable = item.entityCode && item.entityKind !== 'network' && item.action !== 'delete';
+  const linkable = item.entityCode && isEntity(kind) && item.action !== 'delete';
   return (
     <View style={styles.card} testID={`audit-${item.id}`}>
       <View style={styles.head}>
