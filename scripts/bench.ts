@@ -19,6 +19,7 @@ import { buildNetworkModel } from '@/server/services/networkModel';
 import { startServer } from '@/server/server';
 import { ensureUser } from '@/server/services/users';
 import { benchEngine, percentile, round, type EngineBenchResult } from './bench-engine';
+import { benchOperations, describeOperations, type OperationsBenchResult } from './bench-operations';
 import { Prng } from './generator/prng';
 import { generateNetwork } from './generator';
 import { resolveDatabaseUrl } from './lib/postgres';
@@ -45,6 +46,7 @@ interface SizeResult extends EngineBenchResult {
   httpReachP50Ms: number;
   httpReachP95Ms: number;
   rssMb: number;
+  operations: OperationsBenchResult;
 }
 
 const peakRssMb = () => Math.round(process.resourceUsage().maxRSS / 1024);
@@ -98,6 +100,9 @@ async function benchSize(sites: number): Promise<SizeResult> {
     const engine = benchEngine(document, { seed, networkx: true });
     console.log(`  engine: reach one p95 ${engine.reachOneP95Ms} ms, multi p95 ${engine.reachMultiP95Ms} ms, spof+exposure ${engine.spofAllMs} ms`);
 
+    const operations = benchOperations(document, { seed });
+    console.log(describeOperations(operations));
+
     const rnd = new Prng(seed);
     const codes = Array.from({ length: 200 }, () => document.sites[Math.floor(rnd.next() * document.sites.length)].code);
     const http = await httpReach(url, codes);
@@ -111,6 +116,7 @@ async function benchSize(sites: number): Promise<SizeResult> {
       httpReachP50Ms: round(percentile(http, 50)),
       httpReachP95Ms: round(percentile(http, 95)),
       rssMb: peakRssMb(),
+      operations,
     };
     console.log(`  HTTP reach p95 ${result.httpReachP95Ms} ms; peak RSS so far ${result.rssMb} MB`);
     return result;
@@ -137,6 +143,8 @@ function table(results: SizeResult[]) {
     ['dominators, ours (ms)', (r) => r.idomMs.toFixed(1)],
     ['dominators, networkx (ms)', (r) => (r.networkxIdomMs === null ? 'n/a' : r.networkxIdomMs.toFixed(0))],
     ['  speed-up over networkx', (r) => (r.networkxIdomMs === null ? 'n/a' : `${(r.networkxIdomMs / r.idomMs).toFixed(0)}x`)],
+    ['clashes, 500 works: whole set (ms)', (r) => r.operations.wholeSetMs.toFixed(0)],
+    ['clashes of one work p95, cold (ms)', (r) => r.operations.oneWorkColdP95Ms.toFixed(2)],
     ['peak RSS (MB)', (r) => String(r.rssMb)],
   ];
   const w0 = Math.max(...rows.map(([k]) => k.length));
@@ -172,6 +180,7 @@ function table(results: SizeResult[]) {
         networkxIdomMs: r.networkxIdomMs,
         httpReachP95Ms: r.httpReachP95Ms,
         rssMb: r.rssMb,
+        operations: r.operations,
       })),
     };
     fs.writeFileSync(jsonFile, JSON.stringify(out, null, 2) + '\n');

@@ -11,6 +11,7 @@ import { NetworkStore } from './services/networkStore';
 import { buildNetworkModel } from './services/networkModel';
 import { ensureUser } from './services/users';
 import { applyDemoAccounts, listenHost, type DemoAccountsResult } from './services/demoAccounts';
+import { OperationsEvents } from './operations/events';
 
 export interface RunningServer {
   server: Server;
@@ -32,7 +33,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
 
   const network = new NetworkStore(db.sequelize, databaseUrl, buildNetworkModel);
   await network.start();
-  const ctx: AppContext = { config, db, network };
+  const ctx: AppContext = { config, db, network, events: new OperationsEvents() };
   const { app } = createApp(ctx);
 
   const host = listenHost(config.DEMO);

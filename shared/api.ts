@@ -22,6 +22,14 @@ export const api = {
   unfed: '/api/analysis/unfed',
   feedChecks: (code: string) => `/api/feeds/${encodeURIComponent(code)}/checks`,
   checks: (severity?: string) => `/api/checks${severity ? `?severity=${severity}` : ''}`,
+  works: '/api/works',
+  work: (code: string) => `/api/works/${encodeURIComponent(code)}`,
+  workApprove: (code: string) => `/api/works/${encodeURIComponent(code)}/approve`,
+  workTransition: (code: string) => `/api/works/${encodeURIComponent(code)}/transition`,
+  incidents: '/api/incidents',
+  incident: (code: string) => `/api/incidents/${encodeURIComponent(code)}`,
+  incidentUpdates: (code: string) => `/api/incidents/${encodeURIComponent(code)}/updates`,
+  availability: '/api/reports/availability',
 } as const;
 
 export const ROLES = ['admin', 'engineer', 'operator', 'viewer'] as const;
@@ -33,6 +41,10 @@ export const can = {
   analyse: ['admin', 'engineer', 'operator', 'viewer'] as Role[],
   editNetwork: ['admin', 'engineer'] as Role[],
   manageUsers: ['admin'] as Role[],
+  /** draft planned work, open and update incidents */
+  operate: ['admin', 'engineer', 'operator'] as Role[],
+  /** approve planned work (never one's own request, unless admin) */
+  approveWork: ['admin', 'engineer'] as Role[],
 };
 
 export interface ApiErrorBody {

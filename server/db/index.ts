@@ -8,6 +8,7 @@ import pg from 'pg';
 import { defineUser, User } from './models/user';
 import { defineInventory } from './models/inventory';
 import { defineAudit } from './models/audit';
+import { defineOperations } from './models/operations';
 import { migrations } from './migrations';
 
 // bigint columns (the network version, audit ids) fit comfortably in a JS number.
@@ -80,6 +81,7 @@ export function openDatabase(url: string, limits: Partial<DatabaseLimits> = {}):
   defineUser(sequelize);
   defineInventory(sequelize);
   defineAudit(sequelize);
+  defineOperations(sequelize);
 
   return {
     sequelize,

@@ -182,6 +182,27 @@ export class NetworkEngine {
     return reachAnswer(this.core, this.networkVersion, lost, fallback);
   }
 
+  /**
+   * Carriage codes lost under the failure (rule 4 alone, in code order):
+   * no fallback and no answer building, for callers that combine many
+   * failure sets (clash detection in server/operations).
+   */
+  lost(failed: Element[]): string[] {
+    const ids = this.resolve(failed);
+    const perService = this.scratch.perService;
+    const touched = removedNodesByService(this.core, ids, perService);
+    const { lostNodes } = this.scratch;
+    const out: number[] = [];
+    for (const s of touched) {
+      lostNodes.clear();
+      this.core.walker.lostMarked(this.core.full[s], perService[s].data, perService[s].length, lostNodes);
+      const ref = this.core.services[s].ref;
+      for (let i = 0; i < lostNodes.length; i++) out.push(ref[lostNodes.data[i]]);
+    }
+    out.sort((a, b) => a - b);
+    return out.map((c) => this.core.model.carriageCodes[c]);
+  }
+
   spof(): SpofAnswer {
     return this.spofAnswer;
   }

@@ -9,7 +9,8 @@ import { registerCheckRoutes } from './checks';
 import { registerDocsRoutes } from './docs';
 import { registerInventoryRoutes } from './inventory';
 import { registerNetworkRoutes } from './network';
+import { registerOperationsRoutes } from './operations';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerDocsRoutes];
+export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerOperationsRoutes, registerDocsRoutes];

@@ -27,9 +27,9 @@ export const PEOPLE_ACTIONS = [
 ] as const;
 export type PeopleAction = (typeof PEOPLE_ACTIONS)[number];
 export type AuditAction = 'create' | 'update' | 'delete' | 'import' | PeopleAction;
-/** An entity kind, 'network' for an import of a whole document, or 'people' for accounts and sign-ins. */
-export type AuditKind = EntityKind | 'network' | 'people';
-export const AUDIT_KINDS: readonly AuditKind[] = ['sites', 'services', 'groups', 'carriages', 'feeds', 'network', 'people'];
+/** An entity kind, 'network' for an import of a whole document, 'people' for accounts and sign-ins, or a planned work or incident (server/operations). */
+export type AuditKind = EntityKind | 'network' | 'people' | 'works' | 'incidents';
+export const AUDIT_KINDS: readonly AuditKind[] = ['sites', 'services', 'groups', 'carriages', 'feeds', 'network', 'people', 'works', 'incidents'];
 export const AUDIT_ACTIONS: readonly AuditAction[] = ['create', 'update', 'delete', 'import', ...PEOPLE_ACTIONS];
 
 export interface AuditEntry {

@@ -130,7 +130,7 @@ export const importReportSchema = z.object({
   networkVersion: z.number().optional(),
 });
 
-export const AUDIT_KINDS = [...ENTITY_KINDS, 'network', 'people'] as const;
+export const AUDIT_KINDS = [...ENTITY_KINDS, 'network', 'people', 'works', 'incidents'] as const;
 /** What was done to people (server/services/audit.ts PEOPLE_ACTIONS). */
 export const PEOPLE_AUDIT_ACTIONS = ['invite', 'role-change', 'disable', 'enable', 'password-change', 'password-set', 'sign-in', 'sign-in-failed', 'sign-out'] as const;
 export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import', ...PEOPLE_AUDIT_ACTIONS] as const;

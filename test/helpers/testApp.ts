@@ -12,6 +12,7 @@ import { createApp } from '@/server/app';
 import type { AppContext } from '@/server/context';
 import { NetworkStore, type NetworkStoreOptions } from '@/server/services/networkStore';
 import { buildNetworkModel } from '@/server/services/networkModel';
+import { OperationsEvents } from '@/server/operations/events';
 import { User } from '@/server/db/models/user';
 import { hashPassword } from '@/server/auth/passwords';
 import { signToken } from '@/server/auth/tokens';
@@ -27,7 +28,7 @@ export async function makeTestApp(opts: { build?: typeof buildNetworkModel; stor
   const config = loadConfig({ ...process.env, DATABASE_URL: url, JWT_SECRET: crypto.randomBytes(32).toString('hex'), WEB_DIR: '/nonexistent' });
   const db = openDatabase(url);
   const network = new NetworkStore(db.sequelize, url, opts.build ?? buildNetworkModel, opts.store);
-  const ctx: AppContext = { config, db, network };
+  const ctx: AppContext = { config, db, network, events: new OperationsEvents() };
   const { app, routes } = createApp(ctx);
   const userIds = new Map<Role, number>();
   let passwordHash: string | undefined;
@@ -35,7 +36,7 @@ export async function makeTestApp(opts: { build?: typeof buildNetworkModel; stor
   /** Empty the network, the audit log and the people; make one account per role. */
   async function reset() {
     await db.sequelize.query(
-      'TRUNCATE feed_via_sites, feed_groups, site_groups, feeds, carriages, sites, services, risk_groups, audit_log, users RESTART IDENTITY CASCADE',
+      'TRUNCATE feed_via_sites, feed_groups, site_groups, feeds, carriages, sites, services, risk_groups, audit_log, incident_steps, incidents, planned_works, users RESTART IDENTITY CASCADE',
     );
     passwordHash ??= await hashPassword(TEST_PASSWORD);
     for (const role of ROLES) {

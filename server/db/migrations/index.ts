@@ -4,8 +4,10 @@
  */
 import * as initialSchema from './0001-initial-schema';
 import * as userSessions from './0002-user-sessions';
+import * as operations from './0004-operations';
 
 export const migrations = [
   { name: '0001-initial-schema', ...initialSchema },
   { name: '0002-user-sessions', ...userSessions },
+  { name: '0004-operations', ...operations },
 ];

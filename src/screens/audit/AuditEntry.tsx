@@ -47,15 +47,18 @@ const ACTION_WORD: Record<AuditItem['action'], string> = {
   'sign-out': 'signed out everywhere',
 };
 
-const kindWord = (kind: AuditItem['entityKind']) => (kind === 'network' ? 'network' : kind === 'people' ? 'account' : WORDS[kind].one);
+const OTHER_WORD: Record<string, string> = { network: 'network', people: 'account', works: 'planned work', incidents: 'incident' };
+const isEntity = (kind: AuditItem['entityKind']): kind is EntityKind => !(kind in OTHER_WORD);
+const kindWord = (kind: AuditItem['entityKind']) => (isEntity(kind) ? WORDS[kind].one : OTHER_WORD[kind]);
 
 export function AuditEntry({ item }: { item: AuditItem }) {
   const [open, setOpen] = useState(false);
-  const order = item.entityKind === 'network' || item.entityKind === 'people' ? [] : ['code', ...FORM_FIELDS[item.entityKind].map((f) => f.name), 'version'];
+  const kind = item.entityKind;
+  const order = isEntity(kind) ? ['code', ...FORM_FIELDS[kind].map((f) => f.name), 'version'] : [];
   const changes = open ? fieldChanges(item.before, item.after, order) : [];
   // Only an update has two sides to compare; a create or delete has one.
   const compare = item.action === 'update';
-  const linkable = item.entityCode && item.entityKind !== 'network' && item.entityKind !== 'people' && item.action !== 'delete';
+  const linkable = item.entityCode && isEntity(kind) && item.action !== 'delete';
   return (
     <View style={styles.card} testID={`audit-${item.id}`}>
       <View style={styles.head}>

@@ -20,7 +20,7 @@ import { AuditEntry } from './AuditEntry';
 import { AUDIT_PAGE_SIZE, auditApiPath, auditFilterFromParams, type AuditKindFilter } from './auditView';
 
 const ALL = 'all';
-const KIND_LABEL: Record<AuditKindFilter, string> = { sites: 'sites', services: 'services', groups: 'groups', carriages: 'carriages', feeds: 'feeds', network: 'imports', people: 'people and sign-ins' };
+const KIND_LABEL: Record<AuditKindFilter, string> = { sites: 'sites', services: 'services', groups: 'groups', carriages: 'carriages', feeds: 'feeds', network: 'imports', people: 'people and sign-ins', works: 'planned works', incidents: 'incidents' };
 
 export function AuditScreen() {
   const { user } = useSession();
