@@ -10,6 +10,16 @@ import type { AppContext } from './context';
 import { NetworkStore } from './services/networkStore';
 import { buildNetworkModel } from './services/networkModel';
 import { ensureUser } from './services/users';
+import { OperationsEvents } from './operations/events';
+import { ObjectStore } from './documents/storage';
+import { NoticeQueue, type NoticeQueueOptions } from './notices/queue';
+import type { MailboxStandin } from './standins/mailbox';
+
+export interface StartOptions {
+  /** the local SMTP stand-in when one runs (its mailbox is shown to admins) */
+  mailbox?: MailboxStandin | null;
+  notices?: NoticeQueueOptions;
+}
 
 export interface RunningServer {
   server: Server;
@@ -18,14 +28,18 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
-export async function startServer(databaseUrl: string, config: Config = loadConfig()): Promise<RunningServer> {
+export async function startServer(databaseUrl: string, config: Config = loadConfig(), opts: StartOptions = {}): Promise<RunningServer> {
   const db = openDatabase(databaseUrl);
   await db.migrate();
   if (config.ADMIN_EMAIL && config.ADMIN_PASSWORD) await ensureUser(config.ADMIN_EMAIL, config.ADMIN_PASSWORD, 'admin', 'Administrator');
 
   const network = new NetworkStore(db.sequelize, databaseUrl, buildNetworkModel);
   await network.start();
-  const ctx: AppContext = { config, db, network };
+  const ctx: AppContext = { config, db, network, events: new OperationsEvents(), objects: ObjectStore.fromConfig(config), mailbox: opts.mailbox ?? null };
+  let port = config.PORT;
+  const notices = new NoticeQueue(ctx, { baseUrl: () => `http://localhost:${port}`, ...opts.notices });
+  await notices.start();
+  ctx.notices = notices;
   const { app } = createApp(ctx);
 
   const server = await new Promise<Server>((resolve, reject) => {
@@ -33,7 +47,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
     s.on('error', reject);
   });
   const address = server.address();
-  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  port = typeof address === 'object' && address ? address.port : config.PORT;
 
   let closing: Promise<void> | null = null;
   const close = () =>
@@ -43,6 +57,8 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
         server.closeIdleConnections?.();
         (setTimeout(() => server.closeAllConnections?.(), 5000) as unknown as NodeJS.Timeout).unref();
       });
+      await notices.stop();
+      ctx.objects?.close();
       await network.close();
       await db.close();
     })());

@@ -19,6 +19,15 @@ export const api = {
   unfed: '/api/analysis/unfed',
   feedChecks: (code: string) => `/api/feeds/${encodeURIComponent(code)}/checks`,
   checks: (severity?: string) => `/api/checks${severity ? `?severity=${severity}` : ''}`,
+  documents: (kind: string, code: string) => `/api/${kind}/${encodeURIComponent(code)}/documents`,
+  document: (kind: string, code: string, id: number) => `/api/${kind}/${encodeURIComponent(code)}/documents/${id}`,
+  documentPreview: (kind: string, code: string, id: number) => `/api/${kind}/${encodeURIComponent(code)}/documents/${id}/preview`,
+  subscriptions: '/api/subscriptions',
+  contacts: '/api/contacts',
+  contact: (id: number) => `/api/contacts/${id}`,
+  notices: '/api/notices',
+  mailbox: '/api/mailbox',
+  unsubscribe: '/api/unsubscribe',
 } as const;
 
 export const ROLES = ['admin', 'engineer', 'operator', 'viewer'] as const;
@@ -30,6 +39,12 @@ export const can = {
   analyse: ['admin', 'engineer', 'operator', 'viewer'] as Role[],
   editNetwork: ['admin', 'engineer'] as Role[],
   manageUsers: ['admin'] as Role[],
+  /** documents on sites, feeds, incidents and works: the desk photographs a site during a fault */
+  editDocuments: ['admin', 'engineer', 'operator'] as Role[],
+  /** one's own notice subscription: every signed-in person */
+  subscribe: ['admin', 'engineer', 'operator', 'viewer'] as Role[],
+  /** outside contacts, the notices sent, the local mailbox */
+  manageNotices: ['admin'] as Role[],
 };
 
 export interface ApiErrorBody {

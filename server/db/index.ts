@@ -8,6 +8,8 @@ import pg from 'pg';
 import { defineUser, User } from './models/user';
 import { defineInventory } from './models/inventory';
 import { defineAudit } from './models/audit';
+import { defineNotices } from './models/notices';
+import { defineDocuments } from './models/documents';
 import { migrations } from './migrations';
 
 // bigint columns (the network version, audit ids) fit comfortably in a JS number.
@@ -30,6 +32,8 @@ export function openDatabase(url: string): Database {
   defineUser(sequelize);
   defineInventory(sequelize);
   defineAudit(sequelize);
+  defineNotices(sequelize);
+  defineDocuments(sequelize);
 
   const umzug = new Umzug({
     migrations: migrations.map((m) => ({ name: m.name, up: m.up, down: m.down })),

@@ -6,9 +6,10 @@ import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { registerAnalysisRoutes } from './analysis';
 import { registerCheckRoutes } from './checks';
+import { registerDocumentRoutes } from './documents';
 import { registerInventoryRoutes } from './inventory';
 import { registerNetworkRoutes } from './network';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes];
+export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerDocumentRoutes];

@@ -3,5 +3,9 @@
  * list runs under tsx, vitest and any bundler; add new files at the end.
  */
 import * as initialSchema from './0001-initial-schema';
+import * as noticesDocuments from './0005-notices-documents';
 
-export const migrations = [{ name: '0001-initial-schema', ...initialSchema }];
+export const migrations = [
+  { name: '0001-initial-schema', ...initialSchema },
+  { name: '0005-notices-documents', ...noticesDocuments },
+];
