@@ -120,7 +120,7 @@ export class NoticeQueue {
         text: notice.textBody,
         html: notice.htmlBody,
         messageId: `<notice-${notice.id}.${notice.eventKey.replace(/[^\w.-]/g, '_').slice(0, 60)}@headwater.invalid>`,
-        headers: { 'X-Headwater-Event': notice.eventKey },
+        headers: { 'X-Headwater-Event': notice.eventKey, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
         list: { unsubscribe: unsubscribeUrl(notice.textBody) },
       });
       await notice.update({ status: 'sent', sentAt: new Date(), attempts: notice.attempts + 1, lastError: null, messageId: info.messageId ?? null });

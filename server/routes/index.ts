@@ -7,9 +7,10 @@ import type { AppContext } from '../context';
 import { registerAnalysisRoutes } from './analysis';
 import { registerCheckRoutes } from './checks';
 import { registerDocumentRoutes } from './documents';
+import { registerNoticeRoutes } from './notices';
 import { registerInventoryRoutes } from './inventory';
 import { registerNetworkRoutes } from './network';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerDocumentRoutes];
+export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerDocumentRoutes, registerNoticeRoutes];

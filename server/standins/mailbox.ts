@@ -74,9 +74,9 @@ export class MailboxStandin {
     const receivedAt = new Date();
     const id = `${receivedAt.getTime()}-${crypto.randomBytes(4).toString('hex')}`;
     const headers: Record<string, string> = {};
-    for (const name of ['message-id', 'list-unsubscribe', 'list-unsubscribe-post', 'x-headwater-event']) {
-      const v = mail.headers.get(name);
-      if (v !== undefined) headers[name] = typeof v === 'string' ? v : JSON.stringify(v);
+    // the raw lines: mailparser folds List-* headers into one parsed object
+    for (const { key, line } of mail.headerLines) {
+      if (['message-id', 'list-unsubscribe', 'list-unsubscribe-post', 'x-headwater-event'].includes(key)) headers[key] = line.slice(line.indexOf(':') + 1).trim();
     }
     const stored: StoredMail = {
       id,

@@ -41,7 +41,8 @@ export class Notice extends Model {
   declare sentAt: Date | null;
 }
 
-const codes = { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] };
+// a fresh object per attribute: Sequelize writes into attribute definitions, so two columns must never share one
+const codes = () => ({ type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] });
 
 export function defineNotices(sequelize: Sequelize) {
   Subscription.init(
@@ -49,8 +50,8 @@ export function defineNotices(sequelize: Sequelize) {
       id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
       userId: { type: DataTypes.INTEGER, allowNull: false, unique: true },
       everything: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-      services: codes,
-      sites: codes,
+      services: codes(),
+      sites: codes(),
     },
     { sequelize, tableName: 'subscriptions' },
   );
@@ -61,8 +62,8 @@ export function defineNotices(sequelize: Sequelize) {
       email: { type: DataTypes.TEXT, allowNull: false },
       organisation: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       everything: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-      services: codes,
-      sites: codes,
+      services: codes(),
+      sites: codes(),
     },
     { sequelize, tableName: 'contacts' },
   );
