@@ -12,6 +12,7 @@ import { applyDemoAccounts, DEMO_USERS } from '@/server/services/demoAccounts';
 import { importNetwork } from '@/server/services/importer';
 import { resolveDatabaseUrl, REPO_ROOT } from './lib/postgres';
 import { ensureWebBuild } from './lib/webBuild';
+import { startStandins } from '@/server/standins';
 
 export { DEMO_USERS };
 export const DEMO_NETWORK = path.join(REPO_ROOT, 'test', 'fixtures', 'demo-network.json');
@@ -40,8 +41,11 @@ async function main() {
   if (cluster) console.log(`PostgreSQL: 127.0.0.1, cluster folder ${cluster.home} (stop it with npm run stop)`);
   if (config.DEMO) await loadDemo(url);
   ensureWebBuild();
-  const running = await startServer(url, config);
-  closeOnSignals(running);
+  const standins = await startStandins(config);
+  const running = await startServer(url, standins.config, { mailbox: standins.mailbox });
+  closeOnSignals(running, () => standins.close());
+  if (standins.mailbox) console.log(`SMTP stand-in: ${standins.mailbox.url}, mail kept in ${standins.mailbox.folder} (admins: Notices > Mailbox)`);
+  if (standins.objectStore) console.log(`Object store stand-in: ${standins.objectStore.url}, files in ${standins.objectStore.folder}`);
 
   console.log(`\nHeadwater is running at ${running.url}  (ready in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
   if (config.DEMO) {

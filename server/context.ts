@@ -3,6 +3,9 @@ import type { Database } from './db';
 import type { NetworkStore } from './services/networkStore';
 import type { NetworkModel } from './services/networkModel';
 import type { OperationsEvents } from './operations/events';
+import type { ObjectStore } from './documents/storage';
+import type { MailboxStandin } from './standins/mailbox';
+import type { NoticeQueue } from './notices/queue';
 
 /** What route modules are handed: configuration, the database, the live network model. */
 export interface AppContext {
@@ -11,6 +14,12 @@ export interface AppContext {
   network: NetworkStore<NetworkModel>;
   /** planned-work and incident events, for whoever tells people about them; optional so older wiring still builds */
   events?: OperationsEvents;
+  /** documents' object store (S3_ENDPOINT, S3_BUCKET ...) */
+  objects?: ObjectStore;
+  /** the notice queue and its worker (pg-boss) */
+  notices?: NoticeQueue;
+  /** the local SMTP stand-in, only when it runs: its mailbox is shown to admins */
+  mailbox?: MailboxStandin | null;
   /** set by the sign-in routes; tests use it to start from a clean slate */
   resetLoginLimits?: () => void;
 }

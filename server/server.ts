@@ -12,6 +12,17 @@ import { buildNetworkModel } from './services/networkModel';
 import { ensureUser } from './services/users';
 import { applyDemoAccounts, listenHost, type DemoAccountsResult } from './services/demoAccounts';
 import { OperationsEvents } from './operations/events';
+import { ObjectStore } from './documents/storage';
+import { NoticeQueue, type NoticeQueueOptions } from './notices/queue';
+import type { MailboxStandin } from './standins/mailbox';
+
+export interface StartOptions {
+  /** the local SMTP stand-in when one runs (its mailbox is shown to admins) */
+  mailbox?: MailboxStandin | null;
+  notices?: NoticeQueueOptions;
+  /** the address to listen on (by default 127.0.0.1 for the demo, else all interfaces; the load run keeps to 127.0.0.1) */
+  host?: string;
+}
 
 export interface RunningServer {
   server: Server;
@@ -23,8 +34,7 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
-/** `host`: the address to listen on (all interfaces unless given; the load run keeps to 127.0.0.1). */
-export async function startServer(databaseUrl: string, config: Config = loadConfig(), opts: { host?: string } = {}): Promise<RunningServer> {
+export async function startServer(databaseUrl: string, config: Config = loadConfig(), opts: StartOptions = {}): Promise<RunningServer> {
   const db = openDatabase(databaseUrl);
   await db.migrate();
   if (config.ADMIN_EMAIL && config.ADMIN_PASSWORD) await ensureUser(config.ADMIN_EMAIL, config.ADMIN_PASSWORD, 'admin', 'Administrator');
@@ -33,7 +43,11 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
 
   const network = new NetworkStore(db.sequelize, databaseUrl, buildNetworkModel);
   await network.start();
-  const ctx: AppContext = { config, db, network, events: new OperationsEvents() };
+  const ctx: AppContext = { config, db, network, events: new OperationsEvents(), objects: ObjectStore.fromConfig(config), mailbox: opts.mailbox ?? null };
+  let port = config.PORT;
+  const notices = new NoticeQueue(ctx, { baseUrl: () => `http://localhost:${port}`, ...opts.notices });
+  await notices.start();
+  ctx.notices = notices;
   const { app } = createApp(ctx);
 
   const host = listenHost(config.DEMO);
@@ -42,7 +56,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
     s.on('error', reject);
   });
   const address = server.address();
-  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  port = typeof address === 'object' && address ? address.port : config.PORT;
 
   let closing: Promise<void> | null = null;
   const close = () =>
@@ -52,6 +66,8 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
         server.closeIdleConnections?.();
         (setTimeout(() => server.closeAllConnections?.(), 5000) as unknown as NodeJS.Timeout).unref();
       });
+      await notices.stop();
+      ctx.objects?.close();
       await network.close();
       await db.close();
     })());

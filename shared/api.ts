@@ -30,6 +30,15 @@ export const api = {
   incident: (code: string) => `/api/incidents/${encodeURIComponent(code)}`,
   incidentUpdates: (code: string) => `/api/incidents/${encodeURIComponent(code)}/updates`,
   availability: '/api/reports/availability',
+  documents: (kind: string, code: string) => `/api/${kind}/${encodeURIComponent(code)}/documents`,
+  document: (kind: string, code: string, id: number) => `/api/${kind}/${encodeURIComponent(code)}/documents/${id}`,
+  documentPreview: (kind: string, code: string, id: number) => `/api/${kind}/${encodeURIComponent(code)}/documents/${id}/preview`,
+  subscriptions: '/api/subscriptions',
+  contacts: '/api/contacts',
+  contact: (id: number) => `/api/contacts/${id}`,
+  notices: '/api/notices',
+  mailbox: '/api/mailbox',
+  unsubscribe: '/api/unsubscribe',
 } as const;
 
 export const ROLES = ['admin', 'engineer', 'operator', 'viewer'] as const;
@@ -45,6 +54,12 @@ export const can = {
   operate: ['admin', 'engineer', 'operator'] as Role[],
   /** approve planned work (never one's own request, unless admin) */
   approveWork: ['admin', 'engineer'] as Role[],
+  /** documents on sites, feeds, incidents and works: the desk photographs a site during a fault */
+  editDocuments: ['admin', 'engineer', 'operator'] as Role[],
+  /** one's own notice subscription: every signed-in person */
+  subscribe: ['admin', 'engineer', 'operator', 'viewer'] as Role[],
+  /** outside contacts, the notices sent, the local mailbox */
+  manageNotices: ['admin'] as Role[],
 };
 
 export interface ApiErrorBody {

@@ -9,6 +9,8 @@ import { defineUser, User } from './models/user';
 import { defineInventory } from './models/inventory';
 import { defineAudit } from './models/audit';
 import { defineOperations } from './models/operations';
+import { defineNotices } from './models/notices';
+import { defineDocuments } from './models/documents';
 import { migrations } from './migrations';
 
 // bigint columns (the network version, audit ids) fit comfortably in a JS number.
@@ -82,6 +84,8 @@ export function openDatabase(url: string, limits: Partial<DatabaseLimits> = {}):
   defineInventory(sequelize);
   defineAudit(sequelize);
   defineOperations(sequelize);
+  defineNotices(sequelize);
+  defineDocuments(sequelize);
 
   return {
     sequelize,

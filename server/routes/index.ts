@@ -7,10 +7,12 @@ import type { AppContext } from '../context';
 import { registerAnalysisRoutes } from './analysis';
 import { registerCheckRoutes } from './checks';
 import { registerDocsRoutes } from './docs';
+import { registerDocumentRoutes } from './documents';
+import { registerNoticeRoutes } from './notices';
 import { registerInventoryRoutes } from './inventory';
 import { registerNetworkRoutes } from './network';
 import { registerOperationsRoutes } from './operations';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerOperationsRoutes, registerDocsRoutes];
+export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerOperationsRoutes, registerDocumentRoutes, registerNoticeRoutes, registerDocsRoutes];

@@ -33,6 +33,8 @@ import { listEntities, listQuerySchema } from '../services/inventory/read';
 import { createEntity, updateEntity } from '../services/inventory/write';
 import { deleteEntity } from '../services/inventory/remove';
 import type { WriteResult } from '../services/inventory/networkWrite';
+import { DOCUMENT_CHOICES } from '@/shared/schemas/documents';
+import { ownersDeleted } from '../documents/service';
 
 export const deleteQuerySchema = z.strictObject({
   version: z.coerce
@@ -40,6 +42,7 @@ export const deleteQuerySchema = z.strictObject({
     .int('version is a whole number')
     .min(1, 'version is at least 1'),
   cascade: z.enum(['true', 'false'], { error: 'cascade is true or false' }).default('false'),
+  documents: z.enum(DOCUMENT_CHOICES, { error: 'documents is delete or keep: what to do with the documents of what is deleted' }).optional(),
 });
 
 export const actorOf = (req: Request): Actor => ({ userId: req.auth?.userId, email: req.auth?.email });
@@ -75,7 +78,7 @@ export function registerInventoryRoutes(routes: RouteTable, ctx: AppContext) {
 
     routes.add('delete', `/${kind}/:code`, can.editNetwork, async (req, res) => {
       const query = parseOr400(deleteQuerySchema, req.query, 'query');
-      const out = await settled(ctx, await deleteEntity(sequelize, kind, String(req.params.code), { version: query.version, cascade: query.cascade === 'true' }, actorOf(req)));
+      const out = await settled(ctx, await deleteEntity(sequelize, kind, String(req.params.code), { version: query.version, cascade: query.cascade === 'true', onDeleted: (t, deleted) => ownersDeleted(ctx, t, deleted, query.documents) }, actorOf(req)));
       res.set('X-Network-Version', String(out.networkVersion)).json({ ...out.result, networkVersion: out.networkVersion });
     });
   }

@@ -3,6 +3,9 @@
  * account per role and helpers to reset state between tests.
  */
 import crypto from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, beforeEach, expect } from 'vitest';
 import type { NetworkDocument } from '@/shared/schemas/network';
@@ -17,6 +20,9 @@ import { User } from '@/server/db/models/user';
 import { hashPassword } from '@/server/auth/passwords';
 import { signToken } from '@/server/auth/tokens';
 import { ROLES, type Role } from '@/shared/api';
+import { startStandins } from '@/server/standins';
+import { ObjectStore } from '@/server/documents/storage';
+import { NoticeQueue } from '@/server/notices/queue';
 
 export const TEST_PASSWORD = `pw-${crypto.randomBytes(6).toString('hex')}`;
 export const emailFor = (role: Role) => `${role}@test.example`;
@@ -25,10 +31,18 @@ export const emailFor = (role: Role) => `${role}@test.example`;
 export async function makeTestApp(opts: { build?: typeof buildNetworkModel; store?: NetworkStoreOptions } = {}) {
   const url = process.env.TEST_DATABASE_URL;
   if (!url) throw new Error('TEST_DATABASE_URL is not set: run API tests through vitest --project api');
-  const config = loadConfig({ ...process.env, DATABASE_URL: url, JWT_SECRET: crypto.randomBytes(32).toString('hex'), WEB_DIR: '/nonexistent' });
+  // Stand-ins of SMTP and the object store for this file, with their files in a private temporary folder.
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'headwater-api-'));
+  const standins = await startStandins(
+    loadConfig({ ...process.env, DATABASE_URL: url, JWT_SECRET: crypto.randomBytes(32).toString('hex'), WEB_DIR: '/nonexistent', SMTP_URL: undefined, S3_ENDPOINT: undefined, DATA_DIR: dataDir }),
+  );
+  const config = standins.config;
   const db = openDatabase(url);
   const network = new NetworkStore(db.sequelize, url, opts.build ?? buildNetworkModel, opts.store);
-  const ctx: AppContext = { config, db, network, events: new OperationsEvents() };
+  const ctx: AppContext = { config, db, network, events: new OperationsEvents(), objects: ObjectStore.fromConfig(config), mailbox: standins.mailbox };
+  const notices = new NoticeQueue(ctx, { retryDelaySeconds: 1, pollingSeconds: 0.5, baseUrl: () => 'http://headwater.test' });
+  await notices.start();
+  ctx.notices = notices;
   const { app, routes } = createApp(ctx);
   const userIds = new Map<Role, number>();
   let passwordHash: string | undefined;
@@ -36,7 +50,7 @@ export async function makeTestApp(opts: { build?: typeof buildNetworkModel; stor
   /** Empty the network, the audit log and the people; make one account per role. */
   async function reset() {
     await db.sequelize.query(
-      'TRUNCATE feed_via_sites, feed_groups, site_groups, feeds, carriages, sites, services, risk_groups, audit_log, incident_steps, incidents, planned_works, users RESTART IDENTITY CASCADE',
+      'TRUNCATE feed_via_sites, feed_groups, site_groups, feeds, carriages, sites, services, risk_groups, audit_log, incident_steps, incidents, planned_works, users, subscriptions, contacts, notices, documents RESTART IDENTITY CASCADE',
     );
     passwordHash ??= await hashPassword(TEST_PASSWORD);
     for (const role of ROLES) {
@@ -44,6 +58,10 @@ export async function makeTestApp(opts: { build?: typeof buildNetworkModel; stor
       userIds.set(role, u.id);
     }
     ctx.resetLoginLimits?.();
+    // jobs of an earlier test would name notice ids that RESTART IDENTITY hands out again
+    await db.sequelize.query(`DELETE FROM pgboss.job WHERE name = 'notice-send'`);
+    standins.mailbox?.clear();
+    for (const key of (await ctx.objects?.keys()) ?? []) await ctx.objects!.remove(key);
     await network.refresh();
   }
 
@@ -57,12 +75,18 @@ export async function makeTestApp(opts: { build?: typeof buildNetworkModel; stor
     routes,
     db,
     config,
+    standins,
+    notices,
     reset,
     tokenFor,
     auth,
     close: async () => {
+      await notices.stop();
+      ctx.objects?.close();
       await network.close();
       await db.close();
+      await standins.close();
+      fs.rmSync(dataDir, { recursive: true, force: true });
     },
   };
 }

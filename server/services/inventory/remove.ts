@@ -10,7 +10,7 @@
  * service -> its carriages and their feeds; carriage -> its feeds in and
  * out; group -> the sites and feeds in it (their membership).
  */
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
 import { conflict, notFound } from '../../http/errors';
 import type { Actor } from '../audit';
@@ -50,7 +50,7 @@ export async function deleteEntity(
   sequelize: Sequelize,
   kind: EntityKind,
   code: string,
-  opts: { version: number; cascade: boolean },
+  opts: { version: number; cascade: boolean; onDeleted?: (t: Transaction, deleted: DeleteOutcome['deleted']) => Promise<void> },
   actor: Actor,
 ): Promise<WriteResult<DeleteOutcome>> {
   return refusalsAsApiErrors(() =>
@@ -74,6 +74,8 @@ export async function deleteEntity(
       await deleteByCodes(w, kind, [code]);
       w.audit({ action: 'delete', entityKind: kind, entityCode: code, before: auditShape(current.entity) });
       outcome.deleted[kind] = [...(outcome.deleted[kind] ?? []), code];
+      // what hangs off the deleted rows outside the network (documents) may refuse or follow, in this transaction
+      await opts.onDeleted?.(w.transaction, outcome.deleted);
       return outcome;
     }),
   );

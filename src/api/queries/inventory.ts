@@ -116,8 +116,8 @@ export function useInventoryActions() {
         await refresh();
         return answer;
       },
-      remove: async (kind: EntityKind, code: string, version: number, cascade: boolean): Promise<DeleteAnswer> => {
-        const path = `${api.entity(kind, code)}?version=${version}${cascade ? '&cascade=true' : ''}`;
+      remove: async (kind: EntityKind, code: string, version: number, cascade: boolean, documents?: 'delete' | 'keep'): Promise<DeleteAnswer> => {
+        const path = `${api.entity(kind, code)}?version=${version}${cascade ? '&cascade=true' : ''}${documents ? `&documents=${documents}` : ''}`;
         const answer = (await send(path, { method: 'DELETE' })) as DeleteAnswer;
         // The deleted record's own detail would answer 404 if revalidated; drop it instead.
         const gone = inventoryKeys.detail(kind, code);

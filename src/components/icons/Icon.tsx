@@ -7,7 +7,7 @@
 import Svg, { Circle, Path } from 'react-native-svg';
 import { colors } from '@/src/theme';
 
-export type IconName = 'home' | 'reach' | 'network' | 'resilience' | 'inventory' | 'checks' | 'people' | 'calculator' | 'more' | 'signOut' | 'close' | 'retry';
+export type IconName = 'home' | 'reach' | 'network' | 'resilience' | 'inventory' | 'checks' | 'people' | 'calculator' | 'more' | 'signOut' | 'close' | 'retry' | 'mail';
 
 interface Shape {
   paths: string[];
@@ -37,6 +37,8 @@ const SHAPES: Record<IconName, Shape> = {
   signOut: { paths: ['M10 4H5v16h5', 'M14 8l4 4-4 4', 'M18 12H9'] },
   close: { paths: ['M6 6l12 12', 'M18 6 6 18'] },
   retry: { paths: ['M19 12a7 7 0 1 1-2.05-4.95', 'M19 4v4.5h-4.5'] },
+  // an envelope: notices by mail
+  mail: { paths: ['M3 6h18v12H3z', 'M3 6.5l9 6.5 9-6.5'] },
 };
 
 export interface IconProps {

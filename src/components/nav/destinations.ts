@@ -35,6 +35,16 @@ export const DESTINATIONS: readonly Destination[] = [
   },
   { id: 'checks', label: 'Checks', href: '/checks', icon: 'checks', matches: ['/checks'], blurb: 'Warnings from the feed and network checks' },
   { id: 'calculator', label: 'Calculator', href: '/calculator', icon: 'calculator', matches: ['/calculator'], blurb: 'Channel and frequency, distance and bearing, free-space figures' },
+  { id: 'my-notices', label: 'My notices', href: '/notices', icon: 'mail', matches: ['/notices'], blurb: 'Mail me when a fault or planned work reaches what I look after' },
+  {
+    id: 'notices',
+    label: 'Notices sent',
+    href: '/admin/notices',
+    icon: 'mail',
+    matches: ['/admin/notices', '/admin/contacts', '/admin/mailbox'],
+    roles: can.manageNotices,
+    blurb: 'Mail sent, waiting and failed; outside contacts; the local mailbox',
+  },
   { id: 'changes', label: 'Audit log', href: '/admin/audit', icon: 'inventory', matches: ['/admin/audit'], roles: can.manageUsers, blurb: 'Who changed what in the network, and when' },
   { id: 'people', label: 'People', href: '/admin/users', icon: 'people', matches: ['/admin/users'], roles: can.manageUsers, blurb: 'Invite people and set their roles' },
 ];

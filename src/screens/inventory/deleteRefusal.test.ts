@@ -46,3 +46,10 @@ describe('deleteButtonLabel', () => {
     expect(deleteButtonLabel('groups', 'G', 2)).toBe('Delete group G and release 2 members');
   });
 });
+
+describe('a refusal for documents', () => {
+  it('reads the count and drops the API wording', () => {
+    const r = deleteRefusal('sites', new ApiError(409, 'conflict', 'site H1 has 2 documents; delete again with documents=delete to delete them too, or documents=keep to keep them', { documents: 2 }));
+    expect(r).toEqual({ reason: 'documents', count: 2, message: 'site H1 has 2 documents. Choose below what happens to them.' });
+  });
+});

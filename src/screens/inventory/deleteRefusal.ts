@@ -21,6 +21,8 @@ export interface Dependents {
 export type DeleteRefusal =
   | { reason: 'dependents'; message: string; dependents: Dependents[]; total: number; cascadeLabel: string }
   | { reason: 'stale'; message: string }
+  /** the record has documents (server/documents/README.md): delete or keep them */
+  | { reason: 'documents'; message: string; count: number }
   | { reason: 'other'; message: string };
 
 const KINDS: readonly EntityKind[] = ['sites', 'services', 'groups', 'carriages', 'feeds'];
@@ -30,6 +32,11 @@ export function deleteRefusal(kind: EntityKind, error: unknown): DeleteRefusal {
   if (error.status === 403) return { reason: 'other', message: 'Your role does not allow changing the network.' };
   const details = error.details as { dependents?: unknown; currentVersion?: unknown } | undefined;
   if (error.status === 409 && details && typeof details.currentVersion === 'number') return { reason: 'stale', message: STALE_MESSAGE };
+  const documents = (details as { documents?: unknown } | undefined)?.documents;
+  if (error.status === 409 && typeof documents === 'number') {
+    // The server ends with the query words to choose; the panel offers the choice instead.
+    return { reason: 'documents', message: `${error.message.replace(/;[^;]*documents=delete.*$/, '')}. Choose below what happens to them.`, count: documents };
+  }
   if (error.status === 409 && details && details.dependents && typeof details.dependents === 'object') {
     const dependents: Dependents[] = [];
     for (const k of KINDS) {

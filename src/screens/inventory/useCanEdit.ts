@@ -10,3 +10,9 @@ export function useCanEdit(): boolean {
   const { user } = useSession();
   return !!user && can.editNetwork.includes(user.role);
 }
+
+/** Whether the signed-in person may add and delete documents (`can.editDocuments`: the desk too). */
+export function useCanEditDocuments(): boolean {
+  const { user } = useSession();
+  return !!user && can.editDocuments.includes(user.role);
+}

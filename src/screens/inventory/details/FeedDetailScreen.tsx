@@ -7,6 +7,8 @@
 import { StyleSheet, View } from 'react-native';
 import { Section } from '@/src/components/layout/Section';
 import { FeedChecksPanel } from '@/src/screens/checks/FeedChecksPanel';
+import { DocumentsPanel } from '@/src/screens/documents/DocumentsPanel';
+import { useCanEditDocuments } from '../useCanEdit';
 import { space } from '@/src/theme';
 import { figure, whenText, withUnit } from '../format';
 import { detailHref } from '../kinds';
@@ -26,6 +28,7 @@ function End({ carriage, site, testID }: { carriage: string; site?: { code: stri
 }
 
 export function FeedDetailScreen({ code }: { code: string }) {
+  const canEditDocuments = useCanEditDocuments();
   return (
     <DetailFrame
       kind="feeds"
@@ -62,6 +65,7 @@ export function FeedDetailScreen({ code }: { code: string }) {
             />
           </Section>
           <FeedChecksPanel code={feed.code} />
+          <DocumentsPanel kind="feeds" code={feed.code} canEdit={canEditDocuments} />
         </>
       )}
     </DetailFrame>

@@ -8,17 +8,19 @@ import { StyleSheet, View } from 'react-native';
 import { Columns } from '@/src/components/layout/Columns';
 import { Section } from '@/src/components/layout/Section';
 import { MastCautions } from '@/src/screens/checks/MastCautions';
+import { DocumentsPanel } from '@/src/screens/documents/DocumentsPanel';
 import { space } from '@/src/theme';
 import { householdsText, positionText, whenText, withUnit } from '../format';
 import { filteredListHref } from '../listQuery';
 import { FieldList } from '../parts/FieldList';
 import { LinkButton } from '../parts/LinkButton';
-import { useCanEdit } from '../useCanEdit';
+import { useCanEdit, useCanEditDocuments } from '../useCanEdit';
 import { DetailFrame } from './DetailFrame';
 import { carriageLinks, codeLinks, feedLinks, LinkList } from './RecordLinks';
 
 export function SiteDetailScreen({ code }: { code: string }) {
   const canEdit = useCanEdit();
+  const canEditDocuments = useCanEditDocuments();
   return (
     <DetailFrame kind="sites" code={code} title={(d) => d.site.name} subtitle={(d) => `Site ${d.site.code}, ${d.site.role}`}>
       {({ site, carriages, feedsIn, feedsOut, feedsVia }) => (
@@ -26,21 +28,25 @@ export function SiteDetailScreen({ code }: { code: string }) {
           <View style={styles.actions}>
             <LinkButton href={`/reach?fail=${encodeURIComponent(`site:${site.code}`)}`} label="Fault reach" testID="site-reach" />
           </View>
-          <Section title="Record" testID="site-record">
-            <FieldList
-              items={[
-                { label: 'Code', value: site.code, mono: true },
-                { label: 'Name', value: site.name },
-                { label: 'Role', value: site.role },
-                { label: 'Position (WGS84)', value: positionText(site.lat, site.lon), mono: true, testID: 'site-position' },
-                { label: 'Ground height (above sea level)', value: withUnit(site.groundHeightM, 'm'), mono: true },
-                { label: 'Mast height', value: withUnit(site.mastHeightM, 'm'), mono: true },
-                { label: 'Households served', value: householdsText(site.households) },
-                { label: 'Shared-risk groups', value: <LinkList items={codeLinks('groups', site.groups ?? [])} empty="none" testID="site-groups" /> },
-                { label: 'Last changed', value: `${whenText(site.updatedAt)} (version ${site.version})` },
-              ]}
-            />
-          </Section>
+          {/* documents beside the record on a wide screen, under it on a phone */}
+          <Columns max={2}>
+            <Section title="Record" testID="site-record">
+              <FieldList
+                items={[
+                  { label: 'Code', value: site.code, mono: true },
+                  { label: 'Name', value: site.name },
+                  { label: 'Role', value: site.role },
+                  { label: 'Position (WGS84)', value: positionText(site.lat, site.lon), mono: true, testID: 'site-position' },
+                  { label: 'Ground height (above sea level)', value: withUnit(site.groundHeightM, 'm'), mono: true },
+                  { label: 'Mast height', value: withUnit(site.mastHeightM, 'm'), mono: true },
+                  { label: 'Households served', value: householdsText(site.households) },
+                  { label: 'Shared-risk groups', value: <LinkList items={codeLinks('groups', site.groups ?? [])} empty="none" testID="site-groups" /> },
+                  { label: 'Last changed', value: `${whenText(site.updatedAt)} (version ${site.version})` },
+                ]}
+              />
+            </Section>
+            <DocumentsPanel kind="sites" code={site.code} canEdit={canEditDocuments} photos />
+          </Columns>
           <MastCautions testID="site-mast-cautions" />
           <Section
             title={`Carriages (${carriages.length})`}

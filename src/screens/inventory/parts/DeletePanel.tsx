@@ -31,6 +31,9 @@ export function DeletePanel({ kind, code, version, onDeleted, onReload }: Delete
   const [step, setStep] = useState<Step>('idle');
   const [refusal, setRefusal] = useState<DeleteRefusal | null>(null);
   const [cascade, setCascade] = useState(false);
+  /** cascade as last sent: a documents refusal comes after the dependents were accepted */
+  const [cascadeSent, setCascadeSent] = useState(false);
+  const [documents, setDocuments] = useState<'delete' | 'keep' | null>(null);
   const [busy, setBusy] = useState(false);
   const one = WORDS[kind].one;
 
@@ -38,16 +41,21 @@ export function DeletePanel({ kind, code, version, onDeleted, onReload }: Delete
     setStep('idle');
     setRefusal(null);
     setCascade(false);
+    setCascadeSent(false);
+    setDocuments(null);
   };
 
   async function remove() {
     setBusy(true);
     try {
-      await actions.remove(kind, code, version, cascade && refusal?.reason === 'dependents');
+      const withCascade = (cascade && refusal?.reason === 'dependents') || (cascadeSent && refusal?.reason === 'documents');
+      setCascadeSent(withCascade);
+      await actions.remove(kind, code, version, withCascade, refusal?.reason === 'documents' ? (documents ?? undefined) : undefined);
       onDeleted();
     } catch (e) {
       setRefusal(deleteRefusal(kind, e));
       setCascade(false);
+      setDocuments(null);
     } finally {
       setBusy(false);
     }
@@ -99,13 +107,25 @@ export function DeletePanel({ kind, code, version, onDeleted, onReload }: Delete
           testID="delete-cascade"
         />
       ) : null}
+      {refusal?.reason === 'documents' ? (
+        <Choice
+          label="Its documents"
+          options={[
+            { value: 'keep', label: `Keep the ${refusal.count === 1 ? 'document' : `${refusal.count} documents`} in storage` },
+            { value: 'delete', label: `Delete the ${refusal.count === 1 ? 'document' : `${refusal.count} documents`} too` },
+          ]}
+          value={documents}
+          onChange={setDocuments}
+          testID="delete-documents"
+        />
+      ) : null}
       <View style={styles.buttons}>
         {refusal?.reason !== 'stale' ? (
           <Button
             label={deleteButtonLabel(kind, code, cascade && dependents ? dependents.total : null)}
             variant="danger"
             busy={busy}
-            disabled={!!dependents && !cascade}
+            disabled={(!!dependents && !cascade) || (refusal?.reason === 'documents' && !documents)}
             onPress={() => void remove()}
             testID="delete-confirm"
           />

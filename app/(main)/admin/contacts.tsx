@@ -1,0 +1,5 @@
+import { ContactsScreen } from '@/src/screens/notices/ContactsScreen';
+
+export default function ContactsRoute() {
+  return <ContactsScreen />;
+}

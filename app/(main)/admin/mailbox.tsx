@@ -1,0 +1,5 @@
+import { MailboxScreen } from '@/src/screens/notices/MailboxScreen';
+
+export default function MailboxRoute() {
+  return <MailboxScreen />;
+}

@@ -1,0 +1,5 @@
+import { NoticesAdminScreen } from '@/src/screens/notices/NoticesAdminScreen';
+
+export default function NoticesAdminRoute() {
+  return <NoticesAdminScreen />;
+}

@@ -1,0 +1,5 @@
+import { MyNoticesScreen } from '@/src/screens/notices/MyNoticesScreen';
+
+export default function MyNoticesRoute() {
+  return <MyNoticesScreen />;
+}
