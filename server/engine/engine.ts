@@ -20,6 +20,7 @@ import { elementKey } from '@/shared/schemas/analysis';
 import { buildCore, type BuildTimings, type EngineCore } from './core';
 import { elementId, listOf, normaliseCode } from './model';
 import { computeResilience, type Resilience } from './resilience';
+import { avoidableOf, unavoidableByService } from './avoidable';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
 import { IntList } from './removal-walk';
@@ -60,6 +61,8 @@ export class NetworkEngine {
   private readonly diversityAnswer: DiversityAnswer;
   private readonly exposureRows: ExposureRow[];
   private readonly graphology: (ServiceGraph | undefined)[] = [];
+  /** per service: element ids that hold every origin of the service (rule 9, unavoidable) */
+  private readonly unavoidable: Int32Array[];
 
   private constructor(core: EngineCore, networkVersion: number, started: number) {
     this.core = core;
@@ -75,7 +78,9 @@ export class NetworkEngine {
     this.staticFallback = staticFallback.toArray();
     this.scratch = createReachScratch(core);
     const { spofOffsets, spofElements } = this.resilience;
-    const spofOf = (c: number) => Array.from(spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]), (x) => model.elements[x]);
+    this.unavoidable = unavoidableByService(core);
+    const spofIds = (c: number) => spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]);
+    const spofOf = (c: number) => Array.from(spofIds(c), (x) => model.elements[x]);
     const placed = (c: number) => ({
       carriage: model.carriageCodes[c],
       service: model.serviceCodes[model.carriageService[c]],
@@ -92,7 +97,9 @@ export class NetworkEngine {
       const spof = spofOf(c);
       spofRows.push({ carriage: model.carriageCodes[c], spof });
       const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
-      if (hasReserve && spof.length > 0) diversityRows.push({ ...placed(c), shared: spof });
+      if (!hasReserve || spof.length === 0) continue;
+      const avoidable = avoidableOf(this.unavoidable, model.carriageService[c], spofIds(c));
+      if (avoidable.length > 0) diversityRows.push({ ...placed(c), spof, avoidable: avoidable.map((x) => model.elements[x]) });
     }
     this.spofAnswer = { networkVersion, carriages: spofRows };
     this.unfedAnswer = { networkVersion, carriages: unfedRows };

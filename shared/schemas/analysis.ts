@@ -43,7 +43,13 @@ export interface ExposureAnswer {
 
 export interface DiversityAnswer {
   networkVersion: number;
-  carriages: { carriage: string; service: string; site: string; shared: Element[] }[];
+  /**
+   * Carriages with a diversity gap (rule 9, revised): a reserve feed and at
+   * least one avoidable single point of failure. `spof` is the full list,
+   * `avoidable` the part another feed could avoid (some origin of the service
+   * keeps programme); both sorted site, feed, group, then code.
+   */
+  carriages: { carriage: string; service: string; site: string; spof: Element[]; avoidable: Element[] }[];
 }
 
 export interface UnfedAnswer {

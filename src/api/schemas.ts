@@ -169,7 +169,7 @@ export const exposureAnswerSchema = z.object({
 const carriagePlaceSchema = { carriage: z.string(), service: z.string(), site: z.string() };
 export const diversityAnswerSchema = z.object({
   networkVersion: z.number(),
-  carriages: z.array(z.object({ ...carriagePlaceSchema, shared: z.array(analysisElementSchema) })),
+  carriages: z.array(z.object({ ...carriagePlaceSchema, spof: z.array(analysisElementSchema), avoidable: z.array(analysisElementSchema) })),
 }) satisfies z.ZodType<analysisTypes.DiversityAnswer>;
 
 export const unfedAnswerSchema = z.object({
