@@ -12,6 +12,7 @@ import type {
   Element,
   ExposureAnswer,
   ExposureRow,
+  PairsAnswer,
   ReachAnswer,
   SpofAnswer,
   UnfedAnswer,
@@ -24,6 +25,8 @@ import { avoidableOf, unavoidableByService } from './avoidable';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
 import { IntList } from './removal-walk';
+import { PairsJob, type PairRow } from './pairs';
+import type { ElementKind } from '@/shared/schemas/network';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
 import { toGraphology, type ServiceGraph } from './graphs';
 import type { Csr } from './csr';
@@ -206,6 +209,38 @@ export class NetworkEngine {
 
   unfed(): UnfedAnswer {
     return this.unfedAnswer;
+  }
+
+  /**
+   * Critical pairs (rule 10) as a job that works in steps (pairs.ts), so a
+   * server can yield between them; `pairsAnswer` turns its rows into the answer.
+   */
+  pairsJob(kinds: readonly ElementKind[] = ['site', 'group']): PairsJob {
+    if (!Array.isArray(kinds) || kinds.length === 0 || kinds.some((k) => k !== 'site' && k !== 'feed' && k !== 'group')) {
+      throw new RangeError(`kinds is a non-empty list of site, feed, group (got ${JSON.stringify(kinds)})`);
+    }
+    return new PairsJob(this.core, kinds);
+  }
+
+  pairsAnswer(rows: readonly PairRow[], limit?: number): PairsAnswer {
+    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    const { model } = this.core;
+    return {
+      networkVersion: this.networkVersion,
+      pairs: (limit === undefined ? rows : rows.slice(0, limit)).map((r) => ({
+        elements: [model.elements[r.a], model.elements[r.b]],
+        jointLost: Array.from(r.jointLost, (c) => model.carriageCodes[c]),
+        households: r.households,
+      })),
+    };
+  }
+
+  /** Critical pairs computed in one go (tests, benchmark, small networks). */
+  pairs(opts: { kinds?: readonly ElementKind[]; limit?: number } = {}): PairsAnswer {
+    if (opts.limit !== undefined && (!Number.isInteger(opts.limit) || opts.limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(opts.limit)})`);
+    const job = this.pairsJob(opts.kinds);
+    job.step(Number.POSITIVE_INFINITY);
+    return this.pairsAnswer(job.result(), opts.limit);
   }
 
   chain(carriageCode: string, direction: ChainDirection, opts?: ChainOptions): ChainAnswer {

@@ -52,6 +52,12 @@ export interface DiversityAnswer {
   carriages: { carriage: string; service: string; site: string; spof: Element[]; avoidable: Element[] }[];
 }
 
+/** Critical pairs (rule 10), highest households first, ties by the first element then the second (kind, then code). */
+export interface PairsAnswer {
+  networkVersion: number;
+  pairs: { elements: [Element, Element]; jointLost: string[]; households: number }[];
+}
+
 export interface UnfedAnswer {
   networkVersion: number;
   carriages: { carriage: string; service: string; site: string }[];
