@@ -13,6 +13,7 @@ import type {
   ExposureAnswer,
   ExposureRow,
   PairsAnswer,
+  ProposalsAnswer,
   ReachAnswer,
   SpofAnswer,
   UnfedAnswer,
@@ -26,6 +27,7 @@ import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
 import { IntList } from './removal-walk';
 import { PairsJob, type PairRow } from './pairs';
+import { compareProposals, proposalContext, proposalsFor, type ProposalContext, type ProposalRow } from './proposals';
 import type { ElementKind } from '@/shared/schemas/network';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
 import { toGraphology, type ServiceGraph } from './graphs';
@@ -66,6 +68,10 @@ export class NetworkEngine {
   private readonly graphology: (ServiceGraph | undefined)[] = [];
   /** per service: element ids that hold every origin of the service (rule 9, unavoidable) */
   private readonly unavoidable: Int32Array[];
+  /** carriages with a diversity gap -> their avoidable weak points (element ids) */
+  private readonly gaps = new Map<number, number[]>();
+  private proposalCtx: ProposalContext | null = null;
+  private bestProposals: ProposalRow[] | null = null;
 
   private constructor(core: EngineCore, networkVersion: number, started: number) {
     this.core = core;
@@ -102,6 +108,7 @@ export class NetworkEngine {
       const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
       if (!hasReserve || spof.length === 0) continue;
       const avoidable = avoidableOf(this.unavoidable, model.carriageService[c], spofIds(c));
+      if (avoidable.length > 0) this.gaps.set(c, avoidable);
       if (avoidable.length > 0) diversityRows.push({ ...placed(c), spof, avoidable: avoidable.map((x) => model.elements[x]) });
     }
     this.spofAnswer = { networkVersion, carriages: spofRows };
@@ -209,6 +216,32 @@ export class NetworkEngine {
 
   unfed(): UnfedAnswer {
     return this.unfedAnswer;
+  }
+
+  /**
+   * New reserve feeds that close diversity gaps (proposals.ts). With a
+   * carriage: all its proposals, best first (none when it has no gap). Without:
+   * each gap carriage's best proposal, ranked over the network.
+   */
+  proposals(opts: { carriage?: string; limit?: number } = {}): ProposalsAnswer {
+    const { limit } = opts;
+    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    this.proposalCtx ??= proposalContext(this.core);
+    let rows: ProposalRow[];
+    if (opts.carriage !== undefined) {
+      const c = this.core.model.carriageIndex.get(normaliseCode(opts.carriage));
+      if (c === undefined) throw new UnknownCarriageError(normaliseCode(opts.carriage));
+      const avoidable = this.gaps.get(c);
+      rows = avoidable ? proposalsFor(this.proposalCtx, c, avoidable) : [];
+    } else {
+      if (!this.bestProposals) {
+        const best: ProposalRow[] = [];
+        for (const [c, avoidable] of this.gaps) best.push(...proposalsFor(this.proposalCtx, c, avoidable, true));
+        this.bestProposals = best.sort((a, b) => compareProposals(a, b) || (a.carriage < b.carriage ? -1 : a.carriage > b.carriage ? 1 : 0));
+      }
+      rows = this.bestProposals;
+    }
+    return { networkVersion: this.networkVersion, proposals: limit === undefined ? rows : rows.slice(0, limit) };
   }
 
   /**

@@ -58,6 +58,25 @@ export interface PairsAnswer {
   pairs: { elements: [Element, Element]; jointLost: string[]; households: number }[];
 }
 
+/** A new reserve feed that closes (part of) a diversity gap; radio figures are null for satellite and line. */
+export interface Proposal {
+  carriage: string;
+  from: string;
+  medium: Medium;
+  removes: Element[];
+  householdsProtected: number;
+  distanceKm: number;
+  bearingDeg: number;
+  fieldStrengthDbuvm: number | null;
+  minimumDbuvm: number | null;
+  warnings: string[];
+}
+
+export interface ProposalsAnswer {
+  networkVersion: number;
+  proposals: Proposal[];
+}
+
 export interface UnfedAnswer {
   networkVersion: number;
   carriages: { carriage: string; service: string; site: string }[];
