@@ -185,3 +185,34 @@ describe('proposals agree with the brute force on random networks', () => {
     expect(offered).toBeGreaterThan(20);
   });
 });
+
+describe('a greedy plan', () => {
+  it('picks the best proposal, then recomputes on the network with it added', async () => {
+    const { greedyPlan } = await import('@/server/engine/plan');
+    const doc = hillNetwork();
+    const plan = await greedyPlan(doc, 1, 3);
+    // One gap; the first pick closes it, so there is nothing left to pick.
+    expect(plan.picks.map((p) => [p.feed, p.from, p.carriage, p.medium])).toEqual([['X.TV-RSV1', 'A.TV', 'X.TV', 'off-air']]);
+    expect(plan.feeds).toEqual([{ code: 'X.TV-RSV1', from: 'A.TV', to: 'X.TV', medium: 'off-air', role: 'reserve' }]);
+    expect(plan.sandbox.diversity().carriages).toEqual([]);
+    expect(doc.feeds).toHaveLength(8);
+    await expect(greedyPlan(doc, 1, 0)).rejects.toThrow(/budget/);
+    await expect(greedyPlan(doc, 1, 11)).rejects.toThrow(/budget/);
+  });
+
+  it('each pick is the best on the network as the earlier picks left it (random networks agree with a fresh engine per step)', async () => {
+    const { greedyPlan } = await import('@/server/engine/plan');
+    for (let seed = 1; seed <= 30; seed++) {
+      const doc = smallRandomNetwork({ seed, sites: 8, services: 2, groups: 2, feeds: 14, originChance: 0.3, carriageChance: 0.9 });
+      const plan = await greedyPlan(doc, 1, 3);
+      let d = doc;
+      for (const pick of plan.picks) {
+        const best = NetworkEngine.build(d, 1).proposals({ limit: 1 }).proposals[0];
+        const { feed: code, ...proposal } = pick;
+        expect(proposal).toEqual(best);
+        d = { ...d, feeds: [...d.feeds, { code, from: pick.from, to: pick.carriage, medium: pick.medium, role: 'reserve' }] };
+      }
+      if (plan.picks.length < 3) expect(NetworkEngine.build(d, 1).proposals({ limit: 1 }).proposals).toEqual([]);
+    }
+  });
+});
