@@ -147,25 +147,36 @@ export function candidateEffects(core: EngineCore, c: number, avoidable: readonl
   const origins = new Set<number>();
   for (let e = full[s].out.offsets[0]; e < full[s].out.offsets[1]; e++) origins.add(svc.ref[full[s].out.targets[e]]);
   const effects: CandidateEffect[] = [];
-  const counted = new Set<number>();
+  // Households depend only on which weak points a candidate removes: one sum per distinct set.
+  const householdsOf = new Map<string, number>();
   const ownSite = model.carriageSite[c];
   for (let u = 1; u < svc.n; u++) {
     if (!svc.isCarriage[u] || !fed[u] || u === carriageNode[c]) continue;
     const p = svc.ref[u];
     if (model.carriageSite[p] === ownSite) continue;
     const removes: number[] = [];
-    for (const w of weak) if (w.alive(u)) removes.push(w.x);
+    let key = '';
+    for (let i = 0; i < weak.length; i++) {
+      if (weak[i].alive(u)) {
+        removes.push(weak[i].x);
+        key += `${i},`;
+      }
+    }
     if (removes.length === 0) continue;
-    counted.clear();
-    let households = 0;
-    for (const w of weak) {
-      if (!removes.includes(w.x)) continue;
-      for (const site of w.sites) {
-        if (!counted.has(site)) {
-          counted.add(site);
-          households += model.siteHouseholds[site];
+    let households = householdsOf.get(key);
+    if (households === undefined) {
+      const counted = new Set<number>();
+      households = 0;
+      for (const w of weak) {
+        if (!removes.includes(w.x)) continue;
+        for (const site of w.sites) {
+          if (!counted.has(site)) {
+            counted.add(site);
+            households += model.siteHouseholds[site];
+          }
         }
       }
+      householdsOf.set(key, households);
     }
     effects.push({ p, removes, households });
   }

@@ -111,7 +111,7 @@ export function PlanPanel() {
         onChange={setBudget}
         testID="plan-budget"
       />
-      <Button label="Try it" onPress={() => void tryIt()} busy={busy && !plan} accessibilityLabel="Try the plan in a sandbox" testID="plan-try" />
+      <Button label="Try it" onPress={() => void tryIt()} busy={busy && !plan} accessibilityLabel="Try it: the plan in a sandbox" testID="plan-try" />
       {said ? <Text style={styles.body} accessibilityLiveRegion="polite">{said}</Text> : null}
       {plan ? (
         <View style={styles.sandbox} testID="sandbox-banner" accessibilityRole="alert">
