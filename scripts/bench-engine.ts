@@ -17,6 +17,7 @@ import { NetworkEngine } from '@/server/engine/engine';
 import { immediateDominators } from '@/server/engine/dominators';
 import { timeNetworkxDominators } from '@/test/helpers/networkx';
 import { nationalNetwork, prng } from '@/test/helpers/random-network';
+import { benchPlanner, type PlannerBenchResult } from './bench-planner';
 
 export interface EngineBenchOptions {
   /** seed of the random choices of failed elements */
@@ -27,9 +28,11 @@ export interface EngineBenchOptions {
   baselineSample?: number;
   /** also time networkx's immediate_dominators on the same graphs (needs python3 with networkx) */
   networkx?: boolean;
+  /** time the resilience planner too (proposals, critical pairs); default true */
+  planner?: boolean;
 }
 
-export interface EngineBenchResult {
+export interface EngineBenchResult extends Partial<PlannerBenchResult> {
   sites: number;
   carriages: number;
   feeds: number;
@@ -134,9 +137,11 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
   const idomMs = performance.now() - t;
   const networkxIdomMs = opts.networkx === false ? null : timeNetworkxDominators(graphs.map((g) => ({ graph: g.graph, root: 0 })));
 
+  const planner = opts.planner === false ? {} : benchPlanner(engine);
   const counts = engine.counts;
   const { totalMs: _total, ...breakdown } = engine.timings;
   return {
+    ...planner,
     sites: counts.sites,
     carriages: counts.carriages,
     feeds: counts.feeds,
@@ -191,7 +196,7 @@ async function main() {
   // The server builds from a document read from PostgreSQL; a JSON round trip gives the same
   // flat strings (a generator's template strings are concatenation trees, slower to hash once).
   const doc = JSON.parse(JSON.stringify(generated.doc)) as NetworkDocument;
-  const result = benchEngine(doc, { seed, networkx: !process.argv.includes('--no-networkx') });
+  const result = benchEngine(doc, { seed, networkx: !process.argv.includes('--no-networkx'), planner: !process.argv.includes('--no-planner') });
   console.log(JSON.stringify({ generator, services: doc.services.length, ...result }, null, 2));
 }
 

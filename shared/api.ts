@@ -20,6 +20,13 @@ export const api = {
   exposure: (limit?: number) => `/api/analysis/exposure${limit ? `?limit=${limit}` : ''}`,
   diversity: '/api/analysis/diversity',
   unfed: '/api/analysis/unfed',
+  proposals: (q: { carriage?: string; limit?: number } = {}) =>
+    `/api/analysis/proposals${q.carriage || q.limit ? '?' : ''}${[q.carriage ? `carriage=${encodeURIComponent(q.carriage)}` : '', q.limit ? `limit=${q.limit}` : ''].filter(Boolean).join('&')}`,
+  pairs: (limit: number, kinds: string) => `/api/analysis/pairs?limit=${limit}&kinds=${kinds}`,
+  plans: '/api/analysis/plans',
+  plan: (id: string) => `/api/analysis/plans/${encodeURIComponent(id)}`,
+  planAnswer: (id: string, answer: 'exposure' | 'diversity' | 'unfed') => `/api/analysis/plans/${encodeURIComponent(id)}/${answer}`,
+  applyPlan: (id: string) => `/api/analysis/plans/${encodeURIComponent(id)}/apply`,
   feedChecks: (code: string) => `/api/feeds/${encodeURIComponent(code)}/checks`,
   checks: (severity?: string) => `/api/checks${severity ? `?severity=${severity}` : ''}`,
   works: '/api/works',

@@ -12,6 +12,8 @@ import type {
   Element,
   ExposureAnswer,
   ExposureRow,
+  PairsAnswer,
+  ProposalsAnswer,
   ReachAnswer,
   SpofAnswer,
   UnfedAnswer,
@@ -20,9 +22,13 @@ import { elementKey } from '@/shared/schemas/analysis';
 import { buildCore, type BuildTimings, type EngineCore } from './core';
 import { elementId, listOf, normaliseCode } from './model';
 import { computeResilience, type Resilience } from './resilience';
+import { avoidableOf, unavoidableByService } from './avoidable';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
 import { IntList } from './removal-walk';
+import { PairsJob, type PairRow } from './pairs';
+import { compareProposals, proposalContext, proposalsFor, type ProposalContext, type ProposalRow } from './proposals';
+import type { ElementKind } from '@/shared/schemas/network';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
 import { toGraphology, type ServiceGraph } from './graphs';
 import type { Csr } from './csr';
@@ -60,6 +66,12 @@ export class NetworkEngine {
   private readonly diversityAnswer: DiversityAnswer;
   private readonly exposureRows: ExposureRow[];
   private readonly graphology: (ServiceGraph | undefined)[] = [];
+  /** per service: element ids that hold every origin of the service (rule 9, unavoidable) */
+  private readonly unavoidable: Int32Array[];
+  /** carriages with a diversity gap -> their avoidable weak points (element ids) */
+  private readonly gaps = new Map<number, number[]>();
+  private proposalCtx: ProposalContext | null = null;
+  private bestProposals: ProposalRow[] | null = null;
 
   private constructor(core: EngineCore, networkVersion: number, started: number) {
     this.core = core;
@@ -75,7 +87,9 @@ export class NetworkEngine {
     this.staticFallback = staticFallback.toArray();
     this.scratch = createReachScratch(core);
     const { spofOffsets, spofElements } = this.resilience;
-    const spofOf = (c: number) => Array.from(spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]), (x) => model.elements[x]);
+    this.unavoidable = unavoidableByService(core);
+    const spofIds = (c: number) => spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]);
+    const spofOf = (c: number) => Array.from(spofIds(c), (x) => model.elements[x]);
     const placed = (c: number) => ({
       carriage: model.carriageCodes[c],
       service: model.serviceCodes[model.carriageService[c]],
@@ -92,7 +106,10 @@ export class NetworkEngine {
       const spof = spofOf(c);
       spofRows.push({ carriage: model.carriageCodes[c], spof });
       const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
-      if (hasReserve && spof.length > 0) diversityRows.push({ ...placed(c), shared: spof });
+      if (!hasReserve || spof.length === 0) continue;
+      const avoidable = avoidableOf(this.unavoidable, model.carriageService[c], spofIds(c));
+      if (avoidable.length > 0) this.gaps.set(c, avoidable);
+      if (avoidable.length > 0) diversityRows.push({ ...placed(c), spof, avoidable: avoidable.map((x) => model.elements[x]) });
     }
     this.spofAnswer = { networkVersion, carriages: spofRows };
     this.unfedAnswer = { networkVersion, carriages: unfedRows };
@@ -220,6 +237,64 @@ export class NetworkEngine {
 
   unfed(): UnfedAnswer {
     return this.unfedAnswer;
+  }
+
+  /**
+   * New reserve feeds that close diversity gaps (proposals.ts). With a
+   * carriage: all its proposals, best first (none when it has no gap). Without:
+   * each gap carriage's best proposal, ranked over the network.
+   */
+  proposals(opts: { carriage?: string; limit?: number } = {}): ProposalsAnswer {
+    const { limit } = opts;
+    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    this.proposalCtx ??= proposalContext(this.core);
+    let rows: ProposalRow[];
+    if (opts.carriage !== undefined) {
+      const c = this.core.model.carriageIndex.get(normaliseCode(opts.carriage));
+      if (c === undefined) throw new UnknownCarriageError(normaliseCode(opts.carriage));
+      const avoidable = this.gaps.get(c);
+      rows = avoidable ? proposalsFor(this.proposalCtx, c, avoidable) : [];
+    } else {
+      if (!this.bestProposals) {
+        const best: ProposalRow[] = [];
+        for (const [c, avoidable] of this.gaps) best.push(...proposalsFor(this.proposalCtx, c, avoidable, true));
+        this.bestProposals = best.sort((a, b) => compareProposals(a, b) || (a.carriage < b.carriage ? -1 : a.carriage > b.carriage ? 1 : 0));
+      }
+      rows = this.bestProposals;
+    }
+    return { networkVersion: this.networkVersion, proposals: limit === undefined ? rows : rows.slice(0, limit) };
+  }
+
+  /**
+   * Critical pairs (rule 10) as a job that works in steps (pairs.ts), so a
+   * server can yield between them; `pairsAnswer` turns its rows into the answer.
+   */
+  pairsJob(kinds: readonly ElementKind[] = ['site', 'group']): PairsJob {
+    if (!Array.isArray(kinds) || kinds.length === 0 || kinds.some((k) => k !== 'site' && k !== 'feed' && k !== 'group')) {
+      throw new RangeError(`kinds is a non-empty list of site, feed, group (got ${JSON.stringify(kinds)})`);
+    }
+    return new PairsJob(this.core, kinds);
+  }
+
+  pairsAnswer(rows: readonly PairRow[], limit?: number): PairsAnswer {
+    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    const { model } = this.core;
+    return {
+      networkVersion: this.networkVersion,
+      pairs: (limit === undefined ? rows : rows.slice(0, limit)).map((r) => ({
+        elements: [model.elements[r.a], model.elements[r.b]],
+        jointLost: Array.from(r.jointLost, (c) => model.carriageCodes[c]),
+        households: r.households,
+      })),
+    };
+  }
+
+  /** Critical pairs computed in one go (tests, benchmark, small networks). */
+  pairs(opts: { kinds?: readonly ElementKind[]; limit?: number } = {}): PairsAnswer {
+    if (opts.limit !== undefined && (!Number.isInteger(opts.limit) || opts.limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(opts.limit)})`);
+    const job = this.pairsJob(opts.kinds);
+    job.step(Number.POSITIVE_INFINITY);
+    return this.pairsAnswer(job.result(), opts.limit);
   }
 
   chain(carriageCode: string, direction: ChainDirection, opts?: ChainOptions): ChainAnswer {

@@ -1,8 +1,11 @@
 /** The analysis API over the in-memory graphs (docs/api.md). */
 import { z } from 'zod';
 import { can } from '@/shared/api';
-import { reachRequestSchema } from '@/shared/schemas/analysis';
-import { badRequest, notFound, parseOr400 } from '../http/errors';
+import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning } from '@/shared/schemas/analysis';
+import { ApiError, badRequest, conflict, notFound, parseOr400 } from '../http/errors';
+import { actorOf, settled } from './inventory';
+import { createEntities } from '../services/inventory/write';
+import { findPlan, forgetPlan, makePlan, pairsState } from '../services/planner';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
@@ -43,6 +46,75 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
 
   routes.add('get', '/analysis/unfed', can.analyse, async (_req, res) => {
     res.json(currentModel(ctx).engine.unfed());
+  });
+
+  routes.add('get', '/analysis/proposals', can.analyse, async (req, res) => {
+    const { carriage, limit } = parseOr400(proposalsQuerySchema, req.query, 'query');
+    try {
+      res.json(currentModel(ctx).engine.proposals({ carriage, limit: limit ?? 100 }));
+    } catch (e) {
+      if (e instanceof UnknownCarriageError) throw notFound(`carriage ${e.carriage} does not exist`, { kind: 'carriage', code: e.carriage });
+      throw e;
+    }
+  });
+
+  // Critical pairs run in the background: 202 with progress until done, then the answer (kept per network version).
+  routes.add('get', '/analysis/pairs', can.analyse, async (req, res) => {
+    const { limit, kinds } = parseOr400(pairsQuerySchema, req.query, 'query');
+    const { engine } = currentModel(ctx);
+    const state = pairsState(engine, kinds);
+    if (state.state === 'failed') throw new ApiError(500, 'pairs-failed', 'the critical pairs could not be computed; the server log has the cause');
+    if (state.state === 'running') {
+      const progress = { done: state.done, total: state.total, percent: state.total === 0 ? 0 : Math.floor((100 * state.done) / state.total) };
+      const body: PairsRunning = { state: 'running', networkVersion: engine.networkVersion, progress };
+      res.status(202).json(body);
+      return;
+    }
+    res.json({ state: 'done', ...engine.pairsAnswer(state.rows, limit) });
+  });
+
+  routes.add('post', '/analysis/plans', can.analyse, async (req, res) => {
+    if (req.body === undefined || req.body === null || typeof req.body !== 'object' || Array.isArray(req.body)) throw badRequest('body: send { "budget": N } (new feeds, 1-10)');
+    const { budget } = parseOr400(planRequestSchema, req.body);
+    const stored = await makePlan(currentModel(ctx), budget);
+    res.status(201).json(stored.answer);
+  });
+
+  const planOr404 = (id: string) => {
+    const p = findPlan(id);
+    if (!p) throw notFound(`plan ${id} does not exist or has expired; make the plan again`, { plan: id });
+    return p;
+  };
+
+  routes.add('get', '/analysis/plans/:id', can.analyse, async (req, res) => {
+    res.json(planOr404(String(req.params.id)).answer);
+  });
+
+  // The sandbox: the same answers as above, from the network with the plan's feeds added (nothing stored).
+  routes.add('get', '/analysis/plans/:id/:answer', can.analyse, async (req, res) => {
+    const p = planOr404(String(req.params.id));
+    const sandbox = p.plan.sandbox;
+    const answer = String(req.params.answer);
+    if (answer === 'exposure') res.json({ sandbox: p.id, ...sandbox.exposure(parseOr400(exposureQuery, req.query, 'query').limit) });
+    else if (answer === 'diversity') res.json({ sandbox: p.id, ...sandbox.diversity() });
+    else if (answer === 'unfed') res.json({ sandbox: p.id, ...sandbox.unfed() });
+    else throw notFound(`a sandbox answers exposure, diversity and unfed, not ${answer}`);
+  });
+
+  // "Create for real": the plan's feeds through the inventory's own create (rules, audit) in one transaction.
+  routes.add('post', '/analysis/plans/:id/apply', can.editNetwork, async (req, res) => {
+    const p = planOr404(String(req.params.id));
+    const m = currentModel(ctx);
+    if (m.networkVersion !== p.networkVersion) {
+      const gone = p.plan.feeds.flatMap((f) => [f.from, f.to]).filter((c) => !m.carriages.has(c));
+      const what = gone.length > 0 ? `; carriage${gone.length > 1 ? 's' : ''} ${[...new Set(gone)].join(', ')} no longer exist${gone.length > 1 ? '' : 's'}` : '';
+      throw conflict(`the network changed since this plan was made (version ${p.networkVersion}, now ${m.networkVersion})${what}; make the plan again`, { plan: p.id, gone });
+    }
+    if (p.plan.feeds.length === 0) throw conflict('this plan has no feeds to create');
+    const out = await settled(ctx, await createEntities(ctx.db.sequelize, p.plan.feeds.map((f) => ({ kind: 'feeds' as const, body: f })), actorOf(req)));
+    forgetPlan(p.id);
+    res.setHeader('X-Network-Version', String(out.networkVersion));
+    res.status(201).json({ networkVersion: out.networkVersion, created: out.result.map((f) => f.code) });
   });
 
   routes.add('get', '/carriages/:code/chain', can.analyse, async (req, res) => {

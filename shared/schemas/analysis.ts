@@ -43,7 +43,92 @@ export interface ExposureAnswer {
 
 export interface DiversityAnswer {
   networkVersion: number;
-  carriages: { carriage: string; service: string; site: string; shared: Element[] }[];
+  /**
+   * Carriages with a diversity gap (rule 9, revised): a reserve feed and at
+   * least one avoidable single point of failure. `spof` is the full list,
+   * `avoidable` the part another feed could avoid (some origin of the service
+   * keeps programme); both sorted site, feed, group, then code.
+   */
+  carriages: { carriage: string; service: string; site: string; spof: Element[]; avoidable: Element[] }[];
+}
+
+/** Critical pairs (rule 10), highest households first, ties by the first element then the second (kind, then code). */
+export interface PairsAnswer {
+  networkVersion: number;
+  pairs: { elements: [Element, Element]; jointLost: string[]; households: number }[];
+}
+
+/** A new reserve feed that closes (part of) a diversity gap; radio figures are null for satellite and line. */
+export interface Proposal {
+  carriage: string;
+  from: string;
+  medium: Medium;
+  removes: Element[];
+  householdsProtected: number;
+  distanceKm: number;
+  bearingDeg: number;
+  fieldStrengthDbuvm: number | null;
+  minimumDbuvm: number | null;
+  warnings: string[];
+}
+
+export interface ProposalsAnswer {
+  networkVersion: number;
+  proposals: Proposal[];
+}
+
+export const MAX_ANALYSIS_LIMIT = 1000;
+const limitSchema = z.coerce
+  .number({ error: 'limit must be a number' })
+  .int('limit is a whole number')
+  .min(1, 'limit is at least 1')
+  .max(MAX_ANALYSIS_LIMIT, `limit is at most ${MAX_ANALYSIS_LIMIT}`);
+
+/** `GET /api/analysis/proposals?carriage=CODE&limit=N` */
+export const proposalsQuerySchema = z.strictObject({
+  carriage: codeSchema.optional(),
+  limit: limitSchema.optional(),
+});
+
+/** `GET /api/analysis/pairs?limit=N&kinds=site,group` (kinds default to site and group) */
+export const pairsQuerySchema = z.strictObject({
+  limit: limitSchema.default(100),
+  kinds: z
+    .string({ error: 'kinds is a comma-separated list of site, feed, group' })
+    .max(40, 'kinds is a comma-separated list of site, feed, group')
+    .transform((v) => v.split(',').map((k) => k.trim()))
+    .pipe(z.array(z.enum(ELEMENT_KINDS, { error: 'kinds is a comma-separated list of site, feed, group' })).min(1))
+    .default(['site', 'group']),
+});
+
+/** `GET` pairs while the background job runs (HTTP 202). */
+export interface PairsRunning {
+  state: 'running';
+  networkVersion: number;
+  progress: { done: number; total: number; percent: number };
+}
+
+/** `POST /api/analysis/plans` */
+export const MAX_BUDGET = 10;
+export const planRequestSchema = z.strictObject({
+  budget: z
+    .number({ error: 'budget is a number of new feeds' })
+    .int('budget is a whole number of feeds')
+    .min(1, 'budget is at least 1 feed')
+    .max(MAX_BUDGET, `budget is at most ${MAX_BUDGET} feeds`),
+});
+
+export interface PlanAnswer {
+  id: string;
+  networkVersion: number;
+  budget: number;
+  /** when the sandbox is forgotten (ISO 8601, UTC) */
+  expiresAt: string;
+  /** in the order picked; each was the best on the network with the earlier ones added */
+  picks: (Proposal & { feed: string })[];
+  householdsProtected: number;
+  gaps: { before: number; after: number };
+  exposure: { before: ExposureRow[]; after: ExposureRow[] };
 }
 
 export interface UnfedAnswer {

@@ -175,7 +175,7 @@ export const exposureAnswerSchema = z.object({
 const carriagePlaceSchema = { carriage: z.string(), service: z.string(), site: z.string() };
 export const diversityAnswerSchema = z.object({
   networkVersion: z.number(),
-  carriages: z.array(z.object({ ...carriagePlaceSchema, shared: z.array(analysisElementSchema) })),
+  carriages: z.array(z.object({ ...carriagePlaceSchema, spof: z.array(analysisElementSchema), avoidable: z.array(analysisElementSchema) })),
 }) satisfies z.ZodType<analysisTypes.DiversityAnswer>;
 
 export const unfedAnswerSchema = z.object({
@@ -297,3 +297,41 @@ export const sitePositionSchema = z.object({
 export type SitePosition = z.infer<typeof sitePositionSchema>;
 
 export const sitePositionsPageSchema = z.object({ items: z.array(sitePositionSchema), total: z.number() });
+
+// ---- Resilience planner (proposals, critical pairs, plans; shared/schemas/analysis.ts) ----
+const exposureRowSchema = z.object({ element: analysisElementSchema, households: z.number(), carriages: z.number() });
+export const proposalSchema = z.object({
+  carriage: z.string(),
+  from: z.string(),
+  medium: mediumSchema,
+  removes: z.array(analysisElementSchema),
+  householdsProtected: z.number(),
+  distanceKm: z.number(),
+  bearingDeg: z.number(),
+  fieldStrengthDbuvm: z.number().nullable(),
+  minimumDbuvm: z.number().nullable(),
+  warnings: z.array(z.string()),
+}) satisfies z.ZodType<analysisTypes.Proposal>;
+export const proposalsAnswerSchema = z.object({ networkVersion: z.number(), proposals: z.array(proposalSchema) }) satisfies z.ZodType<analysisTypes.ProposalsAnswer>;
+export const pairsStateSchema = z.discriminatedUnion('state', [
+  z.object({ state: z.literal('running'), networkVersion: z.number(), progress: z.object({ done: z.number(), total: z.number(), percent: z.number() }) }),
+  z.object({
+    state: z.literal('done'),
+    networkVersion: z.number(),
+    pairs: z.array(z.object({ elements: z.tuple([analysisElementSchema, analysisElementSchema]), jointLost: z.array(z.string()), households: z.number() })),
+  }),
+]);
+export type PairsState = z.infer<typeof pairsStateSchema>;
+export const planAnswerSchema = z.object({
+  id: z.string(),
+  networkVersion: z.number(),
+  budget: z.number(),
+  expiresAt: z.string(),
+  picks: z.array(proposalSchema.extend({ feed: z.string() })),
+  householdsProtected: z.number(),
+  gaps: z.object({ before: z.number(), after: z.number() }),
+  exposure: z.object({ before: z.array(exposureRowSchema), after: z.array(exposureRowSchema) }),
+}) satisfies z.ZodType<analysisTypes.PlanAnswer>;
+export type PlanResult = z.infer<typeof planAnswerSchema>;
+export const sandboxDiversitySchema = diversityAnswerSchema.extend({ sandbox: z.string() });
+export const applyPlanAnswerSchema = z.object({ networkVersion: z.number(), created: z.array(z.string()) });

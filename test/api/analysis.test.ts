@@ -113,7 +113,7 @@ describe('GET /api/analysis/*', () => {
 
   it('finds the diversity gaps, with the shared elements', async () => {
     const r = await request(t.app).get('/api/analysis/diversity').set(t.auth('viewer'));
-    const got = r.body.carriages.map((c: { carriage: string; shared: unknown }) => ({ carriage: c.carriage, shared: c.shared }));
+    const got = r.body.carriages.map((c: { carriage: string; spof: unknown; avoidable: unknown }) => ({ carriage: c.carriage, spof: c.spof, avoidable: c.avoidable }));
     expect(got).toEqual(brute.diversity());
     expect(got.length).toBeGreaterThan(0);
   });

@@ -1,5 +1,5 @@
 /**
- * Rules 1-9 of docs/domain.md evaluated directly on the network document:
+ * Rules 1-10 of docs/domain.md evaluated directly on the network document:
  * no graph library, no dominators. "Has programme" is the least fixed point
  * of rule 3, reached by starting from the origin carriages and sweeping the
  * feeds until nothing changes. Slow on purpose, obviously right on purpose.
@@ -126,11 +126,54 @@ export class BruteForce {
       .sort((a, b) => b.households - a.households || compareElements(a.element, b.element));
   }
 
-  /** Rule 9. */
-  diversity(): { carriage: string; shared: Element[] }[] {
+  /**
+   * Rule 9 (revised): carriages with a reserve feed and at least one avoidable
+   * single point of failure (one under which some origin carriage of the
+   * service still has programme).
+   */
+  diversity(): { carriage: string; spof: Element[]; avoidable: Element[] }[] {
     const withReserve = new Set(this.doc.feeds.filter((f) => f.role === 'reserve').map((f) => f.to));
+    const origin = new Set(this.doc.sites.filter((s) => s.role === 'origin').map((s) => s.code));
+    const serviceOf = new Map(this.doc.carriages.map((c) => [c.code, c.service]));
+    const origins = (service: string) => this.doc.carriages.filter((c) => c.service === service && origin.has(c.site)).map((c) => c.code);
+    const under = new Map<string, Set<string>>();
+    const programmeUnder = (x: Element) => {
+      const key = `${x.kind}:${x.code}`;
+      if (!under.has(key)) under.set(key, this.programme([x]));
+      return under.get(key)!;
+    };
     return this.spof()
-      .filter((r) => withReserve.has(r.carriage) && r.spof.length > 0)
-      .map((r) => ({ carriage: r.carriage, shared: r.spof }));
+      .filter((r) => withReserve.has(r.carriage))
+      .map((r) => ({
+        carriage: r.carriage,
+        spof: r.spof,
+        avoidable: r.spof.filter((x) => origins(serviceOf.get(r.carriage)!).some((o) => programmeUnder(x).has(o))),
+      }))
+      .filter((r) => r.avoidable.length > 0);
+  }
+
+  /**
+   * Rule 10 for every pair of elements of the given kinds, by removing both
+   * and walking: pairs with a non-empty joint loss, ranked by its households,
+   * ties by the first element then the second (kind, then code).
+   */
+  pairs(kinds: Element['kind'][] = ['site', 'feed', 'group']): { elements: [Element, Element]; jointLost: string[]; households: number }[] {
+    const elements = this.elements().filter((e) => kinds.includes(e.kind));
+    const households = new Map(this.doc.sites.map((s) => [s.code, s.households ?? 0]));
+    const alone = new Map(elements.map((e) => [e, new Set(this.reach([e]).lost)]));
+    const out: { elements: [Element, Element]; jointLost: string[]; households: number }[] = [];
+    for (let i = 0; i < elements.length; i++) {
+      for (let j = i + 1; j < elements.length; j++) {
+        const a = alone.get(elements[i])!;
+        const b = alone.get(elements[j])!;
+        const both = this.reach([elements[i], elements[j]]).lost;
+        const jointLost = both.filter((c) => !a.has(c) && !b.has(c));
+        if (jointLost.length === 0) continue;
+        const touched = new Set([...a, ...b].map((c) => this.siteOf(c)));
+        const sites = new Set(jointLost.map((c) => this.siteOf(c)).filter((s) => !touched.has(s)));
+        out.push({ elements: [elements[i], elements[j]], jointLost, households: [...sites].reduce((sum, s) => sum + households.get(s)!, 0) });
+      }
+    }
+    return out.sort((p, q) => q.households - p.households || compareElements(p.elements[0], q.elements[0]) || compareElements(p.elements[1], q.elements[1]));
   }
 }

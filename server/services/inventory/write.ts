@@ -12,7 +12,7 @@ import { entitySchemas, versionSchema, type EntityKind } from '@/shared/schemas/
 import { ApiError, badRequest, conflict, notFound, parseOr400, unprocessable } from '../../http/errors';
 import type { Actor } from '../audit';
 import { databaseRefusal, refusalError } from './dbErrors';
-import { withNetworkWrite, type WriteResult } from './networkWrite';
+import { withNetworkWrite, type NetworkWrite, type WriteResult } from './networkWrite';
 import { findByCode } from './read';
 import { checkRules, type RuleFindings } from './rules';
 import { canonical, NOUN, sameEntity, type Fields } from './shape';
@@ -45,17 +45,33 @@ export async function refusalsAsApiErrors<R>(run: () => Promise<R>): Promise<R> 
   }
 }
 
+/** One create inside a network write: validated entity in, stored entity out, audited. */
+async function createWithin(sequelize: Sequelize, w: NetworkWrite, kind: EntityKind, entity: Fields): Promise<Fields> {
+  const code = entity.code as string;
+  if (await findByCode(sequelize, kind, code, w.transaction)) throw conflict(`${NOUN[kind]} ${code} already exists; codes are unique within a kind`, { code });
+  throwFindings(await checkRules(w, kind, entity));
+  await writeEntities(w, kind, [entity], { created: true });
+  const created = (await findByCode(sequelize, kind, code, w.transaction))!.entity;
+  w.audit({ action: 'create', entityKind: kind, entityCode: code, after: auditShape(created) });
+  return created;
+}
+
 export async function createEntity(sequelize: Sequelize, kind: EntityKind, body: unknown, actor: Actor): Promise<WriteResult<Fields>> {
   const entity = canonical(kind, parseOr400(entitySchemas[kind] as never, body, NOUN[kind]) as Fields);
-  const code = entity.code as string;
+  return refusalsAsApiErrors(() => withNetworkWrite(sequelize, actor, (w) => createWithin(sequelize, w, kind, entity)));
+}
+
+/**
+ * Several creates as one change: one transaction, one network version, an
+ * audit entry each; the first refusal rolls all of them back.
+ */
+export async function createEntities(sequelize: Sequelize, items: readonly { kind: EntityKind; body: unknown }[], actor: Actor): Promise<WriteResult<Fields[]>> {
+  const entities = items.map(({ kind, body }) => ({ kind, entity: canonical(kind, parseOr400(entitySchemas[kind] as never, body, NOUN[kind]) as Fields) }));
   return refusalsAsApiErrors(() =>
     withNetworkWrite(sequelize, actor, async (w) => {
-      if (await findByCode(sequelize, kind, code, w.transaction)) throw conflict(`${NOUN[kind]} ${code} already exists; codes are unique within a kind`, { code });
-      throwFindings(await checkRules(w, kind, entity));
-      await writeEntities(w, kind, [entity], { created: true });
-      const created = (await findByCode(sequelize, kind, code, w.transaction))!.entity;
-      w.audit({ action: 'create', entityKind: kind, entityCode: code, after: auditShape(created) });
-      return created;
+      const out: Fields[] = [];
+      for (const { kind, entity } of entities) out.push(await createWithin(sequelize, w, kind, entity));
+      return out;
     }),
   );
 }

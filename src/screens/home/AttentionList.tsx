@@ -52,7 +52,7 @@ function GapsCard() {
       ) : (
         <Rows>
           {list.slice(0, FIRST).map((g) => (
-            <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={`shares ${g.shared.map((e) => `${e.kind} ${e.code}`).join(', ')}`} />
+            <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={`another feed could avoid ${g.avoidable.map((e) => `${e.kind} ${e.code}`).join(', ')}`} />
           ))}
           {list.length > FIRST ? <LinkRow href="/resilience" title={`All ${countOf(list.length, 'carriage')} with a gap`} /> : null}
         </Rows>

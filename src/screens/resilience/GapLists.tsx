@@ -6,15 +6,27 @@ import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { space, type } from '@/src/theme';
 import { elementWords } from './elementNames';
 
-export function DiversityList({ gaps }: { gaps: { carriage: string; service: string; site: string; shared: Element[] }[] }) {
-  if (gaps.length === 0) return <Text style={styles.none}>None: every reserve feed protects its carriage from all single failures.</Text>;
+type Gap = { carriage: string; service: string; site: string; spof: Element[]; avoidable: Element[] };
+
+/** The weak points no other feed can fix: each holds every origin of the service. */
+export const unavoidableOf = (g: Gap) => g.spof.filter((x) => !g.avoidable.some((a) => a.kind === x.kind && a.code === x.code));
+
+function gapWords(g: Gap): string {
+  const fixable = `Another feed could avoid: ${g.avoidable.map(elementWords).join(', ')}.`;
+  const fixed = unavoidableOf(g);
+  if (fixed.length === 0) return fixable;
+  return `${fixable} No feed can avoid ${fixed.map(elementWords).join(', ')}: it holds every origin of ${g.service}.`;
+}
+
+export function DiversityList({ gaps }: { gaps: Gap[] }) {
+  if (gaps.length === 0) return <Text style={styles.none}>None: every reserve feed protects its carriage from every failure another feed could avoid.</Text>;
   return (
     <Capped
       items={gaps}
       what="carriages"
       first={10}
       render={(g) => (
-        <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={`Main and reserve share: ${g.shared.map(elementWords).join(', ')}`} />
+        <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={gapWords(g)} />
       )}
     />
   );

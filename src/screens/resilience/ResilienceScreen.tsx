@@ -20,6 +20,8 @@ import { type } from '@/src/theme';
 import { elementNamer } from './elementNames';
 import { EXPOSURE_SHOWN, ExposurePanel } from './ExposurePanel';
 import { DiversityList, UnfedList } from './GapLists';
+import { PairsPanel } from './PairsPanel';
+import { PlanPanel, ProposalsList } from './ProposalsPanel';
 import { ServiceTable } from './ServiceTable';
 
 export function ResilienceScreen() {
@@ -81,13 +83,30 @@ export function ResilienceScreen() {
       </Columns>
 
       <Columns max={2}>
-        <Section title="Diversity gaps" note="Carriages with a reserve feed that still share a single point of failure with their main feed." testID="resilience-diversity">
+        <Section
+          title="Diversity gaps"
+          note="Carriages with a reserve feed that still have a weak point another feed could avoid. A weak point that holds every origin of its service cannot be avoided by any feed and is listed apart."
+          testID="resilience-diversity"
+        >
           {diversity.data ? <DiversityList gaps={diversity.data.carriages} /> : diversity.error ? <ErrorState what="the diversity gaps" error={diversity.error} onRetry={() => void diversity.mutate()} /> : <LoadingState what="the diversity gaps" />}
         </Section>
         <Section title="Unfed carriages" note="A data problem: no programme reaches them even with nothing failed, so they are left out of every reach." testID="resilience-unfed">
           {unfed.data ? <UnfedList unfed={unfed.data.carriages} /> : unfed.error ? <ErrorState what="the unfed carriages" error={unfed.error} onRetry={() => void unfed.mutate()} /> : <LoadingState what="the unfed carriages" />}
         </Section>
       </Columns>
+
+      <Columns max={2}>
+        <Section title="Reserve feeds that would close a gap" note="The best new reserve feed for each gap, by households protected." testID="resilience-proposals">
+          <ProposalsList />
+        </Section>
+        <Section title="Plan several feeds" note="Picks feeds one at a time, each on the network with the earlier picks added, and shows the result in a sandbox first." testID="resilience-plan">
+          <PlanPanel />
+        </Section>
+      </Columns>
+
+      <Section title="Failures that hurt most together" note="Pairs of sites and groups whose joint failure takes off air what neither takes alone: the question behind planned-work clashes." testID="resilience-pairs">
+        <PairsPanel name={name} />
+      </Section>
     </Screen>
   );
 }

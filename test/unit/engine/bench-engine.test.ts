@@ -17,6 +17,11 @@ describe('benchEngine', () => {
     }
     expect(r.reachOneP95Ms).toBeGreaterThanOrEqual(r.reachOneP50Ms);
     expect(r.networkxIdomMs).toBeNull();
+    for (const key of ['proposalsOneMs', 'proposalsTop100Ms', 'pairsTop100Ms'] as const) {
+      expect(Number.isFinite(r[key]) && r[key]! >= 0, key).toBe(true);
+    }
+    expect(r.gapCarriages).toBeGreaterThan(0);
+    expect(r.pairsFound).toBeGreaterThan(0);
   });
   it('refuses a network with nothing to fail', () => {
     expect(() => benchEngine({ format: 'network/1', sites: [], services: [], groups: [], carriages: [], feeds: [] })).toThrow(/no sites to fail/);

@@ -39,7 +39,7 @@ describe('engine agrees with the brute force on random networks', () => {
         expect(engine.spof().carriages).toEqual(brute.spof());
         const exposure = engine.exposure().elements;
         expect(exposure).toEqual(brute.exposure());
-        expect(engine.diversity().carriages.map(({ carriage, shared }) => ({ carriage, shared }))).toEqual(brute.diversity());
+        expect(engine.diversity().carriages.map(({ carriage, spof, avoidable }) => ({ carriage, spof, avoidable }))).toEqual(brute.diversity());
 
         const elements = brute.elements();
         for (const failed of [...elements.map((e) => [e]), ...randomFailures(elements, p.seed, 6)]) {

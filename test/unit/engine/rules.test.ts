@@ -47,10 +47,11 @@ describe('valley network', () => {
     });
   });
 
-  it('rule 9: carriages whose reserve still shares a single point of failure', () => {
+  it('rule 9 (revised): carriages whose reserve leaves an avoidable single point of failure', () => {
+    // TV has two origins and neither PWR nor M holds both, so every weak point is avoidable.
     expect(engine.diversity().carriages).toEqual([
-      { carriage: 'M.TV', service: 'TV', site: 'M', shared: [group('PWR')] },
-      { carriage: 'R2.TV', service: 'TV', site: 'R2', shared: [site('M'), group('PWR')] },
+      { carriage: 'M.TV', service: 'TV', site: 'M', spof: [group('PWR')], avoidable: [group('PWR')] },
+      { carriage: 'R2.TV', service: 'TV', site: 'R2', spof: [site('M'), group('PWR')], avoidable: [site('M'), group('PWR')] },
     ]);
   });
 
@@ -139,31 +140,34 @@ describe('valley network', () => {
 describe('a relay with a main and a reserve feed', () => {
   const build = (shape: Parameters<typeof twoPathNetwork>[0]) => NetworkEngine.build(twoPathNetwork(shape), 1);
 
-  it('reserve from the same parent: the parent site is a single point of failure and a diversity gap', () => {
+  it('reserve from the same parent: the parent site is a single point of failure and a diversity gap (P2 is another origin)', () => {
     const engine = build('same-parent');
     expect(spofOf(engine, 'X.TV')).toEqual([site('P1')]);
-    expect(engine.diversity().carriages).toEqual([{ carriage: 'X.TV', service: 'TV', site: 'X', shared: [site('P1')] }]);
+    expect(engine.diversity().carriages).toEqual([{ carriage: 'X.TV', service: 'TV', site: 'X', spof: [site('P1')], avoidable: [site('P1')] }]);
     const r = engine.reach([feed('A')]);
     expect(r.lost).toEqual([]);
     expect(r.fallback).toEqual(['X.TV']);
     expect(r.households).toEqual({ lost: 0, fallback: 300 });
   });
 
-  it('both paths through one hop site: the hop site owns two nodes and is still caught', () => {
+  it('both paths through one hop site: the hop site owns two nodes and is still caught, and is avoidable', () => {
     const engine = build('shared-hop');
     expect(spofOf(engine, 'X.TV')).toEqual([site('HOP')]);
+    expect(engine.diversity().carriages.map((c) => c.avoidable)).toEqual([[site('HOP')]]);
     expect(engine.reach([site('HOP')]).lost).toEqual(['X.TV']);
     expect(engine.exposure(1).elements[0]).toEqual({ element: site('HOP'), households: 300, carriages: 1 });
   });
 
-  it('both feeds in one group', () => {
+  it('both feeds in one group: a group weak point that another feed avoids', () => {
     const engine = build('shared-feed-group');
     expect(spofOf(engine, 'X.TV')).toEqual([group('G')]);
+    expect(engine.diversity().carriages).toEqual([{ carriage: 'X.TV', service: 'TV', site: 'X', spof: [group('G')], avoidable: [group('G')] }]);
   });
 
-  it('both parents in one site group: the group downs both origins', () => {
+  it('both parents in one site group: the group downs both origins, so it is unavoidable and no gap', () => {
     const engine = build('shared-site-group');
     expect(spofOf(engine, 'X.TV')).toEqual([group('G')]);
+    expect(engine.diversity().carriages).toEqual([]);
     expect(spofOf(engine, 'P1.TV')).toEqual([group('G')]);
     expect(engine.reach([group('G')]).lost).toEqual(['P1.TV', 'P2.TV', 'X.TV']);
   });
@@ -208,5 +212,37 @@ describe('rule 5 when the main feed comes from an unfed loop', () => {
     expect(r.households).toEqual({ lost: 0, fallback: 40 });
     expect(engine.reach([feed('d')]).lost).toEqual(['X.TV']);
     expect(spofOf(engine, 'X.TV')).toEqual([site('O'), feed('d')]);
+  });
+});
+
+describe('rule 9 (revised) with a single-origin service', () => {
+  // One origin O feeds relay A; relay X has a main from A and a reserve from O.
+  const doc: NetworkDocument = {
+    format: 'network/1',
+    sites: [
+      { code: 'O', name: 'Origin', role: 'origin', lat: 0, lon: 0, households: 0, groups: ['PWR'] },
+      { code: 'A', name: 'Relay A', role: 'relay', lat: 0, lon: 0.1, households: 10, groups: ['PWR'] },
+      { code: 'X', name: 'Relay X', role: 'relay', lat: 0, lon: 0.2, households: 40 },
+    ],
+    services: [{ code: 'TV', name: 'Television', kind: 'dtt' }],
+    groups: [{ code: 'PWR', name: 'Power' }, { code: 'RT', name: 'Route' }],
+    carriages: ['O', 'A', 'X'].map((s) => ({ code: `${s}.TV`, site: s, service: 'TV' })),
+    feeds: [
+      { code: 'a', from: 'O.TV', to: 'A.TV', medium: 'line', role: 'main' },
+      { code: 'b', from: 'A.TV', to: 'X.TV', medium: 'off-air', role: 'main', groups: ['RT'] },
+      { code: 'c', from: 'O.TV', to: 'X.TV', medium: 'line', role: 'reserve', groups: ['RT'] },
+    ],
+  };
+  const engine = NetworkEngine.build(doc, 1);
+
+  it('the only origin and the group holding it are unavoidable; the shared route group is avoidable', () => {
+    expect(spofOf(engine, 'X.TV')).toEqual([site('O'), group('PWR'), group('RT')]);
+    expect(engine.diversity().carriages).toEqual([{ carriage: 'X.TV', service: 'TV', site: 'X', spof: [site('O'), group('PWR'), group('RT')], avoidable: [group('RT')] }]);
+  });
+
+  it('a carriage whose only weak point is the single origin has no gap', () => {
+    const without = NetworkEngine.build({ ...doc, feeds: doc.feeds.map((f) => ({ ...f, groups: [] })) }, 1);
+    expect(spofOf(without, 'X.TV')).toEqual([site('O'), group('PWR')]);
+    expect(without.diversity().carriages).toEqual([]);
   });
 });

@@ -1,0 +1,297 @@
+/**
+ * Proposals: the new reserve feed that closes a diversity gap (rule 9,
+ * revised). For a carriage c with avoidable weak points W, a candidate is any
+ * other fed carriage p of the same service; the new feed p -> c has no
+ * via-sites and no groups.
+ *
+ * What a candidate removes, exactly (rules 1-9 with the feed added): the new
+ * feed adds only paths that end at c, so c's single points of failure can
+ * only shrink, and x ∈ W stops being one iff p has programme under {x}. (If p
+ * keeps programme under {x} through a path that passes c, c would keep it
+ * too, and x would not be a single point of failure of c.) So removes(p) =
+ * { x ∈ W : p keeps programme under x }: a source that depends on the weak
+ * point removes nothing and is never offered; an unavoidable weak point holds
+ * every origin, so nothing removes it; nor does anything remove a group that
+ * holds c's own site (c is down under it whatever feeds it).
+ *
+ * Households protected: under {x} with the feed added, the carriages that
+ * come back are those reachable from c in G − X, among those lost under x.
+ * A walk from c through the nodes lost under x finds them, once per weak
+ * point (not per candidate). The households of their sites, over the
+ * removed weak points, are protected.
+ *
+ * Off-air candidates are screened by the feed checks themselves
+ * (server/checks/feedChecks.ts: P.525 / P.1546 free-space field strength, k =
+ * 4/3 radio horizon, planning minimum, co-channel receive) on the feed as it
+ * would be recorded; only candidates passing horizon, field strength and
+ * channel are offered. A satellite or line feed from an origin carriage is
+ * always possible; it ranks after off-air candidates of equal effect (no new
+ * receiver on the mast is the cheaper change, as common practice: a rule of
+ * thumb, not a costing).
+ */
+import type { Feed, Medium } from '@/shared/schemas/network';
+import type { Element } from '@/shared/schemas/analysis';
+import { computeFeedChecks } from '../checks/feedChecks';
+import { pathHorizonKm } from '@/shared/rf/propagation';
+import type { EngineCore } from './core';
+
+export interface ProposalRow {
+  carriage: string;
+  from: string;
+  medium: Medium;
+  removes: Element[];
+  householdsProtected: number;
+  distanceKm: number;
+  bearingDeg: number;
+  fieldStrengthDbuvm: number | null;
+  minimumDbuvm: number | null;
+  warnings: string[];
+}
+
+/** Kilometres per degree of latitude, a little under the true ~110.57 so the pre-filter never drops a path in range. */
+const KM_PER_DEGREE_LOW = 110;
+
+/** Height above sea level of a carriage's antenna (ground + antenna, else mast), or null when not recorded. */
+function heightAsl(core: EngineCore, c: number): number | null {
+  const site = core.model.sites[core.model.carriageSite[c]];
+  const above = core.model.carriages[c].antennaHeightM ?? site.mastHeightM;
+  return site.groundHeightM === undefined || above === undefined ? null : site.groundHeightM + above;
+}
+
+interface WeakPoint {
+  x: number;
+  /** true for local nodes of the service that keep programme under {x} */
+  alive: (v: number) => boolean;
+  /** site ids that come back when c is fed around x */
+  sites: Int32Array;
+}
+
+/**
+ * The weak-point side of one carriage: for each avoidable weak point, who
+ * keeps programme under it and which sites come back when c does.
+ */
+function weakPoints(core: EngineCore, c: number, avoidable: readonly number[]): WeakPoint[] {
+  const { model, services, full, carriageNode } = core;
+  const s = model.carriageService[c];
+  const svc = services[s];
+  const view = full[s];
+  const { tin, tout, alive: fed } = view.tree;
+  const cn = carriageNode[c];
+  return avoidable.map((x) => {
+    const nodes: number[] = [];
+    for (let k = core.elementNodeOffsets[x]; k < core.elementNodeOffsets[x + 1]; k++) {
+      const g = core.elementNodes[k];
+      if (core.nodeService[g] === s && fed[g - svc.base]) nodes.push(g - svc.base);
+    }
+    let alive: (v: number) => boolean;
+    if (nodes.includes(cn)) {
+      // A group holding c's own site: c is down under it whatever feeds it, so no feed removes it.
+      return { x, alive: () => false, sites: new Int32Array(0) };
+    } else if (nodes.length === 1) {
+      const u = nodes[0];
+      alive = (v) => fed[v] === 1 && !(tin[u] <= tin[v] && tin[v] < tout[u]);
+    } else {
+      // Several nodes: a plain walk from the root with them removed.
+      const removed = new Uint8Array(svc.n);
+      for (const u of nodes) removed[u] = 1;
+      const seen = new Uint8Array(svc.n);
+      const queue = new Int32Array(svc.n);
+      let qn = 0;
+      seen[0] = 1;
+      queue[qn++] = 0;
+      for (let head = 0; head < qn; head++) {
+        const u = queue[head];
+        for (let e = view.out.offsets[u]; e < view.out.offsets[u + 1]; e++) {
+          const v = view.out.targets[e];
+          if (!seen[v] && !removed[v]) {
+            seen[v] = 1;
+            queue[qn++] = v;
+          }
+        }
+      }
+      alive = (v) => seen[v] === 1;
+    }
+    // Back on air with c fed around x: forward from c through nodes lost under x (never through x's own nodes).
+    const own = new Set(nodes);
+    const visited = new Set<number>([cn]);
+    const stack = [cn];
+    const sites = new Set<number>();
+    while (stack.length > 0) {
+      const u = stack.pop()!;
+      if (svc.isCarriage[u]) sites.add(model.carriageSite[svc.ref[u]]);
+      for (let e = view.out.offsets[u]; e < view.out.offsets[u + 1]; e++) {
+        const v = view.out.targets[e];
+        if (!visited.has(v) && !own.has(v) && fed[v] && !alive(v)) {
+          visited.add(v);
+          stack.push(v);
+        }
+      }
+    }
+    return { x, alive, sites: Int32Array.from(sites).sort() };
+  });
+}
+
+export interface CandidateEffect {
+  p: number;
+  removes: number[];
+  households: number;
+}
+
+/** Every candidate source that removes at least one weak point, with its effect (no screening yet). */
+export function candidateEffects(core: EngineCore, c: number, avoidable: readonly number[]): { effects: CandidateEffect[]; origins: Set<number> } {
+  const { model, services, full, carriageNode } = core;
+  const s = model.carriageService[c];
+  const svc = services[s];
+  const weak = weakPoints(core, c, avoidable);
+  const fed = full[s].tree.alive;
+  const origins = new Set<number>();
+  for (let e = full[s].out.offsets[0]; e < full[s].out.offsets[1]; e++) origins.add(svc.ref[full[s].out.targets[e]]);
+  const effects: CandidateEffect[] = [];
+  // Households depend only on which weak points a candidate removes: one sum per distinct set.
+  const householdsOf = new Map<string, number>();
+  const ownSite = model.carriageSite[c];
+  for (let u = 1; u < svc.n; u++) {
+    if (!svc.isCarriage[u] || !fed[u] || u === carriageNode[c]) continue;
+    const p = svc.ref[u];
+    if (model.carriageSite[p] === ownSite) continue;
+    const removes: number[] = [];
+    let key = '';
+    for (let i = 0; i < weak.length; i++) {
+      if (weak[i].alive(u)) {
+        removes.push(weak[i].x);
+        key += `${i},`;
+      }
+    }
+    if (removes.length === 0) continue;
+    let households = householdsOf.get(key);
+    if (households === undefined) {
+      const counted = new Set<number>();
+      households = 0;
+      for (const w of weak) {
+        if (!removes.includes(w.x)) continue;
+        for (const site of w.sites) {
+          if (!counted.has(site)) {
+            counted.add(site);
+            households += model.siteHouseholds[site];
+          }
+        }
+      }
+      householdsOf.set(key, households);
+    }
+    effects.push({ p, removes, households });
+  }
+  return { effects, origins };
+}
+
+/** The feed checks of the new feed p -> c as it would be recorded. */
+function screen(core: EngineCore, p: number, c: number, medium: Medium) {
+  const { model } = core;
+  const source = model.carriages[p];
+  const target = model.carriages[c];
+  const feed: Feed = { code: `new-${model.carriageCodes[p]}`, from: source.code, to: target.code, medium, role: 'reserve' };
+  return computeFeedChecks({
+    feed,
+    source,
+    target,
+    sourceSite: model.sites[model.carriageSite[p]],
+    targetSite: model.sites[model.carriageSite[c]],
+    serviceKind: model.services[model.carriageService[c]].kind,
+  });
+}
+
+export interface ProposalContext {
+  core: EngineCore;
+  /** the tallest antenna above sea level in the network, m, for the distance pre-filter */
+  maxHeightAsl: number;
+}
+
+export function proposalContext(core: EngineCore): ProposalContext {
+  let max = 0;
+  for (let c = 0; c < core.model.carriages.length; c++) max = Math.max(max, heightAsl(core, c) ?? 0);
+  return { core, maxHeightAsl: max };
+}
+
+/** A cheap lower bound on the distance between two sites, km (never above the true distance). */
+function distanceLowerBoundKm(core: EngineCore, a: number, b: number): number {
+  const sa = core.model.sites[a];
+  const sb = core.model.sites[b];
+  const dLat = Math.abs(sa.lat - sb.lat);
+  let dLon = Math.abs(sa.lon - sb.lon);
+  if (dLon > 180) dLon = 360 - dLon;
+  const minCos = Math.min(Math.cos((Math.min(Math.abs(sa.lat), 89.9) * Math.PI) / 180), Math.cos((Math.min(Math.abs(sb.lat), 89.9) * Math.PI) / 180));
+  // Equator-ward of both ends the meridians are furthest apart; the poleward cosine is the safe (small) one.
+  return KM_PER_DEGREE_LOW * Math.max(dLat, dLon * Math.max(0, minCos - 0.01));
+}
+
+const MEDIUM_RANK = (m: Medium) => (m === 'off-air' ? 0 : 1);
+
+export function compareProposals(a: ProposalRow, b: ProposalRow): number {
+  const margin = (r: ProposalRow) => (r.fieldStrengthDbuvm !== null && r.minimumDbuvm !== null ? r.fieldStrengthDbuvm - r.minimumDbuvm : Number.NEGATIVE_INFINITY);
+  return (
+    b.householdsProtected - a.householdsProtected ||
+    b.removes.length - a.removes.length ||
+    MEDIUM_RANK(a.medium) - MEDIUM_RANK(b.medium) ||
+    margin(b) - margin(a) ||
+    a.distanceKm - b.distanceKm ||
+    (a.from < b.from ? -1 : a.from > b.from ? 1 : 0)
+  );
+}
+
+/**
+ * Proposals for carriage c, best first. With `bestOnly`, candidates are
+ * screened tier by tier of effect and the search stops at the first tier
+ * that yields one (the network ranking needs only each carriage's best).
+ */
+export function proposalsFor(ctx: ProposalContext, c: number, avoidable: readonly number[], bestOnly = false): ProposalRow[] {
+  const { core } = ctx;
+  const { model } = core;
+  const { effects, origins } = candidateEffects(core, c, avoidable);
+  effects.sort((a, b) => b.households - a.households || b.removes.length - a.removes.length || a.p - b.p);
+  const hc = heightAsl(core, c);
+  const reachKm = hc === null ? -1 : pathHorizonKm(ctx.maxHeightAsl, hc);
+  const row = (e: CandidateEffect, medium: Medium): ProposalRow | null => {
+    const checks = screen(core, e.p, c, medium);
+    let field: number | null = null;
+    let minimum: number | null = null;
+    if (medium === 'off-air') {
+      const by = (name: string) => checks.checks.find((k) => k.name === name)!;
+      const fs = by('field-strength');
+      if (by('horizon').ok !== true || fs.ok !== true || by('channel-clash').ok === false) return null;
+      field = fs.value;
+      minimum = fs.limit ?? null;
+    }
+    return {
+      carriage: model.carriageCodes[c],
+      from: model.carriageCodes[e.p],
+      medium,
+      removes: e.removes.map((x) => model.elements[x]),
+      householdsProtected: e.households,
+      distanceKm: checks.distanceKm,
+      bearingDeg: checks.bearingDeg,
+      fieldStrengthDbuvm: field,
+      minimumDbuvm: minimum,
+      warnings: checks.warnings,
+    };
+  };
+  const rows: ProposalRow[] = [];
+  let i = 0;
+  while (i < effects.length) {
+    let j = i;
+    while (j < effects.length && effects[j].households === effects[i].households && effects[j].removes.length === effects[i].removes.length) j++;
+    const tier: ProposalRow[] = [];
+    for (let k = i; k < j; k++) {
+      const e = effects[k];
+      if (hc !== null && distanceLowerBoundKm(core, model.carriageSite[e.p], model.carriageSite[c]) <= reachKm) {
+        const r = row(e, 'off-air');
+        if (r) tier.push(r);
+      }
+      if (origins.has(e.p)) tier.push(row(e, 'satellite')!);
+    }
+    tier.sort(compareProposals);
+    if (bestOnly && tier.length > 0) return [tier[0]];
+    rows.push(...tier);
+    i = j;
+  }
+  return rows;
+}
+

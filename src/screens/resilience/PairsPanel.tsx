@@ -1,0 +1,61 @@
+/**
+ * Critical pairs (rule 10): the top pairs of sites and groups in one sentence
+ * each, opening the fault reach of the pair. The server computes them in the
+ * background; until then this shows its progress and the rest of the screen
+ * stays usable.
+ */
+import { StyleSheet, Text, View } from 'react-native';
+import { usePairs } from '@/src/api/queries/planner';
+import { Capped } from '@/src/screens/reach/Capped';
+import { LinkRow } from '@/src/screens/reach/LinkRow';
+import { formatFailSet } from '@/src/screens/reach/failSet';
+import { ErrorState, LoadingState } from '@/src/components/states';
+import { colors, space, type } from '@/src/theme';
+import type { ElementNamer } from './elementNames';
+import { pairSentence } from './plannerWords';
+
+export const PAIRS_SHOWN = 20;
+
+export function PairsPanel({ name }: { name: ElementNamer }) {
+  const pairs = usePairs(PAIRS_SHOWN);
+  if (pairs.error && !pairs.data) return <ErrorState what="the critical pairs" error={pairs.error} onRetry={() => void pairs.mutate()} />;
+  if (!pairs.data) return <LoadingState what="the critical pairs" />;
+  if (pairs.data.state === 'running') {
+    const { percent, done, total } = pairs.data.progress;
+    return (
+      <View style={styles.wrap} testID="pairs-running" accessibilityRole="progressbar" accessibilityValue={{ min: 0, max: 100, now: percent }}>
+        <Text style={styles.body}>{`Working out every pair of sites and groups: ${percent} % done (${done.toLocaleString('en-GB')} of ${total.toLocaleString('en-GB')} steps). The rest of this screen works meanwhile.`}</Text>
+        <View style={styles.track}>
+          <View style={[styles.bar, { width: `${Math.max(2, percent)}%` }]} />
+        </View>
+      </View>
+    );
+  }
+  const list = pairs.data.pairs;
+  if (list.length === 0) return <Text style={styles.body}>No two sites or groups take anything off air together that neither takes alone.</Text>;
+  return (
+    <Capped
+      items={list}
+      what="pairs"
+      first={5}
+      render={(p) => {
+        const fail = formatFailSet(p.elements);
+        return (
+          <LinkRow
+            key={fail}
+            href={`/reach?fail=${encodeURIComponent(fail).replace(/%2C/g, ',').replace(/%3A/g, ':')}`}
+            title={pairSentence(name, p.elements, p.households, p.jointLost.length)}
+            detail={`Only together: ${p.jointLost.slice(0, 4).join(', ')}${p.jointLost.length > 4 ? ` and ${p.jointLost.length - 4} more` : ''}. Open the fault reach of the pair.`}
+          />
+        );
+      }}
+    />
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  body: { ...type.body, fontSize: 16 },
+  track: { height: 12, borderRadius: 6, backgroundColor: colors.accentSoft, overflow: 'hidden' },
+  bar: { height: 12, backgroundColor: colors.accent },
+});
