@@ -1,19 +1,23 @@
 /**
  * Writes a generated network document (scripts/generator):
- *   npm run gen -- --sites 20000 --seed 7 > net.json
+ *   npm run gen -- --sites 20000 --seed 7 --out net.json
+ *   npm run -s gen -- --sites 20000 --seed 7 > net.json
  *   npm run gen -- --sites 500 --seed 1 --format csv --out DIR
- * JSON goes to stdout; CSV writes the five files into DIR.
+ * JSON goes to the file named by --out, else to stdout (then run npm with -s:
+ * without it npm prints its own banner lines to stdout ahead of the JSON).
+ * CSV writes the five files into the folder DIR.
  */
 import fs from 'node:fs';
 import path from 'node:path';
 import { generateNetwork, MAX_SITES } from './generator';
 import { documentToCsv } from '@/server/network/csv';
 
-const USAGE = `usage: npm run gen -- --sites N --seed S [--format json|csv] [--out DIR]
+const USAGE = `usage: npm run gen -- --sites N --seed S [--format json|csv] [--out FILE|DIR]
   --sites N     number of sites, 1-${MAX_SITES}
   --seed S      whole number; the same seed gives the same network
-  --format      json (default, to stdout) or csv (five files, needs --out)
-  --out DIR     folder for the CSV files (or for network.json with --format json)
+  --format      json (default) or csv (five files, needs --out DIR)
+  --out         json: the file to write (default: stdout; use npm run -s then)
+                csv: the folder for the five files
 `;
 
 interface Args {
@@ -53,12 +57,21 @@ function main(): void {
   const started = performance.now();
   const doc = generateNetwork({ sites: args.sites, seed: args.seed });
   const ms = performance.now() - started;
-  if (args.format === 'csv' || args.out !== undefined) {
+  if (args.format === 'csv') {
     const out = path.resolve(args.out as string);
     fs.mkdirSync(out, { recursive: true });
-    const files = args.format === 'csv' ? documentToCsv(doc) : { 'network.json': JSON.stringify(doc) };
+    const files = documentToCsv(doc);
     for (const [name, text] of Object.entries(files)) fs.writeFileSync(path.join(out, name), text);
     process.stderr.write(`wrote ${Object.keys(files).join(', ')} to ${out}\n`);
+  } else if (args.out !== undefined) {
+    const out = path.resolve(args.out);
+    if (fs.existsSync(out) && fs.statSync(out).isDirectory()) {
+      process.stderr.write(`--out ${args.out} is a folder: give the name of the JSON file to write\n`);
+      process.exit(2);
+    }
+    fs.mkdirSync(path.dirname(out), { recursive: true });
+    fs.writeFileSync(out, `${JSON.stringify(doc)}\n`);
+    process.stderr.write(`wrote ${out}\n`);
   } else {
     process.stdout.write(JSON.stringify(doc));
     process.stdout.write('\n');
