@@ -24,10 +24,10 @@ export const DEMO_SERVICES: ReadonlyArray<Service & { block?: string }> = [
   { code: 'MX3', name: 'Lanneth Multiplex 3', kind: 'dtt' },
   { code: 'MX4', name: 'Lanneth Multiplex 4', kind: 'dtt' },
   { code: 'MX5', name: 'Lanneth Multiplex 5', kind: 'dtt' },
-  { code: 'FMA', name: 'Lanneth One', kind: 'fm' },
-  { code: 'FMB', name: 'Lanneth Two', kind: 'fm' },
-  { code: 'FMC', name: 'Lanneth Classic', kind: 'fm' },
-  { code: 'FMD', name: 'Vale Talk', kind: 'fm' },
+  { code: 'FMA', name: 'Lanneth Tideline', kind: 'fm' },
+  { code: 'FMB', name: 'Corran Air', kind: 'fm' },
+  { code: 'FMC', name: 'Vellow Sound', kind: 'fm' },
+  { code: 'FMD', name: 'Vale Parley', kind: 'fm' },
   { code: 'DBN', name: 'Lanneth Digital', kind: 'dab', block: '8A' },
   { code: 'DBR', name: 'Vale Regional Digital', kind: 'dab', block: '10C' },
   { code: 'LCL', name: 'Quillon Community Radio', kind: 'fm' },
@@ -61,7 +61,7 @@ export const PROFILES: Record<string, readonly string[]> = {
 /** [code, name, family, bearing from the centre (deg), distance (km), profile] */
 export const DEMO_ORIGINS: ReadonlyArray<[string, string, 'tv' | 'radio' | 'local', number, number, string]> = [
   ['O-LPC', 'Lanneth Playout Centre', 'tv', 0, 0, 'playoutTv'],
-  ['O-BRH', 'Brevin Radio House', 'radio', 250, 14, 'playoutRadio'],
+  ['O-BRH', 'Brevin Radio Playout', 'radio', 250, 14, 'playoutRadio'],
   ['O-QCS', 'Quillon Community Studio', 'local', 120, 38, 'studio'],
 ];
 

@@ -130,6 +130,13 @@ describe('the structure of a generated network (5000 sites)', () => {
     expect(rules.has('no-feed')).toBe(true);
   });
 
+  it('names no site or service after a broadcaster\'s pattern (numbered programmes, "... House")', () => {
+    const echoes = [/radio house/i, /broadcast house/i, /\bprogram(me)? (one|two|three|four|[1-4])\b/i, /\b(one|two|three|four)$/i];
+    for (const name of [...doc.sites.map((s) => s.name), ...doc.services.map((s) => s.name)]) {
+      for (const pattern of echoes) expect(name, `${name} matches ${String(pattern)}`).not.toMatch(pattern);
+    }
+  });
+
   it('has plausible heights, powers and households', () => {
     for (const s of doc.sites) {
       expect(s.groundHeightM).toBeGreaterThanOrEqual(0);

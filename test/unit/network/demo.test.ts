@@ -132,3 +132,13 @@ describe('demo network fixture', () => {
     expect(new Set(doc.sites.map((s) => s.name)).size).toBe(doc.sites.length);
   });
 });
+
+/** Naming patterns of well-known public broadcasters, retired from the demo and generated data. */
+const ECHOING_NAMES = [/radio house/i, /broadcast house/i, /\bprogram(me)? (one|two|three|four|[1-4])\b/i, /\b(one|two|three|four)$/i];
+
+describe('demo names', () => {
+  it('echo no broadcaster: no "... Radio House", "Broadcast House" or numbered programmes', () => {
+    const names = [...doc.sites.map((s) => s.name), ...doc.services.map((s) => s.name)];
+    for (const name of names) for (const pattern of ECHOING_NAMES) expect(name, `${name} matches ${String(pattern)}`).not.toMatch(pattern);
+  });
+});
