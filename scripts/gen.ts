@@ -9,12 +9,14 @@
  */
 import fs from 'node:fs';
 import path from 'node:path';
-import { generateNetwork, MAX_SITES } from './generator';
+import { DEFAULT_FAULT_SHARE, generateNetwork, MAX_SITES } from './generator';
 import { documentToCsv } from '@/server/network/csv';
 
-const USAGE = `usage: npm run gen -- --sites N --seed S [--format json|csv] [--out FILE|DIR]
+const USAGE = `usage: npm run gen -- --sites N --seed S [--faults SHARE] [--format json|csv] [--out FILE|DIR]
   --sites N     number of sites, 1-${MAX_SITES}
   --seed S      whole number; the same seed gives the same network
+  --faults      share (0-1) of off-air relay carriages planted as channel clashes
+                for the checks to find (default ${DEFAULT_FAULT_SHARE})
   --format      json (default) or csv (five files, needs --out DIR)
   --out         json: the file to write (default: stdout; use npm run -s then)
                 csv: the folder for the five files
@@ -25,13 +27,14 @@ interface Args {
   seed: number;
   format: 'json' | 'csv';
   out?: string;
+  faultShare?: number;
 }
 
 export function parseArgs(argv: readonly string[]): Args | string {
   const values: Record<string, string> = {};
   for (let i = 0; i < argv.length; i++) {
     const flag = argv[i];
-    if (!['--sites', '--seed', '--format', '--out'].includes(flag)) return `unknown argument "${flag}"`;
+    if (!['--sites', '--seed', '--format', '--out', '--faults'].includes(flag)) return `unknown argument "${flag}"`;
     const value = argv[i + 1];
     if (value === undefined || value.startsWith('--')) return `${flag} needs a value`;
     values[flag.slice(2)] = value;
@@ -45,7 +48,9 @@ export function parseArgs(argv: readonly string[]): Args | string {
   const format = values.format ?? 'json';
   if (format !== 'json' && format !== 'csv') return `--format is json or csv (got "${format}")`;
   if (format === 'csv' && values.out === undefined) return '--format csv needs --out DIR';
-  return { sites, seed, format, out: values.out };
+  const faultShare = values.faults === undefined ? undefined : Number(values.faults);
+  if (faultShare !== undefined && !(/^\d*\.?\d+$/.test(values.faults) && faultShare <= 1)) return `--faults must be a share from 0 to 1 (got "${values.faults}")`;
+  return { sites, seed, format, out: values.out, ...(faultShare !== undefined ? { faultShare } : {}) };
 }
 
 function main(): void {
@@ -55,7 +60,7 @@ function main(): void {
     process.exit(2);
   }
   const started = performance.now();
-  const doc = generateNetwork({ sites: args.sites, seed: args.seed });
+  const doc = generateNetwork({ sites: args.sites, seed: args.seed, faultShare: args.faultShare });
   const ms = performance.now() - started;
   if (args.format === 'csv') {
     const out = path.resolve(args.out as string);
