@@ -6,7 +6,8 @@
  */
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, launch, openPage, shot, signIn, SIZES } from './browser';
+import path from 'node:path';
+import { ARTIFACTS, baseUrl, launch, openPage, shot, signIn, SIZES } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -50,10 +51,11 @@ describe.each(Object.entries(SIZES))('demo diagram at %s size', (sizeName, size)
     expect(before).toBeGreaterThan(1);
     expect(await scale.textContent()).toMatch(/^[0-9,]+ (km|m)$/);
     await shot(page, `demo-diagram-${sizeName}`);
+    await diagram.screenshot({ path: path.join(ARTIFACTS, `demo-diagram-box-${sizeName}.png`) });
 
     for (let i = 0; i < 3; i++) await page.getByTestId('network-zoom-in').click();
     await expect.poll(async () => scaleKm((await scale.getAttribute('aria-label')) ?? ''), { timeout: 10_000 }).toBeLessThan(before / 2);
-    await shot(page, `demo-diagram-zoomed-${sizeName}`);
+    await diagram.screenshot({ path: path.join(ARTIFACTS, `demo-diagram-box-zoomed-${sizeName}.png`) });
 
     // The service choices stay within the screen width: they wrap or scroll inside their row.
     const pageWidth = await page.evaluate(() => document.documentElement.scrollWidth);

@@ -15,6 +15,7 @@ import { feedStrokes, MEDIUM_ORDER, ROLE_ORDER } from '@/src/components/charts/f
 import { colors, fonts, space, type } from '@/src/theme';
 import type { DiagramModel, PlacedDiagram, SiteStatus } from './diagramModel';
 import { crossShape, halfShape, linkPaths, ringShape, siteShape } from './diagramPaths';
+import { plainStrokes } from './denseLines';
 import { scaleBar } from './scaleBar';
 import { cullPoints, cullSegments, gestureTransform, nearestPoint, panBy, showLabels, showPatterns, visibleWorld, zoomAt, type View as ViewT } from './viewport';
 
@@ -48,20 +49,6 @@ export interface NetworkDiagramProps {
 const SITE_R = { origin: 5, main: 5, relay: 3.5 } as const;
 const TAP_SLOP = 6;
 const TAP_RADIUS = 22;
-
-/**
- * Plain lines for a dense view (no dashes: see showPatterns): main a single
- * dark line, reserve a double line (a wide accent stroke with a background
- * core), the same role marks the patterned lines use.
- */
-export function plainStrokes(role: 'main' | 'reserve'): { stroke: string; width: number }[] {
-  return role === 'main'
-    ? [{ stroke: colors.ink, width: 1 }]
-    : [
-        { stroke: colors.accent, width: 2.6 },
-        { stroke: colors.surface, width: 0.9 },
-      ];
-}
 
 function Drawing({ model, placed, width, height, view, statuses, selected, land, onDrawn }: Omit<NetworkDiagramProps, 'onView' | 'onSelect' | 'summary' | 'projection'>) {
   const { xs, ys, linkFrom, linkTo } = placed;
@@ -305,5 +292,5 @@ const styles = StyleSheet.create({
   scale: { position: 'absolute', left: space.sm, bottom: space.sm, paddingHorizontal: space.xs, paddingVertical: 2, borderRadius: 4, backgroundColor: 'rgba(255,255,255,0.85)' },
   // A bar with end ticks: a bottom edge and two short sides.
   scaleBar: { height: 6, borderColor: colors.ink, borderBottomWidth: 2, borderLeftWidth: 2, borderRightWidth: 2 },
-  scaleText: { ...type.small, color: colors.ink, fontFamily: fonts.text },
+  scaleText: { ...type.small, color: colors.ink, fontFamily: fonts.text, marginTop: 2, paddingLeft: 4 },
 });
