@@ -20,7 +20,7 @@ import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { colors, space, type } from '@/src/theme';
 import { buildDiagram, placeDiagram, siteStatuses } from './diagramModel';
 import { DIAGRAM_MARKS } from './diagramMarks';
-import { LAND_CREDIT, landGeometry, landKindFor, landPath } from './landOutline';
+import { DEMO_COAST_CORNERS, LAND_CREDIT, landGeometry, landKindFor, landPath } from './landOutline';
 import { NetworkDiagram, type DrawnCounts } from './NetworkDiagram';
 import { networkHref } from './networkHref';
 import { fitProjection } from './projection';
@@ -28,6 +28,8 @@ import { ServiceFilter } from './ServiceFilter';
 import { SitesInView } from './SitesInView';
 import { SiteCard } from './SiteCard';
 import { IDENTITY, zoomAt, type View as ViewT } from './viewport';
+
+const NO_PLACES: readonly { code: string; lat: number; lon: number }[] = [];
 
 export function NetworkScreen({ service, failParam }: { service: string | null; failParam: string | string[] | undefined }) {
   const router = useRouter();
@@ -53,11 +55,13 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
 
   const knownService = !service || !drawing.data || drawing.data.services.some((s) => s.code === service);
   const model = useMemo(() => (drawing.data ? buildDiagram(drawing.data, knownService ? service : null) : null), [drawing.data, service, knownService]);
-  const placed = useMemo(() => (model && width > 0 ? placeDiagram(model, width, height) : null), [model, width, height]);
+  const landKind = useMemo(() => landKindFor(model?.sites ?? []), [model]);
+  // On the demo island the fit takes in the whole coast, so the picture shows the island entire.
+  const alsoShow = landKind === 'demo' ? DEMO_COAST_CORNERS : NO_PLACES;
+  const placed = useMemo(() => (model && width > 0 ? placeDiagram(model, width, height, 28, alsoShow) : null), [model, width, height, alsoShow]);
   const statuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, service), [reach.data, service, failed.length]);
   // The same fit as placeDiagram's: the land and the scale line up with the sites.
-  const fit = useMemo(() => (model && width > 0 ? fitProjection(model.sites, width, height, 28) : null), [model, width, height]);
-  const landKind = useMemo(() => landKindFor(model?.sites ?? []), [model]);
+  const fit = useMemo(() => (model && width > 0 && model.sites.length > 0 ? fitProjection([...model.sites, ...alsoShow], width, height, 28) : null), [model, width, height, alsoShow]);
   const land = useMemo(() => (showLand && fit ? landPath(landGeometry(landKind), fit.projection, width, height) : null), [showLand, fit, landKind, width, height]);
 
   // A new network or filter starts from the whole picture. (Not a new box

@@ -30,6 +30,12 @@ export const DEMO_COAST = demoCoast as unknown as FeatureCollection<MultiPolygon
 // [[west, south], [east, north]]: a cheap first test before the polygon test.
 const DEMO_BOUNDS = geoBounds(DEMO_COAST);
 
+/** Corners of the demo island's bounding box: the diagram fits them too, so the whole island shows. */
+export const DEMO_COAST_CORNERS = [
+  { code: 'coast-sw', lon: DEMO_BOUNDS[0][0], lat: DEMO_BOUNDS[0][1] },
+  { code: 'coast-ne', lon: DEMO_BOUNDS[1][0], lat: DEMO_BOUNDS[1][1] },
+] as const;
+
 let naturalEarth: GeoPermissibleObjects | null = null;
 
 /** The land outline as GeoJSON, ready for d3-geo. */
