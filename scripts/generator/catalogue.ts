@@ -8,7 +8,7 @@ import { dabBlock, uhfChannel } from '@/shared/rf/bands';
 import type { Service } from '@/shared/schemas/network';
 import type { Prng } from './prng';
 
-/** Which origin a service comes from: the TV playout, the radio house, or a local studio. */
+/** Which origin a service comes from: the TV playout, the radio playout, or a local studio. */
 export type Family = 'tv' | 'radio' | 'local';
 
 export interface ServiceSpec extends Service {
@@ -24,12 +24,12 @@ export const SERVICE_SPECS: readonly ServiceSpec[] = [
   { code: 'MUX4', name: 'Multiplex 4', kind: 'dtt', family: 'tv' },
   { code: 'MUX5', name: 'Multiplex 5', kind: 'dtt', family: 'tv' },
   { code: 'MUX6', name: 'Multiplex 6', kind: 'dtt', family: 'tv' },
-  { code: 'FM1', name: 'Programme One', kind: 'fm', family: 'radio' },
-  { code: 'FM2', name: 'Programme Two', kind: 'fm', family: 'radio' },
-  { code: 'FM3', name: 'Programme Three', kind: 'fm', family: 'radio' },
+  { code: 'FM1', name: 'Corran Air', kind: 'fm', family: 'radio' },
+  { code: 'FM2', name: 'Vellow Sound', kind: 'fm', family: 'radio' },
+  { code: 'FM3', name: 'Quietmark', kind: 'fm', family: 'radio' },
   { code: 'FM4', name: 'Talk and Traffic', kind: 'fm', family: 'radio' },
-  { code: 'DAB1', name: 'Ensemble One', kind: 'dab', family: 'radio', block: '8A' },
-  { code: 'DAB2', name: 'Ensemble Two', kind: 'dab', family: 'radio', block: '10C' },
+  { code: 'DAB1', name: 'Ensemble Kestle', kind: 'dab', family: 'radio', block: '8A' },
+  { code: 'DAB2', name: 'Ensemble Morrow', kind: 'dab', family: 'radio', block: '10C' },
   { code: 'LOCAL', name: 'Community Radio', kind: 'fm', family: 'local' },
 ];
 

@@ -1,8 +1,10 @@
 /**
  * The demo region: the Lanneth valley, an invented region with invented
- * sites, services and figures. It sits over open ocean in the South
- * Atlantic so that no real place, station or operator is meant; the ground
- * heights are made up as if it were hill country.
+ * sites, services and figures, on an invented island (its coastline, drawn
+ * by hand around the sites, is assets/demo/demo-coast.json). It lies in
+ * open ocean in the South Atlantic so that no real place, station or
+ * operator is meant; the ground heights are made up as if it were hill
+ * country. Moving a site off the island fails test/unit/network/demo.test.ts.
  *
  * Planted data problems, for the tools to find:
  * - UNFED_CARRIAGE has no feed at all;
@@ -24,10 +26,10 @@ export const DEMO_SERVICES: ReadonlyArray<Service & { block?: string }> = [
   { code: 'MX3', name: 'Lanneth Multiplex 3', kind: 'dtt' },
   { code: 'MX4', name: 'Lanneth Multiplex 4', kind: 'dtt' },
   { code: 'MX5', name: 'Lanneth Multiplex 5', kind: 'dtt' },
-  { code: 'FMA', name: 'Lanneth One', kind: 'fm' },
-  { code: 'FMB', name: 'Lanneth Two', kind: 'fm' },
-  { code: 'FMC', name: 'Lanneth Classic', kind: 'fm' },
-  { code: 'FMD', name: 'Vale Talk', kind: 'fm' },
+  { code: 'FMA', name: 'Lanneth Tideline', kind: 'fm' },
+  { code: 'FMB', name: 'Corran Air', kind: 'fm' },
+  { code: 'FMC', name: 'Vellow Sound', kind: 'fm' },
+  { code: 'FMD', name: 'Vale Parley', kind: 'fm' },
   { code: 'DBN', name: 'Lanneth Digital', kind: 'dab', block: '8A' },
   { code: 'DBR', name: 'Vale Regional Digital', kind: 'dab', block: '10C' },
   { code: 'LCL', name: 'Quillon Community Radio', kind: 'fm' },
@@ -61,7 +63,7 @@ export const PROFILES: Record<string, readonly string[]> = {
 /** [code, name, family, bearing from the centre (deg), distance (km), profile] */
 export const DEMO_ORIGINS: ReadonlyArray<[string, string, 'tv' | 'radio' | 'local', number, number, string]> = [
   ['O-LPC', 'Lanneth Playout Centre', 'tv', 0, 0, 'playoutTv'],
-  ['O-BRH', 'Brevin Radio House', 'radio', 250, 14, 'playoutRadio'],
+  ['O-BRH', 'Brevin Radio Playout', 'radio', 250, 14, 'playoutRadio'],
   ['O-QCS', 'Quillon Community Studio', 'local', 120, 38, 'studio'],
 ];
 

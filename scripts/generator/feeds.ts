@@ -8,8 +8,16 @@
  * makes loops that still have an origin upstream), from the same parent, or
  * by line. Then a few loop pairs feed only each other, and a few relay
  * carriages get no feed at all: data problems for the tools to find.
+ *
+ * Off-air main feeds pass the path checks by construction (./layout.ts keeps
+ * them inside the horizon, ./carriages.ts gives the power). Reserves off-air
+ * and microwave paths are screened with the feed checks themselves
+ * (server/checks/feedChecks.ts): a path that would fail one is not built
+ * (a microwave main falls back to a line). So the only failures left are the
+ * deliberate faults ./carriages.ts plants.
  */
 import type { Carriage, Feed, FeedRole, Group } from '@/shared/schemas/network';
+import { computeFeedChecks } from '@/server/checks/feedChecks';
 import { normaliseDeg } from '@/shared/rf/geodesy';
 import { SERVICE_SPECS, type Family } from './catalogue';
 import { carriageAt, type CarriageTable } from './carriages';
@@ -45,6 +53,16 @@ export function buildFeeds(prng: Prng, layout: Layout, table: CarriageTable, cou
   const used = new Map<string, Group>();
   const useGroup = (g: Group) => (used.set(g.code, g), g.code);
   const carriageOf = (site: number, service: number) => table.carriages[carriageAt(table, site, service)];
+  /** True when no check of the feed fails (server/checks/feedChecks.ts). */
+  const passes = (feed: Feed, from: number, to: number, service: number) =>
+    computeFeedChecks({
+      feed,
+      source: carriageOf(from, service),
+      target: carriageOf(to, service),
+      sourceSite: sites[from].site,
+      targetSite: sites[to].site,
+      serviceKind: SERVICE_SPECS[service].kind,
+    }).checks.every((c) => c.ok !== false);
   const antenna = (service: number) => prng.pick(RX_ANTENNA[SERVICE_SPECS[service].kind] ?? RX_ANTENNA.dtt);
 
   const routes = Math.max(2, Math.ceil(layout.gridSide / 3));
@@ -76,9 +94,18 @@ export function buildFeeds(prng: Prng, layout: Layout, table: CarriageTable, cou
     const route = routeGroup(main);
     const hop = hopToward(layout, main);
     const r = prng.next();
-    const medium = r < 0.6 || (r < 0.85 && hop < 0) ? 'line' : r < 0.85 ? 'microwave' : 'satellite';
+    let medium = r < 0.6 || (r < 0.85 && hop < 0) ? 'line' : r < 0.85 ? 'microwave' : 'satellite';
     const reserve = prng.chance(0.85) ? (medium === 'satellite' ? 'line' : prng.chance(0.1) ? 'same-route' : 'satellite') : 'none';
     const linkMHz = prng.int(7125, 8500);
+    const microwaveFeed = (k: number): Feed => {
+      const to = carriageOf(m, k);
+      const from = carriageOf(nearestOrigin(main, SERVICE_SPECS[k].family), k);
+      return { code: `${to.code}.M`, from: from.code, to: to.code, medium: 'microwave', role: 'main', via: [sites[hop].site.code], rxFrequencyMHz: linkMHz, rxAntenna: 'dish 1.8 m' };
+    };
+    // A microwave path that would fail its checks (too long, not clear) is a line instead.
+    if (medium === 'microwave' && !main.services.every((k) => SERVICE_SPECS[k].family === 'local' || passes(microwaveFeed(k), nearestOrigin(main, SERVICE_SPECS[k].family), m, k))) {
+      medium = 'line';
+    }
     for (const k of main.services) {
       const spec = SERVICE_SPECS[k];
       const to = carriageOf(m, k);
@@ -91,7 +118,7 @@ export function buildFeeds(prng: Prng, layout: Layout, table: CarriageTable, cou
       if (medium === 'line' || reserve === 'same-route') {
         feeds.push({ code: `${to.code}.M`, from: from.code, to: to.code, medium: 'line', role: 'main', groups: [useGroup(route)] });
       } else if (medium === 'microwave') {
-        feeds.push({ code: `${to.code}.M`, from: from.code, to: to.code, medium: 'microwave', role: 'main', via: [sites[hop].site.code], rxFrequencyMHz: linkMHz, rxAntenna: 'dish 1.8 m' });
+        feeds.push(microwaveFeed(k));
       } else {
         feeds.push({ code: `${to.code}.M`, from: from.code, to: to.code, medium: 'satellite', role: 'main', groups: [useGroup(sat)], rxAntenna: 'dish 2.4 m' });
       }
@@ -170,7 +197,8 @@ export function buildFeeds(prng: Prng, layout: Layout, table: CarriageTable, cou
       if (plan.kind === 'line') {
         feeds.push({ code, from: from.code, to: to.code, medium: 'line', role: 'reserve', groups: [useGroup(routeGroup(source))] });
       } else {
-        feeds.push(offAirFeed(code, from, to, 'reserve', plan.kind === 'same' ? target.bearingBackDeg : toward, antenna(k)));
+        const feed = offAirFeed(code, from, to, 'reserve', plan.kind === 'same' ? target.bearingBackDeg : toward, antenna(k));
+        if (passes(feed, plan.from, plan.to, k)) feeds.push(feed);
       }
     }
   }

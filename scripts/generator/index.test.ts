@@ -130,6 +130,13 @@ describe('the structure of a generated network (5000 sites)', () => {
     expect(rules.has('no-feed')).toBe(true);
   });
 
+  it('names no site or service after a broadcaster\'s pattern (numbered programmes, "... House")', () => {
+    const echoes = [/radio house/i, /broadcast house/i, /\bprogram(me)? (one|two|three|four|[1-4])\b/i, /\b(one|two|three|four)$/i];
+    for (const name of [...doc.sites.map((s) => s.name), ...doc.services.map((s) => s.name)]) {
+      for (const pattern of echoes) expect(name, `${name} matches ${String(pattern)}`).not.toMatch(pattern);
+    }
+  });
+
   it('has plausible heights, powers and households', () => {
     for (const s of doc.sites) {
       expect(s.groundHeightM).toBeGreaterThanOrEqual(0);
@@ -144,6 +151,8 @@ describe('gen CLI arguments', () => {
   it('reads sites, seed, format and out', () => {
     expect(parseArgs(['--sites', '20000', '--seed', '7'])).toEqual({ sites: 20000, seed: 7, format: 'json', out: undefined });
     expect(parseArgs(['--seed', '-3', '--sites', '5', '--format', 'csv', '--out', 'dir'])).toEqual({ sites: 5, seed: -3, format: 'csv', out: 'dir' });
+    expect(parseArgs(['--sites', '5', '--seed', '1', '--faults', '0.05'])).toEqual({ sites: 5, seed: 1, format: 'json', out: undefined, faultShare: 0.05 });
+    expect(parseArgs(['--sites', '5', '--seed', '1', '--faults', '0'])).toMatchObject({ faultShare: 0 });
   });
 
   it.each([
@@ -156,6 +165,9 @@ describe('gen CLI arguments', () => {
     [['--sites', '10', '--seed', '1', '--format', 'csv'], '--format csv needs --out'],
     [['--sites', '10', '--seed'], '--seed needs a value'],
     [['--nodes', '10'], 'unknown argument "--nodes"'],
+    [['--sites', '10', '--seed', '1', '--faults', '1.5'], '--faults must be a share from 0 to 1'],
+    [['--sites', '10', '--seed', '1', '--faults', '-0.1'], '--faults must be a share from 0 to 1'],
+    [['--sites', '10', '--seed', '1', '--faults', 'some'], '--faults must be a share from 0 to 1'],
   ])('%j -> %s', (argv, message) => {
     expect(parseArgs(argv)).toEqual(expect.stringContaining(message));
   });

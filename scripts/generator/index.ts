@@ -22,10 +22,21 @@ export interface GenerateOptions {
   sites: number;
   /** any whole number; the same seed gives the same network */
   seed: number;
+  /**
+   * Share (0-1) of relay carriages fed off-air that are planted as faults:
+   * they transmit on the channel they receive, undeclared. Default 0.02.
+   * Every other off-air feed is inside the radio horizon, above the
+   * planning minimum and clear of its own channel.
+   */
+  faultShare?: number;
 }
+
+export const DEFAULT_FAULT_SHARE = 0.02;
 
 export function generateNetwork(opts: GenerateOptions): NetworkDocument {
   const { sites, seed } = opts;
+  const faultShare = opts.faultShare ?? DEFAULT_FAULT_SHARE;
+  if (typeof faultShare !== 'number' || !(faultShare >= 0 && faultShare <= 1)) throw new RangeError(`faultShare must be a number from 0 to 1 (got ${String(faultShare)})`);
   if (!Number.isInteger(sites) || sites < 1 || sites > MAX_SITES) {
     throw new RangeError(`sites must be a whole number from 1 to ${MAX_SITES} (got ${String(sites)})`);
   }
@@ -33,7 +44,7 @@ export function generateNetwork(opts: GenerateOptions): NetworkDocument {
   const prng = new Prng(seed);
   const counts = planCounts(sites);
   const layout = layoutSites(prng, counts);
-  const table = buildCarriages(prng, layout);
+  const table = buildCarriages(prng, layout, faultShare);
   const { feeds, groups } = buildFeeds(prng, layout, table, counts);
   return {
     format: NETWORK_FORMAT,

@@ -5,10 +5,18 @@
  * several hops deep), and a few pairs of relays that will feed each other
  * in a loop. The region is invented and placed over open ocean so that no
  * real place is meant.
+ *
+ * A relay stands within radio horizon of the site it receives from: the
+ * k = 4/3 smooth-earth horizon of the two antennas (shared/rf/propagation.ts,
+ * the function the feed checks use), taken from the ground heights and the
+ * lowest antenna a carriage there can get (ANTENNA_SHARE.low of the mast).
+ * Each site also records how far its farthest off-air receiver is, so its
+ * transmitters can be given the power to reach it (./carriages.ts).
  */
 import type { Site, SiteRole } from '@/shared/schemas/network';
+import { pathHorizonKm } from '@/shared/rf/propagation';
 import { SERVICE_SPECS, type Family } from './catalogue';
-import { placeFrom, round, wrapLon } from './geo';
+import { bearingTo, placeFrom, round, wrapLon } from './geo';
 import { siteName } from './names';
 import type { Prng } from './prng';
 
@@ -16,6 +24,18 @@ export const CENTRE = { lat: -40.5, lon: -24.5 };
 const MAIN_SPACING_KM = 45;
 const MAX_RELAY_DEPTH = 5;
 const KM_PER_DEG_LAT = 111.2;
+const MIN_RELAY_KM = 5;
+const MAX_RELAY_KM = 60;
+/** Off-air paths are kept this far inside the horizon: a margin for rounding and for a planner's caution. */
+const HORIZON_USE = 0.9;
+
+/** A carriage's antenna stands at this share of its site's mast (./carriages.ts draws within it). */
+export const ANTENNA_SHARE = { low: 0.6, high: 0.95 } as const;
+
+/** The lowest antenna height (m) a carriage on a mast of `mastM` can get: the horizon is planned on it. */
+export function lowestAntennaM(mastM: number): number {
+  return Math.floor(mastM * ANTENNA_SHARE.low);
+}
 
 export interface Counts {
   origins: number;
@@ -49,6 +69,8 @@ export interface SiteDraft {
   /** origins: the families of services that enter the network here */
   families: Family[];
   children: number;
+  /** Distance (km) to the farthest site that receives from this one off-air (0 when none). */
+  reachKm: number;
   gridX: number;
   gridY: number;
 }
@@ -85,7 +107,7 @@ function offsetFromCentre(dxKm: number, dyKm: number): { lat: number; lon: numbe
 function draft(code: string, role: SiteRole, name: string, lat: number, lon: number, extra: Partial<SiteDraft>): SiteDraft {
   return {
     site: { code, name, role, lat: round(lat, 6), lon: round(lon, 6) },
-    role, parent: -1, depth: 0, tree: -1, bearingBackDeg: 0, services: [], families: [], children: 0, gridX: 0, gridY: 0,
+    role, parent: -1, depth: 0, tree: -1, bearingBackDeg: 0, services: [], families: [], children: 0, reachKm: 0, gridX: 0, gridY: 0,
     ...extra,
   };
 }
@@ -146,6 +168,10 @@ export function layoutSites(prng: Prng, counts: Counts): Layout {
     const first = SERVICE_SPECS.findIndex((s) => s.kind === 'dtt');
     const a = addRelay(prng, sites, main, `R${pad(++relayNumber, width)}`, [first]);
     const b = addRelay(prng, sites, a, `R${pad(++relayNumber, width)}`, [first]);
+    // In the loop, a receives from b as well: b must reach back.
+    const sa = sites[a].site;
+    const sb = sites[b].site;
+    sites[b].reachKm = Math.max(sites[b].reachKm, bearingTo(sb.lat, sb.lon, sa.lat, sa.lon).distanceKm);
     relays.push(a, b);
     loopPairs.push([a, b]);
   }
@@ -154,15 +180,32 @@ export function layoutSites(prng: Prng, counts: Counts): Layout {
 
 function addRelay(prng: Prng, sites: SiteDraft[], parent: number, code: string, services: number[]): number {
   const from = sites[parent];
-  const placed = placeFrom(from.site.lat, from.site.lon, prng.between(0, 360), prng.between(5, 60));
+  const bearing = prng.between(0, 360);
+  let km = prng.between(MIN_RELAY_KM, MAX_RELAY_KM);
+  const name = siteName(prng, 'relay');
+  const lift = prng.between(0, 250);
+  const mast = prng.int(15, 60);
+  const households = Math.round(prng.logBetween(100, 20000) / (from.depth + 1) / 10) * 10;
+  const parentAntennaAsl = (from.site.groundHeightM ?? 0) + lowestAntennaM(from.site.mastHeightM ?? 0);
+  // Pull the relay toward its parent until the path is inside the horizon (the ground moves with it).
+  let placed = placeFrom(from.site.lat, from.site.lon, bearing, km);
+  let ground = Math.round(terrainM(placed.lat, placed.lon) + lift);
+  for (let tries = 0; tries < 8; tries++) {
+    const limit = HORIZON_USE * pathHorizonKm(parentAntennaAsl, ground + lowestAntennaM(mast));
+    if (km <= limit || km <= MIN_RELAY_KM) break;
+    km = Math.max(MIN_RELAY_KM, Math.min(km * 0.85, limit));
+    placed = placeFrom(from.site.lat, from.site.lon, bearing, km);
+    ground = Math.round(terrainM(placed.lat, placed.lon) + lift);
+  }
   const index = sites.length;
-  const relay = draft(code, 'relay', siteName(prng, 'relay'), placed.lat, placed.lon, {
+  const relay = draft(code, 'relay', name, placed.lat, placed.lon, {
     parent, depth: from.depth + 1, tree: from.tree, bearingBackDeg: placed.bearingBackDeg, services,
   });
-  relay.site.groundHeightM = Math.round(terrainM(relay.site.lat, relay.site.lon) + prng.between(0, 250));
-  relay.site.mastHeightM = prng.int(15, 60);
-  relay.site.households = Math.round(prng.logBetween(100, 20000) / (from.depth + 1) / 10) * 10;
+  relay.site.groundHeightM = ground;
+  relay.site.mastHeightM = mast;
+  relay.site.households = households;
   from.children++;
+  from.reachKm = Math.max(from.reachKm, km);
   sites.push(relay);
   return index;
 }

@@ -8,7 +8,7 @@ import type { Prng } from './prng';
 const ONSETS = ['b', 'br', 'c', 'cr', 'd', 'dr', 'f', 'g', 'gr', 'h', 'k', 'l', 'm', 'n', 'p', 'qu', 'r', 's', 'st', 't', 'tr', 'v', 'w', 'z'];
 const VOWELS = ['a', 'e', 'i', 'o', 'u', 'ae', 'ei', 'ou'];
 const CODAS = ['', '', 'l', 'n', 'r', 'rr', 's', 'th', 'v', 'ck', 'nn', 'sk'];
-const ORIGIN_WORDS = ['Playout Centre', 'Broadcast House', 'Studio Centre', 'Uplink'];
+const ORIGIN_WORDS = ['Playout Centre', 'Playout Hub', 'Studio Block', 'Uplink'];
 const MAIN_WORDS = ['Beacon', 'Summit', 'Height', 'Down', 'Tor'];
 const RELAY_WORDS = ['Knoll', 'Gap', 'Cross', 'Bank', 'Rigg', 'Hollow', 'Side', 'End', 'Top', 'Point'];
 

@@ -4,14 +4,19 @@
  * dragging, zoom with the wheel, a pinch, or the buttons; tap a site to
  * choose it. Only what is on screen is drawn, in a dozen paths in all
  * (./diagramPaths.ts), so a network of thousands of sites stays smooth.
+ * Main and reserve feeds differ by line at every density (a single line and
+ * a double line); a distance scale, true at the centre, follows the zoom.
  */
 import { memo, useEffect, useMemo, useRef, useState } from 'react';
-import { PanResponder, Platform, StyleSheet, View, type GestureResponderEvent, type ViewStyle } from 'react-native';
+import { PanResponder, Platform, StyleSheet, Text, View, type GestureResponderEvent, type ViewStyle } from 'react-native';
+import type { GeoProjection } from 'd3-geo';
 import Svg, { Circle, G, Path, Rect, Text as SvgText } from 'react-native-svg';
 import { feedStrokes, MEDIUM_ORDER, ROLE_ORDER } from '@/src/components/charts/feedStyle';
-import { colors, fonts } from '@/src/theme';
+import { colors, fonts, space, type } from '@/src/theme';
 import type { DiagramModel, PlacedDiagram, SiteStatus } from './diagramModel';
 import { crossShape, halfShape, linkPaths, ringShape, siteShape } from './diagramPaths';
+import { plainStrokes } from './denseLines';
+import { scaleBar } from './scaleBar';
 import { cullPoints, cullSegments, gestureTransform, nearestPoint, panBy, showLabels, showPatterns, visibleWorld, zoomAt, type View as ViewT } from './viewport';
 
 export interface DrawnCounts {
@@ -36,6 +41,8 @@ export interface NetworkDiagramProps {
   onDrawn: (counts: DrawnCounts, inView: number[]) => void;
   /** Land outline in diagram px at zoom 1 (optional). */
   land?: string | null;
+  /** The projection that placed the sites: gives the distance scale. */
+  projection?: GeoProjection | null;
   summary: string;
 }
 
@@ -43,7 +50,7 @@ const SITE_R = { origin: 5, main: 5, relay: 3.5 } as const;
 const TAP_SLOP = 6;
 const TAP_RADIUS = 22;
 
-function Drawing({ model, placed, width, height, view, statuses, selected, land, onDrawn }: Omit<NetworkDiagramProps, 'onView' | 'onSelect' | 'summary'>) {
+function Drawing({ model, placed, width, height, view, statuses, selected, land, onDrawn }: Omit<NetworkDiagramProps, 'onView' | 'onSelect' | 'summary' | 'projection'>) {
   const { xs, ys, linkFrom, linkTo } = placed;
   const drawn = useMemo(() => {
     // Drawn a third of the box beyond each edge, so a pan shows content before the redraw.
@@ -85,12 +92,12 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
   return (
     <Svg width={width} height={height} aria-hidden accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
       <Rect x={0} y={0} width={width} height={height} fill={colors.surface} />
-      {land ? <Path d={land} transform={`translate(${view.tx} ${view.ty}) scale(${view.k})`} fill={colors.sunken} stroke="none" /> : null}
+      {land ? <Path d={land} transform={`translate(${view.tx} ${view.ty}) scale(${view.k})`} fill={colors.sunken} stroke={colors.line} strokeWidth={1} vectorEffect="non-scaling-stroke" testID="network-land" /> : null}
       {ROLE_ORDER.flatMap((role) =>
         MEDIUM_ORDER.map((medium) => {
           const d = drawn.paths.get(`${medium}|${role}`);
           if (!d) return null;
-          if (!drawn.patterns) return <Path key={`${medium}|${role}`} d={d} stroke={role === 'main' ? colors.ink : colors.accent} strokeWidth={role === 'main' ? 1 : 0.8} fill="none" />;
+          if (!drawn.patterns) return plainStrokes(role).map((l, i) => <Path key={`${medium}|${role}|${i}`} d={d} stroke={l.stroke} strokeWidth={l.width} fill="none" />);
           return feedStrokes(medium, role, 0.8).map((l, i) => <Path key={`${medium}|${role}|${i}`} d={d} stroke={l.stroke} strokeWidth={l.width} strokeDasharray={l.dash} fill="none" />);
         }),
       )}
@@ -244,6 +251,7 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
   }, []); // eslint-disable-line react-hooks/exhaustive-deps
 
   const t = live ? gestureTransform(view, live) : null;
+  const scale = props.projection ? scaleBar(props.projection, live ?? view, width, height, Math.min(140, width / 3)) : null;
   return (
     <View
       ref={box}
@@ -259,11 +267,17 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
       </View>
       {/* Presses land on this plain view: the responder system does not see through SVG elements on the web. */}
       <View style={StyleSheet.absoluteFill} />
+      {scale ? (
+        <View style={styles.scale} pointerEvents="none" testID="network-scale" accessibilityLabel={`Scale: the bar is ${scale.label}`}>
+          <View style={[styles.scaleBar, { width: Math.round(scale.px) }]} />
+          <Text style={styles.scaleText}>{scale.label}</Text>
+        </View>
+      ) : null}
     </View>
   );
 }
 
-function drawingProps({ onView: _v, onSelect: _s, summary: _m, ...rest }: NetworkDiagramProps) {
+function drawingProps({ onView: _v, onSelect: _s, summary: _m, projection: _p, ...rest }: NetworkDiagramProps) {
   return rest;
 }
 
@@ -275,4 +289,8 @@ const webLayer = Platform.OS === 'web' ? ({ willChange: 'transform' } as unknown
 const styles = StyleSheet.create({
   box: { overflow: 'hidden', borderRadius: 8 },
   moving: { transformOrigin: 'top left' },
+  scale: { position: 'absolute', left: space.sm, bottom: space.sm, paddingHorizontal: space.xs, paddingVertical: 2, borderRadius: 4, backgroundColor: 'rgba(255,255,255,0.85)' },
+  // A bar with end ticks: a bottom edge and two short sides.
+  scaleBar: { height: 6, borderColor: colors.ink, borderBottomWidth: 2, borderLeftWidth: 2, borderRightWidth: 2 },
+  scaleText: { ...type.small, color: colors.ink, fontFamily: fonts.text, marginTop: 2, paddingLeft: 4 },
 });

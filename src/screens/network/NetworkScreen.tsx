@@ -6,8 +6,6 @@
 import { useRouter } from 'expo-router';
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
-import type { Topology } from 'topojson-specification';
-import land110 from 'world-atlas/land-110m.json';
 import { useReach } from '@/src/api/queries/analysis';
 import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
 import { Button } from '@/src/components/Button';
@@ -22,7 +20,7 @@ import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { colors, space, type } from '@/src/theme';
 import { buildDiagram, placeDiagram, siteStatuses } from './diagramModel';
 import { DIAGRAM_MARKS } from './diagramMarks';
-import { landPath, LAND_SOURCE } from './landOutline';
+import { DEMO_COAST_CORNERS, LAND_CREDIT, landGeometry, landKindFor, landPath } from './landOutline';
 import { NetworkDiagram, type DrawnCounts } from './NetworkDiagram';
 import { networkHref } from './networkHref';
 import { fitProjection } from './projection';
@@ -30,6 +28,8 @@ import { ServiceFilter } from './ServiceFilter';
 import { SitesInView } from './SitesInView';
 import { SiteCard } from './SiteCard';
 import { IDENTITY, zoomAt, type View as ViewT } from './viewport';
+
+const NO_PLACES: readonly { code: string; lat: number; lon: number }[] = [];
 
 export function NetworkScreen({ service, failParam }: { service: string | null; failParam: string | string[] | undefined }) {
   const router = useRouter();
@@ -50,18 +50,19 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   const [view, setView] = useState<ViewT>(IDENTITY);
   const [selected, setSelected] = useState<number | null>(null);
   const [legend, setLegend] = useState(false);
-  const [showLand, setShowLand] = useState(false);
+  const [showLand, setShowLand] = useState(true);
   const [drawn, setDrawn] = useState<{ counts: DrawnCounts; inView: number[] }>({ counts: { sites: 0, links: 0, labels: false, patterns: true }, inView: [] });
 
   const knownService = !service || !drawing.data || drawing.data.services.some((s) => s.code === service);
   const model = useMemo(() => (drawing.data ? buildDiagram(drawing.data, knownService ? service : null) : null), [drawing.data, service, knownService]);
-  const placed = useMemo(() => (model && width > 0 ? placeDiagram(model, width, height) : null), [model, width, height]);
+  const landKind = useMemo(() => landKindFor(model?.sites ?? []), [model]);
+  // On the demo island the fit takes in the whole coast, so the picture shows the island entire.
+  const alsoShow = landKind === 'demo' ? DEMO_COAST_CORNERS : NO_PLACES;
+  const placed = useMemo(() => (model && width > 0 ? placeDiagram(model, width, height, 28, alsoShow) : null), [model, width, height, alsoShow]);
   const statuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, service), [reach.data, service, failed.length]);
-  const land = useMemo(() => {
-    if (!showLand || !model || width === 0) return null;
-    const fit = fitProjection(model.sites, width, height, 28);
-    return fit ? landPath(land110 as unknown as Topology, fit.projection, width, height) : null;
-  }, [showLand, model, width, height]);
+  // The same fit as placeDiagram's: the land and the scale line up with the sites.
+  const fit = useMemo(() => (model && width > 0 && model.sites.length > 0 ? fitProjection([...model.sites, ...alsoShow], width, height, 28) : null), [model, width, height, alsoShow]);
+  const land = useMemo(() => (showLand && fit ? landPath(landGeometry(landKind), fit.projection, width, height) : null), [showLand, fit, landKind, width, height]);
 
   // A new network or filter starts from the whole picture. (Not a new box
   // width: a scrollbar coming or going must not throw away the person's view.)
@@ -77,7 +78,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   for (const st of statuses.values()) statusCounts = st === 'off-air' ? { ...statusCounts, off: statusCounts.off + 1 } : { ...statusCounts, reserve: statusCounts.reserve + 1 };
 
   const summary = model
-    ? `${formatCount(drawn.counts.sites)} of ${countOf(model.sites.length, 'site')} and ${formatCount(drawn.counts.links)} of ${countOf(model.links.length, 'feed line')} in view (${countOf(model.feedCount, 'feed')}).${drawn.counts.labels ? '' : ' Zoom in to read site names.'}${drawn.counts.patterns ? '' : ' Lines are plain (main dark, reserve in the accent colour) until fewer are in view; zoom in to see each medium’s pattern.'}${failed.length > 0 ? ` Failure set: ${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve.` : ''}`
+    ? `${formatCount(drawn.counts.sites)} of ${countOf(model.sites.length, 'site')} and ${formatCount(drawn.counts.links)} of ${countOf(model.links.length, 'feed line')} in view (${countOf(model.feedCount, 'feed')}).${drawn.counts.labels ? '' : ' Zoom in to read site names.'}${drawn.counts.patterns ? '' : ' Lines are drawn without their medium’s pattern until fewer are in view (main still a single line, reserve a double line); zoom in to see each medium’s pattern.'}${failed.length > 0 ? ` Failure set: ${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve.` : ''}`
     : '';
 
   let body: React.ReactNode;
@@ -111,6 +112,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
               onSelect={setSelected}
               onDrawn={onDrawn}
               land={land}
+              projection={fit?.projection ?? null}
               summary={summary}
             />
           ) : (
@@ -120,8 +122,8 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
         <Text style={styles.summary} accessibilityLiveRegion="polite" testID="network-summary">
           {summary}
         </Text>
-        {showLand ? <Text style={styles.small}>{`Land: ${LAND_SOURCE}.${land === '' ? ' None of it falls within this area.' : ''}`}</Text> : null}
-        <Text style={styles.small}>Drag to move, wheel or pinch to zoom, tap a site for its summary.</Text>
+        {showLand ? <Text style={styles.small} testID="network-land-credit">{`Land: ${LAND_CREDIT[landKind]}.${land === '' ? ' None of it falls within this area.' : ''}`}</Text> : null}
+        <Text style={styles.small}>Drag to move, wheel or pinch to zoom, tap a site for its summary. The scale bar is true at the centre of the view (the map stretches away from the equator).</Text>
         <Columns max={2}>
           {site ? <SiteCard site={site} status={statuses.get(site.code)} failed={failed} onClose={() => setSelected(null)} /> : null}
           {legend ? <FeedLegend marks={DIAGRAM_MARKS} testID="network-legend" /> : null}

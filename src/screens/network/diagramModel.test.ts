@@ -73,6 +73,21 @@ describe('placeDiagram', () => {
     expect(Array.from(p.linkFrom)).toEqual([0, 0, 1]);
     expect(Array.from(p.linkTo)).toEqual([1, 1, 2]);
   });
+
+  it('keeps further places in the box too when asked (the demo island), drawing the sites smaller', () => {
+    const m = buildDiagram(doc, null);
+    const plain = placeDiagram(m, 390, 500, 20);
+    const lats = m.sites.map((s) => s.lat);
+    const lons = m.sites.map((s) => s.lon);
+    const far = [{ code: 'corner', lat: Math.min(...lats) - 1, lon: Math.max(...lons) + 1 }];
+    const wider = placeDiagram(m, 390, 500, 20, far);
+    const spread = (xs: Float64Array) => Math.max(...xs) - Math.min(...xs);
+    expect(spread(wider.ys)).toBeLessThan(spread(plain.ys));
+    for (let i = 0; i < m.sites.length; i++) {
+      expect(wider.xs[i]).toBeGreaterThanOrEqual(20 - 1e-9);
+      expect(wider.ys[i]).toBeLessThanOrEqual(480 + 1e-9);
+    }
+  });
 });
 
 describe('siteStatuses', () => {

@@ -8,7 +8,7 @@
 import type { FeedRole, Medium, SiteRole } from '@/shared/schemas/network';
 import type { NetworkDrawing } from '@/src/api/schemas';
 import type { ReachResult } from '@/src/api/queries/analysis';
-import { fitProjection } from './projection';
+import { fitProjection, type LonLat } from './projection';
 
 export interface DiagramSite {
   code: string;
@@ -105,8 +105,9 @@ export interface PlacedDiagram {
 }
 
 /** Diagram px of every site and the end indices of every link, for a box of width x height. */
-export function placeDiagram(model: DiagramModel, width: number, height: number, pad = 28): PlacedDiagram {
-  const fit = fitProjection(model.sites, width, height, pad);
+/** Places the sites; `alsoShow` are further places the fit keeps in the box (the demo island's corners). */
+export function placeDiagram(model: DiagramModel, width: number, height: number, pad = 28, alsoShow: readonly LonLat[] = []): PlacedDiagram {
+  const fit = fitProjection(alsoShow.length > 0 && model.sites.length > 0 ? [...model.sites, ...alsoShow] : model.sites, width, height, pad);
   const xs = new Float64Array(model.sites.length);
   const ys = new Float64Array(model.sites.length);
   if (fit) {

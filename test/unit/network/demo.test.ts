@@ -11,6 +11,9 @@ import { tryParseChannel } from '@/shared/rf/bands';
 import { validateDocument } from '@/server/network/validate';
 import { demoFixtureText } from '@/scripts/generator/demo';
 import * as region from '@/scripts/generator/demo-region';
+import * as turf from '@turf/turf';
+import type { Feature, MultiPolygon } from 'geojson';
+import demoCoast from '@/assets/demo/demo-coast.json';
 
 const FIXTURE = path.resolve(__dirname, '..', '..', 'fixtures', 'demo-network.json');
 const text = fs.readFileSync(FIXTURE, 'utf8');
@@ -130,5 +133,29 @@ describe('demo network fixture', () => {
       if (s.role !== 'origin') expect(s.households, s.code).toBeGreaterThan(0);
     }
     expect(new Set(doc.sites.map((s) => s.name)).size).toBe(doc.sites.length);
+  });
+});
+
+/** Naming patterns of well-known public broadcasters, retired from the demo and generated data. */
+const ECHOING_NAMES = [/radio house/i, /broadcast house/i, /\bprogram(me)? (one|two|three|four|[1-4])\b/i, /\b(one|two|three|four)$/i];
+
+describe('demo names', () => {
+  it('echo no broadcaster: no "... Radio House", "Broadcast House" or numbered programmes', () => {
+    const names = [...doc.sites.map((s) => s.name), ...doc.services.map((s) => s.name)];
+    for (const name of names) for (const pattern of ECHOING_NAMES) expect(name, `${name} matches ${String(pattern)}`).not.toMatch(pattern);
+  });
+});
+
+describe('demo land (assets/demo/demo-coast.json)', () => {
+  const land = (demoCoast as unknown as { features: Feature<MultiPolygon>[] }).features[0];
+  const coastLines = land.geometry.coordinates.map((polygon) => turf.lineString(polygon[0]));
+
+  it('holds every demo site (turf booleanPointInPolygon), at least 5 km inland', () => {
+    for (const s of doc.sites) {
+      const at = turf.point([s.lon, s.lat]);
+      expect(turf.booleanPointInPolygon(at, land), `${s.code} ${s.name} is over the sea`).toBe(true);
+      const inland = Math.min(...coastLines.map((line) => turf.pointToLineDistance(at, line, { units: 'kilometers' })));
+      expect(inland, `${s.code} is ${inland.toFixed(1)} km from the coast`).toBeGreaterThanOrEqual(5);
+    }
   });
 });
