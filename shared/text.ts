@@ -5,6 +5,7 @@
  * input guard. The pattern is linear: each alternative looks at most one
  * character ahead or behind.
  */
+// eslint-disable-next-line no-control-regex -- NUL is exactly what this pattern finds
 const UNSTORABLE = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
 export const UNSTORABLE_TEXT_MESSAGE = 'must not hold NUL characters or broken (lone surrogate) characters';

@@ -48,7 +48,9 @@ export const toInfo = (r: DocumentRow): DocumentInfo => ({
 
 /** A file name safe to show and to put in a header: no folders, no control characters. */
 export function cleanName(raw: string): string {
-  const base = path.basename(raw.replace(/\\/g, '/')).replace(/[\u0000-\u001f\u007f]/g, '').trim();
+  const base = path.basename(raw.replace(/\\/g, '/'))
+    // eslint-disable-next-line no-control-regex -- removing control characters is the point of this pattern
+    .replace(/[\u0000-\u001f\u007f]/g, '').trim();
   return (base || 'document').slice(0, 255);
 }
 
