@@ -76,7 +76,7 @@ export const feedSchema = z.strictObject({
   rxFrequencyMHz: opt(z.number().finite().positive('receive frequency must be above 0 MHz')),
   rxChannel: opt(z.string().trim().min(1).max(16)),
   rxAntenna: opt(z.string().max(200)),
-  bearingDeg: opt(z.number().finite().min(0, 'bearing is 0-360 deg').max(360, 'bearing is 0-360 deg')),
+  bearingDeg: opt(z.number().finite().min(0, 'bearing is 0-360°').max(360, 'bearing is 0-360°')),
 });
 
 export const NETWORK_FORMAT = 'network/1' as const;

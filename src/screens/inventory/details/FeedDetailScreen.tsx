@@ -8,7 +8,7 @@ import { StyleSheet, View } from 'react-native';
 import { Section } from '@/src/components/layout/Section';
 import { FeedChecksPanel } from '@/src/screens/checks/FeedChecksPanel';
 import { space } from '@/src/theme';
-import { figure, whenText, withUnit } from '../format';
+import { figure, whenText, withUnit } from '@/shared/format';
 import { detailHref } from '../kinds';
 import { CodeLink } from '../parts/CodeLink';
 import { FieldList } from '../parts/FieldList';

@@ -9,7 +9,7 @@ import { Columns } from '@/src/components/layout/Columns';
 import { Section } from '@/src/components/layout/Section';
 import { MastCautions } from '@/src/screens/checks/MastCautions';
 import { space } from '@/src/theme';
-import { householdsText, positionText, whenText, withUnit } from '../format';
+import { householdsText, positionText, whenText, withUnit } from '@/shared/format';
 import { filteredListHref } from '../listQuery';
 import { FieldList } from '../parts/FieldList';
 import { LinkButton } from '../parts/LinkButton';
