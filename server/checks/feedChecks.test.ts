@@ -79,7 +79,7 @@ describe('field-strength (off-air)', () => {
     const c = get(a, 'field-strength');
     expect(c.value).toBeCloseTo(76.9 - 20 * Math.log10(30), 2);
     expect(c.ok).toBe(false);
-    expect(a.warnings.some((w) => /F-OX.*field strength 47\.4 dBuV\/m.*6\.6 dB below.*54\.0/.test(w))).toBe(true);
+    expect(a.warnings.some((w) => /F-OX.*field strength 47\.4 dBµV\/m.*6\.6 dB below.*54\.0/.test(w))).toBe(true);
   });
   // GE06 RPC1 [M]: 56 at 650 MHz + 20 log(618/650) for channel 39.
   it('DTT on channel 39 uses the fixed rooftop minimum corrected to 618 MHz, marked recalled', () => {
@@ -166,7 +166,7 @@ describe('channel-clash', () => {
 });
 
 describe('bearing-record', () => {
-  it('passes when the recorded bearing matches; fails 60 deg off, with a warning', () => {
+  it('passes when the recorded bearing matches; fails 60° off, with a warning', () => {
     const s = scenario({ az: 40 });
     const ok = computeFeedChecks({ ...s, feed: { ...s.feed, bearingDeg: s.expectedBearingDeg + 2 } });
     expect(get(ok, 'bearing-record').ok).toBe(true);
@@ -175,7 +175,7 @@ describe('bearing-record', () => {
     expect(c.value).toBeCloseTo(60, 2);
     expect(c.limit).toBe(5);
     expect(c.ok).toBe(false);
-    expect(off.warnings.some((w) => w.includes('60.0 deg off'))).toBe(true);
+    expect(off.warnings.some((w) => w.includes('60.0° off'))).toBe(true);
   });
   it('compares across north: computed ~358, recorded 2 passes', () => {
     // Relay due south of the parent, a little east: bearing back to the parent is just west of north.

@@ -148,7 +148,7 @@ function bearingRecord(ctx: Ctx): FeedCheck {
     'deg',
     diff,
     diff <= BEARING_TOLERANCE_DEG,
-    `recorded ${fmt(feed.bearingDeg)} deg, computed ${fmt(ctx.bearingDeg)} deg from the receiving site to the parent (WGS84)`,
+    `recorded ${fmt(feed.bearingDeg)}°, computed ${fmt(ctx.bearingDeg)}° from the receiving site to the parent (WGS84)`,
     BEARING_TOLERANCE_DEG,
   );
 }

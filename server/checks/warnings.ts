@@ -7,7 +7,7 @@ export function failureSentence(feed: string, c: FeedCheck): string {
   switch (c.name) {
     case 'field-strength':
       if (c.value === null) return `Feed ${feed}: no usable field strength: ${c.note}.`;
-      return `Feed ${feed}: free-space field strength ${n(c.value)} dBuV/m is ${n((c.limit ?? 0) - c.value)} dB below the planning minimum of ${n(c.limit)} dBuV/m; even in free space the off-air feed is too weak.`;
+      return `Feed ${feed}: free-space field strength ${n(c.value)} dBµV/m is ${n((c.limit ?? 0) - c.value)} dB below the planning minimum of ${n(c.limit)} dBµV/m; even in free space the off-air feed is too weak.`;
     case 'horizon':
       return `Feed ${feed}: the path is ${n(c.value)} km long, beyond the ${n(c.limit)} km radio horizon of the two antennas (k = 4/3, smooth earth); there is no line of sight.`;
     case 'clearance':
@@ -15,7 +15,7 @@ export function failureSentence(feed: string, c: FeedCheck): string {
     case 'channel-clash':
       return `Feed ${feed}: the relay receives and transmits on overlapping channels (${n(c.value, 3)} MHz apart) and is not declared an on-channel repeater.`;
     case 'bearing-record':
-      return `Feed ${feed}: the recorded receive bearing is ${n(c.value)} deg off the computed bearing to the parent (more than ${n(c.limit, 0)} deg); check the record or the antenna.`;
+      return `Feed ${feed}: the recorded receive bearing is ${n(c.value)}° off the computed bearing to the parent (more than ${n(c.limit, 0)}°); check the record or the antenna.`;
     default:
       return `Feed ${feed}: check ${c.name} failed: ${c.note}.`;
   }

@@ -86,7 +86,7 @@ export function dvbtMinimum(frequencyMHz: number, rpc: DvbtRpc = 'RPC1'): Minimu
     ok: true,
     minimum: {
       valueDbUvPerM: base + row.correctionFactor * Math.log10(frequencyMHz / fr),
-      reception: `DVB-T ${rpc}, ${row.reception}, ${base} dB(uV/m) at ${fr} MHz corrected by ${row.correctionFactor} log(f/${fr})`,
+      reception: `DVB-T ${rpc}, ${row.reception}, ${base} dBµV/m at ${fr} MHz corrected by ${row.correctionFactor} log(f/${fr})`,
       confidence: 'recalled',
       source: 'GE06 Final Acts, Annex 2 ch. 3',
     },

@@ -86,7 +86,7 @@ export const feedSchema = z.strictObject({
   rxFrequencyMHz: opt(z.number().finite().positive('receive frequency must be above 0 MHz')),
   rxChannel: opt(storable(z.string().trim().min(1).max(16))),
   rxAntenna: opt(storable(z.string().max(200))),
-  bearingDeg: opt(z.number().finite().min(0, 'bearing is 0-360 deg').max(360, 'bearing is 0-360 deg')),
+  bearingDeg: opt(z.number().finite().min(0, 'bearing is 0-360°').max(360, 'bearing is 0-360°')),
 });
 
 export const NETWORK_FORMAT = 'network/1' as const;

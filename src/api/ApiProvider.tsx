@@ -12,33 +12,38 @@
  * in-flight request SWR would otherwise reuse for up to its deduping
  * interval) reaches the next person on the same device.
  */
-import { createContext, useCallback, useContext, useMemo, type ReactNode } from 'react';
+import { createContext, useContext, useMemo, type ReactNode } from 'react';
 import { SWRConfig, type SWRConfiguration } from 'swr';
 import { useSession } from '@/src/session/SessionProvider';
-import { isApiError, request, type RequestOptions } from './client';
+import { isApiError, request, requestRaw, type RawRequestOptions, type RequestOptions } from './client';
 import { retryable } from './retry';
 
 export type Send = (path: string, options?: Omit<RequestOptions, 'token'>) => Promise<unknown>;
+/** The same, for uploads and downloads: resolves with the Response (client.ts requestRaw). */
+export type SendRaw = (path: string, options?: Omit<RawRequestOptions, 'token'>) => Promise<Response>;
 
-const SendContext = createContext<Send | null>(null);
+const SendContext = createContext<{ send: Send; sendRaw: SendRaw } | null>(null);
 
 export function ApiProvider({ children }: { children: ReactNode }) {
   const { tokenRef, signOut } = useSession();
 
-  const send = useCallback<Send>(
-    async (path, options = {}) => {
+  const value = useMemo(() => {
+    /** Runs one call with the current token; a 401 for that token ends the session. */
+    async function withSession<T>(call: (token: string | null) => Promise<T>): Promise<T> {
       const token = tokenRef.current;
       try {
-        return await request(path, { ...options, token });
+        return await call(token);
       } catch (e) {
         if (isApiError(e) && e.status === 401 && token && token === tokenRef.current) signOut('expired');
         throw e;
       }
-    },
-    [tokenRef, signOut],
-  );
+    }
+    const send: Send = (path, options = {}) => withSession((token) => request(path, { ...options, token }));
+    const sendRaw: SendRaw = (path, options = {}) => withSession((token) => requestRaw(path, { ...options, token }));
+    return { send, sendRaw };
+  }, [tokenRef, signOut]);
 
-  return <SendContext.Provider value={send}>{children}</SendContext.Provider>;
+  return <SendContext.Provider value={value}>{children}</SendContext.Provider>;
 }
 
 export function SessionCache({ children }: { children: ReactNode }) {
@@ -55,8 +60,17 @@ export function SessionCache({ children }: { children: ReactNode }) {
   return <SWRConfig value={config}>{children}</SWRConfig>;
 }
 
+function useSendContext() {
+  const value = useContext(SendContext);
+  if (!value) throw new Error('useSend must be used inside <ApiProvider> (app/_layout.tsx)');
+  return value;
+}
+
 export function useSend(): Send {
-  const send = useContext(SendContext);
-  if (!send) throw new Error('useSend must be used inside <ApiProvider> (app/_layout.tsx)');
-  return send;
+  return useSendContext().send;
+}
+
+/** For uploads and downloads; the same token, errors and 401 handling as useSend. */
+export function useSendRaw(): SendRaw {
+  return useSendContext().sendRaw;
 }

@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { z } from 'zod';
-import { ApiError, parseAnswer, request } from './client';
+import { ApiError, parseAnswer, request, requestRaw } from './client';
 
 function answer(status: number, body: string, statusText = '') {
   return vi.fn(async (_url: string, _init?: RequestInit) => new Response(body, { status, statusText }));
@@ -74,5 +74,35 @@ describe('parseAnswer', () => {
     expect(() => parseAnswer(schema, '/api/network/summary', { counts: { sites: 'three' } })).toThrow(
       /answer to \/api\/network\/summary was not understood at counts\.sites/,
     );
+  });
+});
+
+describe('requestRaw (uploads and downloads)', () => {
+  it('sends a form as it is, with the token, and reads a listed status as an answer', async () => {
+    const fetchMock = answer(422, '{"ok":false,"errors":[{"message":"x"}]}');
+    vi.stubGlobal('fetch', fetchMock);
+    const form = new FormData();
+    form.append('file', new Blob(['code,name,kind\n']), 'services.csv');
+    const res = await requestRaw('/api/network/import?dryRun=true', { method: 'POST', body: form, token: 'abc', answers: [422] });
+    expect(res.status).toBe(422);
+    expect(await res.json()).toEqual({ ok: false, errors: [{ message: 'x' }] });
+    const [, init] = fetchMock.mock.calls[0];
+    expect(init?.body).toBe(form);
+    const headers = init?.headers as Record<string, string>;
+    expect(headers.Authorization).toBe('Bearer abc');
+    // the browser sets the multipart boundary itself
+    expect(headers['Content-Type']).toBeUndefined();
+  });
+
+  it('fails on other statuses with the error the body names, like request', async () => {
+    vi.stubGlobal('fetch', answer(401, '{"error":{"code":"unauthenticated","message":"sign in first"}}'));
+    const err = await requestRaw('/api/network/export', { accept: 'application/zip' }).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(ApiError);
+    expect(err).toMatchObject({ status: 401, code: 'unauthenticated', message: 'sign in first' });
+  });
+
+  it('says the server cannot be reached when fetch itself fails', async () => {
+    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    await expect(requestRaw('/api/network/export')).rejects.toMatchObject({ status: 0, code: 'network' });
   });
 });

@@ -59,30 +59,52 @@ async function readJson(res: Response): Promise<{ ok: true; value: unknown } | {
   }
 }
 
-/** Sends one request and resolves with the parsed JSON body (undefined for an empty body). */
-export async function request(path: string, options: RequestOptions = {}): Promise<unknown> {
+export interface RawRequestOptions extends Omit<RequestOptions, 'body'> {
+  /** Sent as it is: a FormData upload, or JSON text with `contentType`. */
+  body?: BodyInit;
+  contentType?: string;
+  /** The Accept header; JSON unless said otherwise (a zip download). */
+  accept?: string;
+  /** Statuses that are answers rather than errors, such as an import's 422 report. */
+  answers?: readonly number[];
+}
+
+/**
+ * Sends one request and resolves with the Response itself, for answers that
+ * are files or uploads that are not JSON. Fails as `request` does: an ApiError
+ * read from the error body, or code "network" when the server cannot be reached.
+ */
+export async function requestRaw(path: string, options: RawRequestOptions = {}): Promise<Response> {
   if (!path.startsWith('/')) {
     throw new ApiError(0, 'bad_request', `API paths start with "/", got ${JSON.stringify(path)}`);
   }
-  const headers: Record<string, string> = { Accept: 'application/json' };
-  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+  const headers: Record<string, string> = { Accept: options.accept ?? 'application/json' };
+  if (options.contentType) headers['Content-Type'] = options.contentType;
   if (options.token) headers.Authorization = `Bearer ${options.token}`;
 
   let res: Response;
   try {
-    res = await fetch(path, {
-      method: options.method ?? 'GET',
-      headers,
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
-      signal: options.signal,
-    });
+    res = await fetch(path, { method: options.method ?? 'GET', headers, body: options.body, signal: options.signal });
   } catch (e) {
     if (e instanceof Error && e.name === 'AbortError') throw e;
     throw new ApiError(0, 'network', 'Could not reach the Headwater server. Check the connection and try again.');
   }
+  if (!res.ok && !options.answers?.includes(res.status)) {
+    const parsed = await readJson(res);
+    throw errorFromBody(res.status, res.statusText, parsed.ok ? parsed.value : undefined);
+  }
+  return res;
+}
 
+/** Sends one request and resolves with the parsed JSON body (undefined for an empty body). */
+export async function request(path: string, options: RequestOptions = {}): Promise<unknown> {
+  const { body, ...rest } = options;
+  const res = await requestRaw(path, {
+    ...rest,
+    body: body === undefined ? undefined : JSON.stringify(body),
+    contentType: body === undefined ? undefined : 'application/json',
+  });
   const parsed = await readJson(res);
-  if (!res.ok) throw errorFromBody(res.status, res.statusText, parsed.ok ? parsed.value : undefined);
   if (!parsed.ok) throw new ApiError(res.status, 'bad_response', `The server's answer to ${path} was not JSON.`);
   return parsed.value;
 }

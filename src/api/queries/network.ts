@@ -3,17 +3,17 @@
  * `file`, ?dryRun, ?replace) and export (GET /api/network/export, JSON or
  * ?format=csv for a zip), as in server/routes/network.ts.
  *
- * These bypass `send` (ApiProvider) because they are not JSON requests: an
- * upload is multipart, an export is a file. A 422 from the import is not a
- * failure here but the report listing the errors, so it is read as one.
- * A 401 for the current token ends the session, as `send` does.
+ * They go through `sendRaw` (ApiProvider), the same client as every other
+ * call with the same errors and 401 handling, because they are not JSON
+ * requests: an upload is multipart, an export is a file. A 422 from the
+ * import is not a failure here but the report listing the errors.
  */
 import { useMemo } from 'react';
 import { useSWRConfig } from 'swr';
 import { api } from '@/shared/api';
 import type { ImportReport } from '@/shared/schemas/import';
-import { useSession } from '@/src/session/SessionProvider';
-import { ApiError, parseAnswer } from '../client';
+import { useSendRaw } from '../ApiProvider';
+import { parseAnswer } from '../client';
 import { importReportSchema } from '../schemas';
 import { isNetworkKey } from './inventory';
 
@@ -53,34 +53,11 @@ export function attachmentName(header: string | null, fallback: string): string 
   return plain ? plain[1].trim() : fallback;
 }
 
-async function errorOf(res: Response): Promise<ApiError> {
-  try {
-    const body = (await res.json()) as { error?: { code?: unknown; message?: unknown; details?: unknown } };
-    const e = body?.error;
-    if (e && typeof e.code === 'string' && typeof e.message === 'string') return new ApiError(res.status, e.code, e.message, e.details);
-  } catch {
-    // not JSON: fall back to the status
-  }
-  return new ApiError(res.status, `http_${res.status}`, `The server answered ${res.status}${res.statusText ? ` ${res.statusText}` : ''}.`);
-}
-
 export function useNetworkTransfer() {
-  const { tokenRef, signOut } = useSession();
+  const sendRaw = useSendRaw();
   const { mutate } = useSWRConfig();
 
   return useMemo(() => {
-    async function call(path: string, init: RequestInit): Promise<Response> {
-      const token = tokenRef.current;
-      let res: Response;
-      try {
-        res = await fetch(path, { ...init, headers: { ...(init.headers as Record<string, string>), ...(token ? { Authorization: `Bearer ${token}` } : {}) } });
-      } catch {
-        throw new ApiError(0, 'network', 'Could not reach the Headwater server. Check the connection and try again.');
-      }
-      if (res.status === 401 && token && token === tokenRef.current) signOut('expired');
-      return res;
-    }
-
     return {
       /** Sends the files; resolves with the report, errors included (a 422 is a report too). */
       importFiles: async (files: readonly UploadFile[], options: ImportOptions): Promise<ImportReport> => {
@@ -92,20 +69,18 @@ export function useNetworkTransfer() {
           else form.append('file', f.part as unknown as Blob);
         }
         const path = importPath(options);
-        const res = await call(path, { method: 'POST', headers: { Accept: 'application/json' }, body: form });
-        if (res.status !== 200 && res.status !== 422) throw await errorOf(res);
+        const res = await sendRaw(path, { method: 'POST', body: form, answers: [422] });
         const report = parseAnswer(importReportSchema, path, await res.json()) as ImportReport;
         if (!options.dryRun && report.ok) await mutate(isNetworkKey);
         return report;
       },
       /** The network document (JSON) or the zip of its CSV files. */
       exportFile: async (format: 'json' | 'csv'): Promise<DownloadedFile> => {
-        const res = await call(exportPath(format), { headers: { Accept: format === 'csv' ? 'application/zip' : 'application/json' } });
-        if (!res.ok) throw await errorOf(res);
+        const res = await sendRaw(exportPath(format), { accept: format === 'csv' ? 'application/zip' : 'application/json' });
         const fallback = format === 'csv' ? 'network.zip' : 'network.json';
         return { name: attachmentName(res.headers.get('Content-Disposition'), fallback), blob: await res.blob() };
       },
     };
-  }, [tokenRef, signOut, mutate]);
+  }, [sendRaw, mutate]);
 }
 

@@ -11,7 +11,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import Svg, { Line, Rect, Text as SvgText } from 'react-native-svg';
 import { colors, fonts, space, type } from '@/src/theme';
 import { barScale, valuePlacement } from './barScale';
-import { formatCompact, formatCount } from './numbers';
+import { formatCompact, formatCount } from '@/shared/format';
 
 export interface BarRow {
   key: string;

@@ -10,7 +10,7 @@ import type { AuditItem } from '@/src/api/schemas';
 import { Badge, type Tone } from '@/src/components/Badge';
 import { Button } from '@/src/components/Button';
 import { colors, fonts, radius, space, type } from '@/src/theme';
-import { whenText } from '../inventory/format';
+import { whenText } from '@/shared/format';
 import { FORM_FIELDS } from '../inventory/forms/fields';
 import { detailHref, WORDS } from '../inventory/kinds';
 import { CodeLink } from '../inventory/parts/CodeLink';

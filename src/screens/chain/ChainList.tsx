@@ -8,7 +8,7 @@ import { Link } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { FeedSwatch } from '@/src/components/charts/FeedSwatch';
 import { feedWords } from '@/src/components/charts/feedStyle';
-import { formatKm } from '@/src/components/charts/numbers';
+import { formatKm } from '@/shared/format';
 import { StatusShape } from '@/src/components/StatusShape';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { nodeNotes, type ChainItem } from './chainLayout';

@@ -12,7 +12,7 @@
  */
 import { Circle, G, Path, Rect, Svg, Text as SvgText } from 'react-native-svg';
 import { feedStrokes, MEDIUM_LABEL } from '@/src/components/charts/feedStyle';
-import { formatKm } from '@/src/components/charts/numbers';
+import { formatKm } from '@/shared/format';
 import { colors, fonts } from '@/src/theme';
 import type { ChainLayout, LayoutSizes, PlacedLink, PlacedNode } from './chainLayout';
 

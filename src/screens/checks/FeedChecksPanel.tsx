@@ -14,7 +14,7 @@ import { colors, radius, space, type } from '@/src/theme';
 import { CheckRow } from './CheckRow';
 import { CHECK_SHORT, verdictOf } from './checkWords';
 import { FigureList } from './FigureList';
-import { formatBearing, formatFigure } from './figures';
+import { formatBearing, formatFigure } from '@/shared/format';
 import { MastCautions } from './MastCautions';
 import { ScreeningCaution } from './ScreeningCaution';
 

@@ -4,7 +4,7 @@
  * Status is said in words and shape first, colour second (docs/screens.md).
  */
 import { CONFIDENCE_WORDS, type CheckName, type CheckSeverity, type Confidence, type FeedCheck } from '@/shared/schemas/checks';
-import { formatFigure } from './figures';
+import { formatFigure } from '@/shared/format';
 
 /** A check's name as a person reads it. */
 export const CHECK_TITLES: Readonly<Record<CheckName, string>> = {

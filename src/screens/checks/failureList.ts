@@ -5,7 +5,7 @@
  */
 import { CHECK_NAMES, CHECK_SEVERITIES, type CheckFailure, type CheckName, type CheckSeverity } from '@/shared/schemas/checks';
 import { CHECK_SHORT } from './checkWords';
-import { formatFigure, formatMargin } from './figures';
+import { formatFigure, formatMargin } from '@/shared/format';
 
 export interface FailureFilter {
   /** The lowest severity listed: 'warning' lists errors and warnings, 'error' only errors. */

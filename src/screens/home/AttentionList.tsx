@@ -7,7 +7,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 import { useDiversity, useExposure, useUnfed } from '@/src/api/queries/analysis';
 import { Card } from '@/src/components/Card';
-import { countOf, formatCount } from '@/src/components/charts/numbers';
+import { countOf, formatCount } from '@/shared/format';
 import { Columns } from '@/src/components/layout/Columns';
 import { ErrorState, LoadingState } from '@/src/components/states';
 import { LinkRow } from '@/src/screens/reach/LinkRow';

@@ -7,6 +7,7 @@
  * document or the zip of its CSV files; every role may export, only
  * engineers and admins import.
  */
+import { formatBytes } from '@/shared/format';
 import { useRef, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import type { ImportReport } from '@/shared/schemas/import';
@@ -27,7 +28,7 @@ import { ReportView } from './ReportView';
 
 type Phase = 'idle' | 'checking' | 'committing';
 
-const sizeText = (bytes: number | null) => (bytes === null ? '' : bytes < 1024 ? `${bytes} B` : bytes < 1024 * 1024 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1024 / 1024).toFixed(1)} MB`);
+const sizeText = (bytes: number | null) => (bytes === null ? '' : formatBytes(bytes));
 
 export function ImportScreen() {
   const canEdit = useCanEdit();

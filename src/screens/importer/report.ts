@@ -4,6 +4,7 @@
  * order (kind in the document's order, then file, then row or index), and a
  * line of counts per kind.
  */
+import { countOf, formatCount } from '@/shared/format';
 import { ENTITY_KINDS, type EntityKind } from '@/shared/schemas/network';
 import type { ImportIssue, ImportReport, KindCounts } from '@/shared/schemas/import';
 
@@ -84,11 +85,11 @@ export function issueTotals(report: Pick<ImportReport, 'errors' | 'warnings' | '
 export function reportHeadline(report: ImportReport): string {
   const { errors: e, warnings: w } = issueTotals(report);
   const t = totals(report);
-  const plural = (n: number, word: string) => `${n.toLocaleString('en')} ${word}${n === 1 ? '' : 's'}`;
+  const plural = (n: number, word: string) => countOf(n, word);
   if (e > 0) {
     return `${plural(e, 'error')}${w ? ` and ${plural(w, 'warning')}` : ''}: nothing can be imported until the errors are fixed in the file.`;
   }
-  const changes = `${t.created.toLocaleString('en')} to create, ${t.updated.toLocaleString('en')} to update, ${t.deleted.toLocaleString('en')} to delete, ${t.unchanged.toLocaleString('en')} unchanged`;
+  const changes = `${formatCount(t.created)} to create, ${formatCount(t.updated)} to update, ${formatCount(t.deleted)} to delete, ${formatCount(t.unchanged)} unchanged`;
   if (report.dryRun) return `Check passed${w ? ` with ${plural(w, 'warning')}` : ''}: ${changes}.`;
   return `Imported${w ? ` with ${plural(w, 'warning')}` : ''}: ${changes.replace(/to create/, 'created').replace(/to update/, 'updated').replace(/to delete/, 'deleted')}.`;
 }

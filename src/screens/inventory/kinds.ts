@@ -4,6 +4,7 @@
  * offers. The sort and filter names are the server's whitelist
  * (GET /api/<kind>, server/routes/inventory.ts); anything else is a 400.
  */
+import { countOf as countWords } from '@/shared/format';
 import type { Href } from 'expo-router';
 import { FEED_ROLES, MEDIA, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
 
@@ -26,7 +27,7 @@ export const WORDS: Record<EntityKind, KindWords> = {
 
 /** "1 site", "3 sites" */
 export function countOf(kind: EntityKind, n: number): string {
-  return `${n.toLocaleString('en')} ${n === 1 ? WORDS[kind].one : WORDS[kind].many}`;
+  return countWords(n, WORDS[kind].one, WORDS[kind].many);
 }
 
 /** The route of a kind's list and of one record (codes are URL-escaped). */

@@ -6,6 +6,7 @@
  * into route params. Values the server would refuse (an unknown sort, a
  * filter value outside its list) are dropped here rather than sent.
  */
+import { formatCount } from '@/shared/format';
 import type { Href } from 'expo-router';
 import { api } from '@/shared/api';
 import type { EntityKind } from '@/shared/schemas/network';
@@ -111,5 +112,5 @@ export function rangeText(page: number, pageSize: number, total: number): string
   if (total === 0) return '0 of 0';
   const from = Math.min((page - 1) * pageSize + 1, total);
   const to = Math.min(page * pageSize, total);
-  return `${from.toLocaleString('en')}-${to.toLocaleString('en')} of ${total.toLocaleString('en')}`;
+  return `${formatCount(from)}-${formatCount(to)} of ${formatCount(total)}`;
 }

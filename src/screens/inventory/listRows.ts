@@ -6,7 +6,7 @@
 import type { DataColumn } from '@/src/components/DataTable/DataTable';
 import type { StoredEntities } from '@/src/api/schemas';
 import type { EntityKind } from '@/shared/schemas/network';
-import { codesText, erpText, figure, householdsText, withUnit } from './format';
+import { codesText, erpText, figure, householdsText, withUnit } from '@/shared/format';
 
 export interface CardLines {
   /** the code, shown in the monospaced face */

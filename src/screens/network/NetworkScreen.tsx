@@ -10,7 +10,7 @@ import { useReach } from '@/src/api/queries/analysis';
 import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
 import { Button } from '@/src/components/Button';
 import { FeedLegend } from '@/src/components/charts/FeedLegend';
-import { countOf, formatCount } from '@/src/components/charts/numbers';
+import { countOf, formatCount } from '@/shared/format';
 import { Columns } from '@/src/components/layout/Columns';
 import { Screen } from '@/src/components/layout/Screen';
 import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';

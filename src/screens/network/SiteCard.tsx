@@ -5,7 +5,7 @@ import type { Element } from '@/shared/schemas/analysis';
 import { StatusPill } from '@/src/components/Badge';
 import { Button } from '@/src/components/Button';
 import { Card } from '@/src/components/Card';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { formatFailSet } from '@/src/screens/reach/failSet';
 import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';

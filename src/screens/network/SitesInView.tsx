@@ -4,7 +4,7 @@
  * readable roll-call when the diagram is too dense for names.
  */
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { StatusShape } from '@/src/components/StatusShape';
 import { Capped } from '@/src/screens/reach/Capped';
 import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';

@@ -6,7 +6,7 @@
 import { useMemo } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import type { ReachResult } from '@/src/api/queries/analysis';
-import { countOf } from '@/src/components/charts/numbers';
+import { countOf } from '@/shared/format';
 import { Columns } from '@/src/components/layout/Columns';
 import { Section } from '@/src/components/layout/Section';
 import { space, type } from '@/src/theme';

@@ -5,7 +5,7 @@
  */
 import { StyleSheet, Text, View } from 'react-native';
 import type { ReachResult } from '@/src/api/queries/analysis';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { Columns } from '@/src/components/layout/Columns';
 import { StatusShape, type ShapeName } from '@/src/components/StatusShape';
 import { colors, fonts, radius, space, type } from '@/src/theme';

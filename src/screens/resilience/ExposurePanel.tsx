@@ -12,7 +12,7 @@ import { useSend } from '@/src/api/ApiProvider';
 import { parseAnswer } from '@/src/api/client';
 import { exposureAnswerSchema } from '@/src/api/schemas';
 import { Button } from '@/src/components/Button';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { DataTable } from '@/src/components/DataTable/DataTable';
 import { describeError } from '@/src/components/states';
 import { colors, space, type } from '@/src/theme';

@@ -10,7 +10,7 @@ import { StyleSheet, Text } from 'react-native';
 import { useDiversity, useExposure, useUnfed } from '@/src/api/queries/analysis';
 import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
 import { BarChart } from '@/src/components/charts/BarChart';
-import { countOf, formatCount } from '@/src/components/charts/numbers';
+import { countOf, formatCount } from '@/shared/format';
 import { Card } from '@/src/components/Card';
 import { Columns } from '@/src/components/layout/Columns';
 import { Screen } from '@/src/components/layout/Screen';

@@ -3,7 +3,7 @@ import { useMemo } from 'react';
 import { Text, View, StyleSheet } from 'react-native';
 import type { NetworkDrawing } from '@/src/api/schemas';
 import { BarChart } from '@/src/components/charts/BarChart';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { DataTable } from '@/src/components/DataTable/DataTable';
 import { ErrorState, LoadingState } from '@/src/components/states';
 import { space, type } from '@/src/theme';

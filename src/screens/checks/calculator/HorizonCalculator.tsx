@@ -4,7 +4,7 @@ import { Card } from '@/src/components/Card';
 import { TextField } from '@/src/components/TextField';
 import { space } from '@/src/theme';
 import { FigureList, type FigureItem } from '../FigureList';
-import { fixed, formatFigure } from '../figures';
+import { fixed, formatFigure } from '@/shared/format';
 import { visibleError } from './input';
 import { Result } from './Result';
 import { horizonFigures, type HorizonText } from './sums';

@@ -5,7 +5,7 @@ import { Choice } from '@/src/components/Choice';
 import { TextField } from '@/src/components/TextField';
 import { space } from '@/src/theme';
 import { FigureList } from '../FigureList';
-import { fixed, formatFigure, formatWatts } from '../figures';
+import { fixed, formatFigure, formatWatts } from '@/shared/format';
 import type { PowerReference, PowerUnit } from './input';
 import { visibleError } from './input';
 import { Result } from './Result';

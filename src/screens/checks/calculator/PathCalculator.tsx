@@ -10,7 +10,7 @@ import { Card } from '@/src/components/Card';
 import { TextField } from '@/src/components/TextField';
 import { colors, space, type } from '@/src/theme';
 import { FigureList } from '../FigureList';
-import { fixed, formatBearing, formatFigure } from '../figures';
+import { fixed, formatBearing, formatFigure } from '@/shared/format';
 import { visibleError } from './input';
 import { Result } from './Result';
 import { SitePicker } from './SitePicker';

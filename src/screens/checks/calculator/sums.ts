@@ -6,7 +6,7 @@ import { dabBlock, fmChannel, frequencyToChannel, uhfChannel, vhfChannel, FM_LOW
 import { geodesicInverse } from '@/shared/rf/geodesy';
 import { earthBulgeM, fieldStrengthFromEirpDbw, fieldStrengthFromErpDbw, freeSpaceLossDb, fresnelRadiusM, powerFluxDensityDbw, radioHorizonKm } from '@/shared/rf/propagation';
 import { DIPOLE_GAIN_DBI } from '@/shared/rf/units';
-import { fixed, formatFigure } from '../figures';
+import { fixed, formatFigure } from '@/shared/format';
 import { parseCoordinate, parseNumber, parsePowerDbw, type Parsed, type PowerReference, type PowerUnit } from './input';
 
 export const BAND_CHOICES: readonly { value: Band; label: string; channelHint: string }[] = [

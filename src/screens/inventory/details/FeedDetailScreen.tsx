@@ -10,7 +10,7 @@ import { FeedChecksPanel } from '@/src/screens/checks/FeedChecksPanel';
 import { DocumentsPanel } from '@/src/screens/documents/DocumentsPanel';
 import { useCanEditDocuments } from '../useCanEdit';
 import { space } from '@/src/theme';
-import { figure, whenText, withUnit } from '../format';
+import { figure, whenText, withUnit } from '@/shared/format';
 import { detailHref } from '../kinds';
 import { CodeLink } from '../parts/CodeLink';
 import { FieldList } from '../parts/FieldList';

@@ -6,7 +6,7 @@ import { StyleSheet, View } from 'react-native';
 import { Columns } from '@/src/components/layout/Columns';
 import { Section } from '@/src/components/layout/Section';
 import { space } from '@/src/theme';
-import { whenText } from '../format';
+import { whenText } from '@/shared/format';
 import { FieldList } from '../parts/FieldList';
 import { LinkButton } from '../parts/LinkButton';
 import { DetailFrame } from './DetailFrame';

@@ -7,7 +7,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import type { StoredCarriage, StoredFeed } from '@/src/api/schemas';
 import { type } from '@/src/theme';
 import { detailHref } from '../kinds';
-import { erpText, withUnit } from '../format';
+import { erpText, withUnit } from '@/shared/format';
 import { CodeLink } from '../parts/CodeLink';
 
 export function carriageNote(c: StoredCarriage): string {

@@ -7,7 +7,7 @@ import { useInventoryList } from '@/src/api/queries/inventory';
 import { Section } from '@/src/components/layout/Section';
 import { ErrorState, LoadingState } from '@/src/components/states';
 import { type } from '@/src/theme';
-import { erpText, whenText, withUnit } from '../format';
+import { erpText, whenText, withUnit } from '@/shared/format';
 import { countOf, detailHref } from '../kinds';
 import { filteredListHref, listApiPath } from '../listQuery';
 import { FieldList } from '../parts/FieldList';

@@ -10,7 +10,7 @@ import { Section } from '@/src/components/layout/Section';
 import { MastCautions } from '@/src/screens/checks/MastCautions';
 import { DocumentsPanel } from '@/src/screens/documents/DocumentsPanel';
 import { space } from '@/src/theme';
-import { householdsText, positionText, whenText, withUnit } from '../format';
+import { householdsText, positionText, whenText, withUnit } from '@/shared/format';
 import { filteredListHref } from '../listQuery';
 import { FieldList } from '../parts/FieldList';
 import { LinkButton } from '../parts/LinkButton';

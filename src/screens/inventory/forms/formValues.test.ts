@@ -83,7 +83,7 @@ describe('feed and carriage forms', () => {
 
   it('checks the bearing range', () => {
     const r = checkDraft('feeds', { ...emptyDraft('feeds'), code: 'F', from: 'A', to: 'B', medium: 'line', role: 'main', bearingDeg: '361' });
-    expect(r).toEqual({ ok: false, errors: { bearingDeg: 'bearing is 0-360 deg' } });
+    expect(r).toEqual({ ok: false, errors: { bearingDeg: 'bearing is 0-360°' } });
   });
 });
 
