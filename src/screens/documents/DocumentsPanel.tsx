@@ -13,7 +13,7 @@ import { Button } from '@/src/components/Button';
 import { Section } from '@/src/components/layout/Section';
 import { describeError, EmptyState, ErrorState, LoadingState } from '@/src/components/states';
 import { colors, radius, space, type } from '@/src/theme';
-import { whenText } from '@/src/screens/inventory/format';
+import { whenText } from '@/shared/format';
 import { sizeText, typeText } from './describe';
 
 interface Props {

@@ -1,5 +1,5 @@
 /** Words for a document's size and type. */
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 
 export function sizeText(bytes: number): string {
   if (bytes < 1024) return `${formatCount(bytes)} bytes`;

@@ -5,7 +5,7 @@
  * so the bar is true at the middle of the box and the screen says so.
  */
 import { geoDistance, type GeoProjection } from 'd3-geo';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { toWorld, type View } from './viewport';
 
 /** Mean earth radius, km (IUGG R1 = 6371.0088 km); a spherical earth is plenty for a scale bar. */

@@ -11,7 +11,7 @@ import { useMailbox } from '@/src/api/queries/notices';
 import { Button } from '@/src/components/Button';
 import { Section } from '@/src/components/layout/Section';
 import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';
-import { whenText } from '@/src/screens/inventory/format';
+import { whenText } from '@/shared/format';
 import { colors, space, type } from '@/src/theme';
 import { AdminOnly, useIsNoticeAdmin } from './AdminOnly';
 

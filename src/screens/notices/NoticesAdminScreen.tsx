@@ -3,11 +3,11 @@ import { StyleSheet, Text, View } from 'react-native';
 import type { NoticeInfo } from '@/shared/schemas/notices';
 import { useNotices } from '@/src/api/queries/notices';
 import { Badge, type Tone } from '@/src/components/Badge';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { Section } from '@/src/components/layout/Section';
 import type { ShapeName } from '@/src/components/StatusShape';
 import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';
-import { whenText } from '@/src/screens/inventory/format';
+import { whenText } from '@/shared/format';
 import { colors, space, type } from '@/src/theme';
 import { AdminOnly, useIsNoticeAdmin } from './AdminOnly';
 

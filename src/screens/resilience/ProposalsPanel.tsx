@@ -14,7 +14,7 @@ import type { PlanResult } from '@/src/api/schemas';
 import { Button } from '@/src/components/Button';
 import { Caution } from '@/src/components/Caution';
 import { Choice } from '@/src/components/Choice';
-import { formatCount } from '@/src/components/charts/numbers';
+import { formatCount } from '@/shared/format';
 import { describeError, ErrorState, LoadingState } from '@/src/components/states';
 import { StatusShape } from '@/src/components/StatusShape';
 import { Capped } from '@/src/screens/reach/Capped';

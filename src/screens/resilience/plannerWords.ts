@@ -1,7 +1,7 @@
 /** Plain-English sentences for proposals and critical pairs (pure, unit-tested). */
 import type { Element, Proposal } from '@/shared/schemas/analysis';
-import { formatCount } from '@/src/components/charts/numbers';
-import { formatBearing, formatFigure } from '@/src/screens/checks/figures';
+import { formatCount } from '@/shared/format';
+import { formatBearing, formatFigure } from '@/shared/format';
 import { elementWords, type ElementNamer } from './elementNames';
 
 /** "site M-CORR (Corrant Beacon)" when a name is known, else "site M-CORR". */
