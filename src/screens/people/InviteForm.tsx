@@ -72,7 +72,7 @@ export function InviteForm() {
           value={draft.password}
           onChangeText={(password) => set({ password })}
           error={errors.password}
-          hint={`At least ${PASSWORD_MIN} characters.`}
+          hint={`At least ${PASSWORD_MIN} characters, not a commonly used password.`}
           secureTextEntry
           autoComplete="new-password"
           testID="invite-password"

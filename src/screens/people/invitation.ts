@@ -1,7 +1,8 @@
 /**
  * The invite form's rules: the shared schema the server's invite check uses
  * (POST /api/users: an e-mail address, a name of at most 200 characters,
- * one of the four roles, a password of 10-200 characters), so the person
+ * one of the four roles, a password of at least 10 characters, at most 72
+ * bytes and not a commonly used one), so the person
  * sees the problem beside the field before anything is sent.
  */
 import { invitationSchema } from '@/shared/schemas/people';
