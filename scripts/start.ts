@@ -9,6 +9,8 @@ import { loadConfig } from '@/server/config';
 import { openDatabase } from '@/server/db';
 import { startServer, closeOnSignals } from '@/server/server';
 import { applyDemoAccounts, DEMO_USERS } from '@/server/services/demoAccounts';
+import { findUserByEmail } from '@/server/services/users';
+import { Subscription } from '@/server/db/models/notices';
 import { importNetwork } from '@/server/services/importer';
 import { resolveDatabaseUrl, REPO_ROOT } from './lib/postgres';
 import { ensureWebBuild } from './lib/webBuild';
@@ -25,6 +27,11 @@ export async function loadDemo(databaseUrl: string, log = console.log) {
     await applyDemoAccounts(true);
     const [rows] = await db.sequelize.query('SELECT count(*)::int AS n FROM sites');
     if ((rows as { n: number }[])[0].n === 0) {
+      // the demo admin hears about everything, so a first incident shows in the local mailbox (once: a later choice stands)
+      for (const d of DEMO_USERS.filter((x) => x.role === 'admin')) {
+        const u = await findUserByEmail(d.email);
+        if (u) await Subscription.findOrCreate({ where: { userId: u.id }, defaults: { userId: u.id, everything: true } });
+      }
       const report = await importNetwork(db, JSON.parse(fs.readFileSync(DEMO_NETWORK, 'utf8')), { actor: { email: 'demo-loader' } });
       if (!report.ok) throw new Error(`the demo network did not import: ${report.errors.map((e) => e.message).join('; ')}`);
       log(`Loaded the demo network: ${report.counts.sites.created} sites, ${report.counts.carriages.created} carriages, ${report.counts.feeds.created} feeds.`);

@@ -7,7 +7,6 @@
  */
 import crypto from 'node:crypto';
 import path from 'node:path';
-import sharp from 'sharp';
 import type { Transaction } from 'sequelize';
 import { Op } from 'sequelize';
 import type { DocumentInfo } from '@/shared/schemas/documents';
@@ -67,6 +66,8 @@ export async function findDocument(ctx: AppContext, owner: Owner, id: string): P
 }
 
 async function makePreview(bytes: Buffer): Promise<Buffer> {
+  // loaded on first use, like the S3 SDK: a native module a server without documents need not load
+  const { default: sharp } = await import('sharp');
   try {
     return await sharp(bytes, { limitInputPixels: 100_000_000 }).rotate().resize({ width: PREVIEW_PX, height: PREVIEW_PX, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 70 }).toBuffer();
   } catch {

@@ -8,7 +8,7 @@
  * it with backoff until SMTP is back. A sent row is never sent again.
  */
 import PgBoss from 'pg-boss';
-import nodemailer, { type Transporter } from 'nodemailer';
+import type { Transporter } from 'nodemailer';
 import type { Transaction } from 'sequelize';
 import type { AppContext } from '../context';
 import type { OperationsEvent } from '../operations/events';
@@ -61,6 +61,7 @@ export class NoticeQueue {
     await boss.createQueue(NOTICE_JOB, { name: NOTICE_JOB, retryLimit: this.opts.retryLimit, retryDelay: this.opts.retryDelaySeconds, retryBackoff: true, expireInSeconds: 120 });
     this.boss = boss;
     if (this.ctx.config.SMTP_URL) {
+      const { default: nodemailer } = await import('nodemailer');
       this.transport = nodemailer.createTransport({ url: this.ctx.config.SMTP_URL, connectionTimeout: 10_000, greetingTimeout: 10_000, socketTimeout: 30_000 } as never);
       await boss.work<{ notice: number }>(NOTICE_JOB, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: this.opts.pollingSeconds }, async ([job]) =>
         this.deliver(job.data.notice, job.retryCount >= job.retryLimit),

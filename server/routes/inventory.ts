@@ -12,7 +12,9 @@
  *   GET    /<kind>/:code      the entity with its neighbours (services/inventory/detail.ts)
  *   POST   /<kind>            body: the entity in document form -> 201, the entity
  *   PATCH  /<kind>/:code      body: { version, ...fields }; null clears a field -> 200, the entity
- *   DELETE /<kind>/:code      ?version=N (required), ?cascade=true deletes dependents
+ *   DELETE /<kind>/:code      ?version=N (required), ?cascade=true deletes dependents,
+ *                             ?documents=delete|keep what happens to the documents of what is
+ *                             deleted (sites, feeds); without it, 409 naming the count
  *                             -> { deleted: { kind: [code] }, updated: { kind: [code] }, networkVersion }
  *
  * Entities are in the document shape (codes, never ids) plus `version` (for
