@@ -12,6 +12,7 @@ import type { ImportIssue } from '@/shared/schemas/import';
 import { ENTITY_KINDS, NETWORK_FORMAT, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
 import { CSV_COLUMNS, cellText } from './csv-columns';
 import { CsvKindReader, csvOptions, StopReading, type IssueCollector } from './csv-read';
+import { clip } from '@/shared/clip';
 import { IssueList, type RowsOf } from './issues';
 
 export const CSV_FILE_NAMES: Record<EntityKind, string> = {
@@ -29,7 +30,7 @@ export interface CsvFile {
 
 export interface CsvRead {
   /** the raw document: pass it with rowsOf to validateDocument */
-  raw: { format: string } & Partial<Record<EntityKind, Record<string, unknown>[]>>;
+  raw: { format: string; baseVersion?: unknown } & Partial<Record<EntityKind, Record<string, unknown>[]>>;
   rowsOf: RowsOf;
   /** problems with the files themselves (names, headers, CSV syntax) */
   errors: ImportIssue[];
@@ -39,6 +40,36 @@ export interface CsvRead {
 export function kindOfFile(name: string): EntityKind | undefined {
   const base = name.split(/[\\/]/).pop()?.toLowerCase() ?? '';
   return ENTITY_KINDS.find((kind) => CSV_FILE_NAMES[kind] === base);
+}
+
+/**
+ * The manifest of a CSV bundle: one header row and one data row,
+ * `format,baseVersion` / `network/1,12`, saying which network version the
+ * files were exported at (README "Versions"). Optional.
+ */
+export const MANIFEST_FILE = 'manifest.csv';
+export const MAX_MANIFEST_BYTES = 4096;
+export const isManifest = (name: string) => (name.split(/[\\/]/).pop() ?? '').toLowerCase() === MANIFEST_FILE;
+
+export function manifestCsv(baseVersion: number): string {
+  return stringify([['format', 'baseVersion'], [NETWORK_FORMAT, String(baseVersion)]], { record_delimiter: 'unix' });
+}
+
+/** The manifest's baseVersion as the document field (a number, or the text for the validator to refuse); issues for a broken manifest. */
+export function readManifest(name: string, text: string, issues: IssueCollector): unknown {
+  let records: string[][];
+  try {
+    records = parse(text, { bom: true, skip_empty_lines: true, max_record_size: MAX_MANIFEST_BYTES }) as string[][];
+  } catch {
+    records = [];
+  }
+  const column = records[0]?.map((c) => c.trim()).indexOf('baseVersion') ?? -1;
+  if (records.length !== 2 || column < 0) {
+    issues.push({ kind: 'document', file: name, field: 'baseVersion', rule: 'bad-manifest', message: `${name} is a header row "format,baseVersion" and one row of values, e.g. "${NETWORK_FORMAT},12"` });
+    return undefined;
+  }
+  const cell = (records[1][column] ?? '').trim();
+  return /^\d{1,15}$/.test(cell) ? Number(cell) : clip(cell);
 }
 
 /** Checks a file name against the kinds already read; returns its kind when it is to be read. */
@@ -67,6 +98,10 @@ export function readCsvFiles(files: readonly CsvFile[]): CsvRead {
   const issues = new IssueList();
   const seen = new Map<EntityKind, string>();
   for (const file of files) {
+    if (isManifest(file.name)) {
+      raw.baseVersion = readManifest(file.name, file.text, issues);
+      continue;
+    }
     const kind = claimFile(file.name, seen, issues);
     if (kind === undefined) continue;
     const reader = new CsvKindReader(kind, file.name, issues);
@@ -104,9 +139,10 @@ export function documentToCsv(doc: NetworkDocument): Record<string, string> {
   return out;
 }
 
-/** The document as a zip of the five CSV files. */
-export async function documentToZip(doc: NetworkDocument): Promise<Buffer> {
+/** The document as a zip of the five CSV files, and the manifest when the version is given. */
+export async function documentToZip(doc: NetworkDocument, baseVersion?: number): Promise<Buffer> {
   const zip = new JSZip();
   for (const [name, text] of Object.entries(documentToCsv(doc))) zip.file(name, text);
+  if (baseVersion !== undefined) zip.file(MANIFEST_FILE, manifestCsv(baseVersion));
   return zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE' });
 }

@@ -11,7 +11,7 @@ import { Readable } from 'node:stream';
 import type { ImportIssue } from '@/shared/schemas/import';
 import { clip } from '@/shared/clip';
 import { NETWORK_FORMAT, type EntityKind } from '@/shared/schemas/network';
-import { claimFile, readCsvFiles, type CsvFile, type CsvRead } from './csv';
+import { claimFile, isManifest, MAX_MANIFEST_BYTES, readCsvFiles, readManifest, type CsvFile, type CsvRead } from './csv';
 import { CsvKindReader, readCsvStream } from './csv-read';
 import { IssueList, type RowsOf } from './issues';
 import { UploadBudget, UploadLimitError, type UploadLimits } from './limits';
@@ -93,6 +93,10 @@ export async function readUploads(uploaded: readonly UploadedFile[], limits?: Up
   const issues = new IssueList();
   const seen = new Map<EntityKind, string>();
   const readOne = async (name: string, open: () => Promise<Readable>) => {
+    if (isManifest(name)) {
+      raw.baseVersion = readManifest(name, await smallText(await open(), budget), issues);
+      return;
+    }
     const kind = claimFile(name, seen, issues);
     if (kind === undefined) return;
     const read = await readCsvStream(await open(), new CsvKindReader(kind, name, issues, budget.limits.maxRecordChars), budget);
@@ -140,4 +144,20 @@ async function readZip(file: UploadedFile, budget: UploadBudget, readOne: (name:
   } finally {
     opened.close();
   }
+}
+
+/** A manifest's text: a few bytes; more is not a manifest (the reader then reports it). */
+async function smallText(source: Readable, budget: UploadBudget): Promise<string> {
+  const chunks: Buffer[] = [];
+  let size = 0;
+  for await (const chunk of source as AsyncIterable<Buffer>) {
+    budget.addBytes(chunk.length);
+    size += chunk.length;
+    if (size > MAX_MANIFEST_BYTES) {
+      source.destroy();
+      return '';
+    }
+    chunks.push(chunk);
+  }
+  return Buffer.concat(chunks).toString('utf8');
 }

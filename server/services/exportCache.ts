@@ -16,10 +16,16 @@ export async function exportJson(ctx: AppContext): Promise<{ version: number; bo
   if (model) {
     const databaseVersion = await ctx.network.databaseVersion();
     if (model.networkVersion === databaseVersion) {
-      if (!cached || cached.model !== model) cached = { version: model.networkVersion, body: Buffer.from(JSON.stringify(model.document)), model };
+      if (!cached || cached.model !== model) cached = { version: model.networkVersion, body: Buffer.from(JSON.stringify(withBase(model.document, model.networkVersion))), model };
       return cached;
     }
   }
   const { document, version } = await loadNetworkDocument(ctx.db.sequelize);
-  return { version, body: Buffer.from(JSON.stringify(document)) };
+  return { version, body: Buffer.from(JSON.stringify(withBase(document, version))) };
+}
+
+/** The export says which version it was made from, so a replace-import from it can tell what it would undo. */
+function withBase(document: { format: string }, version: number) {
+  const { format, ...entities } = document;
+  return { format, baseVersion: version, ...entities };
 }

@@ -20,6 +20,7 @@ import { checkKeptFeeds } from './import/storedConflicts';
 import { RollBack, withNetworkWrite, type NetworkWrite } from './inventory/networkWrite';
 import { analyze, deleteByCodes, writeEntities } from './inventory/tables';
 import { databaseRefusal } from './inventory/dbErrors';
+import { staleBase, staleRefusal } from './import/staleBase';
 
 export interface ImportOptions {
   dryRun?: boolean;
@@ -32,6 +33,8 @@ export interface ImportOptions {
   sourceErrors?: ImportIssue[];
   /** more of them, counted only */
   moreSourceErrors?: number;
+  /** carry out a replace made from an older network version, undoing the changes since (import/staleBase.ts) */
+  undoNewer?: boolean;
 }
 
 /** Below this many written rows the planner's old statistics do no harm (tables.ts, analyze). */
@@ -109,7 +112,8 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
     const checked = check(raw, stored, opts, replace);
     if (!checked.document) return failed(checked.errors, checked.warnings, version, checked);
     const plan = await planImport(stored, checked.document, replace);
-    return capped({ ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version }, checked);
+    const stale = replace ? await staleBase(db.sequelize, raw, version) : undefined;
+    return capped({ ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version, ...(stale ? { stale } : {}) }, checked);
   }
 
   try {
@@ -117,11 +121,13 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
       const { document: stored } = await loadNetworkDocument(db.sequelize, w.transaction);
       const checked = check(raw, stored, opts, replace);
       if (!checked.document) throw new RollBack(failed(checked.errors, checked.warnings, undefined, checked));
+      const stale = replace ? await staleBase(db.sequelize, raw, w.startVersion, w.transaction) : undefined;
+      if (stale && !opts.undoNewer) throw staleRefusal(stale);
       const plan = await planImport(stored, checked.document, replace);
       await carryOut(w, plan);
       const counts = countsOf(plan, received);
       if (plan.changed) w.markChanged();
-      w.audit({ action: 'import', entityKind: 'network', after: { replace, counts, warnings: checked.warnings.length } });
+      w.audit({ action: 'import', entityKind: 'network', after: { replace, counts, warnings: checked.warnings.length, ...(stale ? { undid: stale } : {}) } });
       return capped({ ok: true, dryRun, replace, counts, errors: [], warnings: checked.warnings }, checked);
     });
     return { ...outcome.result, networkVersion: outcome.networkVersion };

@@ -21,6 +21,15 @@ export interface ImportIssue {
 /** A report lists at most this many errors and this many warnings; the rest are counted (moreErrors, moreWarnings). */
 export const MAX_REPORTED_ISSUES = 1000;
 
+export interface StaleBase {
+  /** the version the document was made from */
+  baseVersion: number;
+  /** the version stored now */
+  currentVersion: number;
+  /** changes recorded since baseVersion (an import counted by the records it changed) */
+  changesSince: number;
+}
+
 export interface KindCounts {
   received: number;
   created: number;
@@ -40,6 +49,12 @@ export interface ImportReport {
   moreErrors?: number;
   /** warnings found beyond the MAX_REPORTED_ISSUES listed */
   moreWarnings?: number;
+  /**
+   * Set when a replace-import comes from an older network version than the
+   * stored one: carrying it out would undo the changes made since, so it
+   * needs undoNewer=true (server/network/README.md "Versions").
+   */
+  stale?: StaleBase;
   /** the network version after the import (unchanged on a dry run or an error) */
   networkVersion?: number;
 }

@@ -94,6 +94,8 @@ export const NETWORK_FORMAT = 'network/1' as const;
 /** Top-level shape only; entities are checked one by one so every error is reported. */
 export const networkDocumentShape = z.strictObject({
   format: z.literal(NETWORK_FORMAT, { error: `format must be "${NETWORK_FORMAT}"` }),
+  /** the network version the document was exported at (or made from); see server/network/README.md */
+  baseVersion: z.number({ error: 'baseVersion must be a whole number' }).int('baseVersion must be a whole number').min(0).optional(),
   sites: z.array(z.unknown()).optional(),
   services: z.array(z.unknown()).optional(),
   groups: z.array(z.unknown()).optional(),
@@ -103,6 +105,7 @@ export const networkDocumentShape = z.strictObject({
 
 export const networkDocumentSchema = z.strictObject({
   format: z.literal(NETWORK_FORMAT),
+  baseVersion: z.number().int().min(0).optional(),
   sites: z.array(siteSchema),
   services: z.array(serviceSchema),
   groups: z.array(groupSchema),
@@ -123,6 +126,8 @@ export type Carriage = EntityOf<typeof carriageSchema>;
 export type Feed = EntityOf<typeof feedSchema>;
 export interface NetworkDocument {
   format: typeof NETWORK_FORMAT;
+  /** the network version it was exported at; an import from an older one may undo later changes */
+  baseVersion?: number;
   sites: Site[];
   services: Service[];
   groups: Group[];

@@ -126,6 +126,7 @@ export const importReportSchema = z.object({
   errors: z.array(importIssueSchema),
   warnings: z.array(importIssueSchema),
   moreErrors: z.number().int().optional(),
+  stale: z.object({ baseVersion: z.number(), currentVersion: z.number(), changesSince: z.number() }).optional(),
   moreWarnings: z.number().int().optional(),
   networkVersion: z.number().optional(),
 });

@@ -28,6 +28,8 @@ export interface UploadFile {
 export interface ImportOptions {
   dryRun: boolean;
   replace: boolean;
+  /** carry out a replace made from an older network version, undoing the changes since */
+  undoNewer?: boolean;
 }
 
 export interface DownloadedFile {
@@ -35,7 +37,8 @@ export interface DownloadedFile {
   blob: Blob;
 }
 
-export const importPath = ({ dryRun, replace }: ImportOptions) => `${api.importNetwork}?dryRun=${dryRun}&replace=${replace}`;
+export const importPath = ({ dryRun, replace, undoNewer }: ImportOptions) =>
+  `${api.importNetwork}?dryRun=${dryRun}&replace=${replace}${undoNewer ? '&undoNewer=true' : ''}`;
 export const exportPath = (format: 'json' | 'csv') => (format === 'csv' ? `${api.exportNetwork}?format=csv` : api.exportNetwork);
 
 /** The file name a Content-Disposition header gives (RFC 6266: filename*=UTF-8''... or filename="..."), else the fallback. */

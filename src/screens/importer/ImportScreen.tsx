@@ -23,7 +23,7 @@ import { InventoryNav } from '../inventory/parts/InventoryNav';
 import { useCanEdit } from '../inventory/useCanEdit';
 import { saveFile } from './download';
 import { FilePicker } from './FilePicker';
-import { canCommit } from './report';
+import { canCommit, staleText } from './report';
 import { ReportView } from './ReportView';
 
 type Phase = 'idle' | 'checking' | 'committing';
@@ -48,6 +48,8 @@ function ImportSection() {
   const [phase, setPhase] = useState<Phase>('idle');
   const [report, setReport] = useState<ImportReport | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
+  // A second, deliberate step: a replace from an older version undoes later changes only once this is confirmed.
+  const [undoConfirmed, setUndoConfirmed] = useState(false);
   // Only the answer to the latest request counts: a slow check must not overwrite a newer one.
   const latest = useRef(0);
 
@@ -56,9 +58,12 @@ function ImportSection() {
     const ticket = ++latest.current;
     setPhase(dryRun ? 'checking' : 'committing');
     setFailure(null);
-    if (dryRun) setReport(null);
+    if (dryRun) {
+      setReport(null);
+      setUndoConfirmed(false);
+    }
     try {
-      const answer = await transfer.importFiles(chosen, { dryRun, replace: withReplace });
+      const answer = await transfer.importFiles(chosen, { dryRun, replace: withReplace, undoNewer: !dryRun && undoConfirmed });
       if (ticket === latest.current) setReport(answer);
     } catch (e) {
       if (ticket === latest.current) setFailure(`${dryRun ? 'The check' : 'The import'} failed: ${describeError(e)}`);
@@ -110,11 +115,27 @@ function ImportSection() {
         <Button
           label="Commit import"
           onPress={() => void run(files, replace, false)}
-          disabled={!canCommit(report) || phase !== 'idle'}
+          disabled={!canCommit(report, undoConfirmed) || phase !== 'idle'}
           busy={phase === 'committing'}
           testID="import-commit"
         />
       </View>
+      {report?.dryRun && report.stale ? (
+        <View style={styles.warning} accessibilityRole="alert" testID="import-stale">
+          <View style={styles.warningHead}>
+            <StatusShape shape="triangle" color={colors.warn} size={18} />
+            <Text style={styles.warningTitle}>The file is older than the network</Text>
+          </View>
+          <Text style={styles.body}>{staleText(report.stale)}</Text>
+          <Button
+            label={undoConfirmed ? 'Undo confirmed: commit will undo those changes' : 'Undo those changes too'}
+            variant="secondary"
+            onPress={() => setUndoConfirmed((v) => !v)}
+            disabled={phase !== 'idle'}
+            testID="import-undo-newer"
+          />
+        </View>
+      ) : null}
       {phase === 'checking' ? <LoadingState what="the check of the file" /> : null}
       {failure ? (
         <Text style={styles.failure} accessibilityRole="alert" testID="import-failure">

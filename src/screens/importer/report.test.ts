@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { ImportReport, KindCounts } from '@/shared/schemas/import';
-import { canCommit, countRows, issueRows, reportHeadline, totals, whereOf } from './report';
+import { canCommit, countRows, issueRows, reportHeadline, staleText, totals, whereOf } from './report';
 
 const zero: KindCounts = { received: 0, created: 0, updated: 0, unchanged: 0, deleted: 0 };
 const counts = { sites: { ...zero }, services: { ...zero }, groups: { ...zero }, carriages: { ...zero }, feeds: { ...zero } };
@@ -83,5 +83,20 @@ describe('canCommit', () => {
     expect(canCommit(report({ ok: false, errors: [{ kind: 'sites', rule: 'x', message: 'm' }] }))).toBe(false);
     expect(canCommit(report({ dryRun: false }))).toBe(false);
     expect(canCommit(null)).toBe(false);
+  });
+});
+
+describe('a file older than the network', () => {
+  const stale = { baseVersion: 12, currentVersion: 15, changesSince: 4512 };
+  const base = report({ replace: true });
+
+  it('may be committed only once the undo is confirmed', () => {
+    expect(canCommit({ ...base, stale })).toBe(false);
+    expect(canCommit({ ...base, stale }, true)).toBe(true);
+    expect(canCommit(base)).toBe(true);
+  });
+
+  it('says how many changes would be undone', () => {
+    expect(staleText(stale)).toBe('This file was made from network version 12; the network is now at version 15, with 4,512 changes since. Replacing the network with this file undoes them.');
   });
 });

@@ -94,7 +94,14 @@ export function reportHeadline(report: ImportReport): string {
   return `Imported${w ? ` with ${plural(w, 'warning')}` : ''}: ${changes.replace(/to create/, 'created').replace(/to update/, 'updated').replace(/to delete/, 'deleted')}.`;
 }
 
-/** Whether a checked report may be committed: a dry run with no errors. */
-export function canCommit(report: ImportReport | null | undefined): boolean {
-  return !!report && report.dryRun && report.errors.length === 0;
+/** Whether a checked report may be committed: a dry run with no errors, and a stale base only once the undo is confirmed. */
+export function canCommit(report: ImportReport | null | undefined, undoConfirmed = false): boolean {
+  return !!report && report.dryRun && report.errors.length === 0 && (!report.stale || undoConfirmed);
+}
+
+/** The sentence about a file made from an older network version (report.stale). */
+export function staleText(stale: NonNullable<ImportReport['stale']>): string {
+  const n = stale.changesSince;
+  const changes = `${n.toLocaleString('en')} change${n === 1 ? '' : 's'}`;
+  return `This file was made from network version ${stale.baseVersion.toLocaleString('en')}; the network is now at version ${stale.currentVersion.toLocaleString('en')}, with ${changes} since. Replacing the network with this file undoes ${n === 1 ? 'it' : 'them'}.`;
 }
