@@ -1,5 +1,5 @@
 /**
- * The project's own PostgreSQL (handbook architecture.md, "The local PostgreSQL").
+ * The project's own PostgreSQL (README, "Running on a server"; server/db/README.md).
  *
  * One private cluster per checkout, on 127.0.0.1 only, on a port of the
  * project's (not 5432). Debian's server binaries are installed when missing.
