@@ -156,7 +156,7 @@ function targets(reads: ScenarioResult[], edits: EditRunResult) {
 }
 
 function report(meta: Record<string, unknown>, reads: ScenarioResult[], edits: EditRunResult, met: ReturnType<typeof targets>): string {
-  const lines = [`Load run ${meta.date} (${meta.sites} sites, seed ${meta.seed}; ${meta.cpus} CPUs, Node ${meta.node}; server and load generator on 127.0.0.1)`, ''];
+  const lines = [`Load run ${meta.date} (${meta.sites} sites, seed ${meta.seed}; ${meta.cpus} CPUs, load average ${String(meta.loadAverage)} at the end; Node ${meta.node}; server and load generator on 127.0.0.1)`, ''];
   lines.push(`${'scenario'.padEnd(22)}${'req/s'.padStart(9)}${'p50 ms'.padStart(9)}${'p99 ms'.padStart(9)}${'max ms'.padStart(9)}${'errors'.padStart(8)}${'non-2xx'.padStart(9)}${'MB/s'.padStart(8)}`);
   for (const r of reads) {
     lines.push(`${r.name.padEnd(22)}${String(r.requestsPerSecond).padStart(9)}${String(r.latencyP50Ms).padStart(9)}${String(r.latencyP99Ms).padStart(9)}${String(r.latencyMaxMs).padStart(9)}${String(r.errors + r.timeouts).padStart(8)}${String(r.non2xx).padStart(9)}${String(r.megabytesPerSecond).padStart(8)}`);
@@ -211,7 +211,9 @@ async function main() {
     console.log(`  import ${edits.importStatus} in ${edits.importMs} ms; edits ${JSON.stringify(edits.edits.byStatus)}; lost ${edits.lost.length}`);
 
     const met = targets(reads, edits);
-    const meta = { date: new Date().toISOString(), sites: siteCount, seed, importedSites: imported.length, cpus: (await import('node:os')).cpus().length, node: process.versions.node };
+    const os = await import('node:os');
+    // the machine's load average says how far the figures can be trusted on a shared machine
+    const meta = { date: new Date().toISOString(), sites: siteCount, seed, importedSites: imported.length, cpus: os.cpus().length, loadAverage: os.loadavg().map((l) => Math.round(l * 10) / 10), node: process.versions.node };
     fs.mkdirSync(path.dirname(out), { recursive: true });
     fs.writeFileSync(`${out}.json`, JSON.stringify({ ...meta, reads, edits, targets: met }, null, 2) + '\n');
     const text = report(meta, reads, edits, met);

@@ -1,6 +1,6 @@
 /**
  * Keeps the in-memory analysis model fresh across processes (docs/architecture.md,
- * "A rebuild", and server/services/README.md): every committed change
+ * "A rebuild"; server/db/README.md, "Surviving a restart of PostgreSQL"): every committed change
  * bumps the network version and sends NOTIFY network_changed; each server
  * process LISTENs on one dedicated connection and rebuilds. Readers always get
  * the last complete model; a rebuild swaps it in only when finished.

@@ -5,10 +5,10 @@
  * use `whileDatabaseDown`, which starts it again in a finally.
  */
 import { Client } from 'pg';
-import { ensureCluster, stopCluster } from '@/scripts/lib/postgres';
+import { ensureCluster, FAST_FOR_TESTS, stopCluster } from '@/scripts/lib/postgres';
 
 export async function startDatabase(url = process.env.TEST_DATABASE_URL!) {
-  await ensureCluster();
+  await ensureCluster(FAST_FOR_TESTS);
   // pg_ctl -w waits for the server; make sure it takes connections before going on
   for (let i = 0; ; i++) {
     const c = new Client({ connectionString: url, connectionTimeoutMillis: 2000 });
