@@ -75,7 +75,7 @@ export function WorkDetailScreen({ code }: { code: string }) {
           <View style={styles.confirm} testID="approve-confirm">
             {firm.length ? (
               firm.map((c) => (
-                <Text key={c.work} style={styles.warn} testID={`approve-clash-${c.work}`}>{`Approving this puts ${c.jointLost.length} ${c.jointLost.length === 1 ? 'carriage' : 'carriages'} off air together with ${c.work}. ${clashSentence(c)}.`}</Text>
+                <Text key={c.work} style={styles.warn} testID={`approve-clash-${c.work}`}>{`${clashSentence(c, 'Approving this puts')}.`}</Text>
               ))
             ) : (
               <Text style={styles.plain}>No clash with other work or an open incident.</Text>

@@ -29,7 +29,7 @@ export function ClashList({ clashes, testID }: { clashes: readonly Clash[]; test
             <StatusShape shape="triangle" color={colors.warn} size={18} />
             <Text style={styles.clashTitle}>{`Clash with ${c.with === 'incident' ? 'incident' : 'planned work'} ${c.work}`}</Text>
           </View>
-          <Text style={styles.plain}>{clashSentence(c, 'Together they put')}.</Text>
+          <Text style={styles.plain}>{`${countOf(c.jointLost.length, 'carriage')} off air only when both happen (${formatCount(c.households)} households).`}</Text>
           <Text style={styles.small}>{`Overlap: ${localText(c.overlap.start)} to ${localText(c.overlap.end)}`}</Text>
           <Text style={styles.small}>{`Off air only together: ${c.jointLost.join(', ')}`}</Text>
         </View>
