@@ -27,6 +27,9 @@ const rowWithCode =
 export const OWNER_KINDS: Record<string, OwnerKind> = {
   sites: { noun: 'site', exists: rowWithCode('sites'), onDelete: 'ask' },
   feeds: { noun: 'feed', exists: rowWithCode('feeds'), onDelete: 'ask' },
+  // an incident is never deleted; a planned work only while drafted, and its photos and permits stay on file
+  incidents: { noun: 'incident', exists: rowWithCode('incidents'), onDelete: 'keep' },
+  works: { noun: 'planned work', exists: rowWithCode('planned_works'), onDelete: 'keep' },
 };
 
 export type DocumentsChoice = 'delete' | 'keep';

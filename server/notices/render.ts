@@ -43,7 +43,7 @@ export function when(event: OperationsEvent): string {
 /** Where the event is seen in the product (the operations screens). */
 export function eventLink(base: string, event: OperationsEvent): string {
   const area = event.kind.startsWith('work-') ? 'works' : 'incidents';
-  return `${base.replace(/\/$/, '')}/operations/${area}/${encodeURIComponent(event.code)}`;
+  return `${base.replace(/\/$/, '')}/${area}/${encodeURIComponent(event.code)}`;
 }
 
 export function subjectOf(event: OperationsEvent): string {

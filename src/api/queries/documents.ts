@@ -13,7 +13,7 @@ import { useSend } from '../ApiProvider';
 import { ApiError, parseAnswer } from '../client';
 import { useApiQuery } from '../useApiQuery';
 
-export type DocumentOwnerKind = 'sites' | 'feeds';
+export type DocumentOwnerKind = 'sites' | 'feeds' | 'incidents' | 'works';
 export const documentsKey = (kind: DocumentOwnerKind, code: string) => api.documents(kind, code);
 
 export const useDocuments = (kind: DocumentOwnerKind, code: string) => useApiQuery(documentsKey(kind, code), documentListSchema, 'network');

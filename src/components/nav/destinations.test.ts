@@ -26,8 +26,8 @@ describe('destinations', () => {
   it('give a phone 4 tabs plus More (5 in the bar) and put the rest under More', () => {
     const admin = phoneLayout('admin');
     expect(admin.tabs.map((d) => d.label)).toEqual(['Home', 'Fault reach', 'Network', 'Resilience']);
-    expect(admin.more.map((d) => d.label)).toEqual(['Inventory', 'Checks', 'Calculator', 'My notices', 'Notices sent', 'Audit log', 'People']);
-    expect(phoneLayout('viewer').more.map((d) => d.label)).toEqual(['Inventory', 'Checks', 'Calculator', 'My notices']);
+    expect(admin.more.map((d) => d.label)).toEqual(['Inventory', 'Incidents', 'Planned work', 'Availability', 'Checks', 'Calculator', 'My notices', 'Notices sent', 'Audit log', 'People']);
+    expect(phoneLayout('viewer').more.map((d) => d.label)).toEqual(['Inventory', 'Incidents', 'Planned work', 'Availability', 'Checks', 'Calculator', 'My notices']);
     // Every entry a role may see is reachable on a phone, once.
     for (const role of ROLES) {
       const { tabs, more } = phoneLayout(role);

@@ -25,6 +25,7 @@ import { FailChips } from './FailChips';
 import { LinkRow } from './LinkRow';
 import { ReachBreakdown, type Names } from './ReachBreakdown';
 import { ReachSummary } from './ReachSummary';
+import { OpenIncident } from '../operations/OpenIncident';
 
 function Notice({ title, children, action, testID }: { title: string; children: string; action?: React.ReactNode; testID: string }) {
   return (
@@ -114,6 +115,7 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
           <View style={styles.diagramLink}>
             <LinkRow href={`/network?fail=${failText}`} title="See it on the network diagram" detail="Sites off air and on reserve are marked" />
           </View>
+          <OpenIncident elements={elements} />
         </Section>
         <ReachBreakdown reach={r} failText={failText} names={names} />
       </>

@@ -1,0 +1,5 @@
+import { AvailabilityScreen } from '@/src/screens/operations/AvailabilityScreen';
+
+export default function AvailabilityRoute() {
+  return <AvailabilityScreen />;
+}

@@ -1,0 +1,5 @@
+import { WorkFormScreen } from '@/src/screens/operations/WorkFormScreen';
+
+export default function NewWorkRoute() {
+  return <WorkFormScreen />;
+}
