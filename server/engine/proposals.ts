@@ -248,7 +248,6 @@ export function proposalsFor(ctx: ProposalContext, c: number, avoidable: readonl
   const { effects, origins } = candidateEffects(core, c, avoidable);
   effects.sort((a, b) => b.households - a.households || b.removes.length - a.removes.length || a.p - b.p);
   const hc = heightAsl(core, c);
-  const reachKm = hc === null ? -1 : pathHorizonKm(ctx.maxHeightAsl, hc);
   const row = (e: CandidateEffect, medium: Medium): ProposalRow | null => {
     const checks = screen(core, e.p, c, medium);
     let field: number | null = null;
@@ -281,7 +280,9 @@ export function proposalsFor(ctx: ProposalContext, c: number, avoidable: readonl
     const tier: ProposalRow[] = [];
     for (let k = i; k < j; k++) {
       const e = effects[k];
-      if (hc !== null && distanceLowerBoundKm(core, model.carriageSite[e.p], model.carriageSite[c]) <= reachKm) {
+      // The horizon check's own formula on a distance that never exceeds the true one: only paths that cannot pass are skipped.
+      const hp = hc === null ? null : heightAsl(core, e.p);
+      if (hc !== null && hp !== null && distanceLowerBoundKm(core, model.carriageSite[e.p], model.carriageSite[c]) <= pathHorizonKm(hp, hc)) {
         const r = row(e, 'off-air');
         if (r) tier.push(r);
       }
