@@ -221,12 +221,14 @@ export interface ProposalContext {
   fieldRadiusKm: Float64Array;
   /** per service, built on first use: its fed carriages by position, and the largest field radius among them */
   grids: ({ grid: CandidateGrid; maxFieldRadiusKm: number } | undefined)[];
+  /** planning minimum by service kind and receive frequency (null: none to compare with) */
+  minimumDbuvm: Map<string, number | null>;
 }
 
 export function proposalContext(core: EngineCore): ProposalContext {
   let max = 0;
   for (let c = 0; c < core.model.carriages.length; c++) max = Math.max(max, heightAsl(core, c) ?? 0);
-  return { core, maxHeightAsl: max, fieldRadiusKm: new Float64Array(core.model.carriages.length).fill(Number.NaN), grids: [] };
+  return { core, maxHeightAsl: max, fieldRadiusKm: new Float64Array(core.model.carriages.length).fill(Number.NaN), grids: [], minimumDbuvm: new Map() };
 }
 
 /**
@@ -243,10 +245,22 @@ function fieldRadiusKm(ctx: ProposalContext, p: number): number {
   const kind = model.services[model.carriageService[p]].kind;
   let radius = -1;
   if (source.erpW !== undefined && source.erpW > 0) {
-    const feed: Feed = { code: 'new', from: source.code, to: source.code, medium: 'off-air', role: 'reserve' };
-    const rx = receiveFrequency(feed, source, kind);
-    const min = offAirFeedMinimum(kind, rx.ok ? rx.value.mhz : null);
-    if (min.ok) radius = 10 ** ((wattsToDbw(source.erpW) + FIELD_CONSTANT_ERP_DB - min.minimum.valueDbUvPerM + 0.02) / 20);
+    // The new feed records no receive frequency, so it is the source's: its frequencyMHz when recorded, else its channel.
+    let mhz: number | null;
+    if (source.frequencyMHz !== undefined) mhz = source.frequencyMHz;
+    else {
+      const feed: Feed = { code: 'new', from: source.code, to: source.code, medium: 'off-air', role: 'reserve' };
+      const rx = receiveFrequency(feed, source, kind);
+      mhz = rx.ok ? rx.value.mhz : null;
+    }
+    const key = `${kind} ${mhz}`;
+    let minimum = ctx.minimumDbuvm.get(key);
+    if (minimum === undefined) {
+      const min = offAirFeedMinimum(kind, mhz);
+      minimum = min.ok ? min.minimum.valueDbUvPerM : null;
+      ctx.minimumDbuvm.set(key, minimum);
+    }
+    if (minimum !== null) radius = 10 ** ((wattsToDbw(source.erpW) + FIELD_CONSTANT_ERP_DB - minimum + 0.02) / 20);
   }
   ctx.fieldRadiusKm[p] = radius;
   return radius;
