@@ -35,7 +35,6 @@ import { computeFeedChecks } from '../checks/feedChecks';
 import { receiveFrequency } from '../checks/checkInputs';
 import { FIELD_CONSTANT_ERP_DB, pathHorizonKm } from '@/shared/rf/propagation';
 import { offAirFeedMinimum } from '@/shared/rf/minimums';
-import { wattsToDbw } from '@/shared/rf/units';
 import type { EngineCore } from './core';
 import { CandidateGrid, distanceLowerBoundKm } from './candidate-grid';
 
@@ -221,14 +220,14 @@ export interface ProposalContext {
   fieldRadiusKm: Float64Array;
   /** per service, built on first use: its fed carriages by position, and the largest field radius among them */
   grids: ({ grid: CandidateGrid; maxFieldRadiusKm: number } | undefined)[];
-  /** planning minimum by service kind and receive frequency (null: none to compare with) */
-  minimumDbuvm: Map<string, number | null>;
+  /** by service kind and receive frequency: the field radius per sqrt(W) of e.r.p. (null: no planning minimum to pass) */
+  radiusFactor: Map<string, number | null>;
 }
 
 export function proposalContext(core: EngineCore): ProposalContext {
   let max = 0;
   for (let c = 0; c < core.model.carriages.length; c++) max = Math.max(max, heightAsl(core, c) ?? 0);
-  return { core, maxHeightAsl: max, fieldRadiusKm: new Float64Array(core.model.carriages.length).fill(Number.NaN), grids: [], minimumDbuvm: new Map() };
+  return { core, maxHeightAsl: max, fieldRadiusKm: new Float64Array(core.model.carriages.length).fill(Number.NaN), grids: [], radiusFactor: new Map() };
 }
 
 /**
@@ -253,14 +252,15 @@ function fieldRadiusKm(ctx: ProposalContext, p: number): number {
       const rx = receiveFrequency(feed, source, kind);
       mhz = rx.ok ? rx.value.mhz : null;
     }
+    // 10^((e.r.p. dBW + 76.9 - minimum + 0.02) / 20) = sqrt(e.r.p. W) x a factor per planning minimum.
     const key = `${kind} ${mhz}`;
-    let minimum = ctx.minimumDbuvm.get(key);
-    if (minimum === undefined) {
+    let factor = ctx.radiusFactor.get(key);
+    if (factor === undefined) {
       const min = offAirFeedMinimum(kind, mhz);
-      minimum = min.ok ? min.minimum.valueDbUvPerM : null;
-      ctx.minimumDbuvm.set(key, minimum);
+      factor = min.ok ? 10 ** ((FIELD_CONSTANT_ERP_DB - min.minimum.valueDbUvPerM + 0.02) / 20) : null;
+      ctx.radiusFactor.set(key, factor);
     }
-    if (minimum !== null) radius = 10 ** ((wattsToDbw(source.erpW) + FIELD_CONSTANT_ERP_DB - minimum + 0.02) / 20);
+    if (factor !== null) radius = Math.sqrt(source.erpW) * factor;
   }
   ctx.fieldRadiusKm[p] = radius;
   return radius;
