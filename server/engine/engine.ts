@@ -27,7 +27,8 @@ import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
 import { IntList } from './removal-walk';
 import { PairsJob, type PairRow } from './pairs';
-import { compareProposals, proposalContext, proposalsFor, type ProposalContext, type ProposalRow } from './proposals';
+import { proposalContext, proposalsFor, type ProposalContext, type ProposalRow } from './proposals';
+import { bestOverNetwork } from './proposals-ranking';
 import type { ElementKind } from '@/shared/schemas/network';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
 import { toGraphology, type ServiceGraph } from './graphs';
@@ -71,7 +72,8 @@ export class NetworkEngine {
   /** carriages with a diversity gap -> their avoidable weak points (element ids) */
   private readonly gaps = new Map<number, number[]>();
   private proposalCtx: ProposalContext | null = null;
-  private bestProposals: ProposalRow[] | null = null;
+  /** the network ranking's first rows, exact; `complete` when it holds every gap carriage's best */
+  private bestProposals: { rows: ProposalRow[]; complete: boolean } | null = null;
 
   private constructor(core: EngineCore, networkVersion: number, started: number) {
     this.core = core;
@@ -255,12 +257,12 @@ export class NetworkEngine {
       const avoidable = this.gaps.get(c);
       rows = avoidable ? proposalsFor(this.proposalCtx, c, avoidable) : [];
     } else {
-      if (!this.bestProposals) {
-        const best: ProposalRow[] = [];
-        for (const [c, avoidable] of this.gaps) best.push(...proposalsFor(this.proposalCtx, c, avoidable, true));
-        this.bestProposals = best.sort((a, b) => compareProposals(a, b) || (a.carriage < b.carriage ? -1 : a.carriage > b.carriage ? 1 : 0));
+      const held = this.bestProposals;
+      if (!held || (!held.complete && (limit === undefined || held.rows.length < limit))) {
+        const ranked = bestOverNetwork(this.proposalCtx, this.gaps, limit);
+        this.bestProposals = { rows: ranked, complete: limit === undefined || ranked.length < limit };
       }
-      rows = this.bestProposals;
+      rows = this.bestProposals!.rows;
     }
     return { networkVersion: this.networkVersion, proposals: limit === undefined ? rows : rows.slice(0, limit) };
   }

@@ -32,8 +32,11 @@
 import type { Feed, Medium } from '@/shared/schemas/network';
 import type { Element } from '@/shared/schemas/analysis';
 import { computeFeedChecks } from '../checks/feedChecks';
-import { pathHorizonKm } from '@/shared/rf/propagation';
+import { receiveFrequency } from '../checks/checkInputs';
+import { FIELD_CONSTANT_ERP_DB, pathHorizonKm } from '@/shared/rf/propagation';
+import { offAirFeedMinimum } from '@/shared/rf/minimums';
 import type { EngineCore } from './core';
+import { CandidateGrid, distanceLowerBoundKm } from './candidate-grid';
 
 export interface ProposalRow {
   carriage: string;
@@ -48,17 +51,14 @@ export interface ProposalRow {
   warnings: string[];
 }
 
-/** Kilometres per degree of latitude, a little under the true ~110.57 so the pre-filter never drops a path in range. */
-const KM_PER_DEGREE_LOW = 110;
-
 /** Height above sea level of a carriage's antenna (ground + antenna, else mast), or null when not recorded. */
-function heightAsl(core: EngineCore, c: number): number | null {
+export function heightAsl(core: EngineCore, c: number): number | null {
   const site = core.model.sites[core.model.carriageSite[c]];
   const above = core.model.carriages[c].antennaHeightM ?? site.mastHeightM;
   return site.groundHeightM === undefined || above === undefined ? null : site.groundHeightM + above;
 }
 
-interface WeakPoint {
+export interface WeakPoint {
   x: number;
   /** true for local nodes of the service that keep programme under {x} */
   alive: (v: number) => boolean;
@@ -70,7 +70,7 @@ interface WeakPoint {
  * The weak-point side of one carriage: for each avoidable weak point, who
  * keeps programme under it and which sites come back when c does.
  */
-function weakPoints(core: EngineCore, c: number, avoidable: readonly number[]): WeakPoint[] {
+export function weakPoints(core: EngineCore, c: number, avoidable: readonly number[]): WeakPoint[] {
   const { model, services, full, carriageNode } = core;
   const s = model.carriageService[c];
   const svc = services[s];
@@ -137,20 +137,28 @@ export interface CandidateEffect {
   households: number;
 }
 
-/** Every candidate source that removes at least one weak point, with its effect (no screening yet). */
-export function candidateEffects(core: EngineCore, c: number, avoidable: readonly number[]): { effects: CandidateEffect[]; origins: Set<number> } {
+/** Origin carriages of c's service (their nodes hang directly under the root). */
+export function originsOf(core: EngineCore, s: number): Set<number> {
+  const view = core.full[s];
+  const origins = new Set<number>();
+  for (let e = view.out.offsets[0]; e < view.out.offsets[1]; e++) origins.add(core.services[s].ref[view.out.targets[e]]);
+  return origins;
+}
+
+/**
+ * The candidates among `nodes` (local carriage nodes of c's service) that
+ * remove at least one weak point, with their effect (no screening yet).
+ */
+export function candidateEffects(core: EngineCore, c: number, weak: readonly WeakPoint[], nodes: Iterable<number>): CandidateEffect[] {
   const { model, services, full, carriageNode } = core;
   const s = model.carriageService[c];
   const svc = services[s];
-  const weak = weakPoints(core, c, avoidable);
   const fed = full[s].tree.alive;
-  const origins = new Set<number>();
-  for (let e = full[s].out.offsets[0]; e < full[s].out.offsets[1]; e++) origins.add(svc.ref[full[s].out.targets[e]]);
   const effects: CandidateEffect[] = [];
   // Households depend only on which weak points a candidate removes: one sum per distinct set.
   const householdsOf = new Map<string, number>();
   const ownSite = model.carriageSite[c];
-  for (let u = 1; u < svc.n; u++) {
+  for (const u of nodes) {
     if (!svc.isCarriage[u] || !fed[u] || u === carriageNode[c]) continue;
     const p = svc.ref[u];
     if (model.carriageSite[p] === ownSite) continue;
@@ -165,26 +173,31 @@ export function candidateEffects(core: EngineCore, c: number, avoidable: readonl
     if (removes.length === 0) continue;
     let households = householdsOf.get(key);
     if (households === undefined) {
-      const counted = new Set<number>();
-      households = 0;
-      for (const w of weak) {
-        if (!removes.includes(w.x)) continue;
-        for (const site of w.sites) {
-          if (!counted.has(site)) {
-            counted.add(site);
-            households += model.siteHouseholds[site];
-          }
-        }
-      }
+      households = householdsOfWeak(core, weak.filter((w) => removes.includes(w.x)));
       householdsOf.set(key, households);
     }
     effects.push({ p, removes, households });
   }
-  return { effects, origins };
+  return effects;
+}
+
+/** Households of the sites that come back when every weak point in `weak` is removed. */
+export function householdsOfWeak(core: EngineCore, weak: readonly WeakPoint[]): number {
+  const counted = new Set<number>();
+  let households = 0;
+  for (const w of weak) {
+    for (const site of w.sites) {
+      if (!counted.has(site)) {
+        counted.add(site);
+        households += core.model.siteHouseholds[site];
+      }
+    }
+  }
+  return households;
 }
 
 /** The feed checks of the new feed p -> c as it would be recorded. */
-function screen(core: EngineCore, p: number, c: number, medium: Medium) {
+export function screenFeed(core: EngineCore, p: number, c: number, medium: Medium) {
   const { model } = core;
   const source = model.carriages[p];
   const target = model.carriages[c];
@@ -203,24 +216,73 @@ export interface ProposalContext {
   core: EngineCore;
   /** the tallest antenna above sea level in the network, m, for the distance pre-filter */
   maxHeightAsl: number;
+  /** per carriage: the farthest distance at which its field strength could still pass, km (-1: never; NaN: not yet known) */
+  fieldRadiusKm: Float64Array;
+  /** per service, built on first use: its fed carriages by position, and the largest field radius among them */
+  grids: ({ grid: CandidateGrid; maxFieldRadiusKm: number } | undefined)[];
+  /** by service kind and receive frequency: the field radius per sqrt(W) of e.r.p. (null: no planning minimum to pass) */
+  radiusFactor: Map<string, number | null>;
 }
 
 export function proposalContext(core: EngineCore): ProposalContext {
   let max = 0;
   for (let c = 0; c < core.model.carriages.length; c++) max = Math.max(max, heightAsl(core, c) ?? 0);
-  return { core, maxHeightAsl: max };
+  return { core, maxHeightAsl: max, fieldRadiusKm: new Float64Array(core.model.carriages.length).fill(Number.NaN), grids: [], radiusFactor: new Map() };
 }
 
-/** A cheap lower bound on the distance between two sites, km (never above the true distance). */
-function distanceLowerBoundKm(core: EngineCore, a: number, b: number): number {
-  const sa = core.model.sites[a];
-  const sb = core.model.sites[b];
-  const dLat = Math.abs(sa.lat - sb.lat);
-  let dLon = Math.abs(sa.lon - sb.lon);
-  if (dLon > 180) dLon = 360 - dLon;
-  const minCos = Math.min(Math.cos((Math.min(Math.abs(sa.lat), 89.9) * Math.PI) / 180), Math.cos((Math.min(Math.abs(sb.lat), 89.9) * Math.PI) / 180));
-  // Equator-ward of both ends the meridians are furthest apart; the poleward cosine is the safe (small) one.
-  return KM_PER_DEGREE_LOW * Math.max(dLat, dLon * Math.max(0, minCos - 0.01));
+/**
+ * The field-strength check passes when round(E(d), 2) >= limit, with E(d) =
+ * e.r.p. (dBW) - 20 log d + 76.9 falling with distance (feedChecks.ts, the
+ * same reads of the source): beyond this radius it cannot. 0.02 dB of slack
+ * covers the rounding to 0.01 dB and floating point.
+ */
+function fieldRadiusKm(ctx: ProposalContext, p: number): number {
+  const known = ctx.fieldRadiusKm[p];
+  if (!Number.isNaN(known)) return known;
+  const { model } = ctx.core;
+  const source = model.carriages[p];
+  const kind = model.services[model.carriageService[p]].kind;
+  let radius = -1;
+  if (source.erpW !== undefined && source.erpW > 0) {
+    // The new feed records no receive frequency, so it is the source's: its frequencyMHz when recorded, else its channel.
+    let mhz: number | null;
+    if (source.frequencyMHz !== undefined) mhz = source.frequencyMHz;
+    else {
+      const feed: Feed = { code: 'new', from: source.code, to: source.code, medium: 'off-air', role: 'reserve' };
+      const rx = receiveFrequency(feed, source, kind);
+      mhz = rx.ok ? rx.value.mhz : null;
+    }
+    // 10^((e.r.p. dBW + 76.9 - minimum + 0.02) / 20) = sqrt(e.r.p. W) x a factor per planning minimum.
+    const key = `${kind} ${mhz}`;
+    let factor = ctx.radiusFactor.get(key);
+    if (factor === undefined) {
+      const min = offAirFeedMinimum(kind, mhz);
+      factor = min.ok ? 10 ** ((FIELD_CONSTANT_ERP_DB - min.minimum.valueDbUvPerM + 0.02) / 20) : null;
+      ctx.radiusFactor.set(key, factor);
+    }
+    if (factor !== null) radius = Math.sqrt(source.erpW) * factor;
+  }
+  ctx.fieldRadiusKm[p] = radius;
+  return radius;
+}
+
+function gridOf(ctx: ProposalContext, s: number) {
+  let entry = ctx.grids[s];
+  if (!entry) {
+    const { core } = ctx;
+    const svc = core.services[s];
+    const fed = core.full[s].tree.alive;
+    const nodes: number[] = [];
+    let maxFieldRadius = -1;
+    for (let u = 1; u < svc.n; u++) {
+      if (!svc.isCarriage[u] || !fed[u]) continue;
+      nodes.push(u);
+      maxFieldRadius = Math.max(maxFieldRadius, fieldRadiusKm(ctx, svc.ref[u]));
+    }
+    entry = { grid: new CandidateGrid(core, s, nodes), maxFieldRadiusKm: maxFieldRadius };
+    ctx.grids[s] = entry;
+  }
+  return entry;
 }
 
 const MEDIUM_RANK = (m: Medium) => (m === 'off-air' ? 0 : 1);
@@ -238,19 +300,24 @@ export function compareProposals(a: ProposalRow, b: ProposalRow): number {
 }
 
 /**
- * Proposals for carriage c, best first. With `bestOnly`, candidates are
- * screened tier by tier of effect and the search stops at the first tier
- * that yields one (the network ranking needs only each carriage's best).
+ * Screens candidates tier by tier of effect (households, then weak points
+ * removed), best first. `mayReach(p)`: false when an off-air feed from p
+ * cannot pass (a cheap exact bound; the full checks decide the rest). With
+ * `bestOnly`, stops at the first tier that yields a proposal.
  */
-export function proposalsFor(ctx: ProposalContext, c: number, avoidable: readonly number[], bestOnly = false): ProposalRow[] {
-  const { core } = ctx;
+export function rankCandidates(
+  core: EngineCore,
+  c: number,
+  effects: CandidateEffect[],
+  origins: ReadonlySet<number>,
+  mayReach: (p: number) => boolean,
+  bestOnly: boolean,
+): ProposalRow[] {
   const { model } = core;
-  const { effects, origins } = candidateEffects(core, c, avoidable);
   effects.sort((a, b) => b.households - a.households || b.removes.length - a.removes.length || a.p - b.p);
   const hc = heightAsl(core, c);
-  const reachKm = hc === null ? -1 : pathHorizonKm(ctx.maxHeightAsl, hc);
   const row = (e: CandidateEffect, medium: Medium): ProposalRow | null => {
-    const checks = screen(core, e.p, c, medium);
+    const checks = screenFeed(core, e.p, c, medium);
     let field: number | null = null;
     let minimum: number | null = null;
     if (medium === 'off-air') {
@@ -281,7 +348,9 @@ export function proposalsFor(ctx: ProposalContext, c: number, avoidable: readonl
     const tier: ProposalRow[] = [];
     for (let k = i; k < j; k++) {
       const e = effects[k];
-      if (hc !== null && distanceLowerBoundKm(core, model.carriageSite[e.p], model.carriageSite[c]) <= reachKm) {
+      // The horizon check's own formula on a distance that never exceeds the true one: only paths that cannot pass are skipped.
+      const hp = hc === null ? null : heightAsl(core, e.p);
+      if (hc !== null && hp !== null && mayReach(e.p) && distanceLowerBoundKm(core, model.carriageSite[e.p], model.carriageSite[c]) <= pathHorizonKm(hp, hc)) {
         const r = row(e, 'off-air');
         if (r) tier.push(r);
       }
@@ -295,3 +364,28 @@ export function proposalsFor(ctx: ProposalContext, c: number, avoidable: readonl
   return rows;
 }
 
+/**
+ * Proposals for carriage c, best first. Only sources that could pass the
+ * off-air screening (the grid within the horizon and field-strength radii)
+ * and origins (satellite or line) are looked at; the answer is the same as
+ * screening every carriage of the service (test/unit/engine/proposals-fast.test.ts).
+ * With `bestOnly`, only the best.
+ */
+export function proposalsFor(ctx: ProposalContext, c: number, avoidable: readonly number[], bestOnly = false, weak?: WeakPoint[]): ProposalRow[] {
+  const { core } = ctx;
+  const { model } = core;
+  const s = model.carriageService[c];
+  weak ??= weakPoints(core, c, avoidable);
+  const origins = originsOf(core, s);
+  const { grid, maxFieldRadiusKm } = gridOf(ctx, s);
+  const hc = heightAsl(core, c);
+  const site = model.carriageSite[c];
+  // No off-air source can be farther than the horizon of the tallest antenna or the largest field radius.
+  const radius = hc === null ? -1 : Math.min(pathHorizonKm(ctx.maxHeightAsl, Math.max(0, hc)), maxFieldRadiusKm);
+  const near = grid.near(site, radius);
+  const nodes = new Set(near);
+  for (const p of origins) nodes.add(core.carriageNode[p]);
+  const effects = candidateEffects(core, c, weak, nodes);
+  const mayReach = (p: number) => distanceLowerBoundKm(core, model.carriageSite[p], site) <= fieldRadiusKm(ctx, p);
+  return rankCandidates(core, c, effects, origins, mayReach, bestOnly);
+}

@@ -126,7 +126,16 @@ function within(c: ChannelInfo, f: number): boolean {
   return kHz(f) >= kHz(c.lowerMHz) && kHz(f) < kHz(c.upperMHz);
 }
 
-function candidates(band: Band): ChannelInfo[] {
+/** Each band's channel list, built once: a frequency look-up is on the hot path of proposals and feed checks. */
+const CHANNELS = new Map<Band, readonly ChannelInfo[]>();
+
+function candidates(band: Band): readonly ChannelInfo[] {
+  let list = CHANNELS.get(band);
+  if (!list) CHANNELS.set(band, (list = channelList(band)));
+  return list;
+}
+
+function channelList(band: Band): ChannelInfo[] {
   switch (band) {
     case 'uhf-tv':
       return Array.from({ length: UHF_LAST - UHF_FIRST + 1 }, (_, i) => uhfChannel(UHF_FIRST + i));
@@ -155,7 +164,8 @@ export function frequencyToChannel(frequencyMHz: number, band: Band): ChannelInf
   }
   const hits = candidates(band).filter((c) => within(c, frequencyMHz));
   hits.sort((a, b) => Math.abs(a.centreMHz - frequencyMHz) - Math.abs(b.centreMHz - frequencyMHz));
-  return hits[0] ?? null;
+  // A copy: callers get their own record, as before the lists were kept.
+  return hits[0] ? { ...hits[0] } : null;
 }
 
 /** Every channel, in any of the given bands, whose bandwidth holds the frequency. */
