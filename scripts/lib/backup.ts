@@ -102,7 +102,10 @@ export async function restoreDatabase(url: string, file: string, opts: { force?:
     const c = new Client({ connectionString: url });
     await c.connect();
     try {
-      await c.query('DROP SCHEMA public CASCADE; CREATE SCHEMA public;');
+      // every schema the backup may hold: public and the job queue's (pgboss), and any other a deployment added
+      const { rows } = await c.query(`SELECT nspname FROM pg_namespace WHERE nspname NOT LIKE 'pg\\_%' AND nspname <> 'information_schema'`);
+      for (const { nspname } of rows as { nspname: string }[]) await c.query(`DROP SCHEMA "${nspname.replace(/"/g, '""')}" CASCADE`);
+      await c.query('CREATE SCHEMA public');
     } finally {
       await c.end();
     }

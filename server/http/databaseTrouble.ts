@@ -4,7 +4,7 @@
  * on, never a 500 and never a hang. The message never carries SQL text.
  * SQLSTATE codes: PostgreSQL documentation, Appendix A "PostgreSQL Error Codes".
  */
-import { ConnectionError } from 'sequelize';
+import { isDatabaseUnavailableError } from '../db/unavailable';
 
 interface PgLike {
   code?: unknown;
@@ -48,21 +48,13 @@ function pgErrorOf(err: unknown): PgLike | undefined {
 
 /** The answer for a database that cannot serve the request; undefined for any other error. */
 export function databaseTrouble(err: unknown): DatabaseTrouble | undefined {
-  // connecting failed, was refused, timed out, or no pooled connection came free in time
-  if (err instanceof ConnectionError) return databaseUnavailable();
   const pg = pgErrorOf(err);
-  if (!pg) return undefined;
-  const code = typeof pg.code === 'string' ? pg.code : '';
+  const code = typeof pg?.code === 'string' ? pg.code : '';
   // 55P03 lock_not_available (lock_timeout), 40P01 deadlock, 40001 serialization failure
   if (code === '55P03' || code === '40P01' || code === '40001') return networkBusy();
   // 57014 query_canceled (statement_timeout)
   if (code === '57014') return databaseBusy();
-  // class 08 connection exception; 57P01-57P03 shutdown, crash, cannot connect now; 53300 too many connections
-  if (/^08/.test(code) || /^57P0[1-3]$/.test(code) || code === '53300') return databaseUnavailable();
-  // the socket closed under a query: node-postgres says so without a SQLSTATE
-  const message = typeof pg.message === 'string' ? pg.message : '';
-  if (code === '' && /Connection terminated|connection is closed|ECONNRESET|Client has encountered a connection error/i.test(message)) {
-    return databaseUnavailable();
-  }
+  // 53300 too many connections; the rest (refused, dropped, shutting down) is one test shared with authentication
+  if (code === '53300' || isDatabaseUnavailableError(err)) return databaseUnavailable();
   return undefined;
 }

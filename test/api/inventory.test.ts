@@ -84,8 +84,9 @@ describe('sites', () => {
 
 describe('services and groups', () => {
   it('creates, lists, shows, updates and deletes a service', async () => {
-    expect((await post('/services', { code: 'DAB1', name: 'Ensemble One', kind: 'dab' })).status).toBe(201);
-    expect(codes(await get('/services?sort=name'))).toEqual(['DAB1', 'TV1', 'FM1']);
+    expect((await post('/services', { code: 'DAB1', name: 'Ensemble Kestle', kind: 'dab' })).status).toBe(201);
+    // by name: Corran Air, Ensemble Kestle, Multiplex One
+    expect(codes(await get('/services?sort=name'))).toEqual(['FM1', 'DAB1', 'TV1']);
     const tv1 = await get('/services/TV1');
     expect(tv1.body).toMatchObject({ service: { code: 'TV1', kind: 'dtt' }, counts: { carriages: 4, feeds: 6 } });
     expect((await patch('/services/DAB1', { version: 1, kind: 'other' })).body.kind).toBe('other');

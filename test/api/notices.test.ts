@@ -124,7 +124,8 @@ describe('notices', () => {
     const mail = got[0];
     expect(mail.subject.length).toBeLessThan(120);
     expect(mail.text).toMatch(/2026-12-04 09:30 UTC/);
-    expect(mail.text).toMatch(/Open in Headwater: http:\/\/headwater\.test\/operations\//);
+    // the link opens the work's or the incident's own screen
+    expect(mail.text).toContain(`Open in Headwater: http://headwater.test/${kind.startsWith('work-') ? 'works' : 'incidents'}/`);
     expect(mail.html).not.toMatch(/<img/i);
     expect(mail.headers['list-unsubscribe']).toMatch(/\/api\/unsubscribe\?token=/);
   });
@@ -137,7 +138,7 @@ describe('notices', () => {
     expect(m.text).toContain('Off air: 2 carriages, 5,000 households');
     expect(m.text).toContain('On reserve: 1 carriage, 1,800 households');
     expect(m.text).toContain('- Multiplex One (TV1)\n    off air: M1.TV1 at Main One, R1.TV1 at Relay One');
-    expect(m.text).toContain('- Programme One (FM1)\n    on reserve: M1.FM1 at Main One');
+    expect(m.text).toContain('- Corran Air (FM1)\n    on reserve: M1.FM1 at Main One');
     expect(m.html).toContain('<strong>Multiplex One (TV1)</strong>');
   });
 
