@@ -30,26 +30,17 @@
  * thumb, not a costing).
  */
 import type { Feed, Medium } from '@/shared/schemas/network';
-import type { Element } from '@/shared/schemas/analysis';
+
 import { computeFeedChecks } from '../checks/feedChecks';
 import { receiveFrequency } from '../checks/checkInputs';
 import { FIELD_CONSTANT_ERP_DB, pathHorizonKm } from '@/shared/rf/propagation';
 import { offAirFeedMinimum } from '@/shared/rf/minimums';
 import type { EngineCore } from './core';
 import { CandidateGrid, distanceLowerBoundKm } from './candidate-grid';
+import type { Proposal } from '@/shared/schemas/analysis';
 
-export interface ProposalRow {
-  carriage: string;
-  from: string;
-  medium: Medium;
-  removes: Element[];
-  householdsProtected: number;
-  distanceKm: number;
-  bearingDeg: number;
-  fieldStrengthDbuvm: number | null;
-  minimumDbuvm: number | null;
-  warnings: string[];
-}
+/** One proposal, in the shape the API answers (shared/schemas/analysis.ts). */
+export type ProposalRow = Proposal;
 
 /** Height above sea level of a carriage's antenna (ground + antenna, else mast), or null when not recorded. */
 export function heightAsl(core: EngineCore, c: number): number | null {
