@@ -12,6 +12,7 @@ import { Incident, IncidentStep } from '../db/models/operations';
 import { ApiError, badRequest, notFound } from '../http/errors';
 import type { AppContext } from '../context';
 import type { NetworkModel } from '../services/networkModel';
+import { countOf } from '@/shared/format';
 import type { OperationsEvent } from './events';
 import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
 import { clashesWith } from './clashes';
@@ -111,7 +112,7 @@ async function emitNewClashes(ctx: AppContext, t: Transaction, i: Incident, befo
     if (had.has(c.work) || c.with !== 'work' || !FIRM_WORK_STATES.includes(c.otherState as WorkState)) continue;
     await ctx.events?.emit(
       t,
-      event(i, 'work-clash', `work-clash:${i.code}:${c.work}:${stepIdx}`, reach, version, `${i.code} and planned work ${c.work} together put ${c.jointLost.length} carriage(s) off air that neither does alone`, {
+      event(i, 'work-clash', `work-clash:${i.code}:${c.work}:${stepIdx}`, reach, version, `${i.code} and planned work ${c.work} together put ${countOf(c.jointLost.length, 'carriage')} off air that neither does alone`, {
         other: c.work,
       }),
     );
@@ -151,7 +152,7 @@ export async function openIncident(ctx: AppContext, actor: OpsActor, body: { tit
       { transaction: t },
     );
     await audit(ctx, t, actor, m.networkVersion, { action: 'create', entityKind: 'incidents', entityCode: i.code, after: shown(i) });
-    await ctx.events?.emit(t, event(i, 'incident-opened', `incident-opened:${i.code}:0`, reach, m.networkVersion, `${i.code} "${i.title}" opened: ${reach.lost.length} carriage(s) off air`));
+    await ctx.events?.emit(t, event(i, 'incident-opened', `incident-opened:${i.code}:0`, reach, m.networkVersion, `${i.code} "${i.title}" opened: ${countOf(reach.lost.length, 'carriage')} off air`));
     const clashes = await clashesOf(m, i, t);
     await emitNewClashes(ctx, t, i, [], clashes, 0, reach, m.networkVersion);
     return answer(m, i, [step], clashes);
@@ -254,7 +255,7 @@ export async function addIncidentUpdate(ctx: AppContext, actor: OpsActor, code: 
     if (closing) {
       await ctx.events?.emit(t, event(i, 'incident-closed', `incident-closed:${i.code}`, reach, networkVersion, `${i.code} "${i.title}" closed; ${Number(i.householdMinutes).toLocaleString('en')} household-minutes off air`));
     } else if (changed) {
-      await ctx.events?.emit(t, event(i, 'incident-updated', `incident-updated:${i.code}:${step.idx}`, reach, networkVersion, `${i.code} "${i.title}" updated: ${reach.lost.length} carriage(s) off air`));
+      await ctx.events?.emit(t, event(i, 'incident-updated', `incident-updated:${i.code}:${step.idx}`, reach, networkVersion, `${i.code} "${i.title}" updated: ${countOf(reach.lost.length, 'carriage')} off air`));
     }
     const clashes = await clashesOf(m, i, t);
     if (changed && !closing) await emitNewClashes(ctx, t, i, clashesBefore, clashes, step.idx, reach, networkVersion);

@@ -18,6 +18,7 @@ import { PlannedWork, Incident } from '../db/models/operations';
 import { ApiError, badRequest, notFound } from '../http/errors';
 import type { AppContext } from '../context';
 import type { NetworkModel } from '../services/networkModel';
+import { countOf } from '@/shared/format';
 import type { OperationsEvent } from './events';
 import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
 import { allClashes, clashesWith, type Spell } from './clashes';
@@ -277,7 +278,7 @@ export async function approveWork(ctx: AppContext, actor: OpsActor, code: string
       if (c.with !== 'work' || !FIRM_WORK_STATES.includes(c.otherState as WorkState)) continue;
       await ctx.events?.emit(
         t,
-        event(m, w, 'work-clash', `${w.code} and ${c.work} together put ${c.jointLost.length} carriage(s) off air that neither does alone`, {
+        event(m, w, 'work-clash', `${w.code} and ${c.work} together put ${countOf(c.jointLost.length, 'carriage')} off air that neither does alone`, {
           key: `work-clash:${w.code}:${c.work}:${w.version}`,
           other: c.work,
           start: c.overlap.start,
