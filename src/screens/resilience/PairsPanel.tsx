@@ -4,6 +4,7 @@
  * background; until then this shows its progress and the rest of the screen
  * stays usable.
  */
+import { formatCount } from '@/shared/format';
 import { StyleSheet, Text, View } from 'react-native';
 import { usePairs } from '@/src/api/queries/planner';
 import { Capped } from '@/src/screens/reach/Capped';
@@ -23,8 +24,8 @@ export function PairsPanel({ name }: { name: ElementNamer }) {
   if (pairs.data.state === 'running') {
     const { percent, done, total } = pairs.data.progress;
     return (
-      <View style={styles.wrap} testID="pairs-running" accessibilityRole="progressbar" accessibilityValue={{ min: 0, max: 100, now: percent }}>
-        <Text style={styles.body}>{`Working out every pair of sites and groups: ${percent} % done (${done.toLocaleString('en-GB')} of ${total.toLocaleString('en-GB')} steps). The rest of this screen works meanwhile.`}</Text>
+      <View style={styles.wrap} testID="pairs-running" accessibilityRole="progressbar" accessibilityLabel="Critical pairs worked out so far" accessibilityValue={{ min: 0, max: 100, now: percent }}>
+        <Text style={styles.body}>{`Working out every pair of sites and groups: ${percent} % done (${formatCount(done)} of ${formatCount(total)} steps). The rest of this screen works meanwhile.`}</Text>
         <View style={styles.track}>
           <View style={[styles.bar, { width: `${Math.max(2, percent)}%` }]} />
         </View>
