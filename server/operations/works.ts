@@ -70,28 +70,6 @@ export async function spellsOverlapping(start: Date, end: Date | null, t?: Trans
   return [...works.map(workSpell), ...incidents.map(incidentSpell)];
 }
 
-function answer(m: NetworkModel, w: PlannedWork, clashes: WorkAnswer['clashes']): WorkAnswer {
-  const r = reachCacheFor(m).of(w.elements);
-  return {
-    code: w.code,
-    title: w.title,
-    elements: w.elements,
-    start: w.startAt.toISOString(),
-    end: w.endAt.toISOString(),
-    notes: w.notes,
-    state: w.state,
-    stateLabel: WORK_STATE_LABELS[w.state],
-    requestedBy: w.requestedByEmail,
-    approvedBy: w.approvedByEmail,
-    version: w.version,
-    updatedAt: w.updatedAt.toISOString(),
-    networkVersion: m.networkVersion,
-    missing: r.missing,
-    reach: r.reach,
-    clashes,
-  };
-}
-
 const shown = (w: PlannedWork) => ({
   code: w.code,
   title: w.title,
@@ -104,6 +82,20 @@ const shown = (w: PlannedWork) => ({
   approvedBy: w.approvedByEmail,
   version: w.version,
 });
+
+function answer(m: NetworkModel, w: PlannedWork, clashes: WorkAnswer['clashes']): WorkAnswer {
+  const r = reachCacheFor(m).of(w.elements);
+  return {
+    ...shown(w),
+    stateLabel: WORK_STATE_LABELS[w.state],
+    updatedAt: w.updatedAt.toISOString(),
+    networkVersion: m.networkVersion,
+    missing: r.missing,
+    reach: r.reach,
+    clashes,
+  };
+}
+
 
 async function clashesOf(m: NetworkModel, w: PlannedWork, t?: Transaction) {
   if (!LIVE_WORK_STATES.includes(w.state)) return [];

@@ -3,6 +3,7 @@
  * filtered by kind, a page at a time. Others see a plain "not allowed";
  * the server refuses them anyway.
  */
+import { countOf } from '@/shared/format';
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -47,7 +48,7 @@ export function AuditScreen() {
         onChange={(k) => router.setParams({ kind: k === ALL ? undefined : k, page: undefined })}
         testID="audit-kind"
       />
-      <Section title={audit.data ? `${audit.data.total.toLocaleString('en')} ${audit.data.total === 1 ? 'change' : 'changes'}` : 'Changes'} note="Newest first" testID="audit-list">
+      <Section title={audit.data ? countOf(audit.data.total, 'change') : 'Changes'} note="Newest first" testID="audit-list">
         {audit.data ? (
           audit.data.total === 0 ? (
             <EmptyState title="No changes recorded" message={filter.kind ? 'Nothing of this kind has changed yet.' : 'Nothing has been recorded yet.'} testID="audit-empty" />

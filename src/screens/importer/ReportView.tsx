@@ -4,6 +4,7 @@
  * a wide screen; on a phone one card per issue, the message first.
  */
 import { StyleSheet, Text, View } from 'react-native';
+import { countOf, formatCount } from '@/shared/format';
 import type { ImportReport } from '@/shared/schemas/import';
 import { Badge } from '@/src/components/Badge';
 import { DataTable } from '@/src/components/DataTable/DataTable';
@@ -29,7 +30,7 @@ export function ReportView({ report }: { report: ImportReport }) {
   const failed = report.errors.length > 0;
   const counts = countRows(report);
   const total = issueTotals(report);
-  const plural = (n: number, word: string) => `${n.toLocaleString('en')} ${word}${n === 1 ? '' : 's'}`;
+  const plural = (n: number, word: string) => countOf(n, word);
 
   return (
     <View role="region" aria-label="Import report" style={styles.region} testID="import-report">
@@ -100,7 +101,7 @@ export function ReportView({ report }: { report: ImportReport }) {
             </View>
           )}
           {issues.length > shown.length || total.unlisted > 0 ? (
-            <Text style={styles.meta} testID="import-unlisted">{`Showing the first ${shown.length.toLocaleString('en')} problems, and ${(issues.length - shown.length + total.unlisted).toLocaleString('en')} more.`}</Text>
+            <Text style={styles.meta} testID="import-unlisted">{`Showing the first ${formatCount(shown.length)} problems, and ${formatCount(issues.length - shown.length + total.unlisted)} more.`}</Text>
           ) : null}
         </View>
       ) : null}
