@@ -16,7 +16,7 @@
 import fs from 'node:fs';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import type { Element } from '@/shared/schemas/analysis';
-import { buildNetworkModel } from '@/server/services/networkModel';
+import { buildServedNetwork } from '@/server/services/servedNetwork';
 import { OperationsReachCache } from '@/server/operations/reach';
 import { allClashes, clashesWith, overlaps, type Spell } from '@/server/operations/clashes';
 import { Prng } from './generator/prng';
@@ -65,7 +65,7 @@ export function randomWorks(doc: NetworkDocument, count: number, seed: number): 
 
 export function benchOperations(doc: NetworkDocument, opts: { seed?: number; works?: number } = {}): OperationsBenchResult {
   const seed = opts.seed ?? 7;
-  const model = buildNetworkModel(doc, 1);
+  const model = buildServedNetwork(doc, 1);
   const works = randomWorks(doc, opts.works ?? 500, seed);
   let overlappingPairs = 0;
   for (let i = 0; i < works.length; i++) for (let j = i + 1; j < works.length; j++) if (overlaps(works[i], works[j])) overlappingPairs++;

@@ -15,7 +15,7 @@ import { loadConfig } from '@/server/config';
 import { openDatabase } from '@/server/db';
 import { importNetwork } from '@/server/services/importer';
 import { loadNetworkDocument } from '@/server/services/networkLoader';
-import { buildNetworkModel } from '@/server/services/networkModel';
+import { buildServedNetwork } from '@/server/services/servedNetwork';
 import { startServer } from '@/server/server';
 import { ensureUser } from '@/server/services/users';
 import { benchEngine, percentile, round, type EngineBenchResult } from './bench-engine';
@@ -92,7 +92,7 @@ async function benchSize(sites: number): Promise<SizeResult> {
     t = performance.now();
     const { document, version } = await loadNetworkDocument(db.sequelize);
     const loadFromDbMs = performance.now() - t;
-    const model = buildNetworkModel(document, version);
+    const model = buildServedNetwork(document, version);
     const rebuildFromDbMs = performance.now() - t;
     console.log(`  rebuild from PostgreSQL ${(rebuildFromDbMs / 1000).toFixed(2)} s (read ${(loadFromDbMs / 1000).toFixed(2)} s)`);
     void model;

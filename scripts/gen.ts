@@ -10,7 +10,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { DEFAULT_FAULT_SHARE, generateNetwork, MAX_SITES } from './generator';
-import { documentToCsv } from '@/server/network/csv';
+import { documentToCsv } from '@/server/interchange/csv';
 
 const USAGE = `usage: npm run gen -- --sites N --seed S [--faults SHARE] [--format json|csv] [--out FILE|DIR]
   --sites N     number of sites, 1-${MAX_SITES}

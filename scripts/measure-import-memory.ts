@@ -1,6 +1,6 @@
 /**
  * Peak memory (RSS) of reading and checking the largest imports the upload
- * limits allow (server/network/limits.ts), each in a fresh process:
+ * limits allow (server/interchange/limits.ts), each in a fresh process:
  *   npx tsx scripts/measure-import-memory.ts
  * "generated": a 20,000-site generated network as a zip of its CSV files;
  * "widest": the byte limit filled with the row limit of site rows (the most
@@ -11,10 +11,10 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { buildZip } from '@/test/helpers/zip';
-import { documentToCsv } from '@/server/network/csv';
-import { UPLOAD_LIMITS } from '@/server/network/limits';
-import { readUploads } from '@/server/network/upload';
-import { validateDocument } from '@/server/network/validate';
+import { documentToCsv } from '@/server/interchange/csv';
+import { UPLOAD_LIMITS } from '@/server/interchange/limits';
+import { readUploads } from '@/server/interchange/upload';
+import { validateDocument } from '@/server/interchange/validate';
 import { generateNetwork } from './generator';
 
 const mb = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(0)} MB`;

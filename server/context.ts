@@ -1,7 +1,7 @@
 import type { Config } from './config';
 import type { Database } from './db';
 import type { NetworkStore } from './services/networkStore';
-import type { NetworkModel } from './services/networkModel';
+import type { ServedNetwork } from './services/servedNetwork';
 import type { OperationsEvents } from './operations/events';
 import type { ObjectStore } from './documents/storage';
 import type { MailboxStandin } from './standins/mailbox';
@@ -11,7 +11,7 @@ import type { NoticeQueue } from './notices/queue';
 export interface AppContext {
   config: Config;
   db: Database;
-  network: NetworkStore<NetworkModel>;
+  network: NetworkStore<ServedNetwork>;
   /** planned-work and incident events, for whoever tells people about them; optional so older wiring still builds */
   events?: OperationsEvents;
   /** documents' object store (S3_ENDPOINT, S3_BUCKET ...) */

@@ -5,9 +5,9 @@
  * warm-up run; the report gives the median and the worst of the runs, as wall
  * time and as CPU time of this process (less disturbed by other load).
  */
-import { validateDocument } from '@/server/network/validate';
-import { documentToCsv } from '@/server/network/csv';
-import { validateCsvFiles } from '@/server/network/upload';
+import { validateDocument } from '@/server/interchange/validate';
+import { documentToCsv } from '@/server/interchange/csv';
+import { validateCsvFiles } from '@/server/interchange/upload';
 import { generateNetwork } from './index';
 
 const RUNS = 3;

@@ -9,7 +9,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { NetworkDocument } from '@/shared/schemas/network';
-import { validateDocument } from '@/server/network/validate';
+import { validateDocument } from '@/server/interchange/validate';
 import { generateNetwork } from './index';
 
 const ROOT = path.resolve(__dirname, '..', '..');

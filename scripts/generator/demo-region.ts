@@ -4,7 +4,7 @@
  * by hand around the sites, is assets/demo/demo-coast.json). It lies in
  * open ocean in the South Atlantic so that no real place, station or
  * operator is meant; the ground heights are made up as if it were hill
- * country. Moving a site off the island fails test/unit/network/demo.test.ts.
+ * country. Moving a site off the island fails test/unit/interchange/demo.test.ts.
  *
  * Planted data problems, for the tools to find:
  * - UNFED_CARRIAGE has no feed at all;

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import { bearingDifferenceDeg, geodesicInverse } from '@/shared/rf/geodesy';
 import { tryParseChannel } from '@/shared/rf/bands';
-import { validateDocument } from '@/server/network/validate';
+import { validateDocument } from '@/server/interchange/validate';
 import { generateNetwork, planCounts } from './index';
 import { Prng } from './prng';
 import { parseArgs } from '../gen';

@@ -4,7 +4,7 @@
  * in-memory network model. Codes the model no longer knows are kept as given.
  */
 import type { OperationsEvent } from '../operations/events';
-import type { NetworkModel } from '../services/networkModel';
+import type { ServedNetwork } from '../services/servedNetwork';
 
 export interface CarriageLine {
   code: string;
@@ -23,7 +23,7 @@ export interface ResolvedReach {
   byService: ServiceLines[];
 }
 
-export function resolveReach(event: OperationsEvent, model: NetworkModel | null): ResolvedReach {
+export function resolveReach(event: OperationsEvent, model: ServedNetwork | null): ResolvedReach {
   const byService = new Map<string, ServiceLines>();
   const sites = new Set<string>();
   const add = (code: string, which: 'lost' | 'fallback') => {

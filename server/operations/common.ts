@@ -4,7 +4,7 @@ import type { Role } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
 import { ApiError } from '../http/errors';
 import type { AppContext } from '../context';
-import type { NetworkModel } from '../services/networkModel';
+import type { ServedNetwork } from '../services/servedNetwork';
 import { recordAudit, type AuditEntry } from '../services/audit';
 import { currentModel } from '../routes/checks';
 import { canonicalElements } from './reach';
@@ -15,10 +15,10 @@ export interface OpsActor {
   role?: Role;
 }
 
-export const model = (ctx: AppContext): NetworkModel => currentModel(ctx);
+export const model = (ctx: AppContext): ServedNetwork => currentModel(ctx);
 
 /** Canonical elements, all known to the current network; otherwise a 422 naming the unknown ones. */
-export function knownElements(m: NetworkModel, elements: readonly Element[], field = 'elements'): Element[] {
+export function knownElements(m: ServedNetwork, elements: readonly Element[], field = 'elements'): Element[] {
   const canonical = canonicalElements(elements);
   const unknown = canonical.filter((e) => !m.engine.hasElement(e));
   if (unknown.length > 0) {

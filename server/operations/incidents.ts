@@ -11,7 +11,7 @@ import { FIRM_WORK_STATES, type Clash, type FrozenReach, type IncidentAnswer, ty
 import { Incident, IncidentStep } from '../db/models/operations';
 import { ApiError, badRequest, notFound } from '../http/errors';
 import type { AppContext } from '../context';
-import type { NetworkModel } from '../services/networkModel';
+import type { ServedNetwork } from '../services/servedNetwork';
 import { countOf } from '@/shared/format';
 import type { OperationsEvent } from './events';
 import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
@@ -71,13 +71,13 @@ async function stepsOf(i: Incident, t?: Transaction) {
   return IncidentStep.findAll({ where: { incidentId: i.id }, order: [['idx', 'ASC']], transaction: t });
 }
 
-async function clashesOf(m: NetworkModel, i: Incident, t?: Transaction): Promise<Clash[]> {
+async function clashesOf(m: ServedNetwork, i: Incident, t?: Transaction): Promise<Clash[]> {
   if (i.endedAt) return [];
   const others = await spellsOverlapping(i.startedAt, null, t);
   return clashesWith(reachCacheFor(m), incidentSpell(i), others);
 }
 
-function answer(m: NetworkModel, i: Incident, steps: IncidentStep[], clashes: Clash[]): IncidentAnswer {
+function answer(m: ServedNetwork, i: Incident, steps: IncidentStep[], clashes: Clash[]): IncidentAnswer {
   return {
     ...shown(i),
     open: i.endedAt === null,

@@ -12,7 +12,7 @@
 import type { Element } from '@/shared/schemas/analysis';
 import { compareElements, elementKey } from '@/shared/schemas/analysis';
 import type { FrozenReach, OperationsReach } from '@/shared/schemas/operations';
-import type { NetworkModel } from '../services/networkModel';
+import type { ServedNetwork } from '../services/servedNetwork';
 
 export interface ReachSets {
   reach: OperationsReach;
@@ -39,7 +39,7 @@ export class OperationsReachCache {
   private readonly sets = new Map<string, ReachSets>();
   private readonly lostSets = new Map<string, LostSet>();
 
-  constructor(readonly model: NetworkModel) {}
+  constructor(readonly model: ServedNetwork) {}
 
   get networkVersion() {
     return this.model.networkVersion;
@@ -142,8 +142,8 @@ interface Adjacency {
   viaFeedTargets: Map<string, string[]>; // site -> targets of feeds passing via it
   feedTarget: Map<string, string>;
 }
-const adjacencies = new WeakMap<NetworkModel, Adjacency>();
-function adjacencyFor(model: NetworkModel): Adjacency {
+const adjacencies = new WeakMap<ServedNetwork, Adjacency>();
+function adjacencyFor(model: ServedNetwork): Adjacency {
   let a = adjacencies.get(model);
   if (a) return a;
   const push = (m: Map<string, string[]>, k: string, v: string) => {
@@ -170,7 +170,7 @@ function adjacencyFor(model: NetworkModel): Adjacency {
  * down sites and the targets of its down feeds, and everything they feed. A
  * carriage the set's removal can affect, alone or with another set, is in here.
  */
-function downstreamOf(model: NetworkModel, elements: readonly Element[]): Set<string> {
+function downstreamOf(model: ServedNetwork, elements: readonly Element[]): Set<string> {
   const a = adjacencyFor(model);
   const start: string[] = [];
   const downSite = (site: string) => {
@@ -196,8 +196,8 @@ function downstreamOf(model: NetworkModel, elements: readonly Element[]): Set<st
   return seen;
 }
 
-const caches = new WeakMap<NetworkModel, OperationsReachCache>();
-export function reachCacheFor(model: NetworkModel): OperationsReachCache {
+const caches = new WeakMap<ServedNetwork, OperationsReachCache>();
+export function reachCacheFor(model: ServedNetwork): OperationsReachCache {
   let c = caches.get(model);
   if (!c) caches.set(model, (c = new OperationsReachCache(model)));
   return c;

@@ -17,7 +17,7 @@ import {
 import { PlannedWork, Incident } from '../db/models/operations';
 import { ApiError, badRequest, notFound } from '../http/errors';
 import type { AppContext } from '../context';
-import type { NetworkModel } from '../services/networkModel';
+import type { ServedNetwork } from '../services/servedNetwork';
 import { countOf } from '@/shared/format';
 import type { OperationsEvent } from './events';
 import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
@@ -83,7 +83,7 @@ const shown = (w: PlannedWork) => ({
   version: w.version,
 });
 
-function answer(m: NetworkModel, w: PlannedWork, clashes: WorkAnswer['clashes']): WorkAnswer {
+function answer(m: ServedNetwork, w: PlannedWork, clashes: WorkAnswer['clashes']): WorkAnswer {
   const r = reachCacheFor(m).of(w.elements);
   return {
     ...shown(w),
@@ -97,13 +97,13 @@ function answer(m: NetworkModel, w: PlannedWork, clashes: WorkAnswer['clashes'])
 }
 
 
-async function clashesOf(m: NetworkModel, w: PlannedWork, t?: Transaction) {
+async function clashesOf(m: ServedNetwork, w: PlannedWork, t?: Transaction) {
   if (!LIVE_WORK_STATES.includes(w.state)) return [];
   const others = await spellsOverlapping(w.startAt, w.endAt, t);
   return clashesWith(reachCacheFor(m), workSpell(w), others);
 }
 
-function event(m: NetworkModel, w: PlannedWork, kind: OperationsEvent['kind'], summary: string, extra: Partial<OperationsEvent> = {}): OperationsEvent {
+function event(m: ServedNetwork, w: PlannedWork, kind: OperationsEvent['kind'], summary: string, extra: Partial<OperationsEvent> = {}): OperationsEvent {
   return {
     kind,
     code: w.code,

@@ -5,9 +5,9 @@ import { checksForFeed, CheckInputError, networkCheckFailures } from '../checks/
 import { ApiError, notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
-import type { NetworkModel } from '../services/networkModel';
+import type { ServedNetwork } from '../services/servedNetwork';
 
-export function currentModel(ctx: AppContext): NetworkModel {
+export function currentModel(ctx: AppContext): ServedNetwork {
   const m = ctx.network.model;
   if (!m) throw new ApiError(503, 'starting', 'the network is still loading; try again in a moment');
   return m;
@@ -18,15 +18,15 @@ export function currentModel(ctx: AppContext): NetworkModel {
  * own: one feed's checks (also read by every chain hop) and the whole list,
  * computed once at the lowest severity and filtered for the higher one.
  */
-const cache = new WeakMap<NetworkModel, { feeds: Map<string, FeedChecksAnswer>; failures?: ChecksListAnswer }>();
-function cacheOf(m: NetworkModel) {
+const cache = new WeakMap<ServedNetwork, { feeds: Map<string, FeedChecksAnswer>; failures?: ChecksListAnswer }>();
+function cacheOf(m: ServedNetwork) {
   let c = cache.get(m);
   if (!c) cache.set(m, (c = { feeds: new Map() }));
   return c;
 }
 
 /** One feed's checks from the model's cache; throws CheckInputError naming an unknown code. */
-export function cachedFeedChecks(m: NetworkModel, code: string): FeedChecksAnswer {
+export function cachedFeedChecks(m: ServedNetwork, code: string): FeedChecksAnswer {
   const c = cacheOf(m);
   let answer = c.feeds.get(code);
   if (!answer) c.feeds.set(code, (answer = checksForFeed(m, code)));

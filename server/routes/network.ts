@@ -7,7 +7,7 @@
  *        with one or more `file` fields: a .json document, CSV files named by
  *        their kind (sites.csv, ...), or zips of them
  *        -> 200 the import report; 422 the report when it lists errors;
- *           413 an upload past a limit (server/network/limits.ts); 429 with
+ *           413 an upload past a limit (server/interchange/limits.ts); 429 with
  *           Retry-After when imports are queued up (one runs at a time);
  *           409 stale-base for a replace from an older baseVersion without undoNewer
  *   GET  /network/export   ?format=json (default) | csv (a zip of the five CSV files and manifest.csv);
@@ -24,14 +24,14 @@ import { ApiError, badRequest, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { importNetwork } from '../services/importer';
-import { readUploads } from '../network/upload';
-import { UploadLimitError } from '../network/limits';
+import { readUploads } from '../interchange/upload';
+import { UploadLimitError } from '../interchange/limits';
 import { ImportQueue } from '../services/import/queue';
 import { clip } from '@/shared/clip';
 import { loadNetworkDocument } from '../services/networkLoader';
 import { exportJson } from '../services/exportCache';
 import { AUDIT_ACTIONS, AUDIT_KINDS, listAudit, type AuditAction, type AuditKind } from '../services/audit';
-import { documentToZip } from '../network/csv';
+import { documentToZip } from '../interchange/csv';
 import { MAX_PAGE_SIZE } from '../services/inventory/read';
 import { actorOf } from './inventory';
 

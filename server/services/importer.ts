@@ -11,8 +11,8 @@ import crypto from 'node:crypto';
 import { ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
 import type { ImportIssue, ImportReport } from '@/shared/schemas/import';
 import type { Database } from '../db';
-import { validateDocument } from '../network/validate';
-import { capIssues, type RowsOf } from '../network/issues';
+import { validateDocument } from '../interchange/validate';
+import { capIssues, type RowsOf } from '../interchange/issues';
 import { loadNetworkDocument } from './networkLoader';
 import type { Actor } from './audit';
 import { countsOf, emptyCounts, planImport, type ImportPlan } from './import/plan';
@@ -27,7 +27,7 @@ export interface ImportOptions {
   /** make the network equal to the document: delete what it leaves out */
   replace?: boolean;
   actor?: Actor;
-  /** for a document read from CSV (server/network/csv.ts readCsvFiles): each entity's file and row */
+  /** for a document read from CSV (server/interchange/csv.ts readCsvFiles): each entity's file and row */
   rowsOf?: RowsOf;
   /** problems found reading the upload itself (file names, headers, CSV syntax), reported first */
   sourceErrors?: ImportIssue[];
@@ -40,7 +40,7 @@ export interface ImportOptions {
 /** Below this many written rows the planner's old statistics do no harm (tables.ts, analyze). */
 const ANALYZE_AFTER_ROWS = 2000;
 
-/** Issues found beyond what the validator keeps: only counted (server/network/issues.ts). */
+/** Issues found beyond what the validator keeps: only counted (server/interchange/issues.ts). */
 interface Unlisted {
   moreErrors?: number;
   moreWarnings?: number;

@@ -16,7 +16,7 @@ import type { PlanAnswer } from '@/shared/schemas/analysis';
 import type { NetworkEngine } from '../engine/engine';
 import type { PairsJob, PairRow } from '../engine/pairs';
 import { greedyPlan, type GreedyPlan } from '../engine/plan';
-import type { NetworkModel } from './networkModel';
+import type { ServedNetwork } from './servedNetwork';
 
 export const PAIRS_SLICE_MS = 25;
 export const PLAN_TTL_MS = 30 * 60_000;
@@ -87,7 +87,7 @@ function sweep(now: number): void {
 }
 
 /** Makes a greedy plan on the current model and keeps it as a sandbox. */
-export async function makePlan(model: NetworkModel, budget: number): Promise<StoredPlan> {
+export async function makePlan(model: ServedNetwork, budget: number): Promise<StoredPlan> {
   const plan = await greedyPlan(model.document, model.networkVersion, budget, model.engine, yieldNow);
   const now = Date.now();
   sweep(now);

@@ -52,7 +52,7 @@ export interface ImportReport {
   /**
    * Set when a replace-import comes from an older network version than the
    * stored one: carrying it out would undo the changes made since, so it
-   * needs undoNewer=true (server/network/README.md "Versions").
+   * needs undoNewer=true (server/interchange/README.md "Versions").
    */
   stale?: StaleBase;
   /** the network version after the import (unchanged on a dry run or an error) */

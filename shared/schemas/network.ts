@@ -94,7 +94,7 @@ export const NETWORK_FORMAT = 'network/1' as const;
 /** Top-level shape only; entities are checked one by one so every error is reported. */
 export const networkDocumentShape = z.strictObject({
   format: z.literal(NETWORK_FORMAT, { error: `format must be "${NETWORK_FORMAT}"` }),
-  /** the network version the document was exported at (or made from); see server/network/README.md */
+  /** the network version the document was exported at (or made from); see server/interchange/README.md */
   baseVersion: z.number({ error: 'baseVersion must be a whole number' }).int('baseVersion must be a whole number').min(0).optional(),
   sites: z.array(z.unknown()).optional(),
   services: z.array(z.unknown()).optional(),

@@ -6,7 +6,7 @@
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { MAX_REPORTED_ISSUES } from '@/shared/schemas/import';
-import { UPLOAD_LIMITS } from '@/server/network/limits';
+import { UPLOAD_LIMITS } from '@/server/interchange/limits';
 import { smallNetwork } from '../fixtures/small-network';
 import { useTestApp } from '../helpers/testApp';
 import { countOf, uploadFiles } from '../helpers/upload';

@@ -4,7 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { NetworkStore } from '@/server/services/networkStore';
-import { buildNetworkModel } from '@/server/services/networkModel';
+import { buildServedNetwork } from '@/server/services/servedNetwork';
 import { bumpNetworkVersion } from '@/server/db';
 import { makeTestApp, type TestApp } from '../helpers/testApp';
 import { waitFor } from '../helpers/cluster';
@@ -18,7 +18,7 @@ afterAll(async () => t?.close());
 
 describe('NetworkStore', () => {
   it('keeps answering from the last complete model while a rebuild runs, then swaps in the new one', async () => {
-    const store = new NetworkStore(t.db.sequelize, t.db.url, buildNetworkModel);
+    const store = new NetworkStore(t.db.sequelize, t.db.url, buildServedNetwork);
     await store.refresh();
     const before = store.model!;
     const version = await t.db.sequelize.transaction((tx) => bumpNetworkVersion(t.db.sequelize, tx));
@@ -48,7 +48,7 @@ describe('NetworkStore', () => {
   });
 
   it('catches a lost notification with the periodic version check', async () => {
-    const store = new NetworkStore(t.db.sequelize, t.db.url, buildNetworkModel, { checkEveryMs: 300 });
+    const store = new NetworkStore(t.db.sequelize, t.db.url, buildServedNetwork, { checkEveryMs: 300 });
     await store.start();
     try {
       const before = store.model!.networkVersion;
@@ -63,7 +63,7 @@ describe('NetworkStore', () => {
   });
 
   it('opens exactly one new listener when its connection is cut, and none after close', async () => {
-    const store = new NetworkStore(t.db.sequelize, t.db.url, buildNetworkModel, { retryMinMs: 50, retryMaxMs: 200, checkEveryMs: 600_000 });
+    const store = new NetworkStore(t.db.sequelize, t.db.url, buildServedNetwork, { retryMinMs: 50, retryMaxMs: 200, checkEveryMs: 600_000 });
     const listeners = async () => {
       const [rows] = await t.db.sequelize.query('SELECT pid FROM pg_stat_activity WHERE application_name = $1', { bind: [store.listenerName] });
       return (rows as { pid: number }[]).map((r) => r.pid);

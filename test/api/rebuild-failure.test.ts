@@ -5,7 +5,7 @@
  */
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { buildNetworkModel } from '@/server/services/networkModel';
+import { buildServedNetwork } from '@/server/services/servedNetwork';
 import { smallNetwork } from '../fixtures/small-network';
 import { makeTestApp } from '../helpers/testApp';
 import { waitFor } from '../helpers/cluster';
@@ -14,13 +14,13 @@ import { afterAll, beforeAll, beforeEach } from 'vitest';
 let failures = 0;
 const builds: number[] = [];
 /** the real builder, made to fail `failures` more times */
-const flakyBuild: typeof buildNetworkModel = (doc, version) => {
+const flakyBuild: typeof buildServedNetwork = (doc, version) => {
   builds.push(version);
   if (failures > 0) {
     failures -= 1;
     throw new Error('injected builder fault');
   }
-  return buildNetworkModel(doc, version);
+  return buildServedNetwork(doc, version);
 };
 
 let t: Awaited<ReturnType<typeof makeTestApp>>;

@@ -7,7 +7,7 @@
  * the carriage that causes it is reported.
  */
 import type { NetworkDocument } from '@/shared/schemas/network';
-import { IssueSink, type RowsOf } from '@/server/network/issues';
+import { IssueSink, type RowsOf } from '@/server/interchange/issues';
 import type { ImportIssue } from '@/shared/schemas/import';
 
 export function checkKeptFeeds(stored: NetworkDocument, document: NetworkDocument, rowsOf?: RowsOf): ImportIssue[] {

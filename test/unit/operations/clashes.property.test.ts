@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { Element } from '@/shared/schemas/analysis';
 import { elementKey } from '@/shared/schemas/analysis';
-import { buildNetworkModel } from '@/server/services/networkModel';
+import { buildServedNetwork } from '@/server/services/servedNetwork';
 import { OperationsReachCache } from '@/server/operations/reach';
 import { allClashes, clashesWith, type Spell } from '@/server/operations/clashes';
 import { outageFigures } from '@/server/operations/incidents';
@@ -87,7 +87,7 @@ describe('clashes agree with the brute force', () => {
         const brute = new BruteForce(doc);
         const elements = brute.elements();
         if (elements.length === 0) return;
-        const cache = new OperationsReachCache(buildNetworkModel(doc, 3));
+        const cache = new OperationsReachCache(buildServedNetwork(doc, 3));
         const spells = randomSpells(elements, seed);
         const found = allClashes(cache, spells);
         for (const a of spells) {
@@ -127,7 +127,7 @@ describe('incident step reach agrees with the brute force', () => {
         const elements = brute.elements();
         if (elements.length === 0) return;
         const rnd = prng(seed);
-        const cache = new OperationsReachCache(buildNetworkModel(doc, 5));
+        const cache = new OperationsReachCache(buildServedNetwork(doc, 5));
         let failed = new Map<string, Element>();
         const steps: { at: Date; reach: ReturnType<OperationsReachCache['frozen']> }[] = [];
         let t = 0;

@@ -6,7 +6,7 @@
 import type { NetworkDocument, Site, Carriage, Feed, Service, Group } from '@/shared/schemas/network';
 import { NetworkEngine } from '../engine/engine';
 
-export interface NetworkModel {
+export interface ServedNetwork {
   networkVersion: number;
   document: NetworkDocument;
   sites: Map<string, Site>;
@@ -20,7 +20,7 @@ export interface NetworkModel {
 
 const byCode = <T extends { code: string }>(items: T[]) => new Map(items.map((i) => [i.code, i]));
 
-export function buildNetworkModel(document: NetworkDocument, networkVersion: number): NetworkModel {
+export function buildServedNetwork(document: NetworkDocument, networkVersion: number): ServedNetwork {
   return {
     networkVersion,
     document,

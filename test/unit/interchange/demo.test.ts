@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import type { Feed, NetworkDocument } from '@/shared/schemas/network';
 import { bearingDifferenceDeg, geodesicInverse } from '@/shared/rf/geodesy';
 import { tryParseChannel } from '@/shared/rf/bands';
-import { validateDocument } from '@/server/network/validate';
+import { validateDocument } from '@/server/interchange/validate';
 import { demoFixtureText } from '@/scripts/generator/demo';
 import * as region from '@/scripts/generator/demo-region';
 import * as turf from '@turf/turf';
