@@ -1,13 +1,9 @@
 /** Incidents (server/operations): the list, one incident with its frozen steps, opening and updating. */
 import { useMemo } from 'react';
-import { useSWRConfig } from 'swr';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
-import type { IncidentAnswer } from '@/shared/schemas/operations';
-import { useSend } from '../ApiProvider';
-import { parseAnswer } from '../client';
 import { incidentAnswerSchema, incidentListSchema } from '../operationsSchemas';
-import { useApiQuery } from '../useApiQuery';
+import { useApiQuery, useRecordWrites } from '../useApiQuery';
 
 export const incidentsKey = () => api.incidents;
 export const incidentKey = (code: string) => api.incident(code);
@@ -31,20 +27,13 @@ export interface IncidentChange {
 }
 
 export function useIncidentActions() {
-  const send = useSend();
-  const { mutate } = useSWRConfig();
-  return useMemo(() => {
-    const done = async (path: string, answer: unknown): Promise<IncidentAnswer> => {
-      const i = parseAnswer(incidentAnswerSchema, path, answer);
-      await mutate(isIncidentKey);
-      return i;
-    };
-    return {
-      open: async (body: { title: string; elements: Element[]; startedAt?: string; note?: string }) =>
-        done(api.incidents, await send(api.incidents, { method: 'POST', body })),
-      update: async (code: string, change: IncidentChange) => done(api.incidentUpdates(code), await send(api.incidentUpdates(code), { method: 'POST', body: change })),
-      change: async (code: string, change: { version: number; title?: string; startedAt?: string }) =>
-        done(api.incident(code), await send(api.incident(code), { method: 'PATCH', body: change })),
-    };
-  }, [send, mutate]);
+  const { write } = useRecordWrites(incidentAnswerSchema, isIncidentKey);
+  return useMemo(
+    () => ({
+      open: (body: { title: string; elements: Element[]; startedAt?: string; note?: string }) => write(api.incidents, 'POST', body),
+      update: (code: string, change: IncidentChange) => write(api.incidentUpdates(code), 'POST', change),
+      change: (code: string, change: { version: number; title?: string; startedAt?: string }) => write(api.incident(code), 'PATCH', change),
+    }),
+    [write],
+  );
 }

@@ -1,13 +1,10 @@
 /** Planned works (server/operations): the list, one work with its reach and clashes, and the changes. */
 import { useMemo } from 'react';
-import { useSWRConfig } from 'swr';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
-import type { WorkAnswer, WorkState } from '@/shared/schemas/operations';
-import { useSend } from '../ApiProvider';
-import { parseAnswer } from '../client';
+import type { WorkState } from '@/shared/schemas/operations';
 import { workAnswerSchema, worksAnswerSchema } from '../operationsSchemas';
-import { useApiQuery } from '../useApiQuery';
+import { useApiQuery, useRecordWrites } from '../useApiQuery';
 
 export const worksKey = (q: { from?: string; to?: string; state?: WorkState[] } = {}) => {
   const params = new URLSearchParams();
@@ -38,25 +35,15 @@ export interface WorkDraft {
 }
 
 export function useWorkActions() {
-  const send = useSend();
-  const { mutate } = useSWRConfig();
-  return useMemo(() => {
-    const done = async (path: string, answer: unknown): Promise<WorkAnswer> => {
-      const w = parseAnswer(workAnswerSchema, path, answer);
-      await mutate(isWorksKey);
-      return w;
-    };
-    return {
-      create: async (draft: WorkDraft) => done(api.works, await send(api.works, { method: 'POST', body: draft })),
-      change: async (code: string, change: Partial<WorkDraft> & { version: number }) =>
-        done(api.work(code), await send(api.work(code), { method: 'PATCH', body: change })),
-      approve: async (code: string, version: number) => done(api.workApprove(code), await send(api.workApprove(code), { method: 'POST', body: { version } })),
-      move: async (code: string, to: WorkState, version: number) =>
-        done(api.workTransition(code), await send(api.workTransition(code), { method: 'POST', body: { to, version } })),
-      remove: async (code: string) => {
-        await send(api.work(code), { method: 'DELETE' });
-        await mutate(isWorksKey);
-      },
-    };
-  }, [send, mutate]);
+  const { write, remove } = useRecordWrites(workAnswerSchema, isWorksKey);
+  return useMemo(
+    () => ({
+      create: (draft: WorkDraft) => write(api.works, 'POST', draft),
+      change: (code: string, change: Partial<WorkDraft> & { version: number }) => write(api.work(code), 'PATCH', change),
+      approve: (code: string, version: number) => write(api.workApprove(code), 'POST', { version }),
+      move: (code: string, to: WorkState, version: number) => write(api.workTransition(code), 'POST', { to, version }),
+      remove: (code: string) => remove(api.work(code)),
+    }),
+    [write, remove],
+  );
 }
