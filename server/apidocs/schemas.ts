@@ -12,7 +12,8 @@ import { ENTITY_KINDS, entitySchemas, networkDocumentSchema, versionSchema } fro
 import { invitationSchema, personChangeSchema } from '@/shared/schemas/people';
 import { chainQuery, exposureQuery } from '../routes/analysis';
 import { loginSchema } from '../routes/auth';
-import { deleteQuerySchema } from '../routes/inventory';
+import { historyQuerySchema, sourcesQuerySchema } from '@/shared/schemas/editing';
+import { deleteQuerySchema, writeQuerySchema } from '../routes/inventory';
 import { auditQuerySchema, exportQuerySchema, importQuerySchema } from '../routes/network';
 import { listQuerySchema } from '../services/inventory/read';
 
@@ -36,12 +37,15 @@ function inventoryDocs(): Record<string, RouteDoc> {
     const one = singular[kind];
     out[`get /api/${kind}`] = { summary: `List ${kind}: paged, sorted, filtered`, query: listQuerySchema(kind) };
     out[`get /api/${kind}/:code`] = { summary: `One ${one} with its neighbours` };
-    out[`post /api/${kind}`] = { summary: `Create a ${one} (document form)`, body: entitySchemas[kind] };
+    out[`post /api/${kind}`] = { summary: `Create a ${one} (document form)`, body: entitySchemas[kind], query: writeQuerySchema };
     out[`patch /api/${kind}/:code`] = {
       summary: `Change a ${one}`,
       description: 'Body: `version` (the one you read, for optimistic locking) and the fields to change; null clears a field.',
       body: entitySchemas[kind].partial().extend(versionSchema.shape),
+      query: writeQuerySchema,
     };
+    out[`get /api/${kind}/:code/impact`] = { summary: `What deleting a ${one} would take off air (fault reach): carriages, households, sites` };
+    out[`get /api/${kind}/:code/history`] = { summary: `A ${one}'s own change history from the audit log, newest first`, query: historyQuerySchema };
     out[`delete /api/${kind}/:code`] = { summary: `Delete a ${one}`, query: deleteQuerySchema };
   }
   return out;
@@ -54,6 +58,7 @@ export const routeDocs: Record<string, RouteDoc> = {
   'get /api/users': { summary: 'Everyone who can sign in' },
   'post /api/users': { summary: 'Invite a person', body: invitationSchema },
   'patch /api/users/:id': { summary: "Change a person's role, name or access", body: personChangeSchema },
+  'get /api/carriages/:code/sources': { summary: 'Carriages of the same service that could feed this one, nearest first, with distance (km) and bearing (degrees) from its site', query: sourcesQuerySchema },
   'get /api/audit': { summary: 'Who changed what, newest first', query: auditQuerySchema },
   'get /api/network/summary': { summary: 'Counts of the current network' },
   'post /api/network/import': {

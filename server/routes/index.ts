@@ -12,7 +12,8 @@ import { registerNoticeRoutes } from './notices';
 import { registerInventoryRoutes } from './inventory';
 import { registerNetworkRoutes } from './network';
 import { registerOperationsRoutes } from './operations';
+import { registerRecordToolRoutes } from './recordTools';
 
 export type RouteRegistrar = (routes: RouteTable, ctx: AppContext) => void;
 
-export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerNetworkRoutes, registerOperationsRoutes, registerDocumentRoutes, registerNoticeRoutes, registerDocsRoutes];
+export const routeRegistrars: RouteRegistrar[] = [registerAnalysisRoutes, registerCheckRoutes, registerInventoryRoutes, registerRecordToolRoutes, registerNetworkRoutes, registerOperationsRoutes, registerDocumentRoutes, registerNoticeRoutes, registerDocsRoutes];

@@ -12,6 +12,10 @@
  *   GET    /<kind>/:code      the entity with its neighbours (services/inventory/detail.ts)
  *   POST   /<kind>            body: the entity in document form -> 201, the entity
  *   PATCH  /<kind>/:code      body: { version, ...fields }; null clears a field -> 200, the entity
+ *                             Both refuse a channel or frequency outside the service kind's bands
+ *                             (400 naming the field and range) and a second main feed into one
+ *                             carriage unless ?confirm=second-main-feed (409 second-main-feed);
+ *                             services/inventory/editRules.ts
  *   DELETE /<kind>/:code      ?version=N (required), ?cascade=true deletes dependents,
  *                             ?documents=delete|keep what happens to the documents of what is
  *                             deleted (sites, feeds); without it, 409 naming the count
@@ -33,6 +37,7 @@ import type { Actor } from '../services/audit';
 import { entityDetail } from '../services/inventory/detail';
 import { listEntities, listQuerySchema } from '../services/inventory/read';
 import { createEntity, updateEntity } from '../services/inventory/write';
+import { CONFIRM_SECOND_MAIN } from '../services/inventory/editRules';
 import { deleteEntity } from '../services/inventory/remove';
 import type { WriteResult } from '../services/inventory/networkWrite';
 import { DOCUMENT_CHOICES } from '@/shared/schemas/documents';
@@ -46,6 +51,14 @@ export const deleteQuerySchema = z.strictObject({
   cascade: z.enum(['true', 'false'], { error: 'cascade is true or false' }).default('false'),
   documents: z.enum(DOCUMENT_CHOICES, { error: 'documents is delete or keep: what to do with the documents of what is deleted' }).optional(),
 });
+
+export const writeQuerySchema = z.strictObject({
+  confirm: z.enum([CONFIRM_SECOND_MAIN], { error: `confirm is ${CONFIRM_SECOND_MAIN}: the warning you have seen and accept` }).optional(),
+});
+const confirmed = (req: Request) => {
+  const { confirm } = parseOr400(writeQuerySchema, req.query, 'query');
+  return { confirm: confirm ? [confirm] : [] };
+};
 
 export const actorOf = (req: Request): Actor => ({ userId: req.auth?.userId, email: req.auth?.email });
 
@@ -69,12 +82,12 @@ export function registerInventoryRoutes(routes: RouteTable, ctx: AppContext) {
     });
 
     routes.add('post', `/${kind}`, can.editNetwork, async (req, res) => {
-      const out = await settled(ctx, await createEntity(sequelize, kind, req.body, actorOf(req)));
+      const out = await settled(ctx, await createEntity(sequelize, kind, req.body, actorOf(req), confirmed(req)));
       res.status(201).set('X-Network-Version', String(out.networkVersion)).json(out.result);
     });
 
     routes.add('patch', `/${kind}/:code`, can.editNetwork, async (req, res) => {
-      const out = await settled(ctx, await updateEntity(sequelize, kind, String(req.params.code), req.body, actorOf(req)));
+      const out = await settled(ctx, await updateEntity(sequelize, kind, String(req.params.code), req.body, actorOf(req), confirmed(req)));
       res.set('X-Network-Version', String(out.networkVersion)).json(out.result);
     });
 

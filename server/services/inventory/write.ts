@@ -14,6 +14,7 @@ import type { Actor } from '../audit';
 import { databaseRefusal, refusalError } from './dbErrors';
 import { withNetworkWrite, type NetworkWrite, type WriteResult } from './networkWrite';
 import { findByCode } from './read';
+import { checkBands, checkSecondMain } from './editRules';
 import { checkRules, type RuleFindings } from './rules';
 import { canonical, NOUN, sameEntity, type Fields } from './shape';
 import { writeEntities } from './tables';
@@ -45,20 +46,33 @@ export async function refusalsAsApiErrors<R>(run: () => Promise<R>): Promise<R> 
   }
 }
 
+/** A record typed in by hand (one POST or PATCH): the rules of editRules.ts apply, with what the request confirmed. */
+export interface TypedEdit {
+  /** the warnings the person confirmed (`?confirm=`), e.g. second-main-feed */
+  confirm: readonly string[];
+}
+
+async function typedRules(w: NetworkWrite, kind: EntityKind, entity: Fields, typed: TypedEdit | undefined, previous?: Fields): Promise<void> {
+  if (!typed) return;
+  await checkBands(w, kind, entity, previous);
+  if (kind === 'feeds') await checkSecondMain(w, entity, typed.confirm.includes('second-main-feed'), previous);
+}
+
 /** One create inside a network write: validated entity in, stored entity out, audited. */
-async function createWithin(sequelize: Sequelize, w: NetworkWrite, kind: EntityKind, entity: Fields): Promise<Fields> {
+async function createWithin(sequelize: Sequelize, w: NetworkWrite, kind: EntityKind, entity: Fields, typed?: TypedEdit): Promise<Fields> {
   const code = entity.code as string;
   if (await findByCode(sequelize, kind, code, w.transaction)) throw conflict(`${NOUN[kind]} ${code} already exists; codes are unique within a kind`, { code });
   throwFindings(await checkRules(w, kind, entity));
+  await typedRules(w, kind, entity, typed);
   await writeEntities(w, kind, [entity], { created: true });
   const created = (await findByCode(sequelize, kind, code, w.transaction))!.entity;
   w.audit({ action: 'create', entityKind: kind, entityCode: code, after: auditShape(created) });
   return created;
 }
 
-export async function createEntity(sequelize: Sequelize, kind: EntityKind, body: unknown, actor: Actor): Promise<WriteResult<Fields>> {
+export async function createEntity(sequelize: Sequelize, kind: EntityKind, body: unknown, actor: Actor, typed: TypedEdit = { confirm: [] }): Promise<WriteResult<Fields>> {
   const entity = canonical(kind, parseOr400(entitySchemas[kind] as never, body, NOUN[kind]) as Fields);
-  return refusalsAsApiErrors(() => withNetworkWrite(sequelize, actor, (w) => createWithin(sequelize, w, kind, entity)));
+  return refusalsAsApiErrors(() => withNetworkWrite(sequelize, actor, (w) => createWithin(sequelize, w, kind, entity, typed)));
 }
 
 /**
@@ -82,7 +96,7 @@ export async function createEntities(sequelize: Sequelize, items: readonly { kin
  * refers to the entity). A change that changes nothing answers the entity
  * as it is and moves no version.
  */
-export async function updateEntity(sequelize: Sequelize, kind: EntityKind, code: string, body: unknown, actor: Actor): Promise<WriteResult<Fields>> {
+export async function updateEntity(sequelize: Sequelize, kind: EntityKind, code: string, body: unknown, actor: Actor, typed: TypedEdit = { confirm: [] }): Promise<WriteResult<Fields>> {
   if (body === null || typeof body !== 'object' || Array.isArray(body)) throw badRequest('the body must be an object: { version, ...fields to change }');
   const { version } = parseOr400(versionSchema, body);
   const { version: _version, ...fields } = body as Record<string, unknown>;
@@ -108,6 +122,7 @@ export async function updateEntity(sequelize: Sequelize, kind: EntityKind, code:
       const next = canonical(kind, parseOr400(entitySchemas[kind] as never, merged, NOUN[kind]) as Fields);
       if (sameEntity(kind, before, next)) return current.entity;
       throwFindings(await checkRules(w, kind, next, before));
+      await typedRules(w, kind, next, typed, before);
       const [written] = await writeEntities(w, kind, [next]);
       // The network lock already serialises writers; this also catches a writer that went around it.
       if (written.version !== currentVersion + 1) throw conflict(`${NOUN[kind]} ${code} was changed by someone else meanwhile; reload and try again`, { currentVersion: written.version - 1 });

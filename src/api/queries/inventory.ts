@@ -104,14 +104,15 @@ export function useInventoryActions() {
     const refresh = (except?: string) => mutate((key: unknown) => isNetworkKey(key) && key !== except);
     return {
       refresh: () => refresh(),
-      create: async <K extends EntityKind>(kind: K, entity: Record<string, unknown>): Promise<StoredEntities[K]> => {
-        const path = api.list(kind);
+      /** `confirm` names a warning the person accepted (server/services/inventory/editRules.ts), e.g. second-main-feed */
+      create: async <K extends EntityKind>(kind: K, entity: Record<string, unknown>, confirm?: string): Promise<StoredEntities[K]> => {
+        const path = `${api.list(kind)}${confirm ? `?confirm=${encodeURIComponent(confirm)}` : ''}`;
         const answer = parseAnswer(storedEntitySchemas[kind] as unknown as ZodType<StoredEntities[K]>, path, await send(path, { method: 'POST', body: entity }));
         await refresh();
         return answer;
       },
-      update: async <K extends EntityKind>(kind: K, code: string, version: number, changes: Record<string, unknown>): Promise<StoredEntities[K]> => {
-        const path = api.entity(kind, code);
+      update: async <K extends EntityKind>(kind: K, code: string, version: number, changes: Record<string, unknown>, confirm?: string): Promise<StoredEntities[K]> => {
+        const path = `${api.entity(kind, code)}${confirm ? `?confirm=${encodeURIComponent(confirm)}` : ''}`;
         const answer = parseAnswer(storedEntitySchemas[kind] as unknown as ZodType<StoredEntities[K]>, path, await send(path, { method: 'PATCH', body: { ...changes, version } }));
         await refresh();
         return answer;

@@ -7,6 +7,7 @@ import { useCarriageFeeds } from '@/src/api/queries/carriageFeeds';
 import { Screen } from '@/src/components/layout/Screen';
 import { Section } from '@/src/components/layout/Section';
 import { ErrorState, LoadingState } from '@/src/components/states';
+import { CarriageEditButton, CarriageRecordFooter } from '@/src/screens/inventory/details/CarriageRecord';
 import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { CarriageFacts, CarriageFeedLists } from './CarriageFeeds';
 import { ChainSection } from './ChainSection';
@@ -18,7 +19,7 @@ export function CarriageChainScreen({ code, direction }: { code: string; directi
   const subtitle = d ? `${d.service?.name ?? d.carriage.service} at ${d.site?.name ?? d.carriage.site}` : undefined;
 
   return (
-    <Screen title={`Carriage ${code}`} subtitle={subtitle} testID="carriage-screen">
+    <Screen title={`Carriage ${code}`} subtitle={subtitle} actions={d ? <CarriageEditButton /> : undefined} testID="carriage-screen">
       {missing ? (
         <>
           <ErrorState what={`carriage ${code}`} error={detail.error} testID="carriage-missing" />
@@ -41,6 +42,8 @@ export function CarriageChainScreen({ code, direction }: { code: string; directi
               <CarriageFeedLists detail={d} />
             </Section>
           ) : null}
+          {/* edit, history and delete, as on every record's page */}
+          <CarriageRecordFooter code={code} />
         </>
       )}
     </Screen>

@@ -1,7 +1,8 @@
 /**
  * What every record's page shares: loading, a missing record, the record
  * itself (drawn by the kind's own body), and for engineers and admins the
- * edit form (`?edit=1`, so the back button leaves it) and the delete steps.
+ * edit form (`?edit=1`, so the back button leaves it), the record's own
+ * change history and the delete steps.
  */
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import type { ReactNode } from 'react';
@@ -19,6 +20,7 @@ import { listHref, WORDS } from '../kinds';
 import { DeletePanel } from '../parts/DeletePanel';
 import { InventoryNav } from '../parts/InventoryNav';
 import { LinkButton } from '../parts/LinkButton';
+import { RecordHistory } from '../parts/RecordHistory';
 import { useCanEdit } from '../useCanEdit';
 
 export interface DetailFrameProps<K extends EntityKind> {
@@ -88,6 +90,7 @@ export function DetailFrame<K extends EntityKind>({ kind, code, title, subtitle,
     >
       <InventoryNav current={kind} />
       {children(data)}
+      <RecordHistory kind={kind} code={code} />
       {canEdit && record ? (
         <Section title="Remove" testID="detail-remove">
           <View style={styles.remove}>

@@ -6,18 +6,25 @@
  * server still refuses lands under its field too (./serverErrors.ts). An
  * edit sends the version it started from; if someone saved in between, the
  * form says so and offers to reload the stored record.
+ *
+ * It also does the typing it can (./formAssist.ts): a new carriage's or
+ * feed's code is proposed from its site and service or its target and role
+ * until the person types one; a carriage's channel fills its frequency and is
+ * checked against the bands of its service's kind. A second main feed into
+ * one carriage is saved only after the person confirms the server's warning.
  */
 import { useMemo, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import type { EntityKind } from '@/shared/schemas/network';
-import { useInventoryActions } from '@/src/api/queries/inventory';
+import { CODE_PATTERN, type EntityKind } from '@/shared/schemas/network';
+import { isApiError } from '@/src/api/client';
+import { useEntityDetail, useInventoryActions } from '@/src/api/queries/inventory';
 import { Button } from '@/src/components/Button';
 import { Card } from '@/src/components/Card';
-import { Choice } from '@/src/components/Choice';
-import { TextField } from '@/src/components/TextField';
 import { colors, fonts, radius, space, type } from '@/src/theme';
 import { WORDS } from '../kinds';
-import { FORM_FIELDS, type FieldSpec } from './fields';
+import { FORM_FIELDS } from './fields';
+import { bandErrors, frequencyForChannel, proposedCode } from './formAssist';
+import { FormField } from './FormField';
 import { changesBetween, checkDraft, draftFromEntity, emptyDraft, type Draft, type Entity, type FieldErrors } from './formValues';
 import { refusalFromError } from './serverErrors';
 
@@ -38,7 +45,8 @@ export interface EntityFormProps {
   onReload?: () => void;
 }
 
-const NOT_SET = '';
+/** The warning a second main feed into one carriage raises (server/services/inventory/editRules.ts). */
+const SECOND_MAIN = 'second-main-feed';
 
 export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload }: EntityFormProps) {
   const actions = useInventoryActions();
@@ -53,19 +61,39 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
   const [stale, setStale] = useState<{ current?: Entity } | null>(null);
   const [note, setNote] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  /** the code as proposed, until the person types their own */
+  const [ownCode, setOwnCode] = useState(!!stored);
+  /** the frequency as filled from the channel, until the person types their own */
+  const [ownFrequency, setOwnFrequency] = useState(!!stored);
+  /** the server's reason to confirm a second main feed */
+  const [secondMain, setSecondMain] = useState<string | null>(null);
+
+  const serviceCode = kind === 'carriages' && typeof draft.service === 'string' && CODE_PATTERN.test(draft.service.trim()) ? draft.service.trim() : null;
+  const serviceKind = useEntityDetail('services', serviceCode).data?.service.kind;
 
   const checked = useMemo(() => checkDraft(kind, draft), [kind, draft]);
-  const localErrors: FieldErrors = checked.ok ? {} : checked.errors;
+  const bands = useMemo(() => bandErrors(kind, draft, serviceKind), [kind, draft, serviceKind]);
+  const localErrors: FieldErrors = { ...bands, ...(checked.ok ? {} : checked.errors) };
   const errorOf = (name: string) => server[name] ?? (submitted || touched.has(name) ? localErrors[name] : undefined);
 
   const set = (name: string, value: string | boolean) => {
-    setDraft((d) => ({ ...d, [name]: value }));
+    if (name === 'code') setOwnCode(true);
+    if (name === 'frequencyMHz') setOwnFrequency(true);
+    if (name === 'role' || name === 'to') setSecondMain(null);
+    setDraft((d) => {
+      const next: Draft = { ...d, [name]: value };
+      const code = ownCode ? null : proposedCode(kind, next);
+      if (code && name !== 'code') next.code = code;
+      const frequency = name === 'channel' && !ownFrequency ? frequencyForChannel(serviceKind, value) : null;
+      if (frequency) next.frequencyMHz = frequency;
+      return next;
+    });
     setServer(({ [name]: _gone, ...rest }) => rest);
     setNote(null);
   };
   const leave = (name: string) => setTouched((t) => (t.has(name) ? t : new Set(t).add(name)));
 
-  async function save() {
+  async function save(confirm?: string) {
     setSubmitted(true);
     setFormError(null);
     setNote(null);
@@ -73,6 +101,7 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
       if (checked.errors.form) setFormError(checked.errors.form);
       return;
     }
+    if (Object.keys(bands).length > 0) return;
     let changes: Entity | null = null;
     if (base) {
       changes = changesBetween(kind, base, checked.entity);
@@ -83,9 +112,15 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
     }
     setBusy(true);
     try {
-      const saved = base ? await actions.update(kind, base.code, base.version, changes!) : await actions.create(kind, checked.entity);
+      const saved = base ? await actions.update(kind, base.code, base.version, changes!, confirm) : await actions.create(kind, checked.entity, confirm);
+      setSecondMain(null);
       onSaved(saved as unknown as StoredRecord);
     } catch (e) {
+      if (isApiError(e) && e.code === SECOND_MAIN) {
+        const d = (e.details ?? {}) as { carriage?: string; mainFeeds?: string[] };
+        setSecondMain(`Carriage ${d.carriage ?? ''} already has a main feed (${(d.mainFeeds ?? []).join(', ')}). A second one is unusual, and is often a reserve feed entered as main.`);
+        return;
+      }
       const refusal = refusalFromError(e, names);
       setServer(refusal.fields);
       setFormError(refusal.form ?? null);
@@ -116,9 +151,26 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
     <Card testID={`${kind}-form`}>
       <View style={styles.fields}>
         {fields.map((f) => (
-          <Field key={f.name} spec={f} value={draft[f.name]} error={errorOf(f.name)} locked={!!base && f.name === 'code'} onChange={(v) => set(f.name, v)} onLeave={() => leave(f.name)} kind={kind} />
+          <FormField
+            key={f.name}
+            spec={f}
+            value={draft[f.name]}
+            error={errorOf(f.name)}
+            locked={!!base && f.name === 'code'}
+            onChange={(v) => set(f.name, v)}
+            onLeave={() => leave(f.name)}
+            kind={kind}
+            receiving={kind === 'feeds' && typeof draft.to === 'string' ? draft.to : null}
+          />
         ))}
       </View>
+      {secondMain ? (
+        <View style={styles.stale} accessibilityRole="alert" testID="form-second-main">
+          <Text style={styles.staleText}>{`⚠ A second main feed. ${secondMain}`}</Text>
+          <Text style={styles.note}>Choose "reserve" as the feed role above, or save it as a second main feed if both are meant to carry the programme.</Text>
+          <Button label="Save as a second main feed" variant="secondary" busy={busy} onPress={() => void save(SECOND_MAIN)} testID="form-confirm-second-main" style={styles.left} />
+        </View>
+      ) : null}
       {stale ? (
         <View style={styles.stale} accessibilityRole="alert" testID="form-stale">
           <Text style={styles.staleText}>{`⚠ Someone changed this since you opened it. Reload to see the stored ${one}; what you typed here will be replaced.`}</Text>
@@ -134,7 +186,7 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
         </Text>
       ) : null}
       <View style={styles.buttons}>
-        <Button label={`Save ${one}`} onPress={() => void save()} busy={busy} testID="form-save" />
+        <Button label={`Save ${one}`} onPress={() => void save()} busy={busy} disabled={!!secondMain} testID="form-save" />
         <Button label="Cancel" variant="quiet" onPress={onCancel} testID="form-cancel" />
       </View>
       {note ? (
@@ -146,77 +198,8 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
   );
 }
 
-interface FieldProps {
-  kind: EntityKind;
-  spec: FieldSpec;
-  value: string | boolean | undefined;
-  error?: string;
-  locked: boolean;
-  onChange: (value: string | boolean) => void;
-  onLeave: () => void;
-}
-
-function Field({ kind, spec, value, error, locked, onChange, onLeave }: FieldProps) {
-  const testID = `field-${kind}-${spec.name}`;
-  if (spec.type === 'choice') {
-    const options = (spec.options ?? []).map((o) => ({ value: o, label: spec.optionLabels?.[o] ?? o }));
-    if (!spec.required) options.unshift({ value: NOT_SET, label: 'not set' });
-    return (
-      <Choice
-        label={spec.label}
-        options={options}
-        value={typeof value === 'string' ? value : NOT_SET}
-        onChange={(v) => {
-          onChange(v);
-          onLeave();
-        }}
-        error={error}
-        testID={testID}
-      />
-    );
-  }
-  if (spec.type === 'flag') {
-    return (
-      <View style={styles.flag}>
-        <Choice
-          label={spec.label}
-          options={[
-            { value: 'no', label: 'no' },
-            { value: 'yes', label: 'yes' },
-          ]}
-          value={value === true ? 'yes' : 'no'}
-          onChange={(v) => onChange(v === 'yes')}
-          error={error}
-          testID={testID}
-        />
-        {spec.hint ? <Text style={styles.hint}>{spec.hint}</Text> : null}
-      </View>
-    );
-  }
-  const numeric = spec.type === 'number' || spec.type === 'int';
-  return (
-    <TextField
-      label={spec.label}
-      value={typeof value === 'string' ? value : ''}
-      onChangeText={onChange}
-      onBlur={onLeave}
-      error={error}
-      hint={locked ? 'The code cannot change: other records and the audit log refer to it.' : spec.hint}
-      editable={!locked}
-      mono={spec.type === 'code' || spec.type === 'codes' || numeric}
-      autoCapitalize={spec.type === 'text' ? 'sentences' : 'none'}
-      autoCorrect={spec.type === 'text'}
-      // Latitude and longitude need a minus sign, which a phone's decimal pad lacks.
-      inputMode={numeric ? (spec.name === 'lat' || spec.name === 'lon' ? 'text' : 'decimal') : 'text'}
-      testID={testID}
-    />
-  );
-}
-
 const styles = StyleSheet.create({
   fields: { gap: space.lg, maxWidth: 640 },
-  flag: { gap: space.xs },
-  hint: { ...type.small },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, marginTop: space.md },
   left: { alignSelf: 'flex-start' },
   failure: { ...type.body, color: colors.bad, fontFamily: fonts.textBold },

@@ -1,7 +1,9 @@
 /**
  * The fields of each kind's form, in the order of docs/format.md (docs/api.md
- * section 1), with the label a person sees (and a screen reader reads) and
- * how the typed text turns into the document's value.
+ * section 1), except that a carriage starts with its site and service and a
+ * feed with its two ends, since its code is proposed from them; with the
+ * label a person sees (and a screen reader reads) and how the typed text
+ * turns into the document's value.
  */
 import { FEED_ROLES, MEDIA, POLARISATIONS, SERVICE_KINDS, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
 
@@ -34,11 +36,15 @@ export interface FieldSpec {
   hint?: string;
   /** a codes list whose order means nothing (groups), so repeats are dropped */
   isSet?: boolean;
+  /** a code (or list of codes) chosen with a searchable picker (./CodePicker.tsx) from these records */
+  picker?: 'sites' | 'services' | 'groups' | 'carriages' | 'sources';
 }
 
 const code: FieldSpec = { name: 'code', label: 'Code', type: 'code', required: true, hint: 'Letters, digits, "-", "_" or "."; it cannot change later.' };
+/** Carriages and feeds: the form proposes the code from the fields it is made of (./formAssist.ts). */
+const proposedCode: FieldSpec = { ...code, hint: 'Proposed from the fields below; change it if you like. Letters, digits, "-", "_" or "."; it cannot change later.' };
 const name: FieldSpec = { name: 'name', label: 'Name', type: 'text', required: true };
-const groups: FieldSpec = { name: 'groups', label: 'Shared-risk groups', type: 'codes', required: false, isSet: true, hint: 'Group codes separated by ";" (optional).' };
+const groups: FieldSpec = { name: 'groups', label: 'Shared-risk groups', type: 'codes', required: false, isSet: true, picker: 'groups', hint: 'Search by code or name to add a group (optional).' };
 
 export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
   sites: [
@@ -55,11 +61,11 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
   services: [code, name, { name: 'kind', label: 'Kind', type: 'choice', options: SERVICE_KINDS, required: true }],
   groups: [code, name, { name: 'note', label: 'Note', type: 'text', required: false, hint: 'What fails together, and why (optional).' }],
   carriages: [
-    code,
-    { name: 'site', label: 'Site', type: 'code', required: true, hint: 'The code of the site that radiates it.' },
-    { name: 'service', label: 'Service', type: 'code', required: true, hint: 'The code of the service it radiates.' },
-    { name: 'frequencyMHz', label: 'Frequency', type: 'number', unit: 'MHz', required: false, hint: 'MHz (optional).' },
-    { name: 'channel', label: 'Channel', type: 'code', required: false, hint: 'UHF channel or DAB block, e.g. 21 or 12B (optional).' },
+    { name: 'site', label: 'Site', type: 'code', required: true, picker: 'sites', hint: 'The site that radiates it: search by code or name.' },
+    { name: 'service', label: 'Service', type: 'code', required: true, picker: 'services', hint: 'The service it radiates: search by code or name.' },
+    proposedCode,
+    { name: 'channel', label: 'Channel', type: 'code', required: false, hint: 'UHF channel or DAB block, e.g. 21 or 12B (optional); fills the frequency.' },
+    { name: 'frequencyMHz', label: 'Frequency', type: 'number', unit: 'MHz', required: false, hint: 'MHz (optional); filled from the channel.' },
     { name: 'erpW', label: 'ERP', type: 'number', unit: 'W', required: false, hint: 'Effective radiated power in W (optional).' },
     {
       name: 'polarisation',
@@ -73,12 +79,12 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
     { name: 'onChannelRepeater', label: 'On-channel repeater', type: 'flag', required: false, hint: 'It may transmit on the channel it receives.' },
   ],
   feeds: [
-    code,
-    { name: 'from', label: 'Source carriage', type: 'code', required: true, hint: 'The parent carriage the programme comes from.' },
-    { name: 'to', label: 'Target carriage', type: 'code', required: true, hint: 'The carriage this feed brings programme into.' },
+    { name: 'to', label: 'Target carriage', type: 'code', required: true, picker: 'carriages', hint: 'The carriage this feed brings programme into: search by code, site or service.' },
+    { name: 'from', label: 'Source carriage', type: 'code', required: true, picker: 'sources', hint: 'The parent carriage the programme comes from: once the target is chosen, the nearest of its service come first.' },
     { name: 'medium', label: 'Medium', type: 'choice', options: MEDIA, required: true },
     { name: 'role', label: 'Feed role', type: 'choice', options: FEED_ROLES, required: true },
-    { name: 'via', label: 'Via sites', type: 'codes', required: false, hint: 'Site codes the path passes through, in order, separated by ";" (optional).' },
+    proposedCode,
+    { name: 'via', label: 'Via sites', type: 'codes', required: false, picker: 'sites', hint: 'Sites the path passes through, in order: search to add each (optional).' },
     groups,
     { name: 'rxFrequencyMHz', label: 'Receive frequency', type: 'number', unit: 'MHz', required: false, hint: 'MHz (optional).' },
     { name: 'rxChannel', label: 'Receive channel', type: 'code', required: false, hint: 'Optional.' },

@@ -1,6 +1,6 @@
 /**
  * Deleting a record, in steps on the page (no browser dialog): "Delete" asks
- * to confirm; the server may refuse because other records depend on this
+ * to confirm and shows what the delete would take off air; the server may refuse because other records depend on this
  * one, and then the panel names them in the server's words and offers an
  * explicit "also delete N dependents" choice before trying again with
  * cascade.
@@ -14,6 +14,7 @@ import { Choice } from '@/src/components/Choice';
 import { colors, fonts, radius, space, type } from '@/src/theme';
 import { deleteButtonLabel, deleteRefusal, type DeleteRefusal } from '../deleteRefusal';
 import { countOf, WORDS } from '../kinds';
+import { DeleteImpactNote } from './DeleteImpactNote';
 
 export interface DeletePanelProps {
   kind: EntityKind;
@@ -70,6 +71,7 @@ export function DeletePanel({ kind, code, version, onDeleted, onReload }: Delete
     <View style={styles.box} accessibilityRole="summary" accessibilityLabel={`Delete ${one} ${code}`} testID="delete-panel">
       <Text style={styles.title}>{`Delete ${one} ${code}?`}</Text>
       <Text style={styles.body}>{`This removes the ${one} from the network for everyone. The audit log keeps what it was.`}</Text>
+      <DeleteImpactNote kind={kind} code={code} />
       {refusal ? (
         <View style={styles.refusal} accessibilityRole="alert" testID="delete-refusal">
           <Text style={styles.refusalText}>{`⚠ ${refusal.message}`}</Text>
