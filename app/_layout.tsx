@@ -11,6 +11,8 @@ import { StyleSheet, View } from 'react-native';
 import { ApiProvider } from '@/src/api/ApiProvider';
 import { SessionProvider } from '@/src/session/SessionProvider';
 import { colors, FONT_NAMES } from '@/src/theme';
+import { registerServiceWorker } from '@/src/offline/serviceWorker';
+import { useEffect } from 'react';
 
 export { RouteError as ErrorBoundary } from '@/src/components/RouteError';
 
@@ -26,6 +28,7 @@ export default function RootLayout() {
   // load (only hidden): returning null here loses the deep link on the web,
   // which then opens at "/".
   const ready = loaded || !!fontError;
+  useEffect(registerServiceWorker, []);
 
   return (
     <SessionProvider>

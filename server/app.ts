@@ -5,6 +5,7 @@
  */
 import path from 'node:path';
 import express, { type RequestHandler } from 'express';
+import compression from 'compression';
 import helmet from 'helmet';
 import type { AppContext } from './context';
 import { parseTrustProxy } from './config';
@@ -65,7 +66,18 @@ export function createApp(ctx: AppContext) {
   // The exported web app, with index.html for deep links (web.output "single").
   const webDir = ctx.config.WEB_DIR;
   const index = path.join(webDir, 'index.html');
-  app.use(express.static(webDir, { index: false, maxAge: '1h', fallthrough: true }));
+  // Compressed on the way out: the app's script is megabytes as built and a
+  // phone on a weak signal feels every one. (The API answers are not: reach is
+  // small and hot, and the export carries its own compression.)
+  const web = express.Router();
+  web.use(compression());
+  // The service worker (src/offline) must be checked afresh on every visit, or
+  // a new version of the app could wait an hour behind an old worker.
+  const noCache = (res: express.Response, file: string) => {
+    if (path.basename(file) === 'sw.js') res.setHeader('Cache-Control', 'no-cache');
+  };
+  web.use(express.static(webDir, { index: false, maxAge: '1h', fallthrough: true, setHeaders: noCache }));
+  app.use(web);
   app.get(/.*/, (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index, (err) => {

@@ -9,6 +9,7 @@ import { StyleSheet, View } from 'react-native';
 import { SessionCache } from '@/src/api/ApiProvider';
 import { AppShell } from '@/src/components/nav/AppShell';
 import { LoadingState } from '@/src/components/states';
+import { OfflineProvider } from '@/src/offline/OfflineProvider';
 import { queryFromParams, signInHref } from '@/src/session/nextPath';
 import { useSession } from '@/src/session/SessionProvider';
 import { colors } from '@/src/theme';
@@ -41,7 +42,9 @@ export default function SignedInLayout() {
   }
   return (
     <SessionCache>
-      <AppShell />
+      <OfflineProvider>
+        <AppShell />
+      </OfflineProvider>
     </SessionCache>
   );
 }

@@ -42,6 +42,12 @@ export function ensureWebBuild({ force = false, quiet = false } = {}): { built: 
   if (r.status !== 0) {
     throw new Error(`the web export failed (exit ${r.status})${quiet ? `:\n${(r.stderr || r.stdout || '').slice(-4000)}` : ''}`);
   }
+  const sw = spawnSync(process.execPath, [path.join(REPO_ROOT, 'node_modules', 'tsx', 'dist', 'cli.mjs'), path.join(REPO_ROOT, 'scripts', 'build-sw.ts')], {
+    cwd: REPO_ROOT,
+    stdio: quiet ? 'pipe' : 'inherit',
+    encoding: 'utf8',
+  });
+  if (sw.status !== 0) throw new Error(`the service worker was not written (exit ${sw.status})${quiet ? `:\n${(sw.stderr || sw.stdout || '').slice(-2000)}` : ''}`);
   fs.writeFileSync(STAMP, new Date().toISOString() + '\n');
   return { built: true, ms: Date.now() - t0 };
 }

@@ -5,6 +5,7 @@
  * or, when there is no such body, a code and message of our own.
  */
 import type { ZodType } from 'zod';
+import { browserOffline } from '@/src/offline/online';
 
 export class ApiError extends Error {
   /** HTTP status; 0 when the server could not be reached at all. */
@@ -78,13 +79,18 @@ export async function requestRaw(path: string, options: RawRequestOptions = {}):
   if (!path.startsWith('/')) {
     throw new ApiError(0, 'bad_request', `API paths start with "/", got ${JSON.stringify(path)}`);
   }
+  const method = options.method ?? 'GET';
+  // With no connection a change is refused here, in words, rather than left to fail somewhere in the network stack.
+  if (method !== 'GET' && browserOffline()) {
+    throw new ApiError(0, 'offline', 'No connection: nothing was changed. Changes can be made again once the connection returns.');
+  }
   const headers: Record<string, string> = { Accept: options.accept ?? 'application/json' };
   if (options.contentType) headers['Content-Type'] = options.contentType;
   if (options.token) headers.Authorization = `Bearer ${options.token}`;
 
   let res: Response;
   try {
-    res = await fetch(path, { method: options.method ?? 'GET', headers, body: options.body, signal: options.signal });
+    res = await fetch(path, { method, headers, body: options.body, signal: options.signal });
   } catch (e) {
     if (e instanceof Error && e.name === 'AbortError') throw e;
     throw new ApiError(0, 'network', 'Could not reach the Headwater server. Check the connection and try again.');

@@ -4,11 +4,16 @@
  * chain. All are computed by the server from its in-memory graphs and change
  * only with the network version, except reach, which a fault desk watches.
  */
+import { useRef } from 'react';
 import useSWR from 'swr';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
 import { useSend } from '../ApiProvider';
-import { parseAnswer, type ApiError } from '../client';
+import { isApiError, parseAnswer, type ApiError } from '../client';
+import { browserOffline } from '@/src/offline/online';
+import { useOffline } from '@/src/offline/OfflineProvider';
+import { localReach } from '@/src/offline/localEngine';
+import type { OfflineCopy } from '@/src/offline/copyStore';
 import { freshness } from '../freshness';
 import { chainAnswerSchema, diversityAnswerSchema, exposureAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
 import type { z } from 'zod';
@@ -25,15 +30,35 @@ export const analysisKeys = {
   chain: (code: string, direction: 'up' | 'down') => api.chain(code, direction),
 };
 
+/** A reach answer; `offlineCopy` is set when it was computed in the browser from the offline copy (src/offline). */
+export type ReachShown = ReachResult & { offlineCopy?: { fetchedAt: string } };
+
 /**
  * POST /api/analysis/reach for `failed` (nothing is asked for an empty set).
  * `failSet` is the canonical text of the same set, so equal sets share one answer.
+ * With no connection (the browser says so, or the server cannot be reached)
+ * and an offline copy stored, the same engine answers in the browser.
  */
 export function useReach(failed: readonly Element[], failSet: string) {
   const send = useSend();
-  return useSWR<ReachResult, ApiError>(
-    failed.length > 0 ? analysisKeys.reach(failSet) : null,
-    async () => parseAnswer(reachAnswerSchema, api.reach, await send(api.reach, { method: 'POST', body: { failed } })),
+  const { copy, online } = useOffline();
+  const copyRef = useRef(copy);
+  copyRef.current = copy;
+  // Offline, the key names the copy, so the answer is worked out again once the stored copy has been read.
+  const key = failed.length === 0 ? null : online ? analysisKeys.reach(failSet) : [...analysisKeys.reach(failSet), 'offline-copy', copy?.fetchedAt ?? 'none'];
+  return useSWR<ReachShown, ApiError>(
+    key,
+    async () => {
+      const stored = copyRef.current;
+      const fromCopy = async (c: OfflineCopy) => ({ ...(await localReach(c, failed)), offlineCopy: { fetchedAt: c.fetchedAt } });
+      if (stored && browserOffline()) return fromCopy(stored);
+      try {
+        return parseAnswer(reachAnswerSchema, api.reach, await send(api.reach, { method: 'POST', body: { failed } }));
+      } catch (e) {
+        if (stored && isApiError(e) && e.code === 'network') return fromCopy(stored);
+        throw e;
+      }
+    },
     { ...freshness.incident, keepPreviousData: true },
   );
 }

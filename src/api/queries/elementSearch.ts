@@ -3,7 +3,11 @@
  * some text, for marking them failed: the three list endpoints asked at once
  * (GET /api/sites|feeds|groups?q=...&pageSize=N), answers merged in that order.
  */
+import { useRef } from 'react';
 import useSWR from 'swr';
+import { browserOffline } from '@/src/offline/online';
+import { localElementSearch } from '@/src/offline/localSearch';
+import { useOffline } from '@/src/offline/OfflineProvider';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
 import { useSend } from '../ApiProvider';
@@ -45,9 +49,15 @@ function hitsOf(kind: Element['kind'], page: CodeNamePage): ElementHit[] {
 export function useElementSearch(q: string, pageSize = 6) {
   const send = useSend();
   const text = q.trim();
+  // With no connection the stored copy of the network answers instead (src/offline).
+  const { copy, online } = useOffline();
+  const copyRef = useRef(copy);
+  copyRef.current = copy;
   return useSWR<ElementSearchResult, ApiError>(
-    text ? elementSearchKey(text, pageSize) : null,
+    !text ? null : online ? elementSearchKey(text, pageSize) : [...elementSearchKey(text, pageSize), 'offline-copy', copy?.fetchedAt ?? 'none'],
     async () => {
+      const stored = copyRef.current;
+      if (stored && browserOffline()) return localElementSearch(stored, text, pageSize);
       const pages = await Promise.all(
         KINDS.map(async ({ list }) => {
           const path = searchPath(list, text, pageSize);

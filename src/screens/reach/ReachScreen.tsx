@@ -26,6 +26,8 @@ import { LinkRow } from './LinkRow';
 import { ReachBreakdown, type Names } from './ReachBreakdown';
 import { ReachSummary } from './ReachSummary';
 import { OpenIncident } from '../operations/OpenIncident';
+import { OfflineNote } from '@/src/offline/OfflineNote';
+import { useOfflineNames } from '@/src/offline/names';
 
 function Notice({ title, children, action, testID }: { title: string; children: string; action?: React.ReactNode; testID: string }) {
   return (
@@ -57,10 +59,11 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
   const reach = useReach(elements, failText);
   const drawing = useNetworkDrawing(!!reach.data);
   const serviceNames = useServiceNames();
+  const offlineNames = useOfflineNames();
   const names = useMemo<Names>(() => {
     const sites = new Map((drawing.data?.sites ?? []).map((s) => [s.code, s.name]));
-    return { site: (c) => sites.get(c), service: (c) => serviceNames.data?.get(c) };
-  }, [drawing.data, serviceNames.data]);
+    return { site: (c) => sites.get(c) ?? offlineNames.site(c), service: (c) => serviceNames.data?.get(c) ?? offlineNames.service(c) };
+  }, [drawing.data, serviceNames.data, offlineNames]);
 
   const unknown = reach.error && isApiError(reach.error) && reach.error.status === 404 ? unknownFromDetails(reach.error.details) : [];
 
@@ -105,6 +108,7 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
           }
           testID="reach-answer"
         >
+          {r.offlineCopy ? <OfflineNote networkVersion={r.networkVersion} fetchedAt={r.offlineCopy.fetchedAt} /> : null}
           <ReachSummary reach={r} />
           {r.lost.length === 0 && r.fallback.length === 0 ? (
             <Text style={styles.plain} testID="reach-nothing-lost">

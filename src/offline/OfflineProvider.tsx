@@ -1,0 +1,115 @@
+/**
+ * Keeps the offline copy of the network (copyStore.ts) in step with the
+ * server while there is a connection, and tells screens whether the browser
+ * is online. Mounted once inside the signed-in shell.
+ *
+ * The copy is fetched in the background (GET /api/network/export) when the
+ * server's network version differs from the stored one, at most once every
+ * few minutes while edits keep moving the version: a phone on a weak signal
+ * should not download the whole network after every edit. The copy always
+ * says which version it is and when it was fetched.
+ */
+import { createContext, useCallback, useContext, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { api } from '@/shared/api';
+import { useSendRaw } from '@/src/api/ApiProvider';
+import { useSummary } from '@/src/api/queries/summary';
+import { useSession } from '@/src/session/SessionProvider';
+import { clearCopy, offlineCopySupported, readCopy, writeCopy, type OfflineCopy } from './copyStore';
+import { networkDocumentSchema } from '@/shared/schemas/network';
+
+/** Our choice (common practice, no source): a fresh copy at most every 5 minutes once one exists. */
+const MIN_REFRESH_MS = 5 * 60_000;
+
+export interface OfflineState {
+  supported: boolean;
+  /** the browser says it has a connection (navigator.onLine) */
+  online: boolean;
+  copy: OfflineCopy | null;
+  /** a stored copy was unreadable and was thrown away */
+  discarded: boolean;
+}
+
+const OfflineContext = createContext<OfflineState>({ supported: false, online: true, copy: null, discarded: false });
+
+export function useOffline(): OfflineState {
+  return useContext(OfflineContext);
+}
+
+function useBrowserOnline(): boolean {
+  const [online, setOnline] = useState(() => (typeof navigator === 'undefined' ? true : navigator.onLine !== false));
+  useEffect(() => {
+    if (typeof window === 'undefined' || !window.addEventListener) return;
+    const update = () => setOnline(navigator.onLine !== false);
+    window.addEventListener('online', update);
+    window.addEventListener('offline', update);
+    return () => {
+      window.removeEventListener('online', update);
+      window.removeEventListener('offline', update);
+    };
+  }, []);
+  return online;
+}
+
+export function OfflineProvider({ children }: { children: ReactNode }) {
+  const supported = offlineCopySupported();
+  const online = useBrowserOnline();
+  const session = useSession();
+  const sendRaw = useSendRaw();
+  const summary = useSummary();
+  const [copy, setCopy] = useState<OfflineCopy | null>(null);
+  const [discarded, setDiscarded] = useState(false);
+  const [read, setRead] = useState(false);
+  const fetching = useRef(false);
+  const lastFetch = useRef(0);
+
+  useEffect(() => {
+    if (!supported) return;
+    let live = true;
+    readCopy()
+      .then((r) => {
+        if (!live) return;
+        setCopy(r.copy);
+        if (!r.copy) setDiscarded(r.discarded);
+      })
+      .catch(() => undefined)
+      .finally(() => live && setRead(true));
+    return () => {
+      live = false;
+    };
+  }, [supported]);
+
+  // A chosen sign-out takes the copy with it: the next person on this device signs in afresh.
+  useEffect(() => {
+    if (supported && session.status === 'signedOut' && session.lastSignOut === 'chosen') void clearCopy();
+  }, [supported, session.status, session.lastSignOut]);
+
+  const refresh = useCallback(async () => {
+    if (fetching.current) return;
+    fetching.current = true;
+    lastFetch.current = Date.now();
+    try {
+      const res = await sendRaw(api.exportNetwork);
+      const version = Number(res.headers.get('X-Network-Version'));
+      const document = networkDocumentSchema.parse(await res.json());
+      const next: OfflineCopy = { networkVersion: Number.isInteger(version) ? version : (document.baseVersion ?? 0), fetchedAt: new Date().toISOString(), document };
+      await writeCopy(next);
+      setCopy(next);
+      setDiscarded(false);
+    } catch {
+      // No copy this time (no connection, or an answer that did not check out); the next version change tries again.
+    } finally {
+      fetching.current = false;
+    }
+  }, [sendRaw]);
+
+  const serverVersion = typeof summary.data?.networkVersion === 'number' ? summary.data.networkVersion : null;
+  useEffect(() => {
+    if (!supported || !read || !online || serverVersion === null) return;
+    if (copy && copy.networkVersion === serverVersion) return;
+    if (copy && Date.now() - lastFetch.current < MIN_REFRESH_MS) return;
+    void refresh();
+  }, [supported, read, online, serverVersion, copy, refresh]);
+
+  const value = useMemo(() => ({ supported, online, copy, discarded }), [supported, online, copy, discarded]);
+  return <OfflineContext.Provider value={value}>{children}</OfflineContext.Provider>;
+}

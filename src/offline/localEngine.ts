@@ -1,0 +1,42 @@
+/**
+ * The analysis engine itself (server/engine, plain TypeScript with no server
+ * dependency), run in the browser on the offline copy. It is loaded with a
+ * dynamic import so that its code is fetched only when the app first needs it
+ * offline or warms it up, never on the first screen.
+ *
+ * The engine answers exactly as the server does: the same code, on the same
+ * document, at the same network version.
+ */
+import type { Element } from '@/shared/schemas/analysis';
+import { ApiError } from '@/src/api/client';
+import type { ReachResult } from '@/src/api/queries/analysis';
+import type { OfflineCopy } from './copyStore';
+
+type EngineModule = typeof import('@/server/engine/engine');
+type Engine = ReturnType<EngineModule['NetworkEngine']['build']>;
+
+let built: { version: number; fetchedAt: string; engine: Promise<Engine> } | null = null;
+
+/** The engine for this copy, built once per copy (a rebuild takes seconds at national scale). */
+export function engineFor(copy: OfflineCopy): Promise<Engine> {
+  if (built && built.version === copy.networkVersion && built.fetchedAt === copy.fetchedAt) return built.engine;
+  const engine = import('@/server/engine/engine').then(({ NetworkEngine }) => NetworkEngine.build(copy.document, copy.networkVersion));
+  built = { version: copy.networkVersion, fetchedAt: copy.fetchedAt, engine };
+  engine.catch(() => {
+    if (built?.engine === engine) built = null;
+  });
+  return engine;
+}
+
+/** Fault reach from the copy, failing as the server would (404 naming the unknown elements). */
+export async function localReach(copy: OfflineCopy, failed: readonly Element[]): Promise<ReachResult> {
+  const engine = await engineFor(copy);
+  try {
+    return engine.reach([...failed]);
+  } catch (e) {
+    if (e instanceof Error && e.name === 'UnknownElementsError') {
+      throw new ApiError(404, 'not-found', e.message, { unknown: (e as Error & { elements: Element[] }).elements });
+    }
+    throw e;
+  }
+}

@@ -1,0 +1,23 @@
+/**
+ * Element search on the offline copy, answering in the shape of the server's
+ * list search (a code or name holding the text, case-insensitive; a feed by
+ * its code or its ends), so the fault reach screen can still add elements
+ * with no connection.
+ */
+import type { ElementHit, ElementSearchResult } from '@/src/api/queries/elementSearch';
+import type { OfflineCopy } from './copyStore';
+
+export function localElementSearch(copy: OfflineCopy, text: string, pageSize: number): ElementSearchResult {
+  const q = text.trim().toLowerCase();
+  const has = (...values: (string | undefined)[]) => values.some((v) => v !== undefined && v.toLowerCase().includes(q));
+  const d = copy.document;
+  const sites = d.sites.filter((s) => has(s.code, s.name));
+  const feeds = d.feeds.filter((f) => has(f.code, f.from, f.to));
+  const groups = d.groups.filter((g) => has(g.code, g.name));
+  const hits: ElementHit[] = [
+    ...sites.slice(0, pageSize).map((s) => ({ kind: 'site' as const, code: s.code, label: s.name })),
+    ...feeds.slice(0, pageSize).map((f) => ({ kind: 'feed' as const, code: f.code, label: `${f.from} → ${f.to}` })),
+    ...groups.slice(0, pageSize).map((g) => ({ kind: 'group' as const, code: g.code, label: g.name })),
+  ];
+  return { hits, totals: { site: sites.length, feed: feeds.length, group: groups.length } };
+}
