@@ -106,3 +106,26 @@ describe('requestRaw (uploads and downloads)', () => {
     await expect(requestRaw('/api/network/export')).rejects.toMatchObject({ status: 0, code: 'network' });
   });
 });
+
+describe('with no connection', () => {
+  it('refuses a change before sending it, in words, and still lets a read try', async () => {
+    const fetchMock = answer(200, '{}');
+    vi.stubGlobal('fetch', fetchMock);
+    vi.stubGlobal('navigator', { onLine: false });
+    const refused = await request('/api/sites', { method: 'POST', body: { code: 'S1' } }).catch((e: unknown) => e);
+    expect(refused).toBeInstanceOf(ApiError);
+    expect((refused as ApiError).code).toBe('offline');
+    expect((refused as ApiError).message).toMatch(/No connection: nothing was changed/);
+    expect(fetchMock).not.toHaveBeenCalled();
+    await request('/api/network/summary');
+    expect(fetchMock).toHaveBeenCalledTimes(1);
+  });
+
+  it('sends changes as usual when the browser says it is online', async () => {
+    const fetchMock = answer(200, '{}');
+    vi.stubGlobal('fetch', fetchMock);
+    vi.stubGlobal('navigator', { onLine: true });
+    await request('/api/sites', { method: 'POST', body: { code: 'S1' } });
+    expect(fetchMock).toHaveBeenCalledTimes(1);
+  });
+});

@@ -15,13 +15,14 @@ import type { OfflineCopy } from './copyStore';
 type EngineModule = typeof import('@/server/engine/engine');
 type Engine = ReturnType<EngineModule['NetworkEngine']['build']>;
 
-let built: { version: number; fetchedAt: string; engine: Promise<Engine> } | null = null;
+/** Only the latest copy's engine is kept: a national network's engine is large. */
+let built: { copy: OfflineCopy; engine: Promise<Engine> } | null = null;
 
-/** The engine for this copy, built once per copy (a rebuild takes seconds at national scale). */
+/** The engine for this copy (the same stored object), built once (a build takes seconds at national scale). */
 export function engineFor(copy: OfflineCopy): Promise<Engine> {
-  if (built && built.version === copy.networkVersion && built.fetchedAt === copy.fetchedAt) return built.engine;
+  if (built && built.copy === copy) return built.engine;
   const engine = import('@/server/engine/engine').then(({ NetworkEngine }) => NetworkEngine.build(copy.document, copy.networkVersion));
-  built = { version: copy.networkVersion, fetchedAt: copy.fetchedAt, engine };
+  built = { copy, engine };
   engine.catch(() => {
     if (built?.engine === engine) built = null;
   });
