@@ -63,18 +63,18 @@ async function signIn(page: Page, base: string, email: string, password: string)
 
 /** Animation-frame intervals recorded in the page while `work` runs. */
 async function frames(page: Page, work: () => Promise<void>): Promise<number[]> {
-  await page.evaluate(() => {
-    const w = window as unknown as { __frames: number[]; __framesOn: boolean };
-    w.__frames = [];
-    w.__framesOn = true;
+  // Given as text: the script runner's helpers (named functions) do not exist in the page.
+  await page.evaluate(`(() => {
+    window.__frames = [];
+    window.__framesOn = true;
     let last = performance.now();
-    const tick = (t: number) => {
-      w.__frames.push(t - last);
+    const tick = (t) => {
+      window.__frames.push(t - last);
       last = t;
-      if (w.__framesOn) requestAnimationFrame(tick);
+      if (window.__framesOn) requestAnimationFrame(tick);
     };
     requestAnimationFrame(tick);
-  });
+  })()`);
   await work();
   return page.evaluate(() => {
     const w = window as unknown as { __frames: number[]; __framesOn: boolean };
