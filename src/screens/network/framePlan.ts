@@ -139,7 +139,8 @@ export function planFrame({ model, lod, view, width, height, statuses, siteIndex
     const named = marks
       .filter((m) => m.role !== null || lv.origins[m.group] + lv.mains[m.group] > 0 || m.off > 0)
       .sort((p, q) => rankOf(model, p) - rankOf(model, q) || (model.sites[q.site].households ?? 0) - (model.sites[p.site].households ?? 0));
-    for (const m of named) {
+    // Only the most important few are measured and tried: the rest could not find room under the cap anyway.
+    for (const m of named.slice(0, 4 * MAX_LABELS)) {
       const text = labelText(model, m);
       candidates.push({ x: m.x, y: m.y, r: m.r + 2, width: measure(text, LABEL_FONT_PX) + 4, height: LABEL_FONT_PX + 4, text });
     }

@@ -57,11 +57,12 @@ describe('schematic tree', () => {
     expect(closed.y).toEqual([0, 1, 2, 3, 4].map((r) => r * ROW_PX));
     expect(closed.height).toBe(5 * ROW_PX);
     const opened = layoutSchematic(t, new Set(['M1.TV']));
-    // M1's relays follow its main station child, as leaves one level in.
-    expect(opened.nodes.map((n) => n.data.carriage)).toEqual(['O.TV', 'M1.TV', 'M2.TV', 'R1.TV', 'R2.TV', 'U.TV', 'X.TV']);
+    // M1's relays come right beneath it, as leaves one level in, before the main station it feeds.
+    expect(opened.nodes.map((n) => n.data.carriage)).toEqual(['O.TV', 'M1.TV', 'R1.TV', 'R2.TV', 'M2.TV', 'U.TV', 'X.TV']);
     expect(opened.nodes.filter((n) => n.data.leaf).map((n) => n.data.carriage)).toEqual(['R1.TV', 'R2.TV']);
-    expect(opened.nodes[3].parent!.data.carriage).toBe('M1.TV');
-    expect(opened.x[3]).toBe(2 * INDENT_PX);
+    expect(opened.nodes[2].parent!.data.carriage).toBe('M1.TV');
+    expect(opened.x[2]).toBe(2 * INDENT_PX);
+    expect(opened.x[4]).toBe(2 * INDENT_PX);
   });
 
   it('counts the folded relays off air under a failure set', () => {

@@ -138,7 +138,8 @@ export function layoutSchematic(t: SchematicTree, open: ReadonlySet<string>): La
       const info = t.carriageSite.get(r)!;
       return { carriage: r, site: info.site, siteName: info.name, role: info.role, relays: [], children: [], leaf: true };
     });
-    return [...n.children, ...leaves];
+    // Its relays right beneath the branch that was opened, before the main stations it feeds.
+    return [...leaves, ...n.children];
   });
   const nodes: HierarchyNode<SchematicNode>[] = [];
   const x: number[] = [];
