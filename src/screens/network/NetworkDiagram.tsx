@@ -7,7 +7,7 @@
  * Main and reserve feeds differ by line at every density (a single line and
  * a double line); a distance scale, true at the centre, follows the zoom.
  */
-import { memo, useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { PanResponder, Platform, StyleSheet, Text, View, type GestureResponderEvent, type ViewStyle } from 'react-native';
 import type { GeoProjection } from 'd3-geo';
 import Svg, { Circle, G, Path, Rect, Text as SvgText } from 'react-native-svg';
@@ -18,6 +18,14 @@ import { crossShape, halfShape, linkPaths, ringShape, siteShape } from './diagra
 import { plainStrokes } from './denseLines';
 import { scaleBar } from './scaleBar';
 import { cullPoints, cullSegments, gestureTransform, nearestPoint, panBy, showLabels, showPatterns, visibleWorld, zoomAt, type View as ViewT } from './viewport';
+import { GeoCanvas } from './GeoCanvas';
+import type { FramePlan } from './framePlan';
+import { buildLodIndex, MAX_LEVEL } from './lod';
+
+/** The web draws on a canvas with level of detail; native keeps the SVG drawing. */
+const CANVAS = Platform.OS === 'web' && typeof document !== 'undefined';
+/** A tap on a group zooms in by this much about it. */
+const GROUP_TAP_ZOOM = 2.5;
 
 export interface DrawnCounts {
   /** Sites and feed lines on screen. */
@@ -26,6 +34,9 @@ export interface DrawnCounts {
   labels: boolean;
   /** False when lines are drawn plain because too many are in view. */
   patterns: boolean;
+  /** Groups of nearby sites drawn as one circle (the canvas drawing's level of detail), and the sites in them. */
+  groups?: number;
+  sitesInGroups?: number;
 }
 
 export interface NetworkDiagramProps {
@@ -159,6 +170,25 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
   latest.current = { view, width, height, placed, onView, onSelect };
   const wheelTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
 
+  // On the canvas a tap meets what the last frame drew: a group zooms in about itself, a site is chosen.
+  const planRef = useRef<FramePlan | null>(null);
+  const tapCanvas = (sx: number, sy: number) => {
+    const { view: v, width: w, height: h, onView: setV, onSelect: choose } = latest.current;
+    const plan = planRef.current;
+    let best: FramePlan['marks'][number] | null = null;
+    let bestD = Infinity;
+    for (const m of plan?.marks ?? []) {
+      const d = Math.hypot(m.x - sx, m.y - sy);
+      if (d <= Math.max(TAP_RADIUS, m.r + 4) && d < bestD) {
+        best = m;
+        bestD = d;
+      }
+    }
+    if (!best) choose(null);
+    else if (best.role === null) setV(zoomAt(v, GROUP_TAP_ZOOM, best.x, best.y, w, h));
+    else choose(best.site);
+  };
+
   const commit = () => {
     const v = liveRef.current;
     if (v) latest.current.onView(v);
@@ -219,6 +249,10 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
           const at = originNow();
           const sx = e.nativeEvent.pageX - at.x;
           const sy = e.nativeEvent.pageY - at.y;
+          if (CANVAS) {
+            tapCanvas(sx, sy);
+            return;
+          }
           const all = Array.from({ length: p.xs.length }, (_, i) => i);
           const hit = nearestPoint(p.xs, p.ys, all, v, sx, sy, TAP_RADIUS);
           choose(hit >= 0 ? hit : null);
@@ -250,7 +284,33 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
     };
   }, []); // eslint-disable-line react-hooks/exhaustive-deps
 
-  const t = live ? gestureTransform(view, live) : null;
+  const lod = useMemo(() => (CANVAS ? buildLodIndex(props.model, placed) : null), [props.model, placed]);
+  const siteIndex = useMemo(() => new Map(props.model.sites.map((s, i) => [s.code, i])), [props.model]);
+  // Every level is built once, one per idle turn after the first draw, so no zoom later waits for one.
+  useEffect(() => {
+    if (!lod) return;
+    let next = 0;
+    let timer: ReturnType<typeof setTimeout> | null = null;
+    const step = () => {
+      if (next > MAX_LEVEL) return;
+      lod.level(next++);
+      timer = setTimeout(step, 0);
+    };
+    timer = setTimeout(step, 100);
+    return () => {
+      if (timer) clearTimeout(timer);
+    };
+  }, [lod]);
+  const { onDrawn } = props;
+  const onCanvasDrawn = useCallback(
+    (plan: FramePlan) => {
+      const inView = cullPoints(placed.xs, placed.ys, visibleWorld(view, width, height, 8));
+      const links = cullSegments(placed.xs, placed.ys, placed.linkFrom, placed.linkTo, visibleWorld(view, width, height, 8), view.k, 1).length;
+      onDrawn({ sites: inView.length, links, labels: true, patterns: plan.patterns, groups: plan.counts.groups, sitesInGroups: plan.counts.sitesInGroups }, inView);
+    },
+    [placed, view, width, height, onDrawn],
+  );
+  const t = live && !CANVAS ? gestureTransform(view, live) : null;
   const scale = props.projection ? scaleBar(props.projection, live ?? view, width, height, Math.min(140, width / 3)) : null;
   return (
     <View
@@ -262,9 +322,28 @@ export function NetworkDiagram(props: NetworkDiagramProps) {
       onLayout={measure}
       {...responder.panHandlers}
     >
-      <View style={[styles.moving, webLayer, t ? { transform: [{ translateX: t.dx }, { translateY: t.dy }, { scale: t.s }] } : null]}>
-        <MemoDrawing {...drawingProps(props)} />
-      </View>
+      {CANVAS && lod ? (
+        <GeoCanvas
+          model={props.model}
+          lod={lod}
+          siteIndex={siteIndex}
+          width={width}
+          height={height}
+          view={live ?? view}
+          gesture={live !== null}
+          statuses={props.statuses}
+          land={props.land ?? null}
+          selected={props.selected}
+          xs={placed.xs}
+          ys={placed.ys}
+          planRef={planRef}
+          onDrawn={onCanvasDrawn}
+        />
+      ) : (
+        <View style={[styles.moving, webLayer, t ? { transform: [{ translateX: t.dx }, { translateY: t.dy }, { scale: t.s }] } : null]}>
+          <MemoDrawing {...drawingProps(props)} />
+        </View>
+      )}
       {/* Presses land on this plain view: the responder system does not see through SVG elements on the web. */}
       <View style={StyleSheet.absoluteFill} />
       {scale ? (

@@ -11,7 +11,6 @@ import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
 import { Button } from '@/src/components/Button';
 import { FeedLegend } from '@/src/components/charts/FeedLegend';
 import { countOf, formatCount } from '@/shared/format';
-import { Columns } from '@/src/components/layout/Columns';
 import { Screen } from '@/src/components/layout/Screen';
 import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';
 import { useBreakpoints } from '@/src/hooks/useBreakpoints';
@@ -22,16 +21,19 @@ import { buildDiagram, placeDiagram, siteStatuses } from './diagramModel';
 import { DIAGRAM_MARKS } from './diagramMarks';
 import { DEMO_COAST_CORNERS, LAND_CREDIT, landGeometry, landKindFor, landPath } from './landOutline';
 import { NetworkDiagram, type DrawnCounts } from './NetworkDiagram';
-import { networkHref } from './networkHref';
+import { networkHref, type DiagramMode } from './networkHref';
+import { SchematicView } from './SchematicView';
+import { ViewSwitch } from './ViewSwitch';
 import { fitProjection } from './projection';
 import { ServiceFilter } from './ServiceFilter';
 import { SitesInView } from './SitesInView';
 import { SiteCard } from './SiteCard';
+import { SiteSheet } from './SiteSheet';
 import { IDENTITY, zoomAt, type View as ViewT } from './viewport';
 
 const NO_PLACES: readonly { code: string; lat: number; lon: number }[] = [];
 
-export function NetworkScreen({ service, failParam }: { service: string | null; failParam: string | string[] | undefined }) {
+export function NetworkScreen({ service, failParam, mode = 'map' }: { service: string | null; failParam: string | string[] | undefined; mode?: DiagramMode }) {
   const router = useRouter();
   const { wide } = useBreakpoints();
   const win = useWindowDimensions();
@@ -53,12 +55,16 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   const [showLand, setShowLand] = useState(true);
   const [drawn, setDrawn] = useState<{ counts: DrawnCounts; inView: number[] }>({ counts: { sites: 0, links: 0, labels: false, patterns: true }, inView: [] });
 
+  const schematic = mode === 'schematic';
   const knownService = !service || !drawing.data || drawing.data.services.some((s) => s.code === service);
   const model = useMemo(() => (drawing.data ? buildDiagram(drawing.data, knownService ? service : null) : null), [drawing.data, service, knownService]);
   const landKind = useMemo(() => landKindFor(model?.sites ?? []), [model]);
   // On the demo island the fit takes in the whole coast, so the picture shows the island entire.
   const alsoShow = landKind === 'demo' ? DEMO_COAST_CORNERS : NO_PLACES;
   const placed = useMemo(() => (model && width > 0 ? placeDiagram(model, width, height, 28, alsoShow) : null), [model, width, height, alsoShow]);
+  // The schematic shows one service: the chosen one, or the first by code.
+  const schematicService = service ?? (drawing.data ? ([...drawing.data.services].sort((a, b) => a.code.localeCompare(b.code))[0]?.code ?? null) : null);
+  const schematicStatuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, schematicService), [reach.data, schematicService, failed.length]);
   const statuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, service), [reach.data, service, failed.length]);
   // The same fit as placeDiagram's: the land and the scale line up with the sites.
   const fit = useMemo(() => (model && width > 0 && model.sites.length > 0 ? fitProjection([...model.sites, ...alsoShow], width, height, 28) : null), [model, width, height, alsoShow]);
@@ -78,7 +84,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   for (const st of statuses.values()) statusCounts = st === 'off-air' ? { ...statusCounts, off: statusCounts.off + 1 } : { ...statusCounts, reserve: statusCounts.reserve + 1 };
 
   const summary = model
-    ? `${formatCount(drawn.counts.sites)} of ${countOf(model.sites.length, 'site')} and ${formatCount(drawn.counts.links)} of ${countOf(model.links.length, 'feed line')} in view (${countOf(model.feedCount, 'feed')}).${drawn.counts.labels ? '' : ' Zoom in to read site names.'}${drawn.counts.patterns ? '' : ' Lines are drawn without their medium’s pattern until fewer are in view (main still a single line, reserve a double line); zoom in to see each medium’s pattern.'}${failed.length > 0 ? ` Failure set: ${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve.` : ''}`
+    ? `${formatCount(drawn.counts.sites)} of ${countOf(model.sites.length, 'site')} and ${formatCount(drawn.counts.links)} of ${countOf(model.links.length, 'feed line')} in view (${countOf(model.feedCount, 'feed')}).${drawn.counts.groups ? ` Nearby sites are drawn together as ${countOf(drawn.counts.groups, 'numbered circle')} holding ${countOf(drawn.counts.sitesInGroups ?? 0, 'site')}, and their feeds as one line per pair; zoom in or tap a circle to separate them.` : ''}${drawn.counts.labels ? '' : ' Zoom in to read site names.'}${drawn.counts.patterns ? '' : ' Lines are drawn without their medium’s pattern until fewer are in view (main still a single line, reserve a double line); zoom in to see each medium’s pattern.'}${failed.length > 0 ? ` Failure set: ${statusCounts.off} sites off air, ${statusCounts.reserve} on reserve.` : ''}`
     : '';
 
   let body: React.ReactNode;
@@ -88,47 +94,63 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   else if (!knownService) body = <EmptyState title={`No service with code ${service}`} message="Choose a service above, or show them all." testID="network-unknown-service" />;
   else if (model.sites.length === 0) body = <EmptyState title="Nothing carries this service" message="No site has a carriage of the chosen service." testID="network-no-sites" />;
   else {
-    const site = selected !== null ? (model.sites[selected] ?? null) : null;
+    const site = selected !== null && selected >= 0 ? (model.sites[selected] ?? null) : null;
     body = (
       <>
-        <View style={styles.tools}>
-          <Button label="+" accessibilityLabel="Zoom in" variant="secondary" onPress={() => zoomBy(1.6)} testID="network-zoom-in" />
-          <Button label="−" accessibilityLabel="Zoom out" variant="secondary" onPress={() => zoomBy(1 / 1.6)} testID="network-zoom-out" />
-          <Button label="Fit" accessibilityLabel="Fit the whole network" variant="secondary" onPress={() => setView(IDENTITY)} />
-          <Button label={legend ? 'Hide legend' : 'Legend'} variant="quiet" onPress={() => setLegend((l) => !l)} testID="network-legend-toggle" />
-          <Button label={showLand ? 'Hide land' : 'Show land'} variant="quiet" onPress={() => setShowLand((s) => !s)} />
-        </View>
-        <View style={styles.diagramWrap} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
-          {placed && width > 0 ? (
-            <NetworkDiagram
-              model={model}
-              placed={placed}
-              width={width}
-              height={height}
-              view={view}
-              onView={setView}
-              statuses={statuses}
-              selected={selected}
-              onSelect={setSelected}
-              onDrawn={onDrawn}
-              land={land}
-              projection={fit?.projection ?? null}
-              summary={summary}
-            />
+        {schematic ? null : (
+          <View style={styles.tools}>
+            <Button label="+" accessibilityLabel="Zoom in" variant="secondary" onPress={() => zoomBy(1.6)} testID="network-zoom-in" />
+            <Button label="−" accessibilityLabel="Zoom out" variant="secondary" onPress={() => zoomBy(1 / 1.6)} testID="network-zoom-out" />
+            <Button label="Fit" accessibilityLabel="Fit the whole network" variant="secondary" onPress={() => setView(IDENTITY)} />
+            <Button label={legend ? 'Hide legend' : 'Legend'} variant="quiet" onPress={() => setLegend((l) => !l)} testID="network-legend-toggle" />
+            <Button label={showLand ? 'Hide land' : 'Show land'} variant="quiet" onPress={() => setShowLand((s) => !s)} />
+          </View>
+        )}
+        <View style={styles.stage}>
+          {schematic && schematicService ? (
+            <SchematicView doc={drawing.data} service={schematicService} statuses={schematicStatuses} height={height} onChoose={(code) => setSelected(model.sites.findIndex((s) => s.code === code))} />
           ) : (
-            <View style={{ height }} />
+            <View style={styles.diagramWrap} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
+              {placed && width > 0 ? (
+                <NetworkDiagram
+                  model={model}
+                  placed={placed}
+                  width={width}
+                  height={height}
+                  view={view}
+                  onView={setView}
+                  statuses={statuses}
+                  selected={selected}
+                  onSelect={setSelected}
+                  onDrawn={onDrawn}
+                  land={land}
+                  projection={fit?.projection ?? null}
+                  summary={summary}
+                />
+              ) : (
+                <View style={{ height }} />
+              )}
+            </View>
           )}
+          {site ? (
+            <SiteSheet wide={wide} height={height} name={site.name}>
+              <SiteCard site={site} status={statuses.get(site.code)} failed={failed} onClose={() => setSelected(null)} overlayHref={networkHref(service, formatFailSet([...failed, { kind: 'site', code: site.code }]), mode)} />
+            </SiteSheet>
+          ) : null}
         </View>
-        <Text style={styles.summary} accessibilityLiveRegion="polite" testID="network-summary">
-          {summary}
+        {schematic ? null : (
+          <Text style={styles.summary} accessibilityLiveRegion="polite" testID="network-summary">
+            {summary}
+          </Text>
+        )}
+        {showLand && !schematic ? <Text style={styles.small} testID="network-land-credit">{`Land: ${LAND_CREDIT[landKind]}.${land === '' ? ' None of it falls within this area.' : ''}`}</Text> : null}
+        <Text style={styles.small}>
+          {schematic
+            ? 'Scroll both ways to follow the tree; tap a name for its summary, a count to show the relays below it. Lines are main feeds; a thin grey line joins a relay to the branch it hangs under, directly or through other relays.'
+            : 'Drag to move, wheel or pinch to zoom, tap a site for its summary and a numbered circle to separate its sites. The scale bar is true at the centre of the view (the map stretches away from the equator).'}
         </Text>
-        {showLand ? <Text style={styles.small} testID="network-land-credit">{`Land: ${LAND_CREDIT[landKind]}.${land === '' ? ' None of it falls within this area.' : ''}`}</Text> : null}
-        <Text style={styles.small}>Drag to move, wheel or pinch to zoom, tap a site for its summary. The scale bar is true at the centre of the view (the map stretches away from the equator).</Text>
-        <Columns max={2}>
-          {site ? <SiteCard site={site} status={statuses.get(site.code)} failed={failed} onClose={() => setSelected(null)} /> : null}
-          {legend ? <FeedLegend marks={DIAGRAM_MARKS} testID="network-legend" /> : null}
-        </Columns>
-        <SitesInView sites={model.sites} inView={drawn.inView} statuses={statuses} onChoose={setSelected} />
+        {legend && !schematic ? <FeedLegend marks={DIAGRAM_MARKS} testID="network-legend" /> : null}
+        {schematic ? null : <SitesInView sites={model.sites} inView={drawn.inView} statuses={statuses} onChoose={setSelected} />}
       </>
     );
   }
@@ -136,7 +158,13 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
   return (
     <Screen title="Network" subtitle="Sites by position, feeds between them." testID="network-screen">
       {drawing.data ? (
-        <ServiceFilter services={drawing.data.services} value={service} onChange={(code) => router.replace(networkHref(code, failText))} />
+        <ServiceFilter services={drawing.data.services} value={service} onChange={(code) => router.replace(networkHref(code ?? (mode === 'schematic' ? service : null), failText, mode))} />
+      ) : null}
+      {drawing.data && drawing.data.services.length > 0 ? (
+        <ViewSwitch
+          mode={mode}
+          onChange={(m) => router.replace(networkHref(m === 'schematic' ? schematicService : service, failText, m))}
+        />
       ) : null}
       {failed.length > 0 ? (
         <View style={styles.failBox}>
@@ -150,6 +178,7 @@ export function NetworkScreen({ service, failParam }: { service: string | null; 
 
 const styles = StyleSheet.create({
   tools: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  stage: { position: 'relative' },
   diagramWrap: { width: '100%', borderWidth: 1, borderColor: colors.line, borderRadius: 8, overflow: 'hidden', backgroundColor: colors.surface },
   summary: { ...type.body, fontSize: 16 },
   small: { ...type.small },

@@ -1,5 +1,5 @@
 /** The chosen site on the diagram: what it is, what it carries, its state under the failure set, and where to go next. */
-import { Link } from 'expo-router';
+import { Link, type Href } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
 import { StatusPill } from '@/src/components/Badge';
@@ -13,7 +13,7 @@ import type { DiagramSite, SiteStatus } from './diagramModel';
 
 const ROLE_WORD = { origin: 'Origin', main: 'Main station', relay: 'Relay' } as const;
 
-export function SiteCard({ site, status, failed, onClose }: { site: DiagramSite; status: SiteStatus | undefined; failed: readonly Element[]; onClose: () => void }) {
+export function SiteCard({ site, status, failed, onClose, overlayHref }: { site: DiagramSite; status: SiteStatus | undefined; failed: readonly Element[]; onClose: () => void; overlayHref?: Href }) {
   const withThis = formatFailSet([...failed, { kind: 'site', code: site.code }]);
   const alreadyFailed = failed.some((e) => e.kind === 'site' && e.code === site.code);
   return (
@@ -44,6 +44,9 @@ export function SiteCard({ site, status, failed, onClose }: { site: DiagramSite;
         <LinkRow href={`/sites/${encodeURIComponent(site.code)}`} title="Open the site page" />
         {alreadyFailed ? null : (
           <LinkRow href={`/reach?fail=${withThis}`} title={failed.length > 0 ? 'Add this site to the failure set' : 'Fault reach if this site fails'} />
+        )}
+        {alreadyFailed || !overlayHref ? null : (
+          <LinkRow href={overlayHref} title={failed.length > 0 ? 'Add it to the failure set shown here' : 'Show here what its failure takes off air'} testID="network-site-overlay" />
         )}
       </View>
     </Card>

@@ -1,0 +1,144 @@
+/**
+ * The geographic diagram on a <canvas> (web): tens of thousands of SVG nodes
+ * would stall a phone, one canvas redrawn from a frame plan does not. Draws
+ * at most once per animation frame, at the device's pixel ratio. Each draw's
+ * time and what it drew are kept on window.__headwaterDiagram for the
+ * browser benchmark and tests (no effect on the screen).
+ */
+import { useEffect, useMemo, useRef } from 'react';
+import { colors } from '@/src/theme';
+import type { DiagramModel } from './diagramModel';
+import { planFrame, type FramePlan, type Status } from './framePlan';
+import type { LodIndex } from './lod';
+import { canvasMeasure, paintGeo } from './paintGeo';
+import type { View } from './viewport';
+
+export interface DrawRecord {
+  at: number;
+  ms: number;
+  level: number;
+  gesture: boolean;
+  groups: number;
+  singles: number;
+  lines: number;
+  sitesInGroups: number;
+  offMarks: number;
+  reserveMarks: number;
+  /** Labels drawn: text and box (screen px). */
+  labels: { text: string; x: number; y: number; width: number; height: number }[];
+  /** Lone sites drawn with a failure mark: code and mark. */
+  marked: { code: string; status: Status }[];
+  statuses: number;
+  /** The land's bounding box on screen (px, relative to the canvas), when land is drawn. */
+  land: { x: number; y: number; width: number; height: number } | null;
+}
+
+interface DiagramHook {
+  draws: DrawRecord[];
+  last: DrawRecord | null;
+}
+
+declare global {
+  interface Window {
+    __headwaterDiagram?: DiagramHook;
+  }
+}
+
+const KEEP_DRAWS = 600;
+
+/** Bounding box of an SVG path of absolute coordinate pairs (d3-geo's output: M, L, Z only). */
+export function pathBox(d: string): { x0: number; y0: number; x1: number; y1: number } | null {
+  const nums = d.match(/-?\d+(?:\.\d+)?(?:e-?\d+)?/g);
+  if (!nums || nums.length < 2) return null;
+  let x0 = Infinity;
+  let y0 = Infinity;
+  let x1 = -Infinity;
+  let y1 = -Infinity;
+  for (let i = 0; i + 1 < nums.length; i += 2) {
+    const x = Number(nums[i]);
+    const y = Number(nums[i + 1]);
+    x0 = Math.min(x0, x);
+    x1 = Math.max(x1, x);
+    y0 = Math.min(y0, y);
+    y1 = Math.max(y1, y);
+  }
+  return { x0, y0, x1, y1 };
+}
+
+function record(plan: FramePlan, model: DiagramModel, ms: number, gesture: boolean, statuses: number, landBox: ReturnType<typeof pathBox>, view: View): DrawRecord {
+  const marked: DrawRecord['marked'] = [];
+  for (const m of plan.marks) {
+    if (m.role === null) continue;
+    if (m.off > 0) marked.push({ code: model.sites[m.site].code, status: 'off-air' });
+    else if (m.reserve > 0) marked.push({ code: model.sites[m.site].code, status: 'on-reserve' });
+  }
+  return { at: performance.now(), ms, level: plan.level, gesture, ...plan.counts, labels: plan.labels.map(({ text, x, y, width, height }) => ({ text, x, y, width, height })), marked, statuses, land: landBox ? { x: landBox.x0 * view.k + view.tx, y: landBox.y0 * view.k + view.ty, width: (landBox.x1 - landBox.x0) * view.k, height: (landBox.y1 - landBox.y0) * view.k } : null };
+}
+
+export interface GeoCanvasProps {
+  model: DiagramModel;
+  lod: LodIndex;
+  siteIndex: ReadonlyMap<string, number>;
+  width: number;
+  height: number;
+  view: View;
+  /** A gesture is running: labels are left out until it ends. */
+  gesture: boolean;
+  statuses: ReadonlyMap<string, Status>;
+  /** Land outline in diagram px at zoom 1. */
+  land: string | null;
+  /** The chosen site's index in the model. */
+  selected: number | null;
+  xs: Float64Array;
+  ys: Float64Array;
+  /** The last plan drawn, for hit testing taps. */
+  planRef: { current: FramePlan | null };
+  /** Called after each draw outside a gesture. */
+  onDrawn?: (plan: FramePlan) => void;
+}
+
+export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture, statuses, land, selected, xs, ys, planRef, onDrawn }: GeoCanvasProps) {
+  const canvas = useRef<HTMLCanvasElement | null>(null);
+  const frame = useRef<number | null>(null);
+  const landPath = useMemo(() => (land ? new Path2D(land) : null), [land]);
+  const landBox = useMemo(() => (land ? pathBox(land) : null), [land]);
+  const dpr = typeof window !== 'undefined' ? Math.min(2, window.devicePixelRatio || 1) : 1;
+  const measure = useRef<((t: string, px: number) => number) | null>(null);
+
+  useEffect(() => {
+    if (frame.current !== null) cancelAnimationFrame(frame.current);
+    frame.current = requestAnimationFrame(() => {
+      frame.current = null;
+      const el = canvas.current;
+      const ctx = el?.getContext('2d');
+      if (!el || !ctx) return;
+      const t0 = performance.now();
+      if (!measure.current) measure.current = canvasMeasure(ctx);
+      const plan = planFrame({ model, lod, view, width, height, statuses, siteIndex, measure: measure.current, labels: !gesture });
+      const sel = selected !== null && selected < xs.length ? { x: xs[selected] * view.k + view.tx, y: ys[selected] * view.k + view.ty } : null;
+      paintGeo(ctx, { plan, view, width, height, dpr, land: landPath, selected: sel });
+      planRef.current = plan;
+      const hook = (window.__headwaterDiagram ??= { draws: [], last: null });
+      const rec = record(plan, model, performance.now() - t0, gesture, statuses.size, landBox, view);
+      hook.last = rec;
+      hook.draws.push(rec);
+      if (hook.draws.length > KEEP_DRAWS) hook.draws.splice(0, hook.draws.length - KEEP_DRAWS);
+      if (!gesture) onDrawn?.(plan);
+    });
+    return () => {
+      if (frame.current !== null) cancelAnimationFrame(frame.current);
+      frame.current = null;
+    };
+  }, [model, lod, siteIndex, width, height, view, gesture, statuses, landPath, selected, xs, ys, dpr, planRef, onDrawn, landBox]);
+
+  return (
+    <canvas
+      ref={canvas}
+      width={Math.round(width * dpr)}
+      height={Math.round(height * dpr)}
+      style={{ width, height, display: 'block', background: colors.surface }}
+      aria-hidden
+      data-testid="network-canvas"
+    />
+  );
+}
