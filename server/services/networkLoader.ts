@@ -12,6 +12,7 @@
  * the order the engine and an edit's document patch (documentPatch.ts) use.
  */
 import type { Sequelize, Transaction } from 'sequelize';
+import type { CodesByKind } from '../db/networkChange';
 import { NETWORK_FORMAT, type EntityKind, type NetworkDocument, type Site, type Carriage, type Feed, type Service, type Group } from '@/shared/schemas/network';
 
 type Row = Record<string, unknown>;
@@ -124,8 +125,7 @@ export async function loadNetworkDocument(sequelize: Sequelize, transaction?: Tr
   return { document: result as NetworkDocument, version };
 }
 
-/** Codes per entity kind. */
-export type CodesByKind = Partial<Record<EntityKind, string[]>>;
+export type { CodesByKind };
 /** Entities per kind as they are now: a code asked for and not found was deleted. */
 export type EntitiesByKind = Partial<{ sites: Site[]; services: Service[]; groups: Group[]; carriages: Carriage[]; feeds: Feed[] }>;
 
