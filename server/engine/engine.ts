@@ -1,9 +1,9 @@
 /**
  * The analysis engine: one immutable instance per network version, built from
  * a validated network document. Answers rules 1-9 of docs/domain.md.
- * Everything that does not depend on a request (dominator trees, unfed
- * carriages, single points of failure, exposure, diversity) is computed in
- * `build`; `reach` and `chain` work from those.
+ * `build` (or an edit's `update`) computes the graphs, dominator trees and
+ * unfed carriages; single points of failure, exposure and diversity are
+ * computed on first use and kept; `reach` and `chain` work from the trees.
  */
 import type { NetworkDocument } from '@/shared/schemas/network';
 import type {
