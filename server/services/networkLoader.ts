@@ -4,7 +4,8 @@
  * entities an edit named (`loadEntities`, for the update after an edit,
  * docs/architecture.md "An edit"). Both run the same set-based queries, the
  * second with `WHERE code = ANY(...)`, so an entity reads the same either way.
- * Raw SQL rather than Sequelize instances: a 20,000-site network is several
+ * Column lists come from the models' attribute descriptions
+ * (server/db/models/inventory.ts). Raw SQL rather than Sequelize instances: a 20,000-site network is several
  * hundred thousand rows, and model instances would cost seconds and hundreds
  * of megabytes for nothing.
  *
@@ -13,6 +14,8 @@
  */
 import type { Sequelize, Transaction } from 'sequelize';
 import type { CodesByKind } from '../db/networkChange';
+import { selectList } from '../db/columns';
+import { CARRIAGE_ATTRIBUTES, FEED_ATTRIBUTES, GROUP_ATTRIBUTES, SERVICE_ATTRIBUTES, SITE_ATTRIBUTES } from '../db/models/inventory';
 import { NETWORK_FORMAT, type EntityKind, type NetworkDocument, type Site, type Carriage, type Feed, type Service, type Group } from '@/shared/schemas/network';
 
 type Row = Record<string, unknown>;
@@ -41,8 +44,7 @@ const listBy = (rows: Row[], key: string) => {
 
 async function readSites(q: Query, codes?: string[]): Promise<Site[]> {
   const rows = await q(
-    `SELECT id, code, name, role, lat, lon, ground_height_m AS "groundHeightM", mast_height_m AS "mastHeightM", households
-     FROM sites WHERE true ${only('code', codes)} ORDER BY code COLLATE "C"`,
+    `SELECT s.id, ${selectList(SITE_ATTRIBUTES, 's')} FROM sites s WHERE true ${only('s.code', codes)} ORDER BY s.code COLLATE "C"`,
     codes,
   );
   const groups = listBy(
@@ -57,17 +59,16 @@ async function readSites(q: Query, codes?: string[]): Promise<Site[]> {
 }
 
 async function readServices(q: Query, codes?: string[]): Promise<Service[]> {
-  return (await q(`SELECT code, name, kind FROM services WHERE true ${only('code', codes)} ORDER BY code COLLATE "C"`, codes)).map((s) => clean<Service>(s));
+  return (await q(`SELECT ${selectList(SERVICE_ATTRIBUTES, 'v')} FROM services v WHERE true ${only('v.code', codes)} ORDER BY v.code COLLATE "C"`, codes)).map((s) => clean<Service>(s));
 }
 
 async function readGroups(q: Query, codes?: string[]): Promise<Group[]> {
-  return (await q(`SELECT code, name, note FROM risk_groups WHERE true ${only('code', codes)} ORDER BY code COLLATE "C"`, codes)).map((g) => clean<Group>(g));
+  return (await q(`SELECT ${selectList(GROUP_ATTRIBUTES, 'g')} FROM risk_groups g WHERE true ${only('g.code', codes)} ORDER BY g.code COLLATE "C"`, codes)).map((g) => clean<Group>(g));
 }
 
 async function readCarriages(q: Query, codes?: string[]): Promise<Carriage[]> {
   const rows = await q(
-    `SELECT c.code, s.code AS site, v.code AS service, c.frequency_mhz AS "frequencyMHz", c.channel, c.erp_w AS "erpW",
-       c.polarisation, c.antenna_height_m AS "antennaHeightM", c.on_channel_repeater AS "onChannelRepeater"
+    `SELECT c.code, s.code AS site, v.code AS service, ${selectList(CARRIAGE_ATTRIBUTES, 'c', ['code', 'siteId', 'serviceId'])}
      FROM carriages c JOIN sites s ON s.id = c.site_id JOIN services v ON v.id = c.service_id
      WHERE true ${only('c.code', codes)} ORDER BY c.code COLLATE "C"`,
     codes,
@@ -77,8 +78,7 @@ async function readCarriages(q: Query, codes?: string[]): Promise<Carriage[]> {
 
 async function readFeeds(q: Query, codes?: string[]): Promise<Feed[]> {
   const rows = await q(
-    `SELECT f.id, f.code, a.code AS "from", b.code AS "to", f.medium, f.role, f.rx_frequency_mhz AS "rxFrequencyMHz",
-       f.rx_channel AS "rxChannel", f.rx_antenna AS "rxAntenna", f.bearing_deg AS "bearingDeg"
+    `SELECT f.id, f.code, a.code AS "from", b.code AS "to", ${selectList(FEED_ATTRIBUTES, 'f', ['code', 'fromCarriageId', 'toCarriageId'])}
      FROM feeds f JOIN carriages a ON a.id = f.from_carriage_id JOIN carriages b ON b.id = f.to_carriage_id
      WHERE true ${only('f.code', codes)} ORDER BY f.code COLLATE "C"`,
     codes,
