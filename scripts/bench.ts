@@ -5,12 +5,19 @@
  * plain typed-array walk and the remove-and-walk baseline on the same graphs,
  * time reach over HTTP on loopback, and record the peak RSS.
  *
- *   npm run bench -- [--sizes 1000,5000,20000] [--seed 7] [--json FILE]
+ *   npm run bench -- [--sizes 1000,5000,20000] [--seed 7] [--json FILE] [--edits N] [--lean]
+ *
+ * --edits N: at each size up to 20,000 sites (or every size when given),
+ * N edits through one server timed until a second server process answers
+ * with them (scripts/bench-edits.ts, `editVisibleP95Ms`; default 60).
+ * --lean: skip networkx, the planner and the operations figures (for the
+ * 100,000-site size: `npm run bench -- --sizes 100000 --lean --edits 0`).
  *
  * Not part of npm test: targets are measured here, never in a timed test.
  */
 import crypto from 'node:crypto';
 import fs from 'node:fs';
+import os from 'node:os';
 import { loadConfig } from '@/server/config';
 import { openDatabase } from '@/server/db';
 import { importNetwork } from '@/server/services/importer';
@@ -20,6 +27,7 @@ import { startServer } from '@/server/server';
 import { ensureUser } from '@/server/services/users';
 import { benchEngine, percentile, round, type EngineBenchResult } from './bench-engine';
 import { benchOperations, describeOperations, type OperationsBenchResult } from './bench-operations';
+import { benchEdits, type EditsBenchResult } from './bench-edits';
 import { Prng } from './generator/prng';
 import { generateNetwork } from './generator';
 import { resolveDatabaseUrl } from './lib/postgres';
@@ -36,6 +44,9 @@ const sizes = (arg('sizes') ?? '1000,5000,20000').split(',').map((s) => {
 });
 const seed = Number(arg('seed') ?? 7);
 const jsonFile = arg('json');
+const lean = process.argv.includes('--lean');
+const editsArg = arg('edits');
+const editsFor = (sites: number) => (editsArg !== undefined ? Number(editsArg) : sites <= 20000 ? 60 : 0);
 
 interface SizeResult extends EngineBenchResult {
   importMs: number;
@@ -46,7 +57,10 @@ interface SizeResult extends EngineBenchResult {
   httpReachP50Ms: number;
   httpReachP95Ms: number;
   rssMb: number;
-  operations: OperationsBenchResult;
+  /** first single points of failure and exposure of a freshly built model (computed on first use) */
+  spofExposureFirstMs: number;
+  operations: OperationsBenchResult | null;
+  edits: EditsBenchResult | null;
 }
 
 const peakRssMb = () => Math.round(process.resourceUsage().maxRSS / 1024);
@@ -95,17 +109,24 @@ async function benchSize(sites: number): Promise<SizeResult> {
     const model = buildServedNetwork(document, version);
     const rebuildFromDbMs = performance.now() - t;
     console.log(`  rebuild from PostgreSQL ${(rebuildFromDbMs / 1000).toFixed(2)} s (read ${(loadFromDbMs / 1000).toFixed(2)} s)`);
-    void model;
+    t = performance.now();
+    model.engine.spof();
+    model.engine.exposure();
+    const spofExposureFirstMs = performance.now() - t;
+    console.log(`  first spof + exposure on it ${spofExposureFirstMs.toFixed(0)} ms`);
 
-    const engine = benchEngine(document, { seed, networkx: true });
+    const engine = benchEngine(document, { seed, networkx: !lean, planner: !lean });
     console.log(`  engine: reach one p95 ${engine.reachOneP95Ms} ms, multi p95 ${engine.reachMultiP95Ms} ms, spof+exposure ${engine.spofAllMs} ms`);
 
-    const operations = benchOperations(document, { seed });
-    console.log(describeOperations(operations));
+    const operations = lean ? null : benchOperations(document, { seed });
+    if (operations) console.log(describeOperations(operations));
 
     const rnd = new Prng(seed);
     const codes = Array.from({ length: 200 }, () => document.sites[Math.floor(rnd.next() * document.sites.length)].code);
     const http = await httpReach(url, codes);
+    const editCount = editsFor(sites);
+    const edits = editCount > 0 ? await benchEdits(url, document, { edits: editCount, seed }) : null;
+    if (edits) console.log(`  edit visible in a second process: p50 ${edits.editVisibleP50Ms} ms, p95 ${edits.editVisibleP95Ms} ms (edit answered p95 ${edits.editAckP95Ms} ms)`);
     const result: SizeResult = {
       ...engine,
       engineBuildMs: engine.buildMs,
@@ -116,7 +137,9 @@ async function benchSize(sites: number): Promise<SizeResult> {
       httpReachP50Ms: round(percentile(http, 50)),
       httpReachP95Ms: round(percentile(http, 95)),
       rssMb: peakRssMb(),
+      spofExposureFirstMs: round(spofExposureFirstMs),
       operations,
+      edits,
     };
     console.log(`  HTTP reach p95 ${result.httpReachP95Ms} ms; peak RSS so far ${result.rssMb} MB`);
     return result;
@@ -143,8 +166,10 @@ function table(results: SizeResult[]) {
     ['dominators, ours (ms)', (r) => r.idomMs.toFixed(1)],
     ['dominators, networkx (ms)', (r) => (r.networkxIdomMs === null ? 'n/a' : r.networkxIdomMs.toFixed(0))],
     ['  speed-up over networkx', (r) => (r.networkxIdomMs === null ? 'n/a' : `${(r.networkxIdomMs / r.idomMs).toFixed(0)}x`)],
-    ['clashes, 500 works: whole set (ms)', (r) => r.operations.wholeSetMs.toFixed(0)],
-    ['clashes of one work p95, cold (ms)', (r) => r.operations.oneWorkColdP95Ms.toFixed(2)],
+    ['first spof + exposure after a rebuild (ms)', (r) => r.spofExposureFirstMs.toFixed(0)],
+    ['edit visible in a 2nd process p95 (ms)', (r) => (r.edits ? r.edits.editVisibleP95Ms.toFixed(1) : 'n/a')],
+    ['clashes, 500 works: whole set (ms)', (r) => (r.operations ? r.operations.wholeSetMs.toFixed(0) : 'n/a')],
+    ['clashes of one work p95, cold (ms)', (r) => (r.operations ? r.operations.oneWorkColdP95Ms.toFixed(2) : 'n/a')],
     ['peak RSS (MB)', (r) => String(r.rssMb)],
   ];
   const w0 = Math.max(...rows.map(([k]) => k.length));
@@ -162,6 +187,9 @@ function table(results: SizeResult[]) {
       when: new Date().toISOString(),
       seed,
       node: process.version,
+      // other work on the machine stretches every time here: the 1-minute load average at the end, on os.cpus().length cores
+      loadAverage: os.loadavg().map((x) => Math.round(x * 10) / 10),
+      cores: os.cpus().length,
       entries: results.map((r) => ({
         sites: r.sites,
         nodes: r.nodes,
@@ -180,6 +208,10 @@ function table(results: SizeResult[]) {
         networkxIdomMs: r.networkxIdomMs,
         httpReachP95Ms: r.httpReachP95Ms,
         rssMb: r.rssMb,
+        rebuildFromDbMs: r.rebuildFromDbMs,
+        loadFromDbMs: r.loadFromDbMs,
+        spofExposureFirstMs: r.spofExposureFirstMs,
+        ...(r.edits ? { editVisibleP95Ms: r.edits.editVisibleP95Ms, edits: r.edits } : {}),
         operations: r.operations,
       })),
     };

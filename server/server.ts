@@ -8,7 +8,7 @@ import { openDatabase } from './db';
 import { createApp } from './app';
 import type { AppContext } from './context';
 import { NetworkStore } from './services/networkStore';
-import { buildServedNetwork } from './services/servedNetwork';
+import { buildServedNetwork, updateServedNetwork } from './services/servedNetwork';
 import { ensureUser } from './services/users';
 import { applyDemoAccounts, listenHost, type DemoAccountsResult } from './services/demoAccounts';
 import { OperationsEvents } from './operations/events';
@@ -41,7 +41,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
   // DEMO=1: the demo accounts exist (passwords changed since are kept); DEMO=0: any left over are disabled.
   const demoAccounts = await applyDemoAccounts(config.DEMO);
 
-  const network = new NetworkStore(db.sequelize, databaseUrl, buildServedNetwork);
+  const network = new NetworkStore(db.sequelize, databaseUrl, buildServedNetwork, { update: updateServedNetwork });
   await network.start();
   const ctx: AppContext = { config, db, network, events: new OperationsEvents(), objects: ObjectStore.fromConfig(config), mailbox: opts.mailbox ?? null };
   let port = config.PORT;

@@ -12,6 +12,7 @@ import { defineOperations } from './models/operations';
 import { defineNotices } from './models/notices';
 import { defineDocuments } from './models/documents';
 import { migrations } from './migrations';
+import { encodeChange, type CodesByKind } from './networkChange';
 
 // bigint columns (the network version, audit ids) fit comfortably in a JS number.
 pg.types.setTypeParser(20, (v: string) => Number(v));
@@ -116,10 +117,11 @@ export function openDatabase(url: string, limits: Partial<DatabaseLimits> = {}):
  * PostgreSQL delivers NOTIFY only when the transaction commits, so other
  * processes never rebuild from a change that was rolled back.
  */
-export async function bumpNetworkVersion(sequelize: Sequelize, transaction: Transaction): Promise<number> {
+export async function bumpNetworkVersion(sequelize: Sequelize, transaction: Transaction, codes: CodesByKind | null = null): Promise<number> {
   const [rows] = await sequelize.query('UPDATE network_state SET version = version + 1 WHERE id = 1 RETURNING version', { transaction });
   const version = Number((rows as { version: number }[])[0].version);
-  await sequelize.query(`SELECT pg_notify('network_changed', $1)`, { bind: [String(version)], transaction });
+  // the payload names what changed (networkChange.ts) so other processes update rather than rebuild
+  await sequelize.query(`SELECT pg_notify('network_changed', $1)`, { bind: [encodeChange({ version, codes })], transaction });
   return version;
 }
 

@@ -19,6 +19,8 @@ export interface BuildTimings {
   idomMs: number;
   /** the same for the main-only graphs, plus the tree indexes */
   treesMs: number;
+  /** service graphs built (all of them in a full build, those an edit touched in an update) */
+  rebuiltServices: number;
 }
 
 export interface EngineCore {
@@ -60,7 +62,47 @@ export function buildCore(doc: NetworkDocument): EngineCore {
     services.push(compileFlowSpec(spec, model, base));
     base += spec.n;
   }
-  const totalNodes = base;
+  const compileMs = now() - t;
+
+  t = now();
+  const fullIdoms = services.map((svc) => immediateDominators(svc.full, 0, svc.fullIn));
+  const idomMs = now() - t;
+
+  t = now();
+  const full: FlowView[] = services.map((svc, s) => ({ out: svc.full, in: svc.fullIn, tree: indexDominatorTree(fullIdoms[s], 0, svc.isCarriage) }));
+  const main: FlowView[] = services.map((svc) => mainView(svc));
+  const treesMs = now() - t;
+
+  t = now();
+  const core = assembleCore(model, specs, services, full, main, { modelMs, flowMs, compileMs: 0, idomMs, treesMs, rebuiltServices: specs.length });
+  core.timings.compileMs = compileMs + now() - t;
+  return core;
+}
+
+/** The main-only view of a compiled service: its graph and dominator tree without reserve feeds (rule 5). */
+export function mainView(svc: CompiledService): FlowView {
+  return { out: svc.main, in: svc.mainIn, tree: indexDominatorTree(immediateDominators(svc.main, 0, svc.mainIn), 0, svc.isCarriage) };
+}
+
+/** The full view of a compiled service: its graph and dominator tree. */
+export function fullView(svc: CompiledService): FlowView {
+  return { out: svc.full, in: svc.fullIn, tree: indexDominatorTree(immediateDominators(svc.full, 0, svc.fullIn), 0, svc.isCarriage) };
+}
+
+/**
+ * The network-wide indexes over the compiled services (node -> service,
+ * element -> nodes, carriage -> node, fed): shared by a full build and an
+ * edit's update (update.ts), which hands in services whose `base` is set.
+ */
+export function assembleCore(
+  model: NetworkModel,
+  specs: FlowSpec[],
+  services: CompiledService[],
+  full: FlowView[],
+  main: FlowView[],
+  timings: BuildTimings,
+): EngineCore {
+  const totalNodes = services.reduce((n, svc) => n + svc.n, 0);
   const carriageNode = new Int32Array(model.carriages.length).fill(-1);
   const nodeService = new Int32Array(totalNodes);
   for (const svc of services) {
@@ -77,20 +119,6 @@ export function buildCore(doc: NetworkDocument): EngineCore {
       for (let j = svc.ownerOffsets[u]; j < svc.ownerOffsets[u + 1]; j++) elementNodes[fill[svc.owners[j]]++] = svc.base + u;
     }
   }
-  const compileMs = now() - t;
-
-  t = now();
-  const fullIdoms = services.map((svc) => immediateDominators(svc.full, 0, svc.fullIn));
-  const idomMs = now() - t;
-
-  t = now();
-  const full: FlowView[] = services.map((svc, s) => ({ out: svc.full, in: svc.fullIn, tree: indexDominatorTree(fullIdoms[s], 0, svc.isCarriage) }));
-  const main: FlowView[] = services.map((svc) => ({
-    out: svc.main,
-    in: svc.mainIn,
-    tree: indexDominatorTree(immediateDominators(svc.main, 0, svc.mainIn), 0, svc.isCarriage),
-  }));
-  const treesMs = now() - t;
 
   const fed = new Uint8Array(model.carriages.length);
   const mainFed = new Uint8Array(model.carriages.length);
@@ -118,6 +146,6 @@ export function buildCore(doc: NetworkDocument): EngineCore {
     totalNodes,
     totalEdges,
     walker: new RemovalWalker(maxN),
-    timings: { modelMs, flowMs, compileMs, idomMs, treesMs },
+    timings,
   };
 }

@@ -1,9 +1,9 @@
 /**
  * The analysis engine: one immutable instance per network version, built from
  * a validated network document. Answers rules 1-9 of docs/domain.md.
- * Everything that does not depend on a request (dominator trees, unfed
- * carriages, single points of failure, exposure, diversity) is computed in
- * `build`; `reach` and `chain` work from those.
+ * `build` (or an edit's `update`) computes the graphs, dominator trees and
+ * unfed carriages; single points of failure, exposure and diversity are
+ * computed on first use and kept; `reach` and `chain` work from the trees.
  */
 import type { NetworkDocument } from '@/shared/schemas/network';
 import type {
@@ -32,9 +32,11 @@ import { bestOverNetwork } from './proposals-ranking';
 import type { ElementKind } from '@/shared/schemas/network';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
 import { toGraphology, type ServiceGraph } from './graphs';
+import { IncrementalUpdateError, updateCore, type ChangedCodes } from './update';
 import type { Csr } from './csr';
 
 export { UnknownElementsError, UnknownCarriageError } from './errors';
+export type { ChangedCodes } from './update';
 
 export interface EngineCounts {
   sites: number;
@@ -54,23 +56,36 @@ export interface EngineTimings extends BuildTimings {
   totalMs: number;
 }
 
+/** What the engine computes for every carriage and element, on first use. */
+interface Analysis {
+  resilience: Resilience;
+  /** per service: element ids that hold every origin of the service (rule 9, unavoidable) */
+  unavoidable: Int32Array[];
+  /** carriages with a diversity gap -> their avoidable weak points (element ids) */
+  gaps: Map<number, number[]>;
+  spofAnswer: SpofAnswer;
+  diversityAnswer: DiversityAnswer;
+  exposureRows: ExposureRow[];
+}
+
+function checkVersion(networkVersion: number) {
+  if (!Number.isInteger(networkVersion) || networkVersion < 0) {
+    throw new RangeError(`networkVersion must be a whole number >= 0 (got ${String(networkVersion)})`);
+  }
+}
+
 export class NetworkEngine {
   readonly networkVersion: number;
   readonly timings: EngineTimings;
   private readonly core: EngineCore;
-  private readonly resilience: Resilience;
   /** carriages that have programme only through a reserve even with nothing failed (rule 5) */
   private readonly staticFallback: Int32Array;
   private readonly scratch: ReachScratch;
-  private readonly spofAnswer: SpofAnswer;
   private readonly unfedAnswer: UnfedAnswer;
-  private readonly diversityAnswer: DiversityAnswer;
-  private readonly exposureRows: ExposureRow[];
+  private analysed: Analysis | null = null;
+  /** built by an edit's update rather than from scratch */
+  incremental = false;
   private readonly graphology: (ServiceGraph | undefined)[] = [];
-  /** per service: element ids that hold every origin of the service (rule 9, unavoidable) */
-  private readonly unavoidable: Int32Array[];
-  /** carriages with a diversity gap -> their avoidable weak points (element ids) */
-  private readonly gaps = new Map<number, number[]>();
   private proposalCtx: ProposalContext | null = null;
   /** the network ranking's first rows, exact; `complete` when it holds every gap carriage's best */
   private bestProposals: { rows: ProposalRow[]; complete: boolean } | null = null;
@@ -79,62 +94,99 @@ export class NetworkEngine {
     this.core = core;
     this.networkVersion = networkVersion;
     const { model, fed, mainFed } = core;
-    let t = performance.now();
-    this.resilience = computeResilience(core);
-    const resilienceMs = performance.now() - t;
-
-    t = performance.now();
     const staticFallback = new IntList();
     for (let c = 0; c < model.carriages.length; c++) if (fed[c] && !mainFed[c]) staticFallback.push(c);
     this.staticFallback = staticFallback.toArray();
     this.scratch = createReachScratch(core);
-    const { spofOffsets, spofElements } = this.resilience;
-    this.unavoidable = unavoidableByService(core);
+    const unfedRows: UnfedAnswer['carriages'] = [];
+    for (let c = 0; c < model.carriages.length; c++) if (!fed[c]) unfedRows.push(this.placed(c));
+    this.unfedAnswer = { networkVersion, carriages: unfedRows };
+    this.timings = { ...core.timings, resilienceMs: 0, answersMs: 0, totalMs: performance.now() - started };
+  }
+
+  private placed(c: number) {
+    const { model } = this.core;
+    return { carriage: model.carriageCodes[c], service: model.serviceCodes[model.carriageService[c]], site: model.siteCodes[model.carriageSite[c]] };
+  }
+
+  /**
+   * Single points of failure, exposure and diversity of every carriage and
+   * element: computed on first use rather than in `build`, so an edit's
+   * update (`NetworkEngine.update`) puts reach and chains on the new network
+   * at once and the network-wide answers follow when first asked for.
+   */
+  private get analysis(): Analysis {
+    if (this.analysed) return this.analysed;
+    const { core, networkVersion } = this;
+    const { model, fed } = core;
+    let t = performance.now();
+    const resilience = computeResilience(core);
+    const resilienceMs = performance.now() - t;
+    t = performance.now();
+    const { spofOffsets, spofElements } = resilience;
+    const unavoidable = unavoidableByService(core);
+    const gaps = new Map<number, number[]>();
     const spofIds = (c: number) => spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]);
     const spofOf = (c: number) => Array.from(spofIds(c), (x) => model.elements[x]);
-    const placed = (c: number) => ({
-      carriage: model.carriageCodes[c],
-      service: model.serviceCodes[model.carriageService[c]],
-      site: model.siteCodes[model.carriageSite[c]],
-    });
     const spofRows: SpofAnswer['carriages'] = [];
-    const unfedRows: UnfedAnswer['carriages'] = [];
     const diversityRows: DiversityAnswer['carriages'] = [];
     for (let c = 0; c < model.carriages.length; c++) {
-      if (!fed[c]) {
-        unfedRows.push(placed(c));
-        continue;
-      }
+      if (!fed[c]) continue;
       const spof = spofOf(c);
       spofRows.push({ carriage: model.carriageCodes[c], spof });
       const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
       if (!hasReserve || spof.length === 0) continue;
-      const avoidable = avoidableOf(this.unavoidable, model.carriageService[c], spofIds(c));
-      if (avoidable.length > 0) this.gaps.set(c, avoidable);
-      if (avoidable.length > 0) diversityRows.push({ ...placed(c), spof, avoidable: avoidable.map((x) => model.elements[x]) });
+      const avoidable = avoidableOf(unavoidable, model.carriageService[c], spofIds(c));
+      if (avoidable.length > 0) gaps.set(c, avoidable);
+      if (avoidable.length > 0) diversityRows.push({ ...this.placed(c), spof, avoidable: avoidable.map((x) => model.elements[x]) });
     }
-    this.spofAnswer = { networkVersion, carriages: spofRows };
-    this.unfedAnswer = { networkVersion, carriages: unfedRows };
-    this.diversityAnswer = { networkVersion, carriages: diversityRows };
-    const { ranked, exposureHouseholds, exposureCarriages } = this.resilience;
-    this.exposureRows = Array.from(ranked, (x) => ({
+    const { ranked, exposureHouseholds, exposureCarriages } = resilience;
+    const exposureRows = Array.from(ranked, (x) => ({
       element: model.elements[x],
       households: exposureHouseholds[x],
       carriages: exposureCarriages[x],
     }));
     const answersMs = performance.now() - t;
-    this.timings = { ...core.timings, resilienceMs, answersMs, totalMs: performance.now() - started };
+    this.timings.resilienceMs = resilienceMs;
+    this.timings.answersMs = answersMs;
+    this.timings.totalMs += resilienceMs + answersMs;
+    this.analysed = {
+      resilience,
+      unavoidable,
+      gaps,
+      spofAnswer: { networkVersion, carriages: spofRows },
+      diversityAnswer: { networkVersion, carriages: diversityRows },
+      exposureRows,
+    };
+    return this.analysed;
   }
 
   static build(doc: NetworkDocument, networkVersion: number): NetworkEngine {
-    if (!Number.isInteger(networkVersion) || networkVersion < 0) {
-      throw new RangeError(`networkVersion must be a whole number >= 0 (got ${String(networkVersion)})`);
-    }
+    checkVersion(networkVersion);
     if (!doc || !Array.isArray(doc.sites) || !Array.isArray(doc.carriages) || !Array.isArray(doc.feeds)) {
       throw new TypeError('build needs a validated network document (sites, services, groups, carriages, feeds)');
     }
     const started = performance.now();
     return new NetworkEngine(buildCore(doc), networkVersion, started);
+  }
+
+  /**
+   * The engine of `doc`, which is `prev`'s document after an edit that
+   * created, changed or deleted the `changed` codes: only the service graphs
+   * the edit touches are rebuilt (update.ts). Falls back to a full build when
+   * the edit is outside what an update handles; `incremental` says which ran.
+   */
+  static update(prev: NetworkEngine, doc: NetworkDocument, networkVersion: number, changed: ChangedCodes): NetworkEngine {
+    checkVersion(networkVersion);
+    const started = performance.now();
+    try {
+      const engine = new NetworkEngine(updateCore(prev.core, doc, changed), networkVersion, started);
+      engine.incremental = true;
+      return engine;
+    } catch (e) {
+      if (!(e instanceof IncrementalUpdateError)) throw e;
+      return NetworkEngine.build(doc, networkVersion);
+    }
   }
 
   get counts(): EngineCounts {
@@ -223,18 +275,18 @@ export class NetworkEngine {
   }
 
   spof(): SpofAnswer {
-    return this.spofAnswer;
+    return this.analysis.spofAnswer;
   }
 
   exposure(limit?: number): ExposureAnswer {
     if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) {
       throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
     }
-    return { networkVersion: this.networkVersion, elements: limit === undefined ? this.exposureRows : this.exposureRows.slice(0, limit) };
+    return { networkVersion: this.networkVersion, elements: limit === undefined ? this.analysis.exposureRows : this.analysis.exposureRows.slice(0, limit) };
   }
 
   diversity(): DiversityAnswer {
-    return this.diversityAnswer;
+    return this.analysis.diversityAnswer;
   }
 
   unfed(): UnfedAnswer {
@@ -254,12 +306,12 @@ export class NetworkEngine {
     if (opts.carriage !== undefined) {
       const c = this.core.model.carriageIndex.get(normaliseCode(opts.carriage));
       if (c === undefined) throw new UnknownCarriageError(normaliseCode(opts.carriage));
-      const avoidable = this.gaps.get(c);
+      const avoidable = this.analysis.gaps.get(c);
       rows = avoidable ? proposalsFor(this.proposalCtx, c, avoidable) : [];
     } else {
       const held = this.bestProposals;
       if (!held || (!held.complete && (limit === undefined || held.rows.length < limit))) {
-        const ranked = bestOverNetwork(this.proposalCtx, this.gaps, limit);
+        const ranked = bestOverNetwork(this.proposalCtx, this.analysis.gaps, limit);
         this.bestProposals = { rows: ranked, complete: limit === undefined || ranked.length < limit };
       }
       rows = this.bestProposals!.rows;

@@ -91,7 +91,18 @@ export interface FlowSpec {
 
 /** The flow graph of every service, indexed by service id. */
 export function buildFlowSpecs(model: NetworkModel): FlowSpec[] {
+  return buildSomeFlowSpecs(model, null) as FlowSpec[];
+}
+
+/**
+ * The flow graphs of the services marked in `only` (all when null); the
+ * others are left undefined. An edit rebuilds only the services it touches
+ * (update.ts): the loops stay over every carriage and feed, which is cheap
+ * typed-array work next to compiling and dominators.
+ */
+export function buildSomeFlowSpecs(model: NetworkModel, only: Uint8Array | null): (FlowSpec | undefined)[] {
   const serviceCount = model.services.length;
+  const want = (s: number) => only === null || only[s] === 1;
   const nodes = new Int32Array(serviceCount).fill(1);
   const edges = new Int32Array(serviceCount);
   const C = model.carriages.length;
@@ -106,17 +117,21 @@ export function buildFlowSpecs(model: NetworkModel): FlowSpec[] {
     nodes[s] += 1 + hops;
     edges[s] += 2 + hops;
   }
-  const specs: FlowSpec[] = Array.from({ length: serviceCount }, (_, s) => ({
-    service: s,
-    n: nodes[s],
-    kind: new Uint8Array(nodes[s]),
-    ref: new Int32Array(nodes[s]).fill(-1),
-    hopFeed: new Int32Array(nodes[s]).fill(-1),
-    m: edges[s],
-    source: new Int32Array(edges[s]),
-    target: new Int32Array(edges[s]),
-    reserve: new Uint8Array(edges[s]),
-  }));
+  const specs: (FlowSpec | undefined)[] = Array.from({ length: serviceCount }, (_, s) =>
+    want(s)
+      ? {
+          service: s,
+          n: nodes[s],
+          kind: new Uint8Array(nodes[s]),
+          ref: new Int32Array(nodes[s]).fill(-1),
+          hopFeed: new Int32Array(nodes[s]).fill(-1),
+          m: edges[s],
+          source: new Int32Array(edges[s]),
+          target: new Int32Array(edges[s]),
+          reserve: new Uint8Array(edges[s]),
+        }
+      : undefined,
+  );
   const nextNode = new Int32Array(serviceCount).fill(1);
   const nextEdge = new Int32Array(serviceCount);
   const edge = (spec: FlowSpec, a: number, b: number, reserve: number) => {
@@ -128,6 +143,7 @@ export function buildFlowSpecs(model: NetworkModel): FlowSpec[] {
   const local = new Int32Array(C);
   for (let c = 0; c < C; c++) {
     const spec = specs[model.carriageService[c]];
+    if (!spec) continue;
     const u = nextNode[spec.service]++;
     local[c] = u;
     spec.kind[u] = NODE_CARRIAGE;
@@ -144,6 +160,7 @@ export function buildFlowSpecs(model: NetworkModel): FlowSpec[] {
   };
   for (let f = 0; f < F; f++) {
     const spec = specs[model.carriageService[model.feedFrom[f]]];
+    if (!spec) continue;
     const reserve = model.feedReserve[f];
     let previous = local[model.feedFrom[f]];
     const { feedVia, feedGroups } = model;

@@ -67,7 +67,7 @@ export interface IdLists {
 export const listOf = (l: IdLists, i: number): Int32Array => l.ids.subarray(l.offsets[i], l.offsets[i + 1]);
 
 /** Builds IdLists item by item; repeats within one item's list are dropped. */
-class IdListBuilder {
+export class IdListBuilder {
   private offsets: Int32Array;
   private ids: Int32Array;
   private length = 0;
@@ -95,7 +95,7 @@ class IdListBuilder {
 }
 
 /** Groups (item -> key) pairs by key, items ascending within a key. */
-function invert(keyCount: number, keys: Int32Array): IdLists {
+export function invert(keyCount: number, keys: Int32Array): IdLists {
   const offsets = new Int32Array(keyCount + 1);
   for (let i = 0; i < keys.length; i++) offsets[keys[i] + 1]++;
   for (let k = 0; k < keyCount; k++) offsets[k + 1] += offsets[k];

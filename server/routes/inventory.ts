@@ -64,7 +64,7 @@ export const actorOf = (req: Request): Actor => ({ userId: req.auth?.userId, ema
 
 /** Waits until this process answers from the network the write produced. */
 export async function settled<R>(ctx: AppContext, out: WriteResult<R>): Promise<WriteResult<R>> {
-  if (out.changed) await ctx.network.refresh(out.networkVersion);
+  if (out.changed) await ctx.network.applyChange(out.networkVersion, out.codes);
   return out;
 }
 

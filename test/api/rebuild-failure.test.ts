@@ -25,8 +25,9 @@ const flakyBuild: typeof buildServedNetwork = (doc, version) => {
 
 let t: Awaited<ReturnType<typeof makeTestApp>>;
 beforeAll(async () => {
-  // the first retry comes after 1.5 s, so health can be seen stale in between
-  t = await makeTestApp({ build: flakyBuild, store: { retryMinMs: 1500, retryMaxMs: 3000, checkEveryMs: 600_000 } });
+  // the first retry comes after 1.5 s, so health can be seen stale in between;
+  // without an update function every edit rebuilds, so the rebuild's failure is what these tests meet
+  t = await makeTestApp({ build: flakyBuild, store: { retryMinMs: 1500, retryMaxMs: 3000, checkEveryMs: 600_000, update: undefined } });
 });
 afterAll(async () => t?.close());
 beforeEach(async () => {

@@ -14,7 +14,7 @@ import { openDatabase } from '@/server/db';
 import { createApp } from '@/server/app';
 import type { AppContext } from '@/server/context';
 import { NetworkStore, type NetworkStoreOptions } from '@/server/services/networkStore';
-import { buildServedNetwork } from '@/server/services/servedNetwork';
+import { buildServedNetwork, updateServedNetwork, type ServedNetwork } from '@/server/services/servedNetwork';
 import { OperationsEvents } from '@/server/operations/events';
 import { User } from '@/server/db/models/user';
 import { hashPassword } from '@/server/auth/passwords';
@@ -28,7 +28,7 @@ export const TEST_PASSWORD = `pw-${crypto.randomBytes(6).toString('hex')}`;
 export const emailFor = (role: Role) => `${role}@test.example`;
 
 /** `build` replaces the model builder (to make a rebuild fail); `store` tunes the network store's timers. */
-export async function makeTestApp(opts: { build?: typeof buildServedNetwork; store?: NetworkStoreOptions } = {}) {
+export async function makeTestApp(opts: { build?: typeof buildServedNetwork; store?: NetworkStoreOptions<ServedNetwork> } = {}) {
   const url = process.env.TEST_DATABASE_URL;
   if (!url) throw new Error('TEST_DATABASE_URL is not set: run API tests through vitest --project api');
   // Stand-ins of SMTP and the object store for this file, with their files in a private temporary folder.
@@ -38,7 +38,7 @@ export async function makeTestApp(opts: { build?: typeof buildServedNetwork; sto
   );
   const config = standins.config;
   const db = openDatabase(url);
-  const network = new NetworkStore(db.sequelize, url, opts.build ?? buildServedNetwork, opts.store);
+  const network = new NetworkStore(db.sequelize, url, opts.build ?? buildServedNetwork, { update: updateServedNetwork, ...opts.store });
   const ctx: AppContext = { config, db, network, events: new OperationsEvents(), objects: ObjectStore.fromConfig(config), mailbox: standins.mailbox };
   const notices = new NoticeQueue(ctx, { retryDelaySeconds: 1, pollingSeconds: 0.5, baseUrl: () => 'http://headwater.test' });
   await notices.start();

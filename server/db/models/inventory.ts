@@ -22,62 +22,59 @@ const common = {
 const num = (field: string) => ({ type: DataTypes.DOUBLE, allowNull: true, field });
 const opts = (sequelize: Sequelize, tableName: string) => ({ sequelize, tableName, version: true });
 
+/**
+ * Each inventory table's columns, described once: the models below are
+ * built from these, and the set-based reads (server/services/networkLoader.ts,
+ * server/services/inventory/queries.ts) take their select lists from them
+ * (server/db/columns.ts), so a new field is added here and nowhere else in SQL.
+ */
+export const SITE_ATTRIBUTES = {
+  id,
+  code: { type: DataTypes.TEXT, allowNull: false },
+  name: { type: DataTypes.TEXT, allowNull: false },
+  role: { type: DataTypes.TEXT, allowNull: false },
+  lat: { type: DataTypes.DOUBLE, allowNull: false },
+  lon: { type: DataTypes.DOUBLE, allowNull: false },
+  groundHeightM: num('ground_height_m'),
+  mastHeightM: num('mast_height_m'),
+  households: { type: DataTypes.INTEGER, allowNull: true },
+  ...common,
+};
+export const SERVICE_ATTRIBUTES = { id, code: { type: DataTypes.TEXT, allowNull: false }, name: { type: DataTypes.TEXT, allowNull: false }, kind: { type: DataTypes.TEXT, allowNull: false }, ...common };
+export const GROUP_ATTRIBUTES = { id, code: { type: DataTypes.TEXT, allowNull: false }, name: { type: DataTypes.TEXT, allowNull: false }, note: { type: DataTypes.TEXT, allowNull: true }, ...common };
+export const CARRIAGE_ATTRIBUTES = {
+  id,
+  code: { type: DataTypes.TEXT, allowNull: false },
+  siteId: { type: DataTypes.INTEGER, allowNull: false, field: 'site_id' },
+  serviceId: { type: DataTypes.INTEGER, allowNull: false, field: 'service_id' },
+  frequencyMHz: num('frequency_mhz'),
+  channel: { type: DataTypes.TEXT, allowNull: true },
+  erpW: num('erp_w'),
+  polarisation: { type: DataTypes.TEXT, allowNull: true },
+  antennaHeightM: num('antenna_height_m'),
+  onChannelRepeater: { type: DataTypes.BOOLEAN, allowNull: true, field: 'on_channel_repeater' },
+  ...common,
+};
+export const FEED_ATTRIBUTES = {
+  id,
+  code: { type: DataTypes.TEXT, allowNull: false },
+  fromCarriageId: { type: DataTypes.INTEGER, allowNull: false, field: 'from_carriage_id' },
+  toCarriageId: { type: DataTypes.INTEGER, allowNull: false, field: 'to_carriage_id' },
+  medium: { type: DataTypes.TEXT, allowNull: false },
+  role: { type: DataTypes.TEXT, allowNull: false },
+  rxFrequencyMHz: num('rx_frequency_mhz'),
+  rxChannel: { type: DataTypes.TEXT, allowNull: true, field: 'rx_channel' },
+  rxAntenna: { type: DataTypes.TEXT, allowNull: true, field: 'rx_antenna' },
+  bearingDeg: num('bearing_deg'),
+  ...common,
+};
+
 export function defineInventory(sequelize: Sequelize) {
-  SiteRow.init(
-    {
-      id,
-      code: { type: DataTypes.TEXT, allowNull: false },
-      name: { type: DataTypes.TEXT, allowNull: false },
-      role: { type: DataTypes.TEXT, allowNull: false },
-      lat: { type: DataTypes.DOUBLE, allowNull: false },
-      lon: { type: DataTypes.DOUBLE, allowNull: false },
-      groundHeightM: num('ground_height_m'),
-      mastHeightM: num('mast_height_m'),
-      households: { type: DataTypes.INTEGER, allowNull: true },
-      ...common,
-    } as ModelAttributes,
-    opts(sequelize, 'sites'),
-  );
-  ServiceRow.init(
-    { id, code: { type: DataTypes.TEXT, allowNull: false }, name: { type: DataTypes.TEXT, allowNull: false }, kind: { type: DataTypes.TEXT, allowNull: false }, ...common } as ModelAttributes,
-    opts(sequelize, 'services'),
-  );
-  RiskGroupRow.init(
-    { id, code: { type: DataTypes.TEXT, allowNull: false }, name: { type: DataTypes.TEXT, allowNull: false }, note: { type: DataTypes.TEXT, allowNull: true }, ...common } as ModelAttributes,
-    opts(sequelize, 'risk_groups'),
-  );
-  CarriageRow.init(
-    {
-      id,
-      code: { type: DataTypes.TEXT, allowNull: false },
-      siteId: { type: DataTypes.INTEGER, allowNull: false, field: 'site_id' },
-      serviceId: { type: DataTypes.INTEGER, allowNull: false, field: 'service_id' },
-      frequencyMHz: num('frequency_mhz'),
-      channel: { type: DataTypes.TEXT, allowNull: true },
-      erpW: num('erp_w'),
-      polarisation: { type: DataTypes.TEXT, allowNull: true },
-      antennaHeightM: num('antenna_height_m'),
-      onChannelRepeater: { type: DataTypes.BOOLEAN, allowNull: true, field: 'on_channel_repeater' },
-      ...common,
-    } as ModelAttributes,
-    opts(sequelize, 'carriages'),
-  );
-  FeedRow.init(
-    {
-      id,
-      code: { type: DataTypes.TEXT, allowNull: false },
-      fromCarriageId: { type: DataTypes.INTEGER, allowNull: false, field: 'from_carriage_id' },
-      toCarriageId: { type: DataTypes.INTEGER, allowNull: false, field: 'to_carriage_id' },
-      medium: { type: DataTypes.TEXT, allowNull: false },
-      role: { type: DataTypes.TEXT, allowNull: false },
-      rxFrequencyMHz: num('rx_frequency_mhz'),
-      rxChannel: { type: DataTypes.TEXT, allowNull: true, field: 'rx_channel' },
-      rxAntenna: { type: DataTypes.TEXT, allowNull: true, field: 'rx_antenna' },
-      bearingDeg: num('bearing_deg'),
-      ...common,
-    } as ModelAttributes,
-    opts(sequelize, 'feeds'),
-  );
+  SiteRow.init(SITE_ATTRIBUTES as ModelAttributes, opts(sequelize, 'sites'));
+  ServiceRow.init(SERVICE_ATTRIBUTES as ModelAttributes, opts(sequelize, 'services'));
+  RiskGroupRow.init(GROUP_ATTRIBUTES as ModelAttributes, opts(sequelize, 'risk_groups'));
+  CarriageRow.init(CARRIAGE_ATTRIBUTES as ModelAttributes, opts(sequelize, 'carriages'));
+  FeedRow.init(FEED_ATTRIBUTES as ModelAttributes, opts(sequelize, 'feeds'));
   FeedViaSiteRow.init(
     {
       feedId: { type: DataTypes.INTEGER, primaryKey: true, field: 'feed_id' },

@@ -14,6 +14,7 @@
  */
 import type { Sequelize } from 'sequelize';
 import { bumpNetworkVersion } from '../../db';
+import { ChangeCollector, type CodesByKind } from '../../db/networkChange';
 import { recordAudit, type Actor, type AuditEntry } from '../audit';
 import type { Tx } from './tables';
 
@@ -29,6 +30,8 @@ export interface WriteResult<R> {
   result: R;
   networkVersion: number;
   changed: boolean;
+  /** the codes the write created, changed or deleted (null: not named, e.g. an import) */
+  codes: CodesByKind | null;
 }
 
 /** Thrown inside a write to roll it back and hand a value back instead of an error. */
@@ -49,6 +52,7 @@ export async function withNetworkWrite<R>(sequelize: Sequelize, actor: Actor, wo
       const [locked] = await sequelize.query('SELECT version FROM network_state WHERE id = 1 FOR UPDATE', { transaction });
       startVersion = Number((locked as { version: number }[])[0].version);
       const entries: AuditEntry[] = [];
+      const named = new ChangeCollector();
       let changed = false;
       const w: NetworkWrite = {
         sequelize,
@@ -57,18 +61,21 @@ export async function withNetworkWrite<R>(sequelize: Sequelize, actor: Actor, wo
         audit: (entry) => {
           entries.push(entry);
           if (entry.action !== 'import') changed = true;
+          named.add(entry.entityKind, entry.entityCode);
         },
         markChanged: () => {
           changed = true;
+          named.markUnnamed();
         },
       };
       const result = await work(w);
-      const networkVersion = changed ? await bumpNetworkVersion(sequelize, transaction) : startVersion;
+      const codes = named.result();
+      const networkVersion = changed ? await bumpNetworkVersion(sequelize, transaction, codes) : startVersion;
       if (entries.length > 0) await recordAudit(sequelize, transaction, actor, networkVersion, entries);
-      return { result, networkVersion, changed };
+      return { result, networkVersion, changed, codes };
     });
   } catch (err) {
-    if (err instanceof RollBack) return { result: err.value as R, networkVersion: startVersion, changed: false };
+    if (err instanceof RollBack) return { result: err.value as R, networkVersion: startVersion, changed: false, codes: null };
     throw err;
   }
 }

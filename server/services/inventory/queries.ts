@@ -1,12 +1,15 @@
 /**
  * How each kind is read: one SELECT giving the document shape (codes, not
- * ids; group and via lists as arrays) plus version and last change, and the
+ * ids; the entity's own columns from its model, server/db/models/inventory.ts;
+ * group and via lists as arrays) plus version and last change, and the
  * whitelists a list request may sort, search and filter by. Only names from
  * these tables ever reach SQL text; every value a client sends is a bind
  * parameter.
  */
 import type { EntityKind } from '@/shared/schemas/network';
 import { MEDIA, FEED_ROLES, SITE_ROLES } from '@/shared/schemas/network';
+import { selectList } from '../../db/columns';
+import { CARRIAGE_ATTRIBUTES, FEED_ATTRIBUTES, GROUP_ATTRIBUTES, SERVICE_ATTRIBUTES, SITE_ATTRIBUTES } from '../../db/models/inventory';
 
 export interface Filter {
   /** SQL with `?` where the bound value goes */
@@ -33,8 +36,7 @@ const stamp = `e.version, e.updated_at AS "updatedAt"`;
 
 export const QUERIES: Record<EntityKind, KindQuery> = {
   sites: {
-    columns: `e.id, e.code, e.name, e.role, e.lat, e.lon, e.ground_height_m AS "groundHeightM", e.mast_height_m AS "mastHeightM",
-              e.households, ${siteGroups} AS groups, ${stamp}`,
+    columns: `e.id, ${selectList(SITE_ATTRIBUTES, 'e')}, ${siteGroups} AS groups, ${stamp}`,
     from: 'sites e',
     sorts: {
       code: 'e.code', name: 'e.name', role: 'e.role', lat: 'e.lat', lon: 'e.lon', groundHeightM: 'e.ground_height_m',
@@ -47,22 +49,21 @@ export const QUERIES: Record<EntityKind, KindQuery> = {
     },
   },
   services: {
-    columns: `e.id, e.code, e.name, e.kind, ${stamp}`,
+    columns: `e.id, ${selectList(SERVICE_ATTRIBUTES, 'e')}, ${stamp}`,
     from: 'services e',
     sorts: { code: 'e.code', name: 'e.name', kind: 'e.kind', updatedAt: 'e.updated_at' },
     search: ['e.code', 'e.name'],
     filters: {},
   },
   groups: {
-    columns: `e.id, e.code, e.name, e.note, ${stamp}`,
+    columns: `e.id, ${selectList(GROUP_ATTRIBUTES, 'e')}, ${stamp}`,
     from: 'risk_groups e',
     sorts: { code: 'e.code', name: 'e.name', updatedAt: 'e.updated_at' },
     search: ['e.code', 'e.name'],
     filters: {},
   },
   carriages: {
-    columns: `e.id, e.code, si.code AS site, sv.code AS service, e.frequency_mhz AS "frequencyMHz", e.channel, e.erp_w AS "erpW",
-              e.polarisation, e.antenna_height_m AS "antennaHeightM", e.on_channel_repeater AS "onChannelRepeater", ${stamp}`,
+    columns: `e.id, e.code, si.code AS site, sv.code AS service, ${selectList(CARRIAGE_ATTRIBUTES, 'e', ['code', 'siteId', 'serviceId'])}, ${stamp}`,
     from: 'carriages e JOIN sites si ON si.id = e.site_id JOIN services sv ON sv.id = e.service_id',
     sorts: {
       code: 'e.code', site: 'si.code', service: 'sv.code', frequencyMHz: 'e.frequency_mhz', channel: 'e.channel',
@@ -75,8 +76,8 @@ export const QUERIES: Record<EntityKind, KindQuery> = {
     },
   },
   feeds: {
-    columns: `e.id, e.code, a.code AS "from", b.code AS "to", e.medium, e.role, ${feedVia} AS via, ${feedGroups} AS groups,
-              e.rx_frequency_mhz AS "rxFrequencyMHz", e.rx_channel AS "rxChannel", e.rx_antenna AS "rxAntenna", e.bearing_deg AS "bearingDeg", ${stamp}`,
+    columns: `e.id, e.code, a.code AS "from", b.code AS "to", ${selectList(FEED_ATTRIBUTES, 'e', ['code', 'fromCarriageId', 'toCarriageId'])},
+              ${feedVia} AS via, ${feedGroups} AS groups, ${stamp}`,
     from: `feeds e JOIN carriages a ON a.id = e.from_carriage_id JOIN carriages b ON b.id = e.to_carriage_id
              JOIN sites sa ON sa.id = a.site_id JOIN sites sb ON sb.id = b.site_id JOIN services sv ON sv.id = a.service_id`,
     sorts: {
