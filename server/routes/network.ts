@@ -2,14 +2,16 @@
  * The network as a whole (docs/format.md and docs/api.md), paths
  * relative to /api:
  *
- *   POST /network/import   ?dryRun=true|false ?replace=true|false ?undoNewer=true|false
+ *   POST /network/import   ?dryRun=true|false ?replace=true|false ?undoNewer=true|false ?confirmReplace=
  *        body: the network document (application/json), or multipart/form-data
  *        with one or more `file` fields: a .json document, CSV files named by
  *        their kind (sites.csv, ...), or zips of them
  *        -> 200 the import report; 422 the report when it lists errors;
  *           413 an upload past a limit (server/interchange/limits.ts); 429 with
  *           Retry-After when imports are queued up (one runs at a time);
- *           409 stale-base for a replace from an older baseVersion without undoNewer
+ *           409 stale-base for a replace from an older baseVersion without undoNewer;
+ *           a replace needs ?confirmReplace= from its dry run: 428 replace-unconfirmed
+ *           without it, 409 replace-confirmation-outdated when the network changed since
  *   GET  /network/export   ?format=json (default) | csv (a zip of the five CSV files and manifest.csv);
  *        both carry the network version as baseVersion
  *   GET  /audit            admin only: ?page ?pageSize ?kind ?code ?action
@@ -43,7 +45,12 @@ const MAX_FIELD_BYTES = 1024;
 const RETRY_AFTER_S = 10;
 
 const flag = (name: string) => z.enum(['true', 'false'], { error: `${name} is true or false` }).default('false').transform((v) => v === 'true');
-export const importQuerySchema = z.strictObject({ dryRun: flag('dryRun'), replace: flag('replace'), undoNewer: flag('undoNewer') });
+export const importQuerySchema = z.strictObject({
+  dryRun: flag('dryRun'),
+  replace: flag('replace'),
+  undoNewer: flag('undoNewer'),
+  confirmReplace: z.string({ error: 'confirmReplace is the value a replace dry run answered' }).max(64, 'confirmReplace is the value a replace dry run answered').optional(),
+});
 export const exportQuerySchema = z.strictObject({ format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json') });
 export const auditQuerySchema = z.strictObject({
   page: z.coerce.number({ error: 'page must be a whole number' }).int('page must be a whole number').min(1, 'page is at least 1').default(1),
@@ -97,7 +104,7 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
 
   const queue = new ImportQueue();
   routes.add('post', '/network/import', { roles: can.editNetwork, body: 'large' }, importTurn(queue), multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
-    const { dryRun, replace, undoNewer } = parseOr400(importQuerySchema, req.query, 'query');
+    const { dryRun, replace, undoNewer, confirmReplace } = parseOr400(importQuerySchema, req.query, 'query');
     let input: Awaited<ReturnType<typeof readUploads>>;
     if (req.is('multipart/form-data')) {
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
@@ -114,7 +121,7 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
       throw new ApiError(415, 'unsupported-media-type', 'send the network document as application/json, or files as multipart/form-data in the field "file"');
     }
     const report = await importNetwork(ctx.db, input.raw, {
-      dryRun, replace, undoNewer, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors, moreSourceErrors: input.moreSourceErrors,
+      dryRun, replace, undoNewer, confirmReplace, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors, moreSourceErrors: input.moreSourceErrors,
     });
     if (report.ok && !report.dryRun && report.networkVersion !== undefined) await ctx.network.refresh(report.networkVersion);
     res.status(report.errors.length > 0 ? 422 : 200).json(report);

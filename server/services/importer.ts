@@ -21,6 +21,7 @@ import { RollBack, withNetworkWrite, type NetworkWrite } from './inventory/netwo
 import { analyze, deleteByCodes, writeEntities } from './inventory/tables';
 import { databaseRefusal } from './inventory/dbErrors';
 import { staleBase, staleRefusal } from './import/staleBase';
+import { deletionsOf, replaceToken, requireConfirmation } from './import/confirmReplace';
 
 export interface ImportOptions {
   dryRun?: boolean;
@@ -35,6 +36,8 @@ export interface ImportOptions {
   moreSourceErrors?: number;
   /** carry out a replace made from an older network version, undoing the changes since (import/staleBase.ts) */
   undoNewer?: boolean;
+  /** a replace's confirmation: the `confirmReplace` its dry run answered (import/confirmReplace.ts) */
+  confirmReplace?: string;
 }
 
 /** Below this many written rows the planner's old statistics do no harm (tables.ts, analyze). */
@@ -113,7 +116,8 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
     if (!checked.document) return failed(checked.errors, checked.warnings, version, checked);
     const plan = await planImport(stored, checked.document, replace);
     const stale = replace ? await staleBase(db.sequelize, raw, version) : undefined;
-    return capped({ ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version, ...(stale ? { stale } : {}) }, checked);
+    const confirm = replace ? { confirmReplace: replaceToken(version, deletionsOf(plan)) } : {};
+    return capped({ ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version, ...(stale ? { stale } : {}), ...confirm }, checked);
   }
 
   try {
@@ -124,6 +128,7 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
       const stale = replace ? await staleBase(db.sequelize, raw, w.startVersion, w.transaction) : undefined;
       if (stale && !opts.undoNewer) throw staleRefusal(stale);
       const plan = await planImport(stored, checked.document, replace);
+      if (replace) requireConfirmation(opts.confirmReplace, w.startVersion, plan);
       await carryOut(w, plan);
       const counts = countsOf(plan, received);
       if (plan.changed) w.markChanged();

@@ -55,6 +55,12 @@ export interface ImportReport {
    * needs undoNewer=true (server/interchange/README.md "Versions").
    */
   stale?: StaleBase;
+  /**
+   * The dry run of a replace: the value the commit must send as
+   * `confirmReplace`, standing for the deletions counted here at this
+   * network version (server/services/import/confirmReplace.ts).
+   */
+  confirmReplace?: string;
   /** the network version after the import (unchanged on a dry run or an error) */
   networkVersion?: number;
 }

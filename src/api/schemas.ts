@@ -128,6 +128,7 @@ export const importReportSchema = z.object({
   moreErrors: z.number().int().optional(),
   stale: z.object({ baseVersion: z.number(), currentVersion: z.number(), changesSince: z.number() }).optional(),
   moreWarnings: z.number().int().optional(),
+  confirmReplace: z.string().optional(),
   networkVersion: z.number().optional(),
 });
 

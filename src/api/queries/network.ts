@@ -30,6 +30,8 @@ export interface ImportOptions {
   replace: boolean;
   /** carry out a replace made from an older network version, undoing the changes since */
   undoNewer?: boolean;
+  /** a replace's confirmation: the value its dry run answered */
+  confirmReplace?: string;
 }
 
 export interface DownloadedFile {
@@ -37,8 +39,8 @@ export interface DownloadedFile {
   blob: Blob;
 }
 
-export const importPath = ({ dryRun, replace, undoNewer }: ImportOptions) =>
-  `${api.importNetwork}?dryRun=${dryRun}&replace=${replace}${undoNewer ? '&undoNewer=true' : ''}`;
+export const importPath = ({ dryRun, replace, undoNewer, confirmReplace }: ImportOptions) =>
+  `${api.importNetwork}?dryRun=${dryRun}&replace=${replace}${undoNewer ? '&undoNewer=true' : ''}${confirmReplace ? `&confirmReplace=${encodeURIComponent(confirmReplace)}` : ''}`;
 export const exportPath = (format: 'json' | 'csv') => (format === 'csv' ? `${api.exportNetwork}?format=csv` : api.exportNetwork);
 
 /** The file name a Content-Disposition header gives (RFC 6266: filename*=UTF-8''... or filename="..."), else the fallback. */
