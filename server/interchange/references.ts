@@ -10,11 +10,21 @@ import { ENTITY_KINDS, type EntityKind } from '@/shared/schemas/network';
 import { KIND_NOUN, type IssueSink } from './issues';
 import { forEachRef, refAt, type Entry, type NetworkView } from './view';
 
-export function checkReferences(view: NetworkView, sink: IssueSink): void {
+/** How many feeds are checked between two pauses. */
+const STEP_FEEDS = 4096;
+
+/** A generator so the caller may pause between chunks (validate.ts); yields `progress` unchanged. */
+export function* checkReferences(view: NetworkView, sink: IssueSink, progress = 0): Generator<number, void> {
   checkDuplicateCodes(view, sink);
   for (const entry of view.doc.sites) checkGroupList(view, sink, 'sites', entry);
+  yield progress;
   checkCarriages(view, sink);
-  for (const entry of view.doc.feeds) checkFeed(view, sink, entry);
+  yield progress;
+  let n = 0;
+  for (const entry of view.doc.feeds) {
+    checkFeed(view, sink, entry);
+    if (++n % STEP_FEEDS === 0) yield progress;
+  }
 }
 
 function checkDuplicateCodes(view: NetworkView, sink: IssueSink): void {

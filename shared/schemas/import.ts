@@ -64,3 +64,18 @@ export interface ImportReport {
   /** the network version after the import (unchanged on a dry run or an error) */
   networkVersion?: number;
 }
+
+/**
+ * Where a running import is (GET /api/network/import/progress/:id): the
+ * upload being read, the document checked, the rows written, the served
+ * network rebuilt, then done or failed. `done` of `total` counts entities
+ * (reading: files; rebuilding: 0 of 1 until it is built).
+ */
+export const IMPORT_STAGES = ['reading', 'validating', 'writing', 'rebuilding', 'done', 'failed'] as const;
+export type ImportStage = (typeof IMPORT_STAGES)[number];
+
+export interface ImportProgress {
+  stage: ImportStage;
+  done: number;
+  total: number;
+}

@@ -11,12 +11,12 @@ import { countOf, formatBytes } from '@/shared/format';
 import { useRef, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import type { ImportReport } from '@/shared/schemas/import';
-import { useNetworkTransfer, type UploadFile } from '@/src/api/queries/network';
+import { newProgressId, useNetworkTransfer, type UploadFile } from '@/src/api/queries/network';
 import { Button } from '@/src/components/Button';
 import { Choice } from '@/src/components/Choice';
 import { Screen } from '@/src/components/layout/Screen';
 import { Section } from '@/src/components/layout/Section';
-import { describeError, LoadingState } from '@/src/components/states';
+import { describeError } from '@/src/components/states';
 import { StatusShape } from '@/src/components/StatusShape';
 import { colors, fonts, radius, space, type } from '@/src/theme';
 import { InventoryNav } from '../inventory/parts/InventoryNav';
@@ -24,6 +24,7 @@ import { useCanEdit } from '../inventory/useCanEdit';
 import { saveFile } from './download';
 import { FilePicker } from './FilePicker';
 import { canCommit, deletionsText, needsDeleteConfirmation, staleText, totals } from './report';
+import { ImportProgressView } from './ImportProgressView';
 import { ReportView } from './ReportView';
 
 type Phase = 'idle' | 'checking' | 'committing';
@@ -54,6 +55,8 @@ function ImportSection() {
   const [deletesConfirmed, setDeletesConfirmed] = useState(false);
   // Only the answer to the latest request counts: a slow check must not overwrite a newer one.
   const latest = useRef(0);
+  // The running request's progress id: its stages and bar show until the answer comes.
+  const [running, setRunning] = useState<{ id: string; dryRun: boolean } | null>(null);
 
   async function run(chosen: UploadFile[], withReplace: boolean, dryRun: boolean) {
     if (chosen.length === 0) return;
@@ -65,14 +68,19 @@ function ImportSection() {
       setUndoConfirmed(false);
       setDeletesConfirmed(false);
     }
+    const progressId = newProgressId();
+    setRunning({ id: progressId, dryRun });
     try {
       const confirmReplace = !dryRun && withReplace ? report?.confirmReplace : undefined;
-      const answer = await transfer.importFiles(chosen, { dryRun, replace: withReplace, undoNewer: !dryRun && undoConfirmed, confirmReplace });
+      const answer = await transfer.importFiles(chosen, { dryRun, replace: withReplace, undoNewer: !dryRun && undoConfirmed, confirmReplace, progressId });
       if (ticket === latest.current) setReport(answer);
     } catch (e) {
       if (ticket === latest.current) setFailure(`${dryRun ? 'The check' : 'The import'} failed: ${describeError(e)}`);
     } finally {
-      if (ticket === latest.current) setPhase('idle');
+      if (ticket === latest.current) {
+        setPhase('idle');
+        setRunning(null);
+      }
     }
   }
 
@@ -156,7 +164,7 @@ function ImportSection() {
           />
         </View>
       ) : null}
-      {phase === 'checking' ? <LoadingState what="the check of the file" /> : null}
+      {running ? <ImportProgressView key={running.id} progressId={running.id} dryRun={running.dryRun} /> : null}
       {failure ? (
         <Text style={styles.failure} accessibilityRole="alert" testID="import-failure">
           {`⚠ ${failure}`}
