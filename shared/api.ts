@@ -11,6 +11,7 @@ export const api = {
   audit: '/api/audit',
   summary: '/api/network/summary',
   importNetwork: '/api/network/import',
+  importProgress: (id: string) => `/api/network/import/progress/${encodeURIComponent(id)}`,
   exportNetwork: '/api/network/export',
   list: (kind: string) => `/api/${kind}`,
   entity: (kind: string, code: string) => `/api/${kind}/${encodeURIComponent(code)}`,

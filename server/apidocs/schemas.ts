@@ -63,9 +63,15 @@ export const routeDocs: Record<string, RouteDoc> = {
   'get /api/network/summary': { summary: 'Counts of the current network' },
   'post /api/network/import': {
     summary: 'Import a network document (JSON body, or multipart "file": .json, .csv or .zip)',
-    description: 'All or nothing; 422 with every error when the document has any. See docs/format.md.',
+    description:
+      'All or nothing; 422 with every error when the document has any. A replace needs confirmReplace from its dry run ' +
+      '(428 replace-unconfirmed without it, 409 replace-confirmation-outdated when the network changed since). See docs/format.md.',
     query: importQuerySchema,
     body: networkDocumentSchema,
+  },
+  'get /api/network/import/progress/:id': {
+    summary: 'How far a running import is: { stage, done, total } for the import sent with ?progressId=id',
+    description: 'Stages: reading, validating, writing, rebuilding, done, failed. 404 unknown-import before the import is heard of or after a few minutes.',
   },
   'get /api/network/export': { summary: 'The whole network as a document (JSON) or a zip of CSV files', query: exportQuerySchema, answer: networkDocumentSchema },
   'post /api/analysis/reach': { summary: 'What a set of failures takes off air, and for how many households', body: reachRequestSchema },

@@ -4,6 +4,7 @@
  * by ";", an empty cell for an absent field. This table says which column
  * holds what, so cells are read as the type the JSON field has.
  */
+import { decimalPoint } from './csv-dialect';
 import type { EntityKind } from '@/shared/schemas/network';
 
 export type ColumnType = 'string' | 'number' | 'boolean' | 'list';
@@ -74,12 +75,15 @@ export function unguardCell(cell: string): string {
  * schema check reports it with its row and field ("must be a number (got
  * "abc")") rather than it becoming NaN.
  */
-export function cellValue(cell: string, type: ColumnType): unknown {
+export function cellValue(cell: string, type: ColumnType, decimalComma = false): unknown {
   if (cell.trim() === '') return undefined;
   const text = unguardCell(cell.trim());
   switch (type) {
-    case 'number':
-      return DECIMAL.test(text) ? Number(text) : cell;
+    case 'number': {
+      // a `;`-separated file may write 12,5 for 12.5 (csv-dialect.ts)
+      const number = decimalComma ? decimalPoint(text) : text;
+      return DECIMAL.test(number) ? Number(number) : cell;
+    }
     case 'boolean':
       if (/^true$/i.test(text)) return true;
       if (/^false$/i.test(text)) return false;

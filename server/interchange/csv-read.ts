@@ -8,13 +8,14 @@
  * (1-based, header excluded), counting malformed records too; blank lines
  * are not records.
  */
-import { Transform, type Readable } from 'node:stream';
+import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { parse, type Options } from 'csv-parse';
 import type { ImportIssue } from '@/shared/schemas/import';
 import { clip } from '@/shared/clip';
 import type { EntityKind } from '@/shared/schemas/network';
 import { CSV_COLUMNS, REQUIRED_COLUMNS, cellValue, type ColumnType } from './csv-columns';
+import { DEFAULT_DIALECT, detectDialect, notUtf8Message, NotUtf8Error, Utf8Check, type CsvDialect } from './csv-dialect';
 import { UPLOAD_LIMITS, type UploadBudget } from './limits';
 
 export interface KindRead {
@@ -27,8 +28,9 @@ export interface IssueCollector {
   push(issue: ImportIssue): void;
 }
 
-export const csvOptions = (maxRecordChars = UPLOAD_LIMITS.maxRecordChars): Options<string[]> => ({
+export const csvOptions = (maxRecordChars = UPLOAD_LIMITS.maxRecordChars, dialect: CsvDialect = DEFAULT_DIALECT): Options<string[]> => ({
   bom: true,
+  delimiter: dialect.delimiter,
   skip_empty_lines: true,
   skip_records_with_error: true,
   max_record_size: maxRecordChars,
@@ -45,6 +47,8 @@ export class CsvKindReader {
   private headerBroken = false;
   private stopped = false;
   private readonly out: KindRead = { entities: [], rows: [] };
+  /** how the file writes its cells (csv-dialect.ts); told before the first record */
+  dialect: CsvDialect = DEFAULT_DIALECT;
 
   constructor(
     readonly kind: EntityKind,
@@ -65,7 +69,7 @@ export class CsvKindReader {
     for (let i = 0; i < columns.length; i++) {
       const column = columns[i];
       if (column === undefined) continue;
-      const value = cellValue(cells[i] ?? '', column.type);
+      const value = cellValue(cells[i] ?? '', column.type, this.dialect.decimalComma);
       if (value !== undefined) entity[column.name] = value;
     }
     this.out.entities.push(entity);
@@ -92,6 +96,12 @@ export class CsvKindReader {
     this.issues.push({ kind: this.kind, file: this.file, row, rule: 'csv-syntax', message: `${this.file} row ${row}: ${clip(err?.message ?? 'the row cannot be read', 200)}` });
   }
 
+  /** A file that is not UTF-8: said once, with the row of its first bad byte; nothing of it is read. */
+  notUtf8(err: NotUtf8Error): void {
+    this.issues.push({ kind: this.kind, file: this.file, rule: 'not-utf8', message: notUtf8Message(this.file, err) });
+    this.stopped = true;
+  }
+
   /** A file that cannot be read at all (it stops here). */
   fail(err: Error): void {
     this.issues.push({ kind: this.kind, file: this.file, rule: 'csv-syntax', message: `${this.file} cannot be read as CSV: ${clip(err.message, 200)}` });
@@ -113,41 +123,61 @@ export class CsvKindReader {
 
 /**
  * Streams one file through csv-parse into a CsvKindReader, counting its
- * bytes and records against the request's budget; an UploadLimitError from
- * the budget stops the stream and is thrown.
+ * bytes and records against the request's budget (an UploadLimitError from
+ * the budget stops the stream and is thrown) and checking it is UTF-8. The
+ * first line is read before the parser starts, to tell the separator.
  */
 export async function readCsvStream(source: Readable, reader: CsvKindReader, budget: UploadBudget): Promise<KindRead> {
-  const counter = new Transform({
-    transform(chunk: Buffer, _encoding, done) {
-      try {
-        budget.addBytes(chunk.length);
-        done(null, chunk);
-      } catch (err) {
-        done(err as Error);
-      }
-    },
-  });
-  // Records go to the reader from inside the parser (on_record), in order with the skipped
-  // ones (on_skip); nothing is passed downstream, so nothing queues up between them.
-  const parser = parse({
-    ...csvOptions(budget.limits.maxRecordChars),
-    on_skip: (err) => {
-      reader.skip(err);
-      return undefined;
-    },
-    on_record: (record: string[]) => {
-      budget.addRecord();
-      reader.record(record);
-      return null;
-    },
-  });
-  const drain = async function* (records: AsyncIterable<unknown>) {
-    for await (const _ of records) yield* [];
-  };
+  const utf8 = new Utf8Check();
+  const checked = (async function* () {
+    for await (const chunk of source as AsyncIterable<Buffer>) {
+      budget.addBytes(chunk.length);
+      utf8.push(chunk);
+      yield chunk;
+    }
+    utf8.end();
+  })();
   try {
-    await pipeline(source, counter, parser, drain);
+    // The header row: until the first line end (or as long as one row may be).
+    const head: Buffer[] = [];
+    let headBytes = 0;
+    for (;;) {
+      const next = await checked.next();
+      if (next.done) break;
+      head.push(next.value);
+      headBytes += next.value.length;
+      if (next.value.includes(0x0a) || headBytes > budget.limits.maxRecordChars) break;
+    }
+    const headText = Buffer.concat(head).toString('utf8');
+    reader.dialect = detectDialect(headText.slice(0, headText.indexOf('\n') + 1 || undefined));
+    const rest = (async function* () {
+      yield* head;
+      yield* checked;
+    })();
+    // Records go to the reader from inside the parser (on_record), in order with the skipped
+    // ones (on_skip); nothing is passed downstream, so nothing queues up between them.
+    const parser = parse({
+      ...csvOptions(budget.limits.maxRecordChars, reader.dialect),
+      on_skip: (err) => {
+        reader.skip(err);
+        return undefined;
+      },
+      on_record: (record: string[]) => {
+        budget.addRecord();
+        reader.record(record);
+        return null;
+      },
+    });
+    const drain = async function* (records: AsyncIterable<unknown>) {
+      for await (const _ of records) yield* [];
+    };
+    await pipeline(Readable.from(rest, { objectMode: false }), parser, drain);
   } catch (err) {
     if (err instanceof StopReading) return reader.finish();
+    if (err instanceof NotUtf8Error) {
+      reader.notUtf8(err);
+      return reader.finish();
+    }
     const code = (err as { code?: unknown }).code;
     if (typeof code !== 'string' || !code.startsWith('CSV_')) throw err;
     reader.fail(err as Error);

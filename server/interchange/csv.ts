@@ -11,6 +11,7 @@ import JSZip from 'jszip';
 import type { ImportIssue } from '@/shared/schemas/import';
 import { ENTITY_KINDS, NETWORK_FORMAT, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
 import { CSV_COLUMNS, cellText } from './csv-columns';
+import { detectDialect } from './csv-dialect';
 import { CsvKindReader, csvOptions, StopReading, type IssueCollector } from './csv-read';
 import { clip } from '@/shared/clip';
 import { IssueList, type RowsOf } from './issues';
@@ -105,9 +106,10 @@ export function readCsvFiles(files: readonly CsvFile[]): CsvRead {
     const kind = claimFile(file.name, seen, issues);
     if (kind === undefined) continue;
     const reader = new CsvKindReader(kind, file.name, issues);
+    reader.dialect = detectDialect(file.text.slice(0, file.text.indexOf('\n') + 1 || undefined));
     try {
       parse(file.text, {
-        ...csvOptions(),
+        ...csvOptions(undefined, reader.dialect),
         on_skip: (err) => {
           reader.skip(err);
           return undefined;

@@ -1,20 +1,32 @@
 /**
  * Cross-entity import rules (docs/format.md, "Import
- * rules"): duplicate codes, unknown references, a feed between carriages of
+ * rules") over a document and the stored network; the rules themselves and
+ * their words are in crossRules.ts, shared with single edits: duplicate codes, unknown references, a feed between carriages of
  * different services, a feed from a carriage to itself, a via-site that is
  * one end of its feed, two carriages of one service at one site.
  * Only the document's entities are reported; the stored network (if any)
  * only answers references.
  */
 import { ENTITY_KINDS, type EntityKind } from '@/shared/schemas/network';
+import { duplicateCarriage, feedRules, REFERENCE_LABEL, unknownReference, type CarriageEnd } from './crossRules';
 import { KIND_NOUN, type IssueSink } from './issues';
 import { forEachRef, refAt, type Entry, type NetworkView } from './view';
 
-export function checkReferences(view: NetworkView, sink: IssueSink): void {
+/** How many feeds are checked between two pauses. */
+const STEP_FEEDS = 4096;
+
+/** A generator so the caller may pause between chunks (validate.ts); yields `progress` unchanged. */
+export function* checkReferences(view: NetworkView, sink: IssueSink, progress = 0): Generator<number, void> {
   checkDuplicateCodes(view, sink);
   for (const entry of view.doc.sites) checkGroupList(view, sink, 'sites', entry);
+  yield progress;
   checkCarriages(view, sink);
-  for (const entry of view.doc.feeds) checkFeed(view, sink, entry);
+  yield progress;
+  let n = 0;
+  for (const entry of view.doc.feeds) {
+    checkFeed(view, sink, entry);
+    if (++n % STEP_FEEDS === 0) yield progress;
+  }
 }
 
 function checkDuplicateCodes(view: NetworkView, sink: IssueSink): void {
@@ -35,13 +47,14 @@ function checkDuplicateCodes(view: NetworkView, sink: IssueSink): void {
 function resolve(view: NetworkView, sink: IssueSink, kind: EntityKind, entry: Entry, field: string, target: EntityKind, code: string, label: string): Entry | undefined {
   const found = view.byCode[target].get(code);
   if (found || view.unreadable.has(target)) return found;
-  sink.error(kind, entry.index, refAt(entry.raw, 'code'), field, 'unknown-reference', `${label} ${code} does not exist`);
+  const issue = unknownReference(field, label, code);
+  sink.error(kind, entry.index, refAt(entry.raw, 'code'), issue.field, issue.rule, issue.detail);
   return undefined;
 }
 
 function checkGroupList(view: NetworkView, sink: IssueSink, kind: 'sites' | 'feeds', entry: Entry): void {
   forEachRef(entry.raw, 'groups', (i, code) => {
-    resolve(view, sink, kind, entry, `groups[${i}]`, 'groups', code, 'group');
+    resolve(view, sink, kind, entry, `groups[${i}]`, 'groups', code, REFERENCE_LABEL.groups);
   });
 }
 
@@ -49,8 +62,8 @@ function checkCarriages(view: NetworkView, sink: IssueSink): void {
   for (const entry of view.doc.carriages) {
     const site = refAt(entry.raw, 'site');
     const service = refAt(entry.raw, 'service');
-    if (site !== undefined) resolve(view, sink, 'carriages', entry, 'site', 'sites', site, 'site');
-    if (service !== undefined) resolve(view, sink, 'carriages', entry, 'service', 'services', service, 'service');
+    if (site !== undefined) resolve(view, sink, 'carriages', entry, 'site', 'sites', site, REFERENCE_LABEL.site);
+    if (service !== undefined) resolve(view, sink, 'carriages', entry, 'service', 'services', service, REFERENCE_LABEL.service);
   }
   // Stored carriages come first in the map, so a clash with a stored carriage is reported on the document's one.
   // service -> site -> first carriage: a few services, so no string keys are built per carriage.
@@ -78,38 +91,31 @@ function markSiteService(atSite: Map<string, Map<string, Entry>>, entry: Entry, 
   // A duplicate code is already reported as such; the second copy is not also a second carriage.
   if (code !== undefined && code === refAt(first.raw, 'code')) return;
   const firstName = refAt(first.raw, 'code') ?? `the carriage ${sink.where('carriages', first.index)}`;
-  sink.error('carriages', entry.index, code, 'service', 'duplicate-carriage',
-    `site ${site} already has carriage ${firstName} for service ${service}; a site radiates each service once`);
+  const issue = duplicateCarriage(site, service, firstName);
+  sink.error('carriages', entry.index, code, issue.field, issue.rule, issue.detail);
 }
 
 function checkFeed(view: NetworkView, sink: IssueSink, entry: Entry): void {
   const code = refAt(entry.raw, 'code');
   const from = refAt(entry.raw, 'from');
   const to = refAt(entry.raw, 'to');
-  const source = from === undefined ? undefined : resolve(view, sink, 'feeds', entry, 'from', 'carriages', from, 'source carriage');
-  const target = to === undefined ? undefined : resolve(view, sink, 'feeds', entry, 'to', 'carriages', to, 'target carriage');
-  if (from !== undefined && from === to) {
-    sink.error('feeds', entry.index, code, 'to', 'self-feed', `source and target are the same carriage ${from}; a feed joins two different carriages`);
-  }
-  if (source && target && source !== target) {
-    const sourceService = refAt(source.raw, 'service');
-    const targetService = refAt(target.raw, 'service');
-    // An unknown service is reported on its carriage; a mismatch with it would say nothing new.
-    if (knownService(view, sourceService) && knownService(view, targetService) && sourceService !== targetService) {
-      sink.error('feeds', entry.index, code, 'to', 'service-mismatch',
-        `source carriage ${from} carries service ${sourceService} but target carriage ${to} carries ${targetService}; both ends of a feed carry the same service`);
-    }
-  }
-  const sourceSite = source ? refAt(source.raw, 'site') : undefined;
-  const targetSite = target ? refAt(target.raw, 'site') : undefined;
+  const source = from === undefined ? undefined : resolve(view, sink, 'feeds', entry, 'from', 'carriages', from, REFERENCE_LABEL.from);
+  const target = to === undefined ? undefined : resolve(view, sink, 'feeds', entry, 'to', 'carriages', to, REFERENCE_LABEL.to);
   forEachRef(entry.raw, 'via', (i, site) => {
-    resolve(view, sink, 'feeds', entry, `via[${i}]`, 'sites', site, 'via-site');
-    const end = site === sourceSite ? `the source site (of carriage ${from})` : site === targetSite ? `the target site (of carriage ${to})` : undefined;
-    if (end) {
-      sink.error('feeds', entry.index, code, `via[${i}]`, 'via-endpoint', `via-site ${site} is ${end}; a via-site is a hop between the two ends`);
-    }
+    resolve(view, sink, 'feeds', entry, `via[${i}]`, 'sites', site, REFERENCE_LABEL.via);
   });
+  const via = Array.isArray(entry.raw.via) ? (entry.raw.via as unknown[]) : [];
+  for (const issue of feedRules({ from, to, via }, endOf(view, source), endOf(view, target))) {
+    sink.error('feeds', entry.index, code, issue.field, issue.rule, issue.detail);
+  }
   checkGroupList(view, sink, 'feeds', entry);
+}
+
+/** A carriage's place; an unknown service is reported on its carriage, so it is left out rather than compared. */
+function endOf(view: NetworkView, carriage: Entry | undefined): CarriageEnd | undefined {
+  if (!carriage) return undefined;
+  const service = refAt(carriage.raw, 'service');
+  return { site: refAt(carriage.raw, 'site'), service: knownService(view, service) ? service : undefined };
 }
 
 function knownService(view: NetworkView, service: string | undefined): boolean {

@@ -38,7 +38,54 @@ export interface ValidationResult {
   moreWarnings?: number;
 }
 
+/** How many entities are checked between two pauses of validationSteps. */
+const STEP_ENTITIES = 2048;
+
 export function validateDocument(raw: unknown, opts: ValidateOptions = {}): ValidationResult {
+  const steps = validationSteps(raw, opts);
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+  }
+}
+
+/**
+ * The same validation in turns: it gives the event loop back every couple
+ * of thousand entities, so a server checking a national network keeps
+ * answering other requests; `onStep` hears how many of `total` entities are
+ * checked, `signal` stops it between turns (it throws the signal's reason).
+ */
+export async function validateDocumentInTurns(
+  raw: unknown,
+  opts: ValidateOptions & { onStep?: (done: number, total: number) => void; signal?: AbortSignal } = {},
+): Promise<ValidationResult> {
+  const steps = validationSteps(raw, opts);
+  const total = entityCount(raw);
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+    opts.onStep?.(Math.min(next.value, total), total);
+    await new Promise<void>((resolve) => setImmediate(resolve));
+    opts.signal?.throwIfAborted();
+  }
+}
+
+function entityCount(raw: unknown): number {
+  if (raw === null || typeof raw !== 'object') return 0;
+  let n = 0;
+  for (const kind of ENTITY_KINDS) {
+    const list = (raw as Record<string, unknown>)[kind];
+    if (Array.isArray(list)) n += list.length;
+  }
+  return n;
+}
+
+/**
+ * The validation as a generator that pauses (yields the entities checked so
+ * far) between chunks of work; the entity checks count once, the rules
+ * between entities pass over them again (references.ts, warnings.ts).
+ */
+export function* validationSteps(raw: unknown, opts: ValidateOptions = {}): Generator<number, ValidationResult> {
   const sink = new IssueSink(opts.rowsOf);
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
     sink.documentError('not-an-object', `the network document must be a JSON object with "format": "${NETWORK_FORMAT}" (got ${shown(Array.isArray(raw) ? 'a list' : raw)})`);
@@ -49,6 +96,7 @@ export function validateDocument(raw: unknown, opts: ValidateOptions = {}): Vali
 
   const lists: Partial<Record<EntityKind, unknown[]>> = {};
   const parsed = {} as { [K in EntityKind]: NetworkDocument[K] };
+  let checked = 0;
   for (const kind of ENTITY_KINDS) {
     const list = unreadable.has(kind) ? [] : ((top[kind] as unknown[] | undefined) ?? []);
     lists[kind] = list;
@@ -56,13 +104,17 @@ export function validateDocument(raw: unknown, opts: ValidateOptions = {}): Vali
     for (let index = 0; index < list.length; index++) {
       const entity = checkEntity(kind, list[index], index, sink);
       if (entity !== undefined) out.push(entity);
+      if (++checked % STEP_ENTITIES === 0) yield checked;
     }
     parsed[kind] = out as never;
   }
 
+  yield checked;
   const view = buildView(lists, unreadable, opts.context);
-  checkReferences(view, sink);
+  yield checked;
+  yield* checkReferences(view, sink, checked);
   findWarnings(view, sink);
+  yield checked;
 
   const { errors, warnings, moreErrors, moreWarnings } = sink.sorted();
   const document = errors.length === 0 ? ({ format: NETWORK_FORMAT, ...parsed } as NetworkDocument) : null;

@@ -2,21 +2,26 @@
  * The network as a whole (docs/format.md and docs/api.md), paths
  * relative to /api:
  *
- *   POST /network/import   ?dryRun=true|false ?replace=true|false ?undoNewer=true|false
+ *   POST /network/import   ?dryRun=true|false ?replace=true|false ?undoNewer=true|false ?confirmReplace=
  *        body: the network document (application/json), or multipart/form-data
  *        with one or more `file` fields: a .json document, CSV files named by
  *        their kind (sites.csv, ...), or zips of them
  *        -> 200 the import report; 422 the report when it lists errors;
  *           413 an upload past a limit (server/interchange/limits.ts); 429 with
  *           Retry-After when imports are queued up (one runs at a time);
- *           409 stale-base for a replace from an older baseVersion without undoNewer
+ *           409 stale-base for a replace from an older baseVersion without undoNewer;
+ *           a replace needs ?confirmReplace= from its dry run: 428 replace-unconfirmed
+ *           without it, 409 replace-confirmation-outdated when the network changed since
+ *   GET  /network/import/progress/:id  -> { stage, done, total } of the import sent with ?progressId=id
+ *        (reading, validating, writing, rebuilding, done, failed); 404 unknown-import
+ *        A client that goes away mid-import stops it: the transaction rolls back.
  *   GET  /network/export   ?format=json (default) | csv (a zip of the five CSV files and manifest.csv);
  *        both carry the network version as baseVersion
  *   GET  /audit            admin only: ?page ?pageSize ?kind ?code ?action
  *        -> { items: [{ id, at, userEmail, action, entityKind, entityCode,
  *             before, after, networkVersion }], total, page, pageSize }, newest first
  */
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { can } from '@/shared/api';
@@ -27,6 +32,7 @@ import { importNetwork } from '../services/importer';
 import { readUploads } from '../interchange/upload';
 import { UploadLimitError } from '../interchange/limits';
 import { ImportQueue } from '../services/import/queue';
+import { ImportProgressBoard, PROGRESS_ID } from '../services/import/progress';
 import { clip } from '@/shared/clip';
 import { loadNetworkDocument } from '../services/networkLoader';
 import { exportJson } from '../services/exportCache';
@@ -43,7 +49,14 @@ const MAX_FIELD_BYTES = 1024;
 const RETRY_AFTER_S = 10;
 
 const flag = (name: string) => z.enum(['true', 'false'], { error: `${name} is true or false` }).default('false').transform((v) => v === 'true');
-export const importQuerySchema = z.strictObject({ dryRun: flag('dryRun'), replace: flag('replace'), undoNewer: flag('undoNewer') });
+export const importQuerySchema = z.strictObject({
+  dryRun: flag('dryRun'),
+  replace: flag('replace'),
+  undoNewer: flag('undoNewer'),
+  confirmReplace: z.string({ error: 'confirmReplace is the value a replace dry run answered' }).max(64, 'confirmReplace is the value a replace dry run answered').optional(),
+  progressId: z.string().regex(PROGRESS_ID, 'progressId is 8 to 64 letters, digits, - or _').optional(),
+});
+export const progressParamsSchema = z.strictObject({ id: z.string().regex(PROGRESS_ID, 'the id is 8 to 64 letters, digits, - or _') });
 export const exportQuerySchema = z.strictObject({ format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json') });
 export const auditQuerySchema = z.strictObject({
   page: z.coerce.number({ error: 'page must be a whole number' }).int('page must be a whole number').min(1, 'page is at least 1').default(1),
@@ -77,6 +90,27 @@ function multipartFiles(limitMb: number): RequestHandler {
   };
 }
 
+/** The progress id the request names, if it is a usable one (the query schema reports a bad one). */
+const progressIdOf = (query: unknown): string | undefined => {
+  const id = (query as { progressId?: unknown } | undefined)?.progressId;
+  return typeof id === 'string' && PROGRESS_ID.test(id) ? id : undefined;
+};
+
+/** An AbortSignal that fires when the client goes away before its answer is sent (a closed tab, a dropped line). */
+function clientGone(res: Response): AbortSignal {
+  const controller = new AbortController();
+  res.once('close', () => {
+    if (!res.writableFinished) controller.abort(new ClientGoneError());
+  });
+  return controller.signal;
+}
+
+class ClientGoneError extends Error {
+  constructor() {
+    super('the client closed the connection before the import finished');
+  }
+}
+
 /** Takes this request's turn in the import queue before its upload is read; gives it back when the answer is done. */
 function importTurn(queue: ImportQueue): RequestHandler {
   return async (_req, res, next) => {
@@ -96,8 +130,26 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
   const sequelize = ctx.db.sequelize;
 
   const queue = new ImportQueue();
-  routes.add('post', '/network/import', { roles: can.editNetwork, body: 'large' }, importTurn(queue), multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
-    const { dryRun, replace, undoNewer } = parseOr400(importQuerySchema, req.query, 'query');
+  const board = new ImportProgressBoard();
+  const reading: RequestHandler = (req, _res, next) => {
+    board.set(progressIdOf(req.query), { stage: 'reading', done: 0, total: 0 });
+    next();
+  };
+  routes.add('post', '/network/import', { roles: can.editNetwork, body: 'large' }, reading, importTurn(queue), multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
+    const progressId = progressIdOf(req.query);
+    try {
+      await runImport(req, res, progressId);
+    } catch (err) {
+      board.set(progressId, { stage: 'failed', done: 0, total: 0 });
+      // nobody is left to answer: the transaction has rolled back, the database is as it was
+      if (res.destroyed || err instanceof ClientGoneError) return;
+      throw err;
+    }
+  });
+
+  async function runImport(req: Request, res: Response, progressId: string | undefined) {
+    const signal = clientGone(res);
+    const { dryRun, replace, undoNewer, confirmReplace } = parseOr400(importQuerySchema, req.query, 'query');
     let input: Awaited<ReturnType<typeof readUploads>>;
     if (req.is('multipart/form-data')) {
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
@@ -113,11 +165,24 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
     } else {
       throw new ApiError(415, 'unsupported-media-type', 'send the network document as application/json, or files as multipart/form-data in the field "file"');
     }
+    signal.throwIfAborted();
     const report = await importNetwork(ctx.db, input.raw, {
-      dryRun, replace, undoNewer, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors, moreSourceErrors: input.moreSourceErrors,
+      dryRun, replace, undoNewer, confirmReplace, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors, moreSourceErrors: input.moreSourceErrors,
+      signal, onProgress: (p) => board.set(progressId, p),
     });
-    if (report.ok && !report.dryRun && report.networkVersion !== undefined) await ctx.network.refresh(report.networkVersion);
+    if (report.ok && !report.dryRun && report.networkVersion !== undefined) {
+      board.set(progressId, { stage: 'rebuilding', done: 0, total: 1 });
+      await ctx.network.refresh(report.networkVersion);
+    }
+    board.set(progressId, { stage: 'done', done: 1, total: 1 });
     res.status(report.errors.length > 0 ? 422 : 200).json(report);
+  }
+
+  routes.add('get', '/network/import/progress/:id', can.editNetwork, (req, res) => {
+    const { id } = parseOr400(progressParamsSchema, req.params, 'path');
+    const progress = board.get(id);
+    if (!progress) throw new ApiError(404, 'unknown-import', `no import with progress id ${id} is running here (it may not have started yet)`);
+    res.json(progress);
   });
 
   routes.add('get', '/network/export', can.read, async (req, res) => {

@@ -9,9 +9,9 @@
  */
 import crypto from 'node:crypto';
 import { ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
-import type { ImportIssue, ImportReport } from '@/shared/schemas/import';
+import type { ImportIssue, ImportProgress, ImportReport } from '@/shared/schemas/import';
 import type { Database } from '../db';
-import { validateDocument } from '../interchange/validate';
+import { validateDocumentInTurns } from '../interchange/validate';
 import { capIssues, type RowsOf } from '../interchange/issues';
 import { loadNetworkDocument } from './networkLoader';
 import type { Actor } from './audit';
@@ -21,6 +21,7 @@ import { RollBack, withNetworkWrite, type NetworkWrite } from './inventory/netwo
 import { analyze, deleteByCodes, writeEntities } from './inventory/tables';
 import { databaseRefusal } from './inventory/dbErrors';
 import { staleBase, staleRefusal } from './import/staleBase';
+import { deletionsOf, replaceToken, requireConfirmation } from './import/confirmReplace';
 
 export interface ImportOptions {
   dryRun?: boolean;
@@ -35,7 +36,20 @@ export interface ImportOptions {
   moreSourceErrors?: number;
   /** carry out a replace made from an older network version, undoing the changes since (import/staleBase.ts) */
   undoNewer?: boolean;
+  /** a replace's confirmation: the `confirmReplace` its dry run answered (import/confirmReplace.ts) */
+  confirmReplace?: string;
+  /** hears each step of the import: validating and writing, with entities done of total */
+  onProgress?: (progress: ImportProgress) => void;
+  /**
+   * Aborted when the client is gone (the route ties it to the request): the
+   * import stops at its next turn and the transaction rolls back, so the
+   * database stays as it was. Throws the signal's reason.
+   */
+  signal?: AbortSignal;
 }
+
+/** Rows written between two progress reports (and checks that the client is still there). */
+const WRITE_SLICE = 8000;
 
 /** Below this many written rows the planner's old statistics do no harm (tables.ts, analyze). */
 const ANALYZE_AFTER_ROWS = 2000;
@@ -48,10 +62,15 @@ interface Unlisted {
 type Checked = ({ document: NetworkDocument; warnings: ImportIssue[] } | { document: null; errors: ImportIssue[]; warnings: ImportIssue[] }) & Unlisted;
 
 /** Validates against the stored network: an upsert may refer to stored entities, a replace may not. */
-function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions, replace: boolean): Checked {
+async function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions, replace: boolean): Promise<Checked> {
   // an upload that could not be read at all has nothing more to validate
   if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [], moreErrors: opts.moreSourceErrors };
-  const result = validateDocument(raw, { rowsOf: opts.rowsOf, context: replace ? undefined : storedOutside(stored, raw) });
+  const result = await validateDocumentInTurns(raw, {
+    rowsOf: opts.rowsOf,
+    context: replace ? undefined : storedOutside(stored, raw),
+    signal: opts.signal,
+    onStep: (done, total) => opts.onProgress?.({ stage: 'validating', done, total }),
+  });
   const errors = [...(opts.sourceErrors ?? []), ...result.errors];
   if (errors.length === 0 && result.document && !replace) errors.push(...checkKeptFeeds(stored, result.document, opts.rowsOf));
   const unlisted = { moreErrors: (result.moreErrors ?? 0) + (opts.moreSourceErrors ?? 0), moreWarnings: result.moreWarnings };
@@ -109,22 +128,26 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
 
   if (dryRun) {
     const { document: stored, version } = await loadNetworkDocument(db.sequelize);
-    const checked = check(raw, stored, opts, replace);
+    const checked = await check(raw, stored, opts, replace);
     if (!checked.document) return failed(checked.errors, checked.warnings, version, checked);
     const plan = await planImport(stored, checked.document, replace);
     const stale = replace ? await staleBase(db.sequelize, raw, version) : undefined;
-    return capped({ ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version, ...(stale ? { stale } : {}) }, checked);
+    const confirm = replace ? { confirmReplace: replaceToken(version, deletionsOf(plan)) } : {};
+    return capped({ ok: true, dryRun, replace, counts: countsOf(plan, received), errors: [], warnings: checked.warnings, networkVersion: version, ...(stale ? { stale } : {}), ...confirm }, checked);
   }
 
   try {
     const outcome = await withNetworkWrite(db.sequelize, opts.actor ?? {}, async (w) => {
       const { document: stored } = await loadNetworkDocument(db.sequelize, w.transaction);
-      const checked = check(raw, stored, opts, replace);
+      opts.signal?.throwIfAborted();
+      const checked = await check(raw, stored, opts, replace);
       if (!checked.document) throw new RollBack(failed(checked.errors, checked.warnings, undefined, checked));
       const stale = replace ? await staleBase(db.sequelize, raw, w.startVersion, w.transaction) : undefined;
       if (stale && !opts.undoNewer) throw staleRefusal(stale);
       const plan = await planImport(stored, checked.document, replace);
-      await carryOut(w, plan);
+      if (replace) requireConfirmation(opts.confirmReplace, w.startVersion, plan);
+      await carryOut(w, plan, opts);
+      opts.signal?.throwIfAborted();
       const counts = countsOf(plan, received);
       if (plan.changed) w.markChanged();
       w.audit({ action: 'import', entityKind: 'network', after: { replace, counts, warnings: checked.warnings.length, ...(stale ? { undid: stale } : {}) } });
@@ -145,14 +168,32 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
  * stepped aside), then feeds and their via-sites and groups, and last what
  * `replace` drops, referrers before the referred.
  */
-async function carryOut(w: NetworkWrite, plan: ImportPlan): Promise<void> {
+async function carryOut(w: NetworkWrite, plan: ImportPlan, opts: Pick<ImportOptions, 'onProgress' | 'signal'>): Promise<void> {
   const k = plan.kinds;
+  const total = ENTITY_KINDS.reduce((n, kind) => n + k[kind].create.length + k[kind].update.length + k[kind].remove.length, 0);
+  let done = 0;
+  const step = (n: number) => {
+    done += n;
+    opts.onProgress?.({ stage: 'writing', done, total });
+    opts.signal?.throwIfAborted();
+  };
+  step(0);
+  // In slices, so progress moves and a client that is gone stops the write within a slice.
   const write = async (kind: EntityKind) => {
-    await writeEntities(w, kind, k[kind].create, { created: true });
-    await writeEntities(w, kind, k[kind].update);
+    for (const [list, created] of [[k[kind].create, true], [k[kind].update, false]] as const) {
+      for (let i = 0; i < list.length; i += WRITE_SLICE) {
+        const slice = list.slice(i, i + WRITE_SLICE);
+        await writeEntities(w, kind, slice, { created });
+        step(slice.length);
+      }
+    }
+  };
+  const remove = async (kind: EntityKind, codes: readonly string[]) => {
+    await deleteByCodes(w, kind, codes);
+    step(codes.length);
   };
   const many = (...kinds: EntityKind[]) => kinds.reduce((n, kind) => n + k[kind].create.length + k[kind].update.length, 0) >= ANALYZE_AFTER_ROWS;
-  await deleteByCodes(w, 'feeds', k.feeds.remove);
+  await remove('feeds', k.feeds.remove);
   await write('services');
   await write('groups');
   await write('sites');
@@ -162,11 +203,11 @@ async function carryOut(w: NetworkWrite, plan: ImportPlan): Promise<void> {
   if (many('carriages')) await analyze(w, ['carriages']);
   await write('feeds');
   if (many('feeds')) await analyze(w, ['feeds', 'feed_via_sites', 'feed_groups']);
-  await deleteByCodes(w, 'carriages', k.carriages.remove);
+  await remove('carriages', k.carriages.remove);
   if (parking.length > 0) await deleteByCodes(w, 'services', parking);
-  await deleteByCodes(w, 'sites', k.sites.remove);
-  await deleteByCodes(w, 'groups', k.groups.remove);
-  await deleteByCodes(w, 'services', k.services.remove);
+  await remove('sites', k.sites.remove);
+  await remove('groups', k.groups.remove);
+  await remove('services', k.services.remove);
 }
 
 /**

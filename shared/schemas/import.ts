@@ -55,6 +55,27 @@ export interface ImportReport {
    * needs undoNewer=true (server/interchange/README.md "Versions").
    */
   stale?: StaleBase;
+  /**
+   * The dry run of a replace: the value the commit must send as
+   * `confirmReplace`, standing for the deletions counted here at this
+   * network version (server/services/import/confirmReplace.ts).
+   */
+  confirmReplace?: string;
   /** the network version after the import (unchanged on a dry run or an error) */
   networkVersion?: number;
+}
+
+/**
+ * Where a running import is (GET /api/network/import/progress/:id): the
+ * upload being read, the document checked, the rows written, the served
+ * network rebuilt, then done or failed. `done` of `total` counts entities
+ * (reading: files; rebuilding: 0 of 1 until it is built).
+ */
+export const IMPORT_STAGES = ['reading', 'validating', 'writing', 'rebuilding', 'done', 'failed'] as const;
+export type ImportStage = (typeof IMPORT_STAGES)[number];
+
+export interface ImportProgress {
+  stage: ImportStage;
+  done: number;
+  total: number;
 }

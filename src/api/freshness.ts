@@ -10,7 +10,7 @@
  */
 import type { SWRConfiguration } from 'swr';
 
-export type FreshnessTier = 'incident' | 'network' | 'account' | 'admin';
+export type FreshnessTier = 'incident' | 'network' | 'account' | 'admin' | 'progress';
 
 export const freshness: Record<FreshnessTier, SWRConfiguration> = {
   /** Faults and reach while something is off air. */
@@ -21,4 +21,6 @@ export const freshness: Record<FreshnessTier, SWRConfiguration> = {
   account: { dedupingInterval: 60_000, refreshInterval: 300_000, revalidateOnFocus: true },
   /** People and audit lists: an admin's own edits revalidate them. */
   admin: { dedupingInterval: 10_000, refreshInterval: 0, revalidateOnFocus: true },
+  /** A long job of the person's own that is running now (an import): polled twice a second while shown. */
+  progress: { dedupingInterval: 0, refreshInterval: 500, revalidateOnFocus: false, errorRetryInterval: 500, errorRetryCount: 40 },
 };

@@ -8,6 +8,7 @@ import { ROLES } from '@/shared/api';
 import { CHECK_NAMES, CHECK_SEVERITIES } from '@/shared/schemas/checks';
 import { MEDIA } from '@/shared/schemas/network';
 import { carriageSchema, ENTITY_KINDS, feedSchema, groupSchema, serviceSchema, siteSchema } from '@/shared/schemas/network';
+import { IMPORT_STAGES } from '@/shared/schemas/import';
 
 export const userSchema = z.object({
   id: z.union([z.number(), z.string()]),
@@ -128,8 +129,11 @@ export const importReportSchema = z.object({
   moreErrors: z.number().int().optional(),
   stale: z.object({ baseVersion: z.number(), currentVersion: z.number(), changesSince: z.number() }).optional(),
   moreWarnings: z.number().int().optional(),
+  confirmReplace: z.string().optional(),
   networkVersion: z.number().optional(),
 });
+
+export const importProgressSchema = z.object({ stage: z.enum(IMPORT_STAGES), done: z.number(), total: z.number() });
 
 export const AUDIT_KINDS = [...ENTITY_KINDS, 'network', 'people', 'works', 'incidents'] as const;
 /** What was done to people (server/services/audit.ts PEOPLE_ACTIONS). */

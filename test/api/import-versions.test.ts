@@ -15,6 +15,13 @@ import { uploadFiles } from '../helpers/upload';
 const app = useTestApp({ network: smallNetwork });
 const eng = (method: 'get' | 'post' | 'patch', url: string) => request(app().app)[method](url).set(app().auth('engineer'));
 
+/** A replace as a person makes it: the dry run, then the commit with the dry run's confirmation. */
+async function confirmedReplace(doc: unknown, extra = '') {
+  const dry = await eng('post', `/api/network/import?replace=true&dryRun=true${extra}`).send(doc as object);
+  expect(dry.status).toBe(200);
+  return eng('post', `/api/network/import?replace=true${extra}&confirmReplace=${dry.body.confirmReplace}`).send(doc as object);
+}
+
 const binary = (res: request.Response, done: (err: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
   res.on('data', (c: Buffer) => chunks.push(c));
@@ -61,7 +68,7 @@ describe('import versioning', () => {
     expect(refused.body.error.message).toMatch(/undoNewer=true/);
     expect(await siteName('R1')).toBe('Relay One B');
 
-    const done = await eng('post', '/api/network/import?replace=true&undoNewer=true').send(old);
+    const done = await confirmedReplace(old, '&undoNewer=true');
     expect(done.status).toBe(200);
     expect(await siteName('R1')).toBe('Relay One');
     expect(await siteName('R2')).toBe('Relay Two');
@@ -77,10 +84,10 @@ describe('import versioning', () => {
 
   it('lets a merge, a replace from the current version and a file without a version through', async () => {
     const current: NetworkDocument = (await eng('get', '/api/network/export')).body;
-    expect((await eng('post', '/api/network/import?replace=true').send(current)).status).toBe(200);
+    expect((await confirmedReplace(current)).status).toBe(200);
     const old = { ...current, baseVersion: 0 };
     expect((await eng('post', '/api/network/import').send(old)).status).toBe(200);
     const { baseVersion: _v, ...unversioned } = current;
-    expect((await eng('post', '/api/network/import?replace=true').send(unversioned)).status).toBe(200);
+    expect((await confirmedReplace(unversioned)).status).toBe(200);
   });
 });

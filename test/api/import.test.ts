@@ -41,6 +41,14 @@ async function rowVersions(table: string): Promise<Record<string, number>> {
 const importDoc = (doc: unknown, query = '') =>
   request(t.app).post(`/api/network/import${query}`).set(t.auth('engineer')).send(doc as object);
 
+/** A replace as a person makes it: the dry run, then the commit with the dry run's confirmation. */
+async function confirmedReplace(doc: unknown) {
+  const dry = await importDoc(doc, '?replace=true&dryRun=true');
+  expect(dry.status).toBe(200);
+  expect(dry.body.confirmReplace).toMatch(/^[0-9a-f]{16}$/);
+  return importDoc(doc, `?replace=true&confirmReplace=${dry.body.confirmReplace}`);
+}
+
 const exportDoc = async (): Promise<NetworkDocument> => {
   const r = await request(t.app).get('/api/network/export').set(t.auth('viewer'));
   expect(r.status).toBe(200);
@@ -120,7 +128,7 @@ describe('import', () => {
     expect(upsert.body.counts.sites).toMatchObject({ deleted: 0, unchanged: 4 });
     expect((await exportDoc()).sites.map((s) => s.code)).toContain('R2');
 
-    const replaced = await importDoc(doc, '?replace=true');
+    const replaced = await confirmedReplace(doc);
     expect(replaced.status).toBe(200);
     expect(replaced.body.counts.sites).toMatchObject({ deleted: 1, unchanged: 4 });
     expect(replaced.body.counts.carriages.deleted).toBe(1);
@@ -163,7 +171,7 @@ describe('import', () => {
     const renamed = smallNetwork();
     renamed.carriages.find((c) => c.code === 'R1.TV1')!.code = 'R1.TV1.new';
     for (const f of renamed.feeds) if (f.to === 'R1.TV1') f.to = 'R1.TV1.new';
-    const replaced = await importDoc(renamed, '?replace=true');
+    const replaced = await confirmedReplace(renamed);
     expect(replaced.status).toBe(200);
     expect(replaced.body.counts.carriages).toMatchObject({ created: 1, deleted: 1 });
   });
@@ -266,5 +274,41 @@ describe('import errors', () => {
       expect(r.status).toBe(403);
     }
     expect((await rowCounts()).sites).toBe(0);
+  });
+
+  it('refuses a replace without the confirmation of its dry run, naming what it would delete', async () => {
+    await importDoc(smallNetwork());
+    const doc = smallNetwork();
+    doc.sites = doc.sites.filter((s) => s.code !== 'R2');
+    doc.carriages = doc.carriages.filter((c) => c.site !== 'R2');
+    doc.feeds = doc.feeds.filter((f) => !f.from.startsWith('R2.') && !f.to.startsWith('R2.'));
+    const droppedFeeds = smallNetwork().feeds.length - doc.feeds.length;
+    const before = await rowCounts();
+    const v0 = await networkVersion();
+
+    const bare = await importDoc(doc, '?replace=true');
+    expect(bare.status).toBe(428);
+    expect(bare.body.error.code).toBe('replace-unconfirmed');
+    expect(bare.body.error.message).toContain(`deletes 1 site, 1 carriage and ${droppedFeeds} feed${droppedFeeds === 1 ? '' : 's'}`);
+    expect(bare.body.error.message).toContain('confirmReplace');
+    expect(bare.body.error.details.deletions).toEqual({ sites: 1, services: 0, groups: 0, carriages: 1, feeds: droppedFeeds });
+    expect(await rowCounts()).toEqual(before);
+    expect(await networkVersion()).toBe(v0);
+
+    const dry = await importDoc(doc, '?replace=true&dryRun=true');
+    expect(dry.body.counts.sites.deleted).toBe(1);
+    const wrong = await importDoc(doc, '?replace=true&confirmReplace=0000000000000000');
+    expect(wrong.status).toBe(409);
+    expect(wrong.body.error.code).toBe('replace-confirmation-outdated');
+    expect(await rowCounts()).toEqual(before);
+
+    // the network changes between the check and the commit: the confirmation no longer holds
+    expect((await importDoc({ format: 'network/1', groups: [{ code: 'G-NEW', name: 'New group' }] })).status).toBe(200);
+    const late = await importDoc(doc, `?replace=true&confirmReplace=${dry.body.confirmReplace}`);
+    expect(late.status).toBe(409);
+    expect(late.body.error.message).toContain('1 group');
+    const stored = await exportDoc();
+    expect(stored.sites.map((s) => s.code)).toContain('R2');
+    expect(stored.groups.map((g) => g.code)).toContain('G-NEW');
   });
 });

@@ -4,11 +4,13 @@
  * against the carriages the document moves: a kept feed whose two carriages
  * would carry different services, or whose via-site would become one of its
  * ends, breaks the same import rules (docs/format.md), so
- * the carriage that causes it is reported.
+ * the carriage that causes it is reported, with the same rules and words as
+ * a single edit that moves it (server/interchange/crossRules.ts).
  */
 import type { NetworkDocument } from '@/shared/schemas/network';
 import { IssueSink, type RowsOf } from '@/server/interchange/issues';
 import type { ImportIssue } from '@/shared/schemas/import';
+import { movedCarriageRules } from '@/server/interchange/crossRules';
 
 export function checkKeptFeeds(stored: NetworkDocument, document: NetworkDocument, rowsOf?: RowsOf): ImportIssue[] {
   const moved = new Map<string, { index: number; site: string; service: string }>();
@@ -24,21 +26,13 @@ export function checkKeptFeeds(stored: NetworkDocument, document: NetworkDocumen
   const sink = new IssueSink(rowsOf);
   for (const feed of stored.feeds) {
     if (inDocument.has(feed.code) || (!moved.has(feed.from) && !moved.has(feed.to))) continue;
-    const source = now(feed.from);
-    const target = now(feed.to);
-    if (!source || !target) continue;
     const culprit = moved.has(feed.to) ? feed.to : feed.from;
+    const otherCode = culprit === feed.to ? feed.from : feed.to;
     const at = moved.get(culprit)!;
-    const keep = `feed ${feed.code} is stored and not in this document`;
-    if (source.service !== target.service) {
-      sink.error('carriages', at.index, culprit, 'service', 'service-mismatch',
-        `${keep}; after this import its source carriage ${feed.from} would carry ${source.service} and its target carriage ${feed.to} ${target.service}; put ${feed.code} in the document too, or keep the service`);
-    }
-    const via = feed.via ?? [];
-    const end = via.find((site) => site === source.site || site === target.site);
-    if (end !== undefined) {
-      sink.error('carriages', at.index, culprit, 'site', 'via-endpoint',
-        `${keep}; it passes via site ${end}, which this import makes one of its ends; put ${feed.code} in the document too, or keep the site`);
+    const other = now(otherCode);
+    if (!other) continue;
+    for (const issue of movedCarriageRules({ code: culprit, site: at.site, service: at.service }, feed, { code: otherCode, site: other.site, service: other.service })) {
+      sink.error('carriages', at.index, culprit, issue.field, issue.rule, issue.detail);
     }
   }
   return sink.sorted().errors;

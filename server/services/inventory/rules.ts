@@ -8,6 +8,7 @@
  * exist").
  */
 import type { EntityKind } from '@/shared/schemas/network';
+import { duplicateCarriage, feedRules, movedCarriageRules, REFERENCE_LABEL, unknownReference, type CrossIssue } from '../../interchange/crossRules';
 import { NOUN, type Fields } from './shape';
 import { TABLE, type Tx } from './tables';
 
@@ -49,23 +50,23 @@ export async function checkRules(tx: Tx, kind: EntityKind, entity: Fields, previ
   const found: RuleFindings = { unprocessable: [], conflicts: [] };
   const code = entity.code as string;
   const subject = `${NOUN[kind]} ${code}`;
-  const refuse = (field: string, rule: string, detail: string) => found.unprocessable.push({ field, rule, message: `${subject}: ${detail}` });
+  const refuse = (issue: CrossIssue) => found.unprocessable.push({ field: issue.field, rule: issue.rule, message: `${subject}: ${issue.detail}` });
 
-  const checkList = async (field: 'groups' | 'via', target: EntityKind, label: string) => {
+  const checkList = async (field: 'groups' | 'via', target: EntityKind) => {
     const list = (entity[field] as string[] | undefined) ?? [];
     const known = await existing(tx, target, list);
     list.forEach((ref, i) => {
-      if (!known.has(ref)) refuse(`${field}[${i}]`, 'unknown-reference', `${label} ${ref} does not exist`);
+      if (!known.has(ref)) refuse(unknownReference(`${field}[${i}]`, REFERENCE_LABEL[field], ref));
     });
   };
 
-  if (kind === 'sites') await checkList('groups', 'groups', 'group');
+  if (kind === 'sites') await checkList('groups', 'groups');
 
   if (kind === 'carriages') {
     const site = entity.site as string;
     const service = entity.service as string;
-    if (!(await existing(tx, 'sites', [site])).has(site)) refuse('site', 'unknown-reference', `site ${site} does not exist`);
-    if (!(await existing(tx, 'services', [service])).has(service)) refuse('service', 'unknown-reference', `service ${service} does not exist`);
+    if (!(await existing(tx, 'sites', [site])).has(site)) refuse(unknownReference('site', REFERENCE_LABEL.site, site));
+    if (!(await existing(tx, 'services', [service])).has(service)) refuse(unknownReference('service', REFERENCE_LABEL.service, service));
     const [rows] = await tx.sequelize.query(
       `SELECT c.code FROM carriages c JOIN sites si ON si.id = c.site_id JOIN services sv ON sv.id = c.service_id
        WHERE si.code = $1 AND sv.code = $2 AND c.code <> $3`,
@@ -73,8 +74,8 @@ export async function checkRules(tx: Tx, kind: EntityKind, entity: Fields, previ
     );
     const other = (rows as { code: string }[])[0];
     if (other) {
-      found.conflicts.push({ field: 'service', rule: 'duplicate-carriage',
-        message: `${subject}: site ${site} already has carriage ${other.code} for service ${service}; a site radiates each service once` });
+      const issue = duplicateCarriage(site, service, other.code);
+      found.conflicts.push({ field: issue.field, rule: issue.rule, message: `${subject}: ${issue.detail}` });
     }
     if (previous && (previous.site !== site || previous.service !== service)) await checkFeedsOfMovedCarriage(tx, code, site, service, refuse);
   }
@@ -85,46 +86,27 @@ export async function checkRules(tx: Tx, kind: EntityKind, entity: Fields, previ
     const ends = await carriageEnds(tx, [from, to]);
     const source = ends.get(from);
     const target = ends.get(to);
-    if (!source) refuse('from', 'unknown-reference', `source carriage ${from} does not exist`);
-    if (!target) refuse('to', 'unknown-reference', `target carriage ${to} does not exist`);
-    if (from === to) refuse('to', 'self-feed', `source and target are the same carriage ${from}; a feed joins two different carriages`);
-    if (source && target && from !== to && source.service !== target.service) {
-      refuse('to', 'service-mismatch',
-        `source carriage ${from} carries service ${source.service} but target carriage ${to} carries ${target.service}; both ends of a feed carry the same service`);
-    }
-    await checkList('via', 'sites', 'via-site');
-    ((entity.via as string[] | undefined) ?? []).forEach((site, i) => {
-      const end = site === source?.site ? `the source site (of carriage ${from})` : site === target?.site ? `the target site (of carriage ${to})` : undefined;
-      if (end) refuse(`via[${i}]`, 'via-endpoint', `via-site ${site} is ${end}; a via-site is a hop between the two ends`);
-    });
-    await checkList('groups', 'groups', 'group');
+    if (!source) refuse(unknownReference('from', REFERENCE_LABEL.from, from));
+    if (!target) refuse(unknownReference('to', REFERENCE_LABEL.to, to));
+    await checkList('via', 'sites');
+    for (const issue of feedRules(entity as { from: string; to: string; via?: string[] }, source, target)) refuse(issue);
+    await checkList('groups', 'groups');
   }
   return found;
 }
 
 /** A carriage moving to another site or service takes its feeds along: each must still hold. */
-async function checkFeedsOfMovedCarriage(
-  tx: Tx,
-  code: string,
-  site: string,
-  service: string,
-  refuse: (field: string, rule: string, detail: string) => void,
-): Promise<void> {
+async function checkFeedsOfMovedCarriage(tx: Tx, code: string, site: string, service: string, refuse: (issue: CrossIssue) => void): Promise<void> {
   const [rows] = await tx.sequelize.query(
-    `SELECT f.code, o.code AS other, sv.code AS "otherService",
+    `SELECT f.code, o.code AS other, sv.code AS "otherService", os.code AS "otherSite",
             ARRAY(SELECT s.code FROM feed_via_sites v JOIN sites s ON s.id = v.site_id WHERE v.feed_id = f.id) AS via
      FROM feeds f JOIN carriages a ON a.id = f.from_carriage_id JOIN carriages b ON b.id = f.to_carriage_id
      JOIN carriages o ON o.id = CASE WHEN a.code = $1 THEN b.id ELSE a.id END
-     JOIN services sv ON sv.id = o.service_id
+     JOIN services sv ON sv.id = o.service_id JOIN sites os ON os.id = o.site_id
      WHERE a.code = $1 OR b.code = $1 ORDER BY f.code`,
     { bind: [code], transaction: tx.transaction },
   );
-  for (const r of rows as Array<{ code: string; other: string; otherService: string; via: string[] }>) {
-    if (r.otherService !== service) {
-      refuse('service', 'service-mismatch', `feed ${r.code} joins it to carriage ${r.other}, which carries ${r.otherService}, not ${service}; change or delete the feed first`);
-    }
-    if (r.via.includes(site)) {
-      refuse('site', 'via-endpoint', `feed ${r.code} into or out of it passes via site ${site}, which would become one of its ends; change the feed first`);
-    }
+  for (const r of rows as Array<{ code: string; other: string; otherService: string; otherSite: string; via: string[] }>) {
+    for (const issue of movedCarriageRules({ code, site, service }, { code: r.code, via: r.via }, { code: r.other, service: r.otherService, site: r.otherSite })) refuse(issue);
   }
 }

@@ -14,7 +14,8 @@ import { api } from '@/shared/api';
 import type { ImportReport } from '@/shared/schemas/import';
 import { useSendRaw } from '../ApiProvider';
 import { parseAnswer } from '../client';
-import { importReportSchema } from '../schemas';
+import { importProgressSchema, importReportSchema } from '../schemas';
+import { useApiQuery } from '../useApiQuery';
 import { isNetworkKey } from './inventory';
 
 /** A file to upload: a Blob on the web, a local file URI on a phone. */
@@ -30,6 +31,10 @@ export interface ImportOptions {
   replace: boolean;
   /** carry out a replace made from an older network version, undoing the changes since */
   undoNewer?: boolean;
+  /** a replace's confirmation: the value its dry run answered */
+  confirmReplace?: string;
+  /** an id of the caller's choosing, to follow the import with useImportProgress */
+  progressId?: string;
 }
 
 export interface DownloadedFile {
@@ -37,8 +42,17 @@ export interface DownloadedFile {
   blob: Blob;
 }
 
-export const importPath = ({ dryRun, replace, undoNewer }: ImportOptions) =>
-  `${api.importNetwork}?dryRun=${dryRun}&replace=${replace}${undoNewer ? '&undoNewer=true' : ''}`;
+export const importPath = ({ dryRun, replace, undoNewer, confirmReplace, progressId }: ImportOptions) =>
+  `${api.importNetwork}?dryRun=${dryRun}&replace=${replace}${undoNewer ? '&undoNewer=true' : ''}` +
+  `${confirmReplace ? `&confirmReplace=${encodeURIComponent(confirmReplace)}` : ''}${progressId ? `&progressId=${encodeURIComponent(progressId)}` : ''}`;
+
+/** A fresh id for one import's progress (letters and digits, as the route takes them). */
+export const newProgressId = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 12)}`.padEnd(8, '0');
+
+/** How far the import sent with this progress id is; null waits. Polled twice a second. */
+export function useImportProgress(progressId: string | null) {
+  return useApiQuery(progressId ? api.importProgress(progressId) : null, importProgressSchema, 'progress');
+}
 export const exportPath = (format: 'json' | 'csv') => (format === 'csv' ? `${api.exportNetwork}?format=csv` : api.exportNetwork);
 
 /** The file name a Content-Disposition header gives (RFC 6266: filename*=UTF-8''... or filename="..."), else the fallback. */

@@ -7,23 +7,24 @@
  * document or the zip of its CSV files; every role may export, only
  * engineers and admins import.
  */
-import { formatBytes } from '@/shared/format';
+import { countOf, formatBytes } from '@/shared/format';
 import { useRef, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import type { ImportReport } from '@/shared/schemas/import';
-import { useNetworkTransfer, type UploadFile } from '@/src/api/queries/network';
+import { newProgressId, useNetworkTransfer, type UploadFile } from '@/src/api/queries/network';
 import { Button } from '@/src/components/Button';
 import { Choice } from '@/src/components/Choice';
 import { Screen } from '@/src/components/layout/Screen';
 import { Section } from '@/src/components/layout/Section';
-import { describeError, LoadingState } from '@/src/components/states';
+import { describeError } from '@/src/components/states';
 import { StatusShape } from '@/src/components/StatusShape';
 import { colors, fonts, radius, space, type } from '@/src/theme';
 import { InventoryNav } from '../inventory/parts/InventoryNav';
 import { useCanEdit } from '../inventory/useCanEdit';
 import { saveFile } from './download';
 import { FilePicker } from './FilePicker';
-import { canCommit, staleText } from './report';
+import { canCommit, deletionsText, needsDeleteConfirmation, staleText, totals } from './report';
+import { ImportProgressView } from './ImportProgressView';
 import { ReportView } from './ReportView';
 
 type Phase = 'idle' | 'checking' | 'committing';
@@ -50,8 +51,12 @@ function ImportSection() {
   const [failure, setFailure] = useState<string | null>(null);
   // A second, deliberate step: a replace from an older version undoes later changes only once this is confirmed.
   const [undoConfirmed, setUndoConfirmed] = useState(false);
+  // A replace that deletes records is carried out only once the person has read the deletions and agreed.
+  const [deletesConfirmed, setDeletesConfirmed] = useState(false);
   // Only the answer to the latest request counts: a slow check must not overwrite a newer one.
   const latest = useRef(0);
+  // The running request's progress id: its stages and bar show until the answer comes.
+  const [running, setRunning] = useState<{ id: string; dryRun: boolean } | null>(null);
 
   async function run(chosen: UploadFile[], withReplace: boolean, dryRun: boolean) {
     if (chosen.length === 0) return;
@@ -61,14 +66,21 @@ function ImportSection() {
     if (dryRun) {
       setReport(null);
       setUndoConfirmed(false);
+      setDeletesConfirmed(false);
     }
+    const progressId = newProgressId();
+    setRunning({ id: progressId, dryRun });
     try {
-      const answer = await transfer.importFiles(chosen, { dryRun, replace: withReplace, undoNewer: !dryRun && undoConfirmed });
+      const confirmReplace = !dryRun && withReplace ? report?.confirmReplace : undefined;
+      const answer = await transfer.importFiles(chosen, { dryRun, replace: withReplace, undoNewer: !dryRun && undoConfirmed, confirmReplace, progressId });
       if (ticket === latest.current) setReport(answer);
     } catch (e) {
       if (ticket === latest.current) setFailure(`${dryRun ? 'The check' : 'The import'} failed: ${describeError(e)}`);
     } finally {
-      if (ticket === latest.current) setPhase('idle');
+      if (ticket === latest.current) {
+        setPhase('idle');
+        setRunning(null);
+      }
     }
   }
 
@@ -115,11 +127,27 @@ function ImportSection() {
         <Button
           label="Commit import"
           onPress={() => void run(files, replace, false)}
-          disabled={!canCommit(report, undoConfirmed) || phase !== 'idle'}
+          disabled={!canCommit(report, { undo: undoConfirmed, deletes: deletesConfirmed }) || phase !== 'idle'}
           busy={phase === 'committing'}
           testID="import-commit"
         />
       </View>
+      {report && needsDeleteConfirmation(report) ? (
+        <View style={styles.warning} accessibilityRole="alert" testID="import-deletions">
+          <View style={styles.warningHead}>
+            <StatusShape shape="triangle" color={colors.warn} size={18} />
+            <Text style={styles.warningTitle}>{`This replace deletes ${countOf(totals(report).deleted, 'record')}`}</Text>
+          </View>
+          <Text style={styles.body}>{`Deleted: ${deletionsText(report)}, everything the file does not list. Export the network first if you may want them back.`}</Text>
+          <Button
+            label={deletesConfirmed ? `Confirmed: delete ${countOf(totals(report).deleted, 'record')}` : `Delete ${countOf(totals(report).deleted, 'record')} and replace`}
+            variant="secondary"
+            onPress={() => setDeletesConfirmed((v) => !v)}
+            disabled={phase !== 'idle'}
+            testID="import-confirm-deletions"
+          />
+        </View>
+      ) : null}
       {report?.dryRun && report.stale ? (
         <View style={styles.warning} accessibilityRole="alert" testID="import-stale">
           <View style={styles.warningHead}>
@@ -136,7 +164,7 @@ function ImportSection() {
           />
         </View>
       ) : null}
-      {phase === 'checking' ? <LoadingState what="the check of the file" /> : null}
+      {running ? <ImportProgressView key={running.id} progressId={running.id} dryRun={running.dryRun} /> : null}
       {failure ? (
         <Text style={styles.failure} accessibilityRole="alert" testID="import-failure">
           {`⚠ ${failure}`}

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { ImportReport, KindCounts } from '@/shared/schemas/import';
-import { canCommit, countRows, issueRows, reportHeadline, staleText, totals, whereOf } from './report';
+import { canCommit, countRows, deletionsText, issueRows, needsDeleteConfirmation, reportHeadline, staleText, totals, whereOf } from './report';
 
 const zero: KindCounts = { received: 0, created: 0, updated: 0, unchanged: 0, deleted: 0 };
 const counts = { sites: { ...zero }, services: { ...zero }, groups: { ...zero }, carriages: { ...zero }, feeds: { ...zero } };
@@ -92,11 +92,29 @@ describe('a file older than the network', () => {
 
   it('may be committed only once the undo is confirmed', () => {
     expect(canCommit({ ...base, stale })).toBe(false);
-    expect(canCommit({ ...base, stale }, true)).toBe(true);
+    expect(canCommit({ ...base, stale }, { undo: true })).toBe(true);
     expect(canCommit(base)).toBe(true);
   });
 
   it('says how many changes would be undone', () => {
     expect(staleText(stale)).toBe('This file was made from network version 12; the network is now at version 15, with 4,512 changes since. Replacing the network with this file undoes them.');
+  });
+});
+
+describe('a replace that deletes records', () => {
+  const deleting = report({ replace: true });
+  deleting.counts = { ...deleting.counts, sites: { ...deleting.counts.sites, deleted: 1 }, feeds: { ...deleting.counts.feeds, deleted: 1204 } };
+
+  it('names the deletions per kind with thousands separators', () => {
+    expect(deletionsText(deleting)).toBe('1 site and 1,204 feeds');
+    expect(deletionsText(report({}))).toBe('');
+  });
+
+  it('may be committed only once the deletions are confirmed', () => {
+    expect(needsDeleteConfirmation(deleting)).toBe(true);
+    expect(canCommit(deleting)).toBe(false);
+    expect(canCommit(deleting, { deletes: true })).toBe(true);
+    expect(needsDeleteConfirmation(report({ replace: true }))).toBe(false);
+    expect(needsDeleteConfirmation({ ...deleting, replace: false })).toBe(false);
   });
 });

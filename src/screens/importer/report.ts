@@ -94,9 +94,32 @@ export function reportHeadline(report: ImportReport): string {
   return `Imported${w ? ` with ${plural(w, 'warning')}` : ''}: ${changes.replace(/to create/, 'created').replace(/to update/, 'updated').replace(/to delete/, 'deleted')}.`;
 }
 
-/** Whether a checked report may be committed: a dry run with no errors, and a stale base only once the undo is confirmed. */
-export function canCommit(report: ImportReport | null | undefined, undoConfirmed = false): boolean {
-  return !!report && report.dryRun && report.errors.length === 0 && (!report.stale || undoConfirmed);
+export interface Confirmations {
+  /** a stale base: the person agreed to undo the changes since */
+  undo?: boolean;
+  /** a replace that deletes records: the person agreed to the deletions named */
+  deletes?: boolean;
+}
+
+const KIND_NOUN: Record<EntityKind, string> = { sites: 'site', services: 'service', groups: 'group', carriages: 'carriage', feeds: 'feed' };
+
+/** What a checked replace deletes, per kind: "1 site, 1 carriage and 3 feeds" (empty when nothing). */
+export function deletionsText(report: Pick<ImportReport, 'counts'>): string {
+  const parts = ENTITY_KINDS.filter((k) => report.counts[k].deleted > 0).map((k) => countOf(report.counts[k].deleted, KIND_NOUN[k]));
+  if (parts.length <= 1) return parts.join('');
+  return `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}`;
+}
+
+/** Whether a checked replace deletes anything, so the person must confirm the deletions it names. */
+export function needsDeleteConfirmation(report: ImportReport | null | undefined): boolean {
+  return !!report && report.dryRun && report.replace && report.errors.length === 0 && totals(report).deleted > 0;
+}
+
+/** Whether a checked report may be committed: a dry run with no errors; a stale base and deletions only once confirmed. */
+export function canCommit(report: ImportReport | null | undefined, confirmed: Confirmations = {}): boolean {
+  if (!report || !report.dryRun || report.errors.length > 0) return false;
+  if (report.stale && !confirmed.undo) return false;
+  return !needsDeleteConfirmation(report) || confirmed.deletes === true;
 }
 
 /** The sentence about a file made from an older network version (report.stale). */
