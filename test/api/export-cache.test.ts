@@ -2,6 +2,7 @@
  * The JSON export answered from the in-memory model is the same document
  * PostgreSQL holds, and a model that is behind the database is not used.
  */
+import zlib from 'node:zlib';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { loadNetworkDocument } from '@/server/services/networkLoader';
@@ -9,6 +10,7 @@ import { smallNetwork } from '../fixtures/small-network';
 import { useTestApp } from '../helpers/testApp';
 
 const app = useTestApp({ network: smallNetwork });
+const getT = app;
 
 describe('JSON export', () => {
   it('equals the stored network, from memory when current and from PostgreSQL when the model is behind', async () => {
@@ -31,5 +33,43 @@ describe('JSON export', () => {
     const fresh = await request(t.app).get('/api/network/export').set(t.auth('viewer'));
     expect(Number(fresh.headers['x-network-version'])).toBe(version);
     expect(fresh.body.sites.find((s: { code: string }) => s.code === 'R1').name).toBe('Renamed behind the model');
+  });
+
+  it('sends the same bytes gzipped to a client that accepts gzip, and 304 for a matching ETag', async () => {
+    const t = getT();
+    const plain = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('Accept-Encoding', 'identity');
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    const zipped = await request(t.app)
+      .get('/api/network/export')
+      .set(t.auth('viewer'))
+      .set('Accept-Encoding', 'gzip, deflate')
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(zipped.status).toBe(200);
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(zipped.headers.vary).toMatch(/Accept-Encoding/);
+    const raw = zipped.body as Buffer;
+    expect(Number(zipped.headers['content-length'])).toBe(raw.length);
+    expect(zlib.gunzipSync(raw).toString()).toBe(plain.text);
+    const stored = await loadNetworkDocument(t.db.sequelize);
+    expect(JSON.parse(plain.text)).toEqual({ ...stored.document, baseVersion: stored.version });
+
+    const etag = plain.headers.etag;
+    expect(etag).toMatch(/^"v\d+-/);
+    const again = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('If-None-Match', etag);
+    expect(again.status).toBe(304);
+    // an edit makes a new version, and a new ETag
+    const current = await request(t.app).get('/api/sites/R1').set(t.auth('engineer'));
+    const edit = await request(t.app).patch('/api/sites/R1').set(t.auth('engineer')).send({ version: current.body.site.version, name: 'Renamed relay' });
+    expect(edit.status).toBe(200);
+    const changed = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('If-None-Match', etag);
+    expect(changed.status).toBe(200);
+    expect(changed.headers.etag).not.toBe(etag);
+    expect(changed.body.sites.find((s: { code: string }) => s.code === 'R1').name).toBe('Renamed relay');
   });
 });
