@@ -2,6 +2,7 @@
  * The JSON export answered from the in-memory model is the same document
  * PostgreSQL holds, and a model that is behind the database is not used.
  */
+import http from 'node:http';
 import zlib from 'node:zlib';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
@@ -40,22 +41,24 @@ describe('JSON export', () => {
     const plain = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('Accept-Encoding', 'identity');
     expect(plain.status).toBe(200);
     expect(plain.headers['content-encoding']).toBeUndefined();
-    const zipped = await request(t.app)
-      .get('/api/network/export')
-      .set(t.auth('viewer'))
-      .set('Accept-Encoding', 'gzip, deflate')
-      .buffer(true)
-      .parse((res, done) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('end', () => done(null, Buffer.concat(chunks)));
-      });
-    expect(zipped.status).toBe(200);
+    // raw bytes over a real socket: supertest would unzip them on the way
+    const server = t.app.listen(0, '127.0.0.1');
+    await new Promise((r) => server.once('listening', r));
+    const port = (server.address() as { port: number }).port;
+    const zipped = await new Promise<{ headers: http.IncomingHttpHeaders; raw: Buffer }>((resolve, reject) => {
+      http
+        .get({ host: '127.0.0.1', port, path: '/api/network/export', headers: { ...t.auth('viewer'), 'Accept-Encoding': 'gzip, deflate' } }, (res) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => resolve({ headers: res.headers, raw: Buffer.concat(chunks) }));
+        })
+        .on('error', reject);
+    });
+    server.close();
     expect(zipped.headers['content-encoding']).toBe('gzip');
     expect(zipped.headers.vary).toMatch(/Accept-Encoding/);
-    const raw = zipped.body as Buffer;
-    expect(Number(zipped.headers['content-length'])).toBe(raw.length);
-    expect(zlib.gunzipSync(raw).toString()).toBe(plain.text);
+    expect(Number(zipped.headers['content-length'])).toBe(zipped.raw.length);
+    expect(zlib.gunzipSync(zipped.raw).toString()).toBe(plain.text);
     const stored = await loadNetworkDocument(t.db.sequelize);
     expect(JSON.parse(plain.text)).toEqual({ ...stored.document, baseVersion: stored.version });
 

@@ -31,7 +31,8 @@ describe('user rows cached per process', () => {
     expect((await request(t.app).get('/api/sites').set(h)).status).toBe(200);
     expect((await request(t.app).get('/api/sites').set(h)).status).toBe(200);
     expect((await request(t.app).get('/api/sites').set(h)).status).toBe(200);
-    expect(reads).toHaveBeenCalledTimes(1);
+    // at most the first request reads (the import before the test may have cached the row already)
+    expect(reads.mock.calls.length).toBeLessThanOrEqual(1);
 
     // raw SQL runs no model hook: only the trigger's NOTIFY tells this process
     await t.db.sequelize.query(`UPDATE users SET disabled = true WHERE email = 'engineer@test.example'`);
