@@ -18,6 +18,13 @@ beforeAll(async () => {
 });
 afterAll(async () => second?.close());
 
+/** A token of the second instance (its own secret) for an account the first one's reset made. */
+async function headersFor(a: TestApp, role: 'viewer' | 'operator') {
+  const [ids] = await a.db.sequelize.query(`SELECT id FROM users WHERE email = '${role}@test.example'`);
+  const token = signToken({ sub: String((ids as { id: number }[])[0].id), email: `${role}@test.example`, role }, second.config.JWT_SECRET, '10m');
+  return { Authorization: `Bearer ${token}` };
+}
+
 async function until(what: string, check: () => Promise<boolean> | boolean, ms = 10_000) {
   const t0 = Date.now();
   while (!(await check())) {
@@ -35,7 +42,7 @@ describe('two server instances on one database', () => {
     const [rows] = await a.db.sequelize.query(`SELECT name FROM sites WHERE code = 'TWO1'`);
     expect(rows).toEqual([{ name: 'Seen twice' }]);
     await until('the second model has the new site', () => second.ctx.network.model?.document.sites.some((s) => s.code === 'TWO1') ?? false);
-    const exported = await request(second.app).get('/api/network/export').set(second.auth('viewer'));
+    const exported = await request(second.app).get('/api/network/export').set(await headersFor(a, 'viewer'));
     expect(exported.status).toBe(200);
     expect(exported.body.sites.find((s: { code: string }) => s.code === 'TWO1')).toMatchObject({ name: 'Seen twice', role: 'relay' });
   });
@@ -43,9 +50,7 @@ describe('two server instances on one database', () => {
   it('refuses in one a session ended in the other', async () => {
     const a = first();
     await until('the second instance hears changes to people', () => second.ctx.userChanges!.listening);
-    const [ids] = await a.db.sequelize.query(`SELECT id FROM users WHERE email = 'operator@test.example'`);
-    const token = signToken({ sub: String((ids as { id: number }[])[0].id), email: 'operator@test.example', role: 'operator' }, second.config.JWT_SECRET, '10m');
-    const h = { Authorization: `Bearer ${token}` };
+    const h = await headersFor(a, 'operator');
     expect((await request(second.app).get('/api/sites').set(h)).status).toBe(200);
     const out = await request(a.app).post('/api/auth/logout').set(a.auth('operator'));
     expect(out.status).toBe(204);
