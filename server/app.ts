@@ -13,6 +13,7 @@ import { errorHandler, notFoundHandler } from './http/errors';
 import { RouteTable } from './http/routes';
 import { authenticate } from './auth/authenticate';
 import { UserRowCache } from './auth/userRowCache';
+import { UserChangeListener } from './auth/userChanges';
 import { loadUserRow } from './services/users';
 import { registerAuthRoutes } from './routes/auth';
 import { registerSystemRoutes } from './routes/system';
@@ -50,7 +51,11 @@ export function createApp(ctx: AppContext) {
   app.use(securityHeaders());
 
   const api = express.Router();
-  const routes = new RouteTable(api, authenticate(ctx.config.JWT_SECRET, loadUserRow, new UserRowCache()), {
+  // user rows cached per process while changes to users are heard (auth/userRowCache.ts); closed with the context
+  const userRows = new UserRowCache();
+  ctx.userChanges = new UserChangeListener(ctx.db.url, userRows);
+  ctx.userChanges.start();
+  const routes = new RouteTable(api, authenticate(ctx.config.JWT_SECRET, loadUserRow, userRows), {
     small: ctx.config.BODY_LIMIT,
     // a whole network document may be tens of megabytes
     large: ctx.config.IMPORT_BODY_LIMIT,

@@ -6,6 +6,7 @@ import type { OperationsEvents } from './operations/events';
 import type { ObjectStore } from './documents/storage';
 import type { MailboxStandin } from './standins/mailbox';
 import type { NoticeQueue } from './notices/queue';
+import type { UserChangeListener } from './auth/userChanges';
 
 /** What route modules are handed: configuration, the database, the live network model. */
 export interface AppContext {
@@ -20,6 +21,8 @@ export interface AppContext {
   notices?: NoticeQueue;
   /** the local SMTP stand-in, only when it runs: its mailbox is shown to admins */
   mailbox?: MailboxStandin | null;
+  /** hears changes to users for this process's user-row cache; set by createApp, closed with the server */
+  userChanges?: UserChangeListener;
   /** set by the sign-in routes; tests use it to start from a clean slate */
   resetLoginLimits?: () => void;
 }

@@ -69,6 +69,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
       await notices.stop();
       ctx.objects?.close();
       await network.close();
+      await ctx.userChanges?.close();
       await db.close();
     })());
 

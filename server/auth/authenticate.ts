@@ -1,7 +1,8 @@
 /**
  * Who is asking, from the user's row rather than the token: the token proves
- * who signed in and under which token version; the row, read once per
- * request, says the role, whether the account is disabled, whether that token
+ * who signed in and under which token version; the row (read per request, or
+ * from this process's cache while it hears every change to users: see
+ * userRowCache.ts) says the role, whether the account is disabled, whether that token
  * version is still current and whether a temporary password must be changed.
  * A role change, a disable or a sign-out therefore takes effect on the next
  * request.
@@ -49,18 +50,22 @@ export function authenticate(secret: string, loadUserRow: LoadUserRow, cache = n
       return refuse(unauthenticated('the session token is not valid or has expired; sign in again'));
     }
 
-    let row: UserRow | null;
-    try {
-      row = await loadUserRow(userId);
-      if (row) cache.put(row);
-      else cache.forget(userId);
-    } catch (e) {
-      if (!isDatabaseUnavailableError(e)) return next(e);
-      row = cache.fresh(userId);
-      if (!row) {
-        return refuse(
-          new ApiError(503, 'database-unavailable', 'the database cannot be reached, so this session cannot be checked; try again in a minute'),
-        );
+    // the row PostgreSQL holds now: from the cache while changes to users are heard, else read
+    let row: UserRow | null = cache.current(userId);
+    if (!row) {
+      const ticket = cache.ticket();
+      try {
+        row = await loadUserRow(userId);
+        if (row) cache.put(row, ticket);
+        else cache.forget(userId);
+      } catch (e) {
+        if (!isDatabaseUnavailableError(e)) return next(e);
+        row = cache.fresh(userId);
+        if (!row) {
+          return refuse(
+            new ApiError(503, 'database-unavailable', 'the database cannot be reached, so this session cannot be checked; try again in a minute'),
+          );
+        }
       }
     }
     if (!row || row.disabled) return refuse(unauthenticated('this account is disabled or no longer exists'));

@@ -1,3 +1,4 @@
+import { createSecretKey, type KeyObject } from 'node:crypto';
 import jwt from 'jsonwebtoken';
 import { ROLES, type Role } from '@/shared/api';
 
@@ -24,15 +25,64 @@ export function signToken(claims: Omit<TokenClaims, 'tv'> & { tv?: number }, sec
   });
 }
 
+/**
+ * The secret as a key object, made once. Handed a string, jsonwebtoken first
+ * tries to parse it as a PEM public key (and throws) on every call: under load
+ * that failed parse was the largest single cost of a request.
+ */
+const keys = new Map<string, KeyObject>();
+function keyOf(secret: string): KeyObject {
+  let key = keys.get(secret);
+  if (!key) {
+    key = createSecretKey(Buffer.from(secret));
+    keys.set(secret, key);
+  }
+  return key;
+}
+
+/**
+ * Tokens whose signature was checked, with their claims, until they expire.
+ * A token is the same bytes on every request of a session, so its signature
+ * needs checking once; whether the session still counts is the user row's
+ * business (authenticate.ts), not the token's. Bounded: the oldest half is
+ * dropped when full.
+ */
+const MAX_VERIFIED = 10_000;
+const verified = new Map<string, { claims: TokenClaims; expiresAtMs: number }>();
+
 /** Verify a bearer token; null for anything forged, expired or malformed. */
 export function verifyToken(token: string, secret: string): TokenClaims | null {
+  const cacheKey = `${secret.length}:${secret}\n${token}`;
+  const hit = verified.get(cacheKey);
+  if (hit) {
+    if (Date.now() < hit.expiresAtMs) return hit.claims;
+    verified.delete(cacheKey);
+    return null;
+  }
+  const claims = verifyOnce(token, secret);
+  if (claims) {
+    if (verified.size >= MAX_VERIFIED) {
+      let drop = MAX_VERIFIED / 2;
+      for (const key of verified.keys()) {
+        verified.delete(key);
+        if (--drop === 0) break;
+      }
+    }
+    verified.set(cacheKey, { claims: claims.claims, expiresAtMs: claims.expiresAtMs });
+  }
+  return claims?.claims ?? null;
+}
+
+function verifyOnce(token: string, secret: string): { claims: TokenClaims; expiresAtMs: number } | null {
   try {
-    const p = jwt.verify(token, secret, { issuer: ISSUER, algorithms: ['HS256'] });
+    const p = jwt.verify(token, keyOf(secret), { issuer: ISSUER, algorithms: ['HS256'] });
     if (typeof p !== 'object' || !p.sub || typeof p.email !== 'string' || !ROLES.includes(p.role)) return null;
     // a token from before token versions counts as version 0
     const tv = p.tv === undefined ? 0 : p.tv;
     if (!Number.isInteger(tv) || tv < 0) return null;
-    return { sub: p.sub, email: p.email, role: p.role, tv };
+    // jsonwebtoken refuses a token at its exp second; so does the cache
+    const expiresAtMs = typeof p.exp === 'number' ? p.exp * 1000 : Date.now() + 60_000;
+    return { claims: { sub: p.sub, email: p.email, role: p.role, tv }, expiresAtMs };
   } catch {
     return null;
   }

@@ -95,7 +95,11 @@ export function openDatabase(url: string, limits: Partial<DatabaseLimits> = {}):
       // migrations run on connections of their own, without the request time limits:
       // rebuilding an index on a large table may take minutes
       const plain = connect(url, null);
+      // one process migrates at a time: several hosts or workers may start together
+      const lock = new pg.Client({ connectionString: url });
       try {
+        await lock.connect();
+        await lock.query('SELECT pg_advisory_lock($1)', [MIGRATION_LOCK]);
         const umzug = new Umzug({
           migrations: migrations.map((m) => ({ name: m.name, up: m.up, down: m.down })),
           context: plain.getQueryInterface(),
@@ -105,6 +109,8 @@ export function openDatabase(url: string, limits: Partial<DatabaseLimits> = {}):
         const done = await umzug.up();
         return done.map((m) => m.name);
       } finally {
+        // ending the session releases the lock
+        await lock.end().catch(() => undefined);
         await plain.close();
       }
     },
@@ -125,5 +131,8 @@ export async function bumpNetworkVersion(sequelize: Sequelize, transaction: Tran
   return version;
 }
 
+
+/** the advisory lock key held while migrations run (any constant unique in this database) */
+const MIGRATION_LOCK = 720_509;
 
 export { User };

@@ -35,7 +35,7 @@ import { ImportQueue } from '../services/import/queue';
 import { ImportProgressBoard, PROGRESS_ID } from '../services/import/progress';
 import { clip } from '@/shared/clip';
 import { loadNetworkDocument } from '../services/networkLoader';
-import { exportJson } from '../services/exportCache';
+import { exportJson, sendExport } from '../services/exportCache';
 import { AUDIT_ACTIONS, AUDIT_KINDS, listAudit, type AuditAction, type AuditKind } from '../services/audit';
 import { documentToZip } from '../interchange/csv';
 import { MAX_PAGE_SIZE } from '../services/inventory/read';
@@ -188,8 +188,7 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/network/export', can.read, async (req, res) => {
     const { format } = parseOr400(exportQuerySchema, req.query, 'query');
     if (format === 'json') {
-      const { version, body } = await exportJson(ctx);
-      res.set('X-Network-Version', String(version)).attachment(`network-v${version}.json`).type('application/json').send(body);
+      await sendExport(req, res, await exportJson(ctx));
       return;
     }
     const { document, version } = await loadNetworkDocument(sequelize);

@@ -1,27 +1,94 @@
 /**
- * The JSON export from memory. The in-memory model holds the same document
- * the export would read from PostgreSQL; when the model is at the database's
- * version, its document is serialised once per version and every export of
- * that version sends the same bytes. Fifty engineers exporting at once then
- * cost one serialisation, not fifty reads of the whole database. When the
- * model is behind (a rebuild under way), the export reads PostgreSQL as before.
+ * The JSON export, made once per network version and served as stored bytes.
+ * The in-memory model holds the same document the export would read from
+ * PostgreSQL; its document is serialised and gzipped once per version (the
+ * gzip in the thread pool, off the event loop), and every export of that
+ * version sends the same bytes: gzipped to a client that accepts gzip (every
+ * browser), plain otherwise, streamed in slices so that a slow phone holds
+ * back only its own socket. Fifty engineers exporting at once cost one
+ * serialisation, shared even while it is being made.
+ *
+ * When the model is behind the database (a rebuild under way), the export
+ * waits for the rebuild rather than building an answer per request; only if
+ * the rebuild fails does it read PostgreSQL for the request.
  */
+import crypto from 'node:crypto';
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import { promisify } from 'node:util';
+import zlib from 'node:zlib';
+import type { Request, Response } from 'express';
 import type { AppContext } from '../context';
 import { loadNetworkDocument } from './networkLoader';
 
-let cached: { version: number; body: Buffer; model: object } | null = null;
+export interface ExportBytes {
+  version: number;
+  body: Buffer;
+  gzip: Buffer;
+  etag: string;
+}
 
-export async function exportJson(ctx: AppContext): Promise<{ version: number; body: Buffer }> {
+const gzip = promisify(zlib.gzip);
+/** keyed by the model object: a rebuild makes a new one, even at the same version (a test's reset) */
+let cached: { model: object; bytes: Promise<ExportBytes> } | null = null;
+
+async function encode(document: { format: string }, version: number): Promise<ExportBytes> {
+  const body = Buffer.from(JSON.stringify(withBase(document, version)));
+  // zlib's default level: a 20,000-site export shrinks several times over
+  const packed = await gzip(body);
+  const etag = `"v${version}-${crypto.createHash('sha1').update(body).digest('base64url').slice(0, 16)}"`;
+  return { version, body, gzip: packed, etag };
+}
+
+/** The export bytes of the database's current version (or a newer one the model already holds). */
+export async function exportJson(ctx: AppContext): Promise<ExportBytes> {
+  const databaseVersion = await ctx.network.databaseVersion();
+  if (!ctx.network.model || ctx.network.model.networkVersion < databaseVersion) await ctx.network.refresh(databaseVersion);
   const model = ctx.network.model;
-  if (model) {
-    const databaseVersion = await ctx.network.databaseVersion();
-    if (model.networkVersion === databaseVersion) {
-      if (!cached || cached.model !== model) cached = { version: model.networkVersion, body: Buffer.from(JSON.stringify(withBase(model.document, model.networkVersion))), model };
-      return cached;
-    }
+  if (!model || model.networkVersion < databaseVersion) {
+    // the rebuild failed (it is retried in the background): the stored network, read for this request
+    const { document, version } = await loadNetworkDocument(ctx.db.sequelize);
+    return encode(document, version);
   }
-  const { document, version } = await loadNetworkDocument(ctx.db.sequelize);
-  return { version, body: Buffer.from(JSON.stringify(withBase(document, version))) };
+  if (cached?.model !== model) {
+    const bytes = encode(model.document, model.networkVersion);
+    const entry = { model, bytes };
+    cached = entry;
+    bytes.catch(() => {
+      if (cached === entry) cached = null;
+    });
+  }
+  return cached.bytes;
+}
+
+const SLICE = 256 * 1024;
+
+/** Send the export: 304 for a matching ETag, gzip when accepted, streamed in slices. */
+export async function sendExport(req: Request, res: Response, bytes: ExportBytes) {
+  res.set('X-Network-Version', String(bytes.version)).attachment(`network-v${bytes.version}.json`).type('application/json');
+  res.set('ETag', bytes.etag).set('Vary', 'Accept-Encoding');
+  if (req.get('if-none-match') === bytes.etag) {
+    res.status(304).end();
+    return;
+  }
+  const gzipped = /\bgzip\b/i.test(req.get('accept-encoding') ?? '');
+  const payload = gzipped ? bytes.gzip : bytes.body;
+  if (gzipped) res.set('Content-Encoding', 'gzip');
+  res.set('Content-Length', String(payload.length));
+  if (req.method === 'HEAD') {
+    res.end();
+    return;
+  }
+  try {
+    await pipeline(Readable.from(slices(payload), { objectMode: false }), res);
+  } catch (e) {
+    // the client went away mid-answer: nothing left to tell it
+    if (!res.destroyed && !req.destroyed) throw e;
+  }
+}
+
+function* slices(buf: Buffer) {
+  for (let i = 0; i < buf.length; i += SLICE) yield buf.subarray(i, Math.min(buf.length, i + SLICE));
 }
 
 /** The export says which version it was made from, so a replace-import from it can tell what it would undo. */

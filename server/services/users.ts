@@ -8,7 +8,7 @@ import { fn, col, where, type Transaction } from 'sequelize';
 import type { Role } from '@/shared/api';
 import { User } from '../db/models/user';
 import { checkPassword, hashPassword } from '../auth/passwords';
-import type { UserRow } from '../auth/userRowCache';
+import { userRowsChanged, type UserRow } from '../auth/userRowCache';
 import { ApiError, conflict, notFound } from '../http/errors';
 
 /**
@@ -19,7 +19,7 @@ import { ApiError, conflict, notFound } from '../http/errors';
 export const findUserByEmail = (email: string, transaction?: Transaction) =>
   User.findOne({ where: where(fn('lower', col('email')), email.trim().toLowerCase()), transaction });
 
-/** What authenticate needs of the row, read once per request. */
+/** What authenticate needs of the row (read per request unless its cache confirms it). */
 export async function loadUserRow(id: number): Promise<UserRow | null> {
   const u = await User.findByPk(id, { attributes: ['id', 'email', 'role', 'disabled', 'tokenVersion', 'mustChangePassword'] });
   return u ? { id: u.id, email: u.email, role: u.role, disabled: u.disabled, tokenVersion: u.tokenVersion, mustChangePassword: u.mustChangePassword } : null;
@@ -110,4 +110,6 @@ export async function setTemporaryPassword(id: number, password: string, transac
 /** Sign-out: every token of this person stops working. */
 export async function endSessions(id: number, transaction?: Transaction) {
   await User.increment('tokenVersion', { by: 1, where: { id }, transaction });
+  // increment runs no model hooks
+  userRowsChanged(id, transaction);
 }

@@ -17,6 +17,16 @@ const getT = useTestApp({ network: smallNetwork });
 
 const refused = () => new ConnectionRefusedError(Object.assign(new Error('connect ECONNREFUSED 127.0.0.1:5432'), { code: 'ECONNREFUSED' }));
 
+/**
+ * The row read fails with `error`; and, as in a real outage, the listener
+ * for changes to users is cut, so no cached row counts as confirmed current
+ * and every request tries to read its row.
+ */
+function outage(t: ReturnType<typeof getT>, error: Error) {
+  vi.spyOn(t.ctx.userChanges!, 'listening', 'get').mockReturnValue(false);
+  return vi.spyOn(User, 'findByPk').mockRejectedValue(error);
+}
+
 afterEach(() => vi.restoreAllMocks());
 
 describe('authentication while the database is down', () => {
@@ -24,7 +34,7 @@ describe('authentication while the database is down', () => {
     const t = getT();
     const h = t.auth('operator');
     expect((await request(t.app).get('/api/analysis/spof').set(h)).status).toBe(200);
-    const spy = vi.spyOn(User, 'findByPk').mockRejectedValue(refused());
+    const spy = outage(t, refused());
     const spof = await request(t.app).get('/api/analysis/spof').set(h);
     expect(spof.status).toBe(200);
     const summary = await request(t.app).get('/api/network/summary').set(h);
@@ -35,7 +45,7 @@ describe('authentication while the database is down', () => {
 
   it('answers 503 database-unavailable with a reason for someone with no fresh row', async () => {
     const t = getT();
-    vi.spyOn(User, 'findByPk').mockRejectedValue(refused());
+    outage(t, refused());
     const r = await request(t.app).get('/api/analysis/spof').set(t.auth('viewer'));
     expect(r.status).toBe(503);
     expect(r.body.error.code).toBe('database-unavailable');
@@ -48,7 +58,7 @@ describe('authentication while the database is down', () => {
     expect((await request(t.app).get('/api/analysis/spof').set(h)).status).toBe(200);
     const now = Date.now();
     vi.spyOn(Date, 'now').mockReturnValue(now + 61_000);
-    vi.spyOn(User, 'findByPk').mockRejectedValue(refused());
+    outage(t, refused());
     const r = await request(t.app).get('/api/analysis/spof').set(h);
     expect(r.status).toBe(503);
     expect(r.body.error.code).toBe('database-unavailable');
@@ -58,7 +68,7 @@ describe('authentication while the database is down', () => {
     const t = getT();
     const h = t.auth('viewer');
     expect((await request(t.app).get('/api/analysis/spof').set(h)).status).toBe(200);
-    vi.spyOn(User, 'findByPk').mockRejectedValue(new Error('some bug'));
+    outage(t, new Error('some bug'));
     vi.spyOn(console, 'error').mockImplementation(() => undefined);
     expect((await request(t.app).get('/api/analysis/spof').set(h)).status).toBe(500);
   });

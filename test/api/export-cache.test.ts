@@ -2,6 +2,8 @@
  * The JSON export answered from the in-memory model is the same document
  * PostgreSQL holds, and a model that is behind the database is not used.
  */
+import http from 'node:http';
+import zlib from 'node:zlib';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { loadNetworkDocument } from '@/server/services/networkLoader';
@@ -9,6 +11,7 @@ import { smallNetwork } from '../fixtures/small-network';
 import { useTestApp } from '../helpers/testApp';
 
 const app = useTestApp({ network: smallNetwork });
+const getT = app;
 
 describe('JSON export', () => {
   it('equals the stored network, from memory when current and from PostgreSQL when the model is behind', async () => {
@@ -31,5 +34,45 @@ describe('JSON export', () => {
     const fresh = await request(t.app).get('/api/network/export').set(t.auth('viewer'));
     expect(Number(fresh.headers['x-network-version'])).toBe(version);
     expect(fresh.body.sites.find((s: { code: string }) => s.code === 'R1').name).toBe('Renamed behind the model');
+  });
+
+  it('sends the same bytes gzipped to a client that accepts gzip, and 304 for a matching ETag', async () => {
+    const t = getT();
+    const plain = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('Accept-Encoding', 'identity');
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    // raw bytes over a real socket: supertest would unzip them on the way
+    const server = t.app.listen(0, '127.0.0.1');
+    await new Promise((r) => server.once('listening', r));
+    const port = (server.address() as { port: number }).port;
+    const zipped = await new Promise<{ headers: http.IncomingHttpHeaders; raw: Buffer }>((resolve, reject) => {
+      http
+        .get({ host: '127.0.0.1', port, path: '/api/network/export', headers: { ...t.auth('viewer'), 'Accept-Encoding': 'gzip, deflate' } }, (res) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => resolve({ headers: res.headers, raw: Buffer.concat(chunks) }));
+        })
+        .on('error', reject);
+    });
+    server.close();
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(zipped.headers.vary).toMatch(/Accept-Encoding/);
+    expect(Number(zipped.headers['content-length'])).toBe(zipped.raw.length);
+    expect(zlib.gunzipSync(zipped.raw).toString()).toBe(plain.text);
+    const stored = await loadNetworkDocument(t.db.sequelize);
+    expect(JSON.parse(plain.text)).toEqual({ ...stored.document, baseVersion: stored.version });
+
+    const etag = plain.headers.etag;
+    expect(etag).toMatch(/^"v\d+-/);
+    const again = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('If-None-Match', etag);
+    expect(again.status).toBe(304);
+    // an edit makes a new version, and a new ETag
+    const current = await request(t.app).get('/api/sites/R1').set(t.auth('engineer'));
+    const edit = await request(t.app).patch('/api/sites/R1').set(t.auth('engineer')).send({ version: current.body.site.version, name: 'Renamed relay' });
+    expect(edit.status).toBe(200);
+    const changed = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('If-None-Match', etag);
+    expect(changed.status).toBe(200);
+    expect(changed.headers.etag).not.toBe(etag);
+    expect(changed.body.sites.find((s: { code: string }) => s.code === 'R1').name).toBe('Renamed relay');
   });
 });

@@ -84,6 +84,7 @@ export async function makeTestApp(opts: { build?: typeof buildServedNetwork; sto
       await notices.stop();
       ctx.objects?.close();
       await network.close();
+      await ctx.userChanges?.close();
       await db.close();
       await standins.close();
       fs.rmSync(dataDir, { recursive: true, force: true });

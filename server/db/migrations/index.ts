@@ -6,10 +6,12 @@ import * as initialSchema from './0001-initial-schema';
 import * as userSessions from './0002-user-sessions';
 import * as operations from './0004-operations';
 import * as noticesDocuments from './0005-notices-documents';
+import * as searchAndPeopleChanges from './0009-search-and-people-changes';
 
 export const migrations = [
   { name: '0001-initial-schema', ...initialSchema },
   { name: '0002-user-sessions', ...userSessions },
   { name: '0004-operations', ...operations },
   { name: '0005-notices-documents', ...noticesDocuments },
+  { name: '0009-search-and-people-changes', ...searchAndPeopleChanges },
 ];

@@ -1,5 +1,11 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Role } from '@/shared/api';
+import { userRowsChanged } from '@/server/auth/userRowCache';
+
+type HookOptions = { transaction?: { afterCommit(fn: () => void): void } | null };
+/** Every write to users through the model: this process's cached rows are forgotten at once (auth/userRowCache.ts). */
+const forgetOne = (user: User, options: HookOptions) => userRowsChanged(user.id ?? null, options.transaction);
+const forgetAll = (options: HookOptions) => userRowsChanged(null, options.transaction);
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -43,7 +49,21 @@ export function defineUser(sequelize: Sequelize) {
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
     },
-    { sequelize, tableName: 'users', modelName: 'User' },
+    {
+      sequelize,
+      tableName: 'users',
+      modelName: 'User',
+      hooks: {
+        afterCreate: forgetOne,
+        afterUpdate: forgetOne,
+        afterSave: forgetOne,
+        afterDestroy: forgetOne,
+        afterUpsert: (_created, options) => forgetAll(options),
+        afterBulkCreate: (_users, options) => forgetAll(options),
+        afterBulkUpdate: forgetAll,
+        afterBulkDestroy: forgetAll,
+      },
+    },
   );
   return User;
 }
