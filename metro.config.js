@@ -9,6 +9,6 @@ const path = require('path');
 const config = getDefaultConfig(__dirname);
 const escapeRegExp = (s) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 const own = (dir) => new RegExp('^' + escapeRegExp(path.join(__dirname, dir)) + '\\/.*');
-const serverExceptShared = new RegExp('^' + escapeRegExp(path.join(__dirname, 'server')) + '\\/(?!engine\\/|checks\\/).*');
+const serverExceptShared = new RegExp('^' + escapeRegExp(path.join(__dirname, 'server')) + '\\/(?!(?:engine|checks)(?:\\/|$)).*');
 config.resolver.blockList = [serverExceptShared, ...['scripts', 'test', '.data', 'artifacts', 'dist'].map(own)];
 module.exports = config;
