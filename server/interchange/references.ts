@@ -87,7 +87,7 @@ function checkFeed(view: NetworkView, sink: IssueSink, entry: Entry): void {
   const from = refAt(entry.raw, 'from');
   const to = refAt(entry.raw, 'to');
   const source = from === undefined ? undefined : resolve(view, sink, 'feeds', entry, 'from', 'carriages', from, 'source carriage');
-  const target = to === undefined ? undefined : resolve(view, sink, 'feeds', entry, 'to', 'carriages', to, 'target carriage');
+  const target = to === undefined ? undefined : resolve(view, sink, 'feeds', entry, 'to', 'carriages', to, 'receiving carriage');
   if (from !== undefined && from === to) {
     sink.error('feeds', entry.index, code, 'to', 'self-feed', `source and target are the same carriage ${from}; a feed joins two different carriages`);
   }
@@ -97,7 +97,7 @@ function checkFeed(view: NetworkView, sink: IssueSink, entry: Entry): void {
     // An unknown service is reported on its carriage; a mismatch with it would say nothing new.
     if (knownService(view, sourceService) && knownService(view, targetService) && sourceService !== targetService) {
       sink.error('feeds', entry.index, code, 'to', 'service-mismatch',
-        `source carriage ${from} carries service ${sourceService} but target carriage ${to} carries ${targetService}; both ends of a feed carry the same service`);
+        `source carriage ${from} carries service ${sourceService} but receiving carriage ${to} carries ${targetService}; both ends of a feed carry the same service`);
     }
   }
   const sourceSite = source ? refAt(source.raw, 'site') : undefined;

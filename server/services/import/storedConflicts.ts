@@ -32,7 +32,7 @@ export function checkKeptFeeds(stored: NetworkDocument, document: NetworkDocumen
     const keep = `feed ${feed.code} is stored and not in this document`;
     if (source.service !== target.service) {
       sink.error('carriages', at.index, culprit, 'service', 'service-mismatch',
-        `${keep}; after this import its source carriage ${feed.from} would carry ${source.service} and its target carriage ${feed.to} ${target.service}; put ${feed.code} in the document too, or keep the service`);
+        `${keep}; after this import its source carriage ${feed.from} would carry ${source.service} and its receiving carriage ${feed.to} ${target.service}; put ${feed.code} in the document too, or keep the service`);
     }
     const via = feed.via ?? [];
     const end = via.find((site) => site === source.site || site === target.site);

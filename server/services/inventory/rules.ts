@@ -86,11 +86,11 @@ export async function checkRules(tx: Tx, kind: EntityKind, entity: Fields, previ
     const source = ends.get(from);
     const target = ends.get(to);
     if (!source) refuse('from', 'unknown-reference', `source carriage ${from} does not exist`);
-    if (!target) refuse('to', 'unknown-reference', `target carriage ${to} does not exist`);
+    if (!target) refuse('to', 'unknown-reference', `receiving carriage ${to} does not exist`);
     if (from === to) refuse('to', 'self-feed', `source and target are the same carriage ${from}; a feed joins two different carriages`);
     if (source && target && from !== to && source.service !== target.service) {
       refuse('to', 'service-mismatch',
-        `source carriage ${from} carries service ${source.service} but target carriage ${to} carries ${target.service}; both ends of a feed carry the same service`);
+        `source carriage ${from} carries service ${source.service} but receiving carriage ${to} carries ${target.service}; both ends of a feed carry the same service`);
     }
     await checkList('via', 'sites', 'via-site');
     ((entity.via as string[] | undefined) ?? []).forEach((site, i) => {

@@ -8,6 +8,7 @@
  * The patterns are our own choice (common practice, no source).
  */
 import type { FeedRole, Medium } from '@/shared/schemas/network';
+import { FEED_ROLE_WORDS } from '@/shared/words';
 import { colors } from '@/src/theme/colors';
 
 export const MEDIUM_ORDER: readonly Medium[] = ['line', 'microwave', 'satellite', 'off-air'];
@@ -28,7 +29,7 @@ export const MEDIUM_LABEL: Record<Medium, string> = {
   'off-air': 'off-air',
 };
 
-export const ROLE_LABEL: Record<FeedRole, string> = { main: 'main', reserve: 'reserve' };
+export const ROLE_LABEL: Record<FeedRole, string> = FEED_ROLE_WORDS;
 
 export interface StrokeLayer {
   stroke: string;
@@ -51,7 +52,7 @@ export function feedStrokes(medium: Medium, role: FeedRole, scale = 1, backgroun
   return layers;
 }
 
-/** "off-air, reserve": the words that go with the pattern. */
+/** "off-air, reserve feed": the words that go with the pattern. */
 export function feedWords(medium: Medium, role: FeedRole): string {
   return `${MEDIUM_LABEL[medium]}, ${ROLE_LABEL[role]}`;
 }

@@ -68,8 +68,8 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
           { key: 'kind', label: 'Kind', width: 80, value: (r) => r.element.kind },
           { key: 'code', label: 'Element', mono: true, width: 150, value: (r) => r.element.code },
           { key: 'name', label: 'Name', width: 180, value: (r) => name(r.element) ?? '' },
-          { key: 'households', label: 'Households', unit: 'lost', numeric: true, width: 140, value: (r) => r.households, format: (v) => formatCount(v as number) },
-          { key: 'carriages', label: 'Carriages', unit: 'lost', numeric: true, width: 130, value: (r) => r.carriages, format: (v) => formatCount(v as number) },
+          { key: 'households', label: 'Households', unit: 'off air', numeric: true, width: 140, value: (r) => r.households, format: (v) => formatCount(v as number) },
+          { key: 'carriages', label: 'Carriages', unit: 'off air', numeric: true, width: 130, value: (r) => r.carriages, format: (v) => formatCount(v as number) },
         ]}
         />
       </ScrollView>

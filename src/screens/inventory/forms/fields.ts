@@ -4,6 +4,7 @@
  * how the typed text turns into the document's value.
  */
 import { FEED_ROLES, MEDIA, POLARISATIONS, SERVICE_KINDS, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
+import { FEED_ROLE_WORDS, SERVICE_KIND_WORDS, SITE_TYPE_WORDS } from '@/shared/words';
 
 export type FieldType =
   /** a code (monospaced text) */
@@ -44,7 +45,7 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
   sites: [
     code,
     name,
-    { name: 'role', label: 'Role', type: 'choice', options: SITE_ROLES, required: true },
+    { name: 'role', label: 'Site type', type: 'choice', options: SITE_ROLES, optionLabels: SITE_TYPE_WORDS, required: true },
     { name: 'lat', label: 'Latitude', type: 'number', unit: 'deg', required: true, hint: 'WGS84 degrees, -90 to 90 (south is negative).' },
     { name: 'lon', label: 'Longitude', type: 'number', unit: 'deg', required: true, hint: 'WGS84 degrees, -180 to 180 (west is negative).' },
     { name: 'groundHeightM', label: 'Ground height', type: 'number', unit: 'm', required: false, hint: 'Metres above sea level (optional).' },
@@ -52,7 +53,7 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
     { name: 'households', label: 'Households', type: 'int', required: false, hint: 'Households served (optional).' },
     groups,
   ],
-  services: [code, name, { name: 'kind', label: 'Kind', type: 'choice', options: SERVICE_KINDS, required: true }],
+  services: [code, name, { name: 'kind', label: 'Kind', type: 'choice', options: SERVICE_KINDS, optionLabels: SERVICE_KIND_WORDS, required: true }],
   groups: [code, name, { name: 'note', label: 'Note', type: 'text', required: false, hint: 'What fails together, and why (optional).' }],
   carriages: [
     code,
@@ -74,10 +75,10 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
   ],
   feeds: [
     code,
-    { name: 'from', label: 'Source carriage', type: 'code', required: true, hint: 'The parent carriage the programme comes from.' },
-    { name: 'to', label: 'Target carriage', type: 'code', required: true, hint: 'The carriage this feed brings programme into.' },
+    { name: 'from', label: 'Source carriage', type: 'code', required: true, hint: 'The carriage the programme comes from.' },
+    { name: 'to', label: 'Receiving carriage', type: 'code', required: true, hint: 'The carriage this feed brings programme into.' },
     { name: 'medium', label: 'Medium', type: 'choice', options: MEDIA, required: true },
-    { name: 'role', label: 'Feed role', type: 'choice', options: FEED_ROLES, required: true },
+    { name: 'role', label: 'Main or reserve', type: 'choice', options: FEED_ROLES, optionLabels: FEED_ROLE_WORDS, required: true },
     { name: 'via', label: 'Via sites', type: 'codes', required: false, hint: 'Site codes the path passes through, in order, separated by ";" (optional).' },
     groups,
     { name: 'rxFrequencyMHz', label: 'Receive frequency', type: 'number', unit: 'MHz', required: false, hint: 'MHz (optional).' },
