@@ -36,7 +36,7 @@ export function FeedLegend({ marks = [], testID }: { marks?: LegendMark[]; testI
       {ROLE_ORDER.map((r) => (
         <View key={r} style={styles.row}>
           <FeedSwatch medium="line" role={r} />
-          <Text style={styles.text}>{r === 'main' ? 'main feed (single line, dark)' : 'reserve feed (double line, accent colour)'}</Text>
+          <Text style={styles.text}>{r === 'main' ? 'main feed (single line, dark)' : 'reserve feed (double line, blue)'}</Text>
         </View>
       ))}
       {marks.length > 0 ? <Text style={styles.head}>Marks</Text> : null}

@@ -46,7 +46,7 @@ export function feedStrokes(medium: Medium, role: FeedRole, scale = 1, backgroun
     // Dots and dashes grow with the line so the pattern stays readable when thick.
     return pattern ? pattern.map((n) => +(n * Math.max(1, w / 2)).toFixed(2)).join(' ') : undefined;
   };
-  const ink = role === 'main' ? colors.ink : colors.accent;
+  const ink = role === 'main' ? colors.ink : colors.mark;
   const layers: StrokeLayer[] = [{ stroke: ink, width: outer, dash: dashOf(outer) }];
   if (role === 'reserve') layers.push({ stroke: background, width: outer / 3, dash: dashOf(outer) });
   return layers;
