@@ -7,6 +7,7 @@ import {
   fixed,
   formatBearing,
   formatBytes,
+  formatPercent,
   formatCompact,
   formatCount,
   formatDb,
@@ -201,9 +202,17 @@ describe('one spelling per unit', () => {
     expect(figure(-0.04, 1)).toBe('0.0');
   });
 
+  it('says a share as a percentage with two decimals and grouped thousands', () => {
+    expect(formatPercent(0.999531)).toBe('99.95 %');
+    expect(formatPercent(1)).toBe('100.00 %');
+    expect(formatPercent(12.5)).toBe('1,250.00 %');
+  });
+
   it('says file sizes in B, kB and MB', () => {
     expect(formatBytes(812)).toBe('812 B');
     expect(formatBytes(12_700)).toBe('12.4 kB');
     expect(formatBytes(3_250_000)).toBe('3.1 MB');
+    expect(formatBytes(64 * 1024 * 1024)).toBe('64 MB');
+    expect(formatBytes(2048)).toBe('2 kB');
   });
 });

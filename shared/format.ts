@@ -131,11 +131,18 @@ export const formatMHz = (mhz: number) => formatFigure(mhz, 'MHz');
 export const formatDb = (db: number) => formatFigure(db, 'dB');
 export const formatDegrees = (deg: number) => formatFigure(deg, 'deg');
 
-/** A file size: "812 B", "12.4 kB", "3.1 MB". */
+/** A share as a percentage with two decimals: 0.99953 -> "99.95 %". */
+export function formatPercent(fraction: number, places = 2): string {
+  return `${grouped(fraction * 100, places)} %`;
+}
+
+/** A file size: "812 B", "12.4 kB", "3.1 MB", "64 MB". */
 export function formatBytes(bytes: number): string {
-  if (bytes < 1024) return `${bytes} B`;
-  if (bytes < 1024 * 1024) return `${fixed(bytes / 1024, 1)} kB`;
-  return `${fixed(bytes / 1024 / 1024, 1)} MB`;
+  // One decimal, dropped when it is 0: "2 MB", a limit, reads as it was set.
+  const tenth = (v: number) => fixed(v, 1).replace(/\.0$/, '');
+  if (bytes < 1024) return `${formatCount(bytes)} B`;
+  if (bytes < 1024 * 1024) return `${tenth(bytes / 1024)} kB`;
+  return `${grouped(bytes / 1024 / 1024, 1).replace(/\.0$/, '')} MB`;
 }
 
 // ---- inventory figures: units always said, thousands grouped; positions with the hemisphere letter ----

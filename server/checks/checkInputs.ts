@@ -5,6 +5,7 @@
  */
 import type { Carriage, Feed, ServiceKind, Site } from '@/shared/schemas/network';
 import { BANDS_BY_KIND, frequencyToChannel, tryParseChannel, type ChannelInfo } from '@/shared/rf/bands';
+import { serviceKindWord } from '@/shared/words';
 
 export type Read<T> = { ok: true; value: T; how: string } | { ok: false; missing: string };
 
@@ -24,7 +25,7 @@ function channelAt(mhz: number, kind: ServiceKind): ChannelInfo | null {
 
 function fromLabel(label: string, kind: ServiceKind, where: string): Read<FrequencyRead> {
   const c = tryParseChannel(label, kind);
-  if (!c) return { ok: false, missing: `channel "${label}" on ${where} is not a known ${kind} channel` };
+  if (!c) return { ok: false, missing: `channel "${label}" on ${where} is not a known ${serviceKindWord(kind)} channel` };
   return { ok: true, value: { mhz: c.centreMHz, channel: c }, how: `channel ${c.label} on ${where}` };
 }
 
@@ -36,23 +37,23 @@ function fromLabel(label: string, kind: ServiceKind, where: string): Read<Freque
  */
 export function receiveFrequency(feed: Feed, source: Carriage, kind: ServiceKind): Read<FrequencyRead> {
   if (feed.rxFrequencyMHz !== undefined) {
-    return { ok: true, value: { mhz: feed.rxFrequencyMHz, channel: channelAt(feed.rxFrequencyMHz, kind) }, how: `rxFrequencyMHz on feed ${feed.code}` };
+    return { ok: true, value: { mhz: feed.rxFrequencyMHz, channel: channelAt(feed.rxFrequencyMHz, kind) }, how: `receive frequency of feed ${feed.code}` };
   }
   if (feed.rxChannel !== undefined) return fromLabel(feed.rxChannel, kind, `feed ${feed.code}`);
   if (source.frequencyMHz !== undefined) {
-    return { ok: true, value: { mhz: source.frequencyMHz, channel: channelAt(source.frequencyMHz, kind) }, how: `frequencyMHz on parent carriage ${source.code}` };
+    return { ok: true, value: { mhz: source.frequencyMHz, channel: channelAt(source.frequencyMHz, kind) }, how: `frequency of source carriage ${source.code}` };
   }
-  if (source.channel !== undefined) return fromLabel(source.channel, kind, `parent carriage ${source.code}`);
-  return { ok: false, missing: `receive frequency missing (rxFrequencyMHz and rxChannel on feed ${feed.code}, frequencyMHz and channel on carriage ${source.code})` };
+  if (source.channel !== undefined) return fromLabel(source.channel, kind, `source carriage ${source.code}`);
+  return { ok: false, missing: `receive frequency missing (receive frequency and receive channel of feed ${feed.code}, frequency and channel of carriage ${source.code})` };
 }
 
 /** Transmit frequency of a carriage: frequencyMHz, else its channel's frequency. */
 export function transmitFrequency(carriage: Carriage, kind: ServiceKind): Read<FrequencyRead> {
   if (carriage.frequencyMHz !== undefined) {
-    return { ok: true, value: { mhz: carriage.frequencyMHz, channel: channelAt(carriage.frequencyMHz, kind) }, how: `frequencyMHz on carriage ${carriage.code}` };
+    return { ok: true, value: { mhz: carriage.frequencyMHz, channel: channelAt(carriage.frequencyMHz, kind) }, how: `frequency of carriage ${carriage.code}` };
   }
   if (carriage.channel !== undefined) return fromLabel(carriage.channel, kind, `carriage ${carriage.code}`);
-  return { ok: false, missing: `transmit frequency missing (frequencyMHz and channel on carriage ${carriage.code})` };
+  return { ok: false, missing: `transmit frequency missing (frequency and channel of carriage ${carriage.code})` };
 }
 
 /**
@@ -62,9 +63,9 @@ export function transmitFrequency(carriage: Carriage, kind: ServiceKind): Read<F
  */
 export function antennaHeightAsl(site: Site, carriage: Carriage): Read<number> {
   const missing: string[] = [];
-  if (site.groundHeightM === undefined) missing.push(`groundHeightM missing on site ${site.code}`);
+  if (site.groundHeightM === undefined) missing.push(`ground height missing on site ${site.code}`);
   const above = carriage.antennaHeightM ?? site.mastHeightM;
-  if (above === undefined) missing.push(`antennaHeightM missing on carriage ${carriage.code} and mastHeightM missing on site ${site.code}`);
+  if (above === undefined) missing.push(`antenna height missing on carriage ${carriage.code} and mast height missing on site ${site.code}`);
   if (missing.length > 0 || site.groundHeightM === undefined || above === undefined) return { ok: false, missing: missing.join('; ') };
   const which = carriage.antennaHeightM !== undefined ? `antenna ${above} m (carriage ${carriage.code})` : `mast ${above} m (site ${site.code})`;
   return { ok: true, value: site.groundHeightM + above, how: `ground ${site.groundHeightM} m + ${which}` };

@@ -41,7 +41,7 @@ describe('free-space-loss', () => {
     const c = get(run({ source: { frequencyMHz: undefined } }), 'free-space-loss');
     expect(c.value).toBeNull();
     expect(c.ok).toBeNull();
-    expect(c.note).toMatch(/^not computed: receive frequency missing \(rxFrequencyMHz and rxChannel on feed F-OX, frequencyMHz and channel on carriage GF-1\)/);
+    expect(c.note).toMatch(/^not computed: receive frequency missing \(receive frequency and receive channel of feed F-OX, frequency and channel of carriage GF-1\)/);
   });
 });
 
@@ -55,12 +55,12 @@ describe('receive frequency order (docs/checks.md)', () => {
   });
   it('an unknown receive channel is not computed, named in the note and in a warning', () => {
     const a = run({ kind: 'dtt', feed: { rxChannel: 'X9' } });
-    expect(get(a, 'free-space-loss').note).toMatch(/not computed: channel "X9" on feed F-OX is not a known dtt channel/);
-    expect(a.warnings.filter((w) => w.includes('"X9"'))).toEqual(['Feed F-OX: channel "X9" on feed F-OX is not a known dtt channel.']);
+    expect(get(a, 'free-space-loss').note).toMatch(/not computed: channel "X9" on feed F-OX is not a known DVB-T multiplex channel/);
+    expect(a.warnings.filter((w) => w.includes('"X9"'))).toEqual(['Feed F-OX: channel "X9" on feed F-OX is not a known DVB-T multiplex channel.']);
   });
   it('an unknown transmit channel on the relay is named in a warning too', () => {
     const a = run({ kind: 'dtt', source: { frequencyMHz: 618 }, target: { frequencyMHz: undefined, channel: '99' } });
-    expect(a.warnings).toEqual(['Feed F-OX: channel "99" on carriage OX-1 is not a known dtt channel.']);
+    expect(a.warnings).toEqual(['Feed F-OX: channel "99" on carriage OX-1 is not a known DVB-T multiplex channel.']);
   });
 });
 
@@ -91,7 +91,7 @@ describe('field-strength (off-air)', () => {
   it('not computed without erpW, naming the carriage; never 0', () => {
     const a = run({ source: { erpW: undefined } });
     const c = get(a, 'field-strength');
-    expect(c).toMatchObject({ value: null, ok: null, note: 'not computed: erpW missing on carriage GF-1' });
+    expect(c).toMatchObject({ value: null, ok: null, note: 'not computed: ERP missing on carriage GF-1' });
     expect(a.warnings).toEqual([]);
   });
   it('AM: value computed, no limit, ok null with the reason', () => {
@@ -130,7 +130,7 @@ describe('horizon (k = 4/3, smooth earth, heights above sea level)', () => {
     const c = get(run({ targetSite: { groundHeightM: undefined, mastHeightM: undefined } }), 'horizon');
     expect(c.value).toBeNull();
     expect(c.ok).toBeNull();
-    expect(c.note).toBe('not computed: groundHeightM missing on site OUSEL-X; antennaHeightM missing on carriage OX-1 and mastHeightM missing on site OUSEL-X');
+    expect(c.note).toBe('not computed: ground height missing on site OUSEL-X; antenna height missing on carriage OX-1 and mast height missing on site OUSEL-X');
   });
 });
 
@@ -161,7 +161,7 @@ describe('channel-clash', () => {
   it('not computed without the relay transmit frequency, naming the fields', () => {
     const c = get(run({ target: { frequencyMHz: undefined } }), 'channel-clash');
     expect(c).toMatchObject({ value: null, ok: null });
-    expect(c.note).toBe('not computed: transmit frequency missing (frequencyMHz and channel on carriage OX-1)');
+    expect(c.note).toBe('not computed: transmit frequency missing (frequency and channel of carriage OX-1)');
   });
 });
 
@@ -185,6 +185,6 @@ describe('bearing-record', () => {
     expect(get(a, 'bearing-record').ok).toBe(true);
   });
   it('not computed without a recorded bearing, naming the field', () => {
-    expect(get(run(), 'bearing-record')).toMatchObject({ value: null, ok: null, note: 'not computed: bearingDeg missing on feed F-OX' });
+    expect(get(run(), 'bearing-record')).toMatchObject({ value: null, ok: null, note: 'not computed: recorded bearing missing on feed F-OX' });
   });
 });

@@ -7,6 +7,7 @@ import type { Carriage, Feed, ServiceKind, Site } from '@/shared/schemas/network
 import { CONFIDENCE_WORDS, type CheckName, type Confidence, type FeedCheck, type FeedChecksAnswer } from '@/shared/schemas/checks';
 import { bearingDifferenceDeg, geodesicInverse, normaliseDeg } from '@/shared/rf/geodesy';
 import { wattsToDbw } from '@/shared/rf/units';
+import { erpText } from '@/shared/format';
 import { earthBulgeM, fieldStrengthFromErpDbw, freeSpaceLossDb, fresnelRadiusM, midPathClearance, pathHorizonKm } from '@/shared/rf/propagation';
 import { offAirFeedMinimum } from '@/shared/rf/minimums';
 import { antennaHeightAsl, notComputed, receiveFrequency, transmitFrequency, type FrequencyRead, type Read } from './checkInputs';
@@ -66,10 +67,10 @@ function fieldStrength(ctx: Ctx): FeedCheck {
   const { source, serviceKind } = ctx.input;
   const unit = 'dBuV/m';
   if (ctx.samePosition) return missing('field-strength', unit, samePositionNote);
-  if (source.erpW === undefined) return missing('field-strength', unit, `not computed: erpW missing on carriage ${source.code}`);
-  if (source.erpW === 0) return check('field-strength', unit, null, false, `erpW is 0 on carriage ${source.code}: the parent radiates nothing to receive`);
+  if (source.erpW === undefined) return missing('field-strength', unit, `not computed: ERP missing on carriage ${source.code}`);
+  if (source.erpW === 0) return check('field-strength', unit, null, false, `ERP is 0 W on carriage ${source.code}: the source radiates nothing to receive`);
   const value = round(fieldStrengthFromErpDbw(wattsToDbw(source.erpW), ctx.distanceKm), 2);
-  const basis = `free space from ${source.erpW} W e.r.p. (carriage ${source.code}) at ${fmt(ctx.distanceKm, 3)} km, ITU-R P.1546 Annex 5 eq. (2)`;
+  const basis = `free space from ${erpText(source.erpW)} ERP (carriage ${source.code}) at ${fmt(ctx.distanceKm, 3)} km, ITU-R P.1546 Annex 5 eq. (2)`;
   const min = offAirFeedMinimum(serviceKind, ctx.rx.ok ? ctx.rx.value.mhz : null);
   if (!min.ok) return check('field-strength', unit, value, null, `${basis}; no limit compared: ${min.reason}`, null);
   const limit = round(min.minimum.valueDbUvPerM, 2);
@@ -83,7 +84,7 @@ function horizon(ctx: Ctx, h1: Read<number>, h2: Read<number>): FeedCheck {
   if (gone || !h1.ok || !h2.ok) return check('horizon', 'km', null, null, gone ?? '', null);
   const limit = round(pathHorizonKm(h1.value, h2.value), 3);
   const value = round(ctx.distanceKm, 3);
-  return check('horizon', 'km', value, value <= limit, `radio horizon k = 4/3 over a smooth earth from parent ${h1.value} m (${h1.how}) and receiver ${h2.value} m (${h2.how}) above sea level: an optimistic bound`, limit);
+  return check('horizon', 'km', value, value <= limit, `radio horizon k = 4/3 over a smooth earth from the source site ${h1.value} m (${h1.how}) and receiver ${h2.value} m (${h2.how}) above sea level: an optimistic bound`, limit);
 }
 
 function earthBulge(ctx: Ctx): FeedCheck {
@@ -141,14 +142,14 @@ function channelClash(ctx: Ctx): FeedCheck {
 function bearingRecord(ctx: Ctx): FeedCheck {
   const { feed } = ctx.input;
   if (ctx.samePosition) return missing('bearing-record', 'deg', samePositionNote);
-  if (feed.bearingDeg === undefined) return missing('bearing-record', 'deg', `not computed: bearingDeg missing on feed ${feed.code}`);
+  if (feed.bearingDeg === undefined) return missing('bearing-record', 'deg', `not computed: recorded bearing missing on feed ${feed.code}`);
   const diff = round(bearingDifferenceDeg(feed.bearingDeg, ctx.bearingDeg), 2);
   return check(
     'bearing-record',
     'deg',
     diff,
     diff <= BEARING_TOLERANCE_DEG,
-    `recorded ${fmt(feed.bearingDeg)}°, computed ${fmt(ctx.bearingDeg)}° from the receiving site to the parent (WGS84)`,
+    `recorded ${fmt(feed.bearingDeg)}°, computed ${fmt(ctx.bearingDeg)}° from the receiving site to the source site (WGS84)`,
     BEARING_TOLERANCE_DEG,
   );
 }
@@ -156,7 +157,7 @@ function bearingRecord(ctx: Ctx): FeedCheck {
 function validate(input: FeedCheckInput): void {
   const { feed, source, target, sourceSite, targetSite } = input;
   if (feed.from !== source.code) throw new Error(`feed ${feed.code}: source carriage is ${feed.from}, but carriage ${source.code} was given`);
-  if (feed.to !== target.code) throw new Error(`feed ${feed.code}: target carriage is ${feed.to}, but carriage ${target.code} was given`);
+  if (feed.to !== target.code) throw new Error(`feed ${feed.code}: receiving carriage is ${feed.to}, but carriage ${target.code} was given`);
   if (source.site !== sourceSite.code) throw new Error(`carriage ${source.code} is at site ${source.site}, but site ${sourceSite.code} was given`);
   if (target.site !== targetSite.code) throw new Error(`carriage ${target.code} is at site ${target.site}, but site ${targetSite.code} was given`);
 }
@@ -209,7 +210,7 @@ export function computeFeedChecks(input: FeedCheckInput): FeedChecksAnswer {
 
   const warnings = checks.filter((c) => c.ok === false).map((c) => failureSentence(feed.code, c));
   // An unreadable channel label is a data error, not just a missing value: say so once.
-  const badLabels = new Set(checks.flatMap((c) => c.note.match(/channel "[^"]*" on [^;]*? is not a known \w+ channel/g) ?? []));
+  const badLabels = new Set(checks.flatMap((c) => c.note.match(/channel "[^"]*" on [^;]*? is not a known [\w -]+? channel/g) ?? []));
   for (const label of badLabels) warnings.push(`Feed ${feed.code}: ${label}.`);
 
   return {

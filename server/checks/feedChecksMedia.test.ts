@@ -36,7 +36,7 @@ describe('microwave feeds', () => {
 
   it('clearance not computed without a mast or antenna height, naming the field', () => {
     const c = get(microwave({ sourceSite: { mastHeightM: undefined } }), 'clearance');
-    expect(c).toMatchObject({ value: null, ok: null, note: 'not computed: antennaHeightM missing on carriage GF-1 and mastHeightM missing on site GREYFELL' });
+    expect(c).toMatchObject({ value: null, ok: null, note: 'not computed: antenna height missing on carriage GF-1 and mast height missing on site GREYFELL' });
   });
 
   it('field strength and channel clash do not apply; horizon and bearing do', () => {

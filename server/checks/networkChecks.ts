@@ -90,7 +90,7 @@ export function feedCheckInput(index: NetworkIndex, feed: Feed): FeedCheckInput 
   const source = index.carriages.get(feed.from);
   if (!source) throw new CheckInputError(`feed ${feed.code}: source carriage ${feed.from} does not exist`, feed.from);
   const target = index.carriages.get(feed.to);
-  if (!target) throw new CheckInputError(`feed ${feed.code}: target carriage ${feed.to} does not exist`, feed.to);
+  if (!target) throw new CheckInputError(`feed ${feed.code}: receiving carriage ${feed.to} does not exist`, feed.to);
   const sourceSite = index.sites.get(source.site);
   if (!sourceSite) throw new CheckInputError(`carriage ${source.code}: site ${source.site} does not exist`, source.site);
   const targetSite = index.sites.get(target.site);

@@ -15,7 +15,7 @@ export function failureSentence(feed: string, c: FeedCheck): string {
     case 'channel-clash':
       return `Feed ${feed}: the relay receives and transmits on overlapping channels (${n(c.value, 3)} MHz apart) and is not declared an on-channel repeater.`;
     case 'bearing-record':
-      return `Feed ${feed}: the recorded receive bearing is ${n(c.value)}° off the computed bearing to the parent (more than ${n(c.limit, 0)}°); check the record or the antenna.`;
+      return `Feed ${feed}: the recorded receive bearing is ${n(c.value)}° off the computed bearing to the source site (more than ${n(c.limit, 0)}°); check the record or the antenna.`;
     default:
       return `Feed ${feed}: check ${c.name} failed: ${c.note}.`;
   }

@@ -9,7 +9,7 @@
  * on the feed's path:
  *
  *   root -> origin carriage
- *   source carriage -> hop(feed, via-site)... -> hop(feed, group)... -> feed -> target carriage
+ *   source carriage -> hop(feed, via-site)... -> hop(feed, group)... -> feed -> receiving carriage
  *
  * Rules 1-3 are then reachability from the root once every node owned by a
  * failed element is removed. Owners of a node: a carriage node belongs to its

@@ -203,7 +203,7 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     const from = carriages.index.get(normaliseCode(f.from));
     const to = carriages.index.get(normaliseCode(f.to));
     if (from === undefined) throw missing('feed', feeds.codes, i, 'source carriage', f.from);
-    if (to === undefined) throw missing('feed', feeds.codes, i, 'target carriage', f.to);
+    if (to === undefined) throw missing('feed', feeds.codes, i, 'receiving carriage', f.to);
     if (carriageService[from] !== carriageService[to]) {
       throw new NetworkModelError(`feed ${feeds.codes[i]}: carriages ${carriages.codes[from]} and ${carriages.codes[to]} carry different services`);
     }

@@ -27,7 +27,7 @@ export interface GreedyPlan {
   sandbox: NetworkEngine;
 }
 
-/** A feed code not used yet: the target carriage's code with a reserve number. */
+/** A feed code not used yet: the receiving carriage's code with a reserve number. */
 function freshCode(taken: Set<string>, carriage: string): string {
   for (let n = 1; ; n++) {
     const code = `${carriage.slice(0, 56)}-RSV${n}`;

@@ -27,7 +27,7 @@ export const REFERENCE_LABEL = {
   site: 'site',
   service: 'service',
   from: 'source carriage',
-  to: 'target carriage',
+  to: 'receiving carriage',
   via: 'via-site',
   groups: 'group',
 } as const;
@@ -47,15 +47,15 @@ export function feedRules(feed: { from?: string; to?: string; via?: readonly unk
   const out: CrossIssue[] = [];
   const { from, to } = feed;
   if (from !== undefined && from === to) {
-    out.push({ field: 'to', rule: 'self-feed', detail: `source and target are the same carriage ${from}; a feed joins two different carriages` });
+    out.push({ field: 'to', rule: 'self-feed', detail: `source and receiving carriage are the same carriage ${from}; a feed joins two different carriages` });
   }
   if (source && target && from !== to && source.service !== undefined && target.service !== undefined && source.service !== target.service) {
     out.push({ field: 'to', rule: 'service-mismatch',
-      detail: `source carriage ${from} carries service ${source.service} but target carriage ${to} carries ${target.service}; both ends of a feed carry the same service` });
+      detail: `source carriage ${from} carries service ${source.service} but receiving carriage ${to} carries ${target.service}; both ends of a feed carry the same service` });
   }
   (feed.via ?? []).forEach((site, i) => {
     if (typeof site !== 'string') return;
-    const end = site === source?.site ? `the source site (of carriage ${from})` : site === target?.site ? `the target site (of carriage ${to})` : undefined;
+    const end = site === source?.site ? `the source site (of carriage ${from})` : site === target?.site ? `the receiving site (of carriage ${to})` : undefined;
     if (end) out.push({ field: `via[${i}]`, rule: 'via-endpoint', detail: `via-site ${site} is ${end}; a via-site is a hop between the two ends` });
   });
   return out;

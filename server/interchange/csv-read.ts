@@ -4,9 +4,9 @@
  * CsvKindReader, which keeps only the entities built so far. The same reader
  * serves the in-memory path (csv.ts readCsvFiles), so both read alike.
  *
- * A row number is the record's position among the file's data records
- * (1-based, header excluded), counting malformed records too; blank lines
- * are not records.
+ * A row number is the one a spreadsheet shows: the header is row 1, the
+ * first data record row 2, malformed records counted too; blank lines are
+ * not records.
  */
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
@@ -17,6 +17,7 @@ import type { EntityKind } from '@/shared/schemas/network';
 import { CSV_COLUMNS, REQUIRED_COLUMNS, cellValue, type ColumnType } from './csv-columns';
 import { DEFAULT_DIALECT, detectDialect, notUtf8Message, NotUtf8Error, Utf8Check, type CsvDialect } from './csv-dialect';
 import { UPLOAD_LIMITS, type UploadBudget } from './limits';
+import { formatCount } from '@/shared/format';
 
 export interface KindRead {
   entities: Record<string, unknown>[];
@@ -73,7 +74,8 @@ export class CsvKindReader {
       if (value !== undefined) entity[column.name] = value;
     }
     this.out.entities.push(entity);
-    this.out.rows.push(position);
+    // The header is the spreadsheet's row 1, so record n (1-based after it) is row n + 1.
+    this.out.rows.push(position + 1);
   }
 
   /**
@@ -83,12 +85,13 @@ export class CsvKindReader {
    * kilobytes.
    */
   skip(err: Error | undefined): void {
-    const row = this.position++;
-    if (row === 0) this.headerBroken = true;
+    const position = this.position++;
+    const row = position + 1;
+    if (position === 0) this.headerBroken = true;
     if ((err as { code?: string } | undefined)?.code === 'CSV_MAX_RECORD_SIZE') {
       this.issues.push({
         kind: this.kind, file: this.file, row, rule: 'csv-syntax',
-        message: `${this.file} row ${row} is longer than any row of a network can be (the limit is ${this.maxRecordChars.toLocaleString('en')} characters); the file was not read further`,
+        message: `${this.file} row ${row} is longer than any row of a network can be (the limit is ${formatCount(this.maxRecordChars)} characters); the file was not read further`,
       });
       this.stopped = true;
       throw new StopReading();

@@ -48,7 +48,7 @@ describe('CSV columns', () => {
 });
 
 describe('reading CSV files', () => {
-  it('reads rows into entities, keeping each row number, coercing numbers, booleans and lists', () => {
+  it('reads rows into entities, keeping each row number as a spreadsheet shows it (header = row 1), coercing numbers, booleans and lists', () => {
     const read = readCsvFiles([
       { name: 'sites.csv', text: '\uFEFFcode,name,role,lat,lon,groups\nS1,"Hill, North",origin,-38.5,-29.25,G1;G2\n\nS2,Low,relay,1,2,\n' },
       { name: 'carriages.csv', text: 'code,site,service,onChannelRepeater,erpW,channel\nC1,S2,TV,true,150,021\n' },
@@ -59,14 +59,14 @@ describe('reading CSV files', () => {
       { code: 'S2', name: 'Low', role: 'relay', lat: 1, lon: 2 },
     ]);
     expect(read.raw.carriages).toEqual([{ code: 'C1', site: 'S2', service: 'TV', onChannelRepeater: true, erpW: 150, channel: '021' }]);
-    expect(read.rowsOf.sites).toEqual({ file: 'sites.csv', rows: [1, 2] });
+    expect(read.rowsOf.sites).toEqual({ file: 'sites.csv', rows: [2, 3] });
   });
 
   it('reports a non-number in a number column with its file, row and field, never NaN', () => {
     const result = validateCsvFiles([{ name: 'sites.csv', text: 'code,name,role,lat,lon\nS1,A,origin,0,0\nS2,B,relay,north,0\n' }]);
     expect(result.document).toBeNull();
     expect(result.errors).toEqual([
-      { kind: 'sites', file: 'sites.csv', row: 2, code: 'S2', field: 'lat', rule: 'wrong-type', message: 'site S2: lat must be a number (got "north")' },
+      { kind: 'sites', file: 'sites.csv', row: 3, code: 'S2', field: 'lat', rule: 'wrong-type', message: 'site S2: lat must be a number (got "north")' },
     ]);
   });
 
@@ -89,17 +89,17 @@ describe('reading CSV files', () => {
   it('reports every malformed row with its row number, and keeps the rows after it', () => {
     const read = readCsvFiles([{ name: 'groups.csv', text: 'code,name\nG1,One\nG2\nG3,Three\nG4,"Four\n' }]);
     expect(read.errors.map((e) => [e.rule, e.row])).toEqual([
-      ['csv-syntax', 2],
-      ['csv-syntax', 4],
+      ['csv-syntax', 3],
+      ['csv-syntax', 5],
     ]);
     expect(read.raw.groups).toEqual([{ code: 'G1', name: 'One' }, { code: 'G3', name: 'Three' }]);
-    expect(read.rowsOf.groups?.rows).toEqual([1, 3]);
+    expect(read.rowsOf.groups?.rows).toEqual([2, 4]);
   });
 
   it('keeps row numbers right after several malformed rows in a row', () => {
     const read = readCsvFiles([{ name: 'groups.csv', text: 'code,name\nG1,One\nbad\nG3,Three\nbad\nbad\nG6,Six\n"open\n' }]);
-    expect(read.errors.map((e) => e.row)).toEqual([2, 4, 5, 7]);
-    expect(read.rowsOf.groups?.rows).toEqual([1, 3, 6]);
+    expect(read.errors.map((e) => e.row)).toEqual([3, 5, 6, 8]);
+    expect(read.rowsOf.groups?.rows).toEqual([2, 4, 7]);
     expect(read.raw.groups?.map((g) => g.code)).toEqual(['G1', 'G3', 'G6']);
   });
 
@@ -201,7 +201,7 @@ describe('uploads', () => {
     expect(result.errors.map((e) => [e.rule, e.file, e.row, e.field])).toEqual([
       ['unknown-column', 'sites.csv', undefined, 'height'],
       ['unknown-file', 'readme.txt', undefined, undefined],
-      ['out-of-range', 'sites.csv', 2, 'lon'],
+      ['out-of-range', 'sites.csv', 3, 'lon'],
     ]);
   });
 });

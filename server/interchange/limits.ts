@@ -4,6 +4,7 @@
  * they are read (inflated bytes for a zip), across every file of the
  * request, and reading stops the moment a limit is passed.
  */
+import { formatBytes, formatCount } from '@/shared/format';
 
 export interface UploadLimits {
   /** bytes of CSV or JSON after unzipping, all files of one request together */
@@ -27,7 +28,7 @@ export const UPLOAD_LIMITS: UploadLimits = {
 /** An upload over a limit: the route answers 413 with this message. */
 export class UploadLimitError extends Error {}
 
-const mb = (bytes: number) => `${(bytes / (1024 * 1024)).toLocaleString('en', { maximumFractionDigits: 1 })} MB`;
+const mb = formatBytes;
 
 /** The bytes and records read so far by one request. */
 export class UploadBudget {
@@ -49,7 +50,7 @@ export class UploadBudget {
 
   addRecord(): void {
     if (++this.records > this.limits.maxRecords) {
-      throw new UploadLimitError(`the upload holds more than ${this.limits.maxRecords.toLocaleString('en')} rows, the limit for one import`);
+      throw new UploadLimitError(`the upload holds more than ${formatCount(this.limits.maxRecords)} rows, the limit for one import`);
     }
   }
 }

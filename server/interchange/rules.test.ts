@@ -105,7 +105,7 @@ const cases: RuleCase[] = [
   {
     rule: 'service-mismatch',
     fail: (d) => (feed(d, 'M1.FM1.M').from = 'O1.TV1'),
-    expect: { kind: 'feeds', index: 2, field: 'to', message: 'feed M1.FM1.M: source carriage O1.TV1 carries service TV1 but target carriage M1.FM1 carries FM1; both ends of a feed carry the same service' },
+    expect: { kind: 'feeds', index: 2, field: 'to', message: 'feed M1.FM1.M: source carriage O1.TV1 carries service TV1 but receiving carriage M1.FM1 carries FM1; both ends of a feed carry the same service' },
     pass: (d) => (feed(d, 'M1.FM1.M').from = 'O1.FM1'),
   },
   {

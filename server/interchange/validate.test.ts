@@ -96,7 +96,7 @@ describe('validateDocument: a document with many planted errors reports every on
     { kind: 'carriages', index: 1, code: 'C2', field: 'erpW', rule: 'wrong-type', message: 'carriage C2: erpW must be a number (got "lots")' },
     { kind: 'carriages', index: 2, code: 'C3', field: 'site', rule: 'unknown-reference', message: 'carriage C3: site S9 does not exist' },
     { kind: 'carriages', index: 3, code: 'C4', field: 'service', rule: 'duplicate-carriage', message: 'carriage C4: site S2 already has carriage C2 for service FM; a site radiates each service once' },
-    { kind: 'feeds', index: 0, code: 'F1', field: 'to', rule: 'service-mismatch', message: 'feed F1: source carriage C1 carries service TV but target carriage C2 carries FM; both ends of a feed carry the same service' },
+    { kind: 'feeds', index: 0, code: 'F1', field: 'to', rule: 'service-mismatch', message: 'feed F1: source carriage C1 carries service TV but receiving carriage C2 carries FM; both ends of a feed carry the same service' },
     { kind: 'feeds', index: 1, code: 'F2', field: 'medium', rule: 'unknown-enum', message: 'feed F2: medium is one of off-air, satellite, line, microwave (got "radio")' },
     { kind: 'feeds', index: 1, code: 'F2', field: 'from', rule: 'unknown-reference', message: 'feed F2: source carriage C99 does not exist' },
     { kind: 'feeds', index: 2, code: 'F3', field: 'to', rule: 'self-feed', message: 'feed F3: source and target are the same carriage C2; a feed joins two different carriages' },

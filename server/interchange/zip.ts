@@ -10,6 +10,7 @@ import type { Readable } from 'node:stream';
 import yauzl from 'yauzl';
 import { clip } from '@/shared/clip';
 import type { UploadBudget } from './limits';
+import { formatCount } from '@/shared/format';
 
 export interface ZipEntryInfo {
   name: string;
@@ -41,7 +42,7 @@ export async function zipEntries(data: Uint8Array, budget: UploadBudget): Promis
   }
   if (zip.entryCount > budget.limits.maxZipEntries) {
     zip.close();
-    throw new BadZipError(`the zip holds ${zip.entryCount.toLocaleString('en')} entries; a network has five files`);
+    throw new BadZipError(`the zip holds ${formatCount(zip.entryCount)} entries; a network has five files`);
   }
   const raw: yauzl.Entry[] = [];
   try {

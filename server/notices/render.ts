@@ -7,6 +7,7 @@
  */
 import type { OperationsEvent, OperationsEventKind } from '../operations/events';
 import type { ResolvedReach } from './reach';
+import { formatCount } from '@/shared/format';
 
 export interface RenderedMail {
   subject: string;
@@ -24,7 +25,7 @@ const HEADLINE: Record<OperationsEventKind, string> = {
   'work-clash': 'Planned work clash',
 };
 
-const n = (v: number) => v.toLocaleString('en-GB');
+const n = formatCount;
 const plural = (v: number, word: string) => `${n(v)} ${word}${v === 1 ? '' : 's'}`;
 
 /** 2026-12-04 15:48 UTC */

@@ -12,7 +12,7 @@ import { Incident, IncidentStep } from '../db/models/operations';
 import { ApiError, badRequest, notFound } from '../http/errors';
 import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
-import { countOf } from '@/shared/format';
+import { countOf, formatCount } from '@/shared/format';
 import type { OperationsEvent } from './events';
 import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
 import { clashesWith } from './clashes';
@@ -253,7 +253,7 @@ export async function addIncidentUpdate(ctx: AppContext, actor: OpsActor, code: 
     await i.save({ transaction: t });
     await audit(ctx, t, actor, m.networkVersion, { action: 'update', entityKind: 'incidents', entityCode: code, before, after: shown(i) });
     if (closing) {
-      await ctx.events?.emit(t, event(i, 'incident-closed', `incident-closed:${i.code}`, reach, networkVersion, `${i.code} "${i.title}" closed; ${Number(i.householdMinutes).toLocaleString('en')} household-minutes off air`));
+      await ctx.events?.emit(t, event(i, 'incident-closed', `incident-closed:${i.code}`, reach, networkVersion, `${i.code} "${i.title}" closed; ${formatCount(Number(i.householdMinutes))} household-minutes off air`));
     } else if (changed) {
       await ctx.events?.emit(t, event(i, 'incident-updated', `incident-updated:${i.code}:${step.idx}`, reach, networkVersion, `${i.code} "${i.title}" updated: ${countOf(reach.lost.length, 'carriage')} off air`));
     }

@@ -100,7 +100,7 @@ describe('channel labels', () => {
   });
   it('an unknown label is an error naming the label', () => {
     expect(() => parseChannel('X9')).toThrow(/"X9" is not a known channel/);
-    expect(() => parseChannel('14E', 'dab')).toThrow(/"14E".*dab/);
+    expect(() => parseChannel('14E', 'dab')).toThrow(/"14E".*DAB ensemble/);
     expect(tryParseChannel('70')).toBeNull();
   });
   it('channelsAt lists every band holding a frequency (Band III TV 5 and DAB 5A overlap)', () => {

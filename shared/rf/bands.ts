@@ -9,6 +9,7 @@
  */
 import type { ServiceKind } from '../schemas/network';
 import { DAB_BLOCKS, DAB_BLOCK_WIDTH_MHZ } from './dabBlocks';
+import { serviceKindWord } from '../words';
 
 export type Band = 'vhf-tv' | 'uhf-tv' | 'dab' | 'fm';
 export const BANDS: readonly Band[] = ['vhf-tv', 'uhf-tv', 'dab', 'fm'];
@@ -110,7 +111,7 @@ export function tryParseChannel(label: string, kind?: ServiceKind): ChannelInfo 
 export function parseChannel(label: string, kind?: ServiceKind): ChannelInfo {
   const found = tryParseChannel(label, kind);
   if (!found) {
-    const where = kind ? ` for a ${kind} service` : '';
+    const where = kind ? ` for a ${serviceKindWord(kind)} service` : '';
     throw new RangeError(`"${label}" is not a known channel${where} (UHF 21-69, VHF 5-12, DAB 5A-13F, FM 87.5-108 MHz)`);
   }
   return found;

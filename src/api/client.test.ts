@@ -34,17 +34,17 @@ describe('request', () => {
   });
 
   it('turns the server error body into an ApiError with status, code, message and details', async () => {
-    vi.stubGlobal('fetch', answer(401, '{"error":{"code":"bad_credentials","message":"no","details":{"n":1}}}'));
+    vi.stubGlobal('fetch', answer(401, '{"error":{"code":"bad-credentials","message":"no","details":{"n":1}}}'));
     const err = await request('/api/auth/login').catch((e: unknown) => e);
     expect(err).toBeInstanceOf(ApiError);
-    expect(err).toMatchObject({ status: 401, code: 'bad_credentials', message: 'no', details: { n: 1 } });
+    expect(err).toMatchObject({ status: 401, code: 'bad-credentials', message: 'no', details: { n: 1 } });
   });
 
   it('names the status when the error body is not the agreed shape', async () => {
     vi.stubGlobal('fetch', answer(502, '<html>proxy</html>', 'Bad Gateway'));
     await expect(request('/api/network/summary')).rejects.toMatchObject({
       status: 502,
-      code: 'http_502',
+      code: 'http-502',
       message: 'The server answered 502 Bad Gateway.',
     });
   });
@@ -54,9 +54,9 @@ describe('request', () => {
     await expect(request('/api/auth/me')).rejects.toMatchObject({ status: 0, code: 'network' });
   });
 
-  it('reports a 200 answer that is not JSON as bad_response', async () => {
+  it('reports a 200 answer that is not JSON as bad-response', async () => {
     vi.stubGlobal('fetch', answer(200, 'not json'));
-    await expect(request('/api/auth/me')).rejects.toMatchObject({ code: 'bad_response' });
+    await expect(request('/api/auth/me')).rejects.toMatchObject({ code: 'bad-response' });
   });
 
   it('resolves an empty 2xx body as undefined', async () => {

@@ -10,7 +10,7 @@ import { browserOffline } from '@/src/offline/online';
 export class ApiError extends Error {
   /** HTTP status; 0 when the server could not be reached at all. */
   readonly status: number;
-  /** The server's error code, or one of ours: `network`, `bad_response`, `http_<status>`. */
+  /** The server's error code, or one of ours: `network`, `bad-response`, `http-<status>`. */
   readonly code: string;
   readonly details?: unknown;
 
@@ -47,7 +47,7 @@ function errorFromBody(status: number, statusText: string, body: unknown): ApiEr
     }
   }
   const reason = statusText ? ` ${statusText}` : '';
-  return new ApiError(status, `http_${status}`, `The server answered ${status}${reason}.`);
+  return new ApiError(status, `http-${status}`, `The server answered ${status}${reason}.`);
 }
 
 async function readJson(res: Response): Promise<{ ok: true; value: unknown } | { ok: false }> {
@@ -77,7 +77,7 @@ export interface RawRequestOptions extends Omit<RequestOptions, 'body'> {
  */
 export async function requestRaw(path: string, options: RawRequestOptions = {}): Promise<Response> {
   if (!path.startsWith('/')) {
-    throw new ApiError(0, 'bad_request', `API paths start with "/", got ${JSON.stringify(path)}`);
+    throw new ApiError(0, 'bad-request', `API paths start with "/", got ${JSON.stringify(path)}`);
   }
   const method = options.method ?? 'GET';
   // With no connection a change is refused here, in words, rather than left to fail somewhere in the network stack.
@@ -111,7 +111,7 @@ export async function request(path: string, options: RequestOptions = {}): Promi
     contentType: body === undefined ? undefined : 'application/json',
   });
   const parsed = await readJson(res);
-  if (!parsed.ok) throw new ApiError(res.status, 'bad_response', `The server's answer to ${path} was not JSON.`);
+  if (!parsed.ok) throw new ApiError(res.status, 'bad-response', `The server's answer to ${path} was not JSON.`);
   return parsed.value;
 }
 
@@ -121,5 +121,5 @@ export function parseAnswer<T>(schema: ZodType<T>, path: string, value: unknown)
   if (result.success) return result.data;
   const first = result.error.issues[0];
   const where = first && first.path.length ? ` at ${first.path.join('.')}` : '';
-  throw new ApiError(200, 'bad_response', `The server's answer to ${path} was not understood${where}: ${first?.message ?? 'unexpected shape'}.`);
+  throw new ApiError(200, 'bad-response', `The server's answer to ${path} was not understood${where}: ${first?.message ?? 'unexpected shape'}.`);
 }

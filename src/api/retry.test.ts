@@ -12,7 +12,7 @@ describe('retryable', () => {
     for (const status of [400, 401, 403, 404, 409, 422]) {
       expect(retryable(new ApiError(status, 'x', 'x'))).toBe(false);
     }
-    expect(retryable(new ApiError(200, 'bad_response', 'x'))).toBe(false);
+    expect(retryable(new ApiError(200, 'bad-response', 'x'))).toBe(false);
   });
   it('retries errors that are not from the API client (a thrown TypeError, say)', () => {
     expect(retryable(new TypeError('x'))).toBe(true);

@@ -8,7 +8,7 @@ import { isApiError } from './client';
  */
 export function retryable(error: unknown): boolean {
   if (!isApiError(error)) return true;
-  if (error.code === 'bad_response') return false;
+  if (error.code === 'bad-response') return false;
   if (error.status === 408 || error.status === 429) return true;
   return error.status === 0 || error.status >= 500;
 }

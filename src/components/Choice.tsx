@@ -1,6 +1,6 @@
 /**
  * Pick one of a few options, all visible at once (a radio group of buttons,
- * each at least 44 px). The chosen option is marked by a filled dot and
+ * each at least 44 px). The chosen option is marked by a dot in its ring and
  * bold text as well as colour.
  *
  *   <Choice label="Role" options={ROLES.map((r) => ({ value: r, label: r }))}
@@ -9,7 +9,7 @@
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { colors, fonts, space, type } from '@/src/theme';
 import { toggleOn, toggleOnText, toggleOption, togglePressed, toggleText } from './toggleStyles';
-import { StatusShape } from './StatusShape';
+import { RadioMark } from './RadioMark';
 
 export interface ChoiceOption<T extends string> {
   value: T;
@@ -47,7 +47,7 @@ export function Choice<T extends string>({ label, options, value, onChange, disa
               testID={testID ? `${testID}-${o.value}` : undefined}
               style={({ pressed }) => [styles.option, chosen && styles.chosen, pressed && styles.pressed, disabled && styles.disabled]}
             >
-              <StatusShape shape={chosen ? 'solid' : 'ring'} color={chosen ? colors.accent : colors.lineStrong} size={14} />
+              <RadioMark chosen={chosen} size={14} />
               <Text style={[styles.optionText, chosen && styles.chosenText]}>{o.label}</Text>
             </Pressable>
           );

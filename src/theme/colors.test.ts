@@ -34,6 +34,8 @@ describe('theme colours', () => {
     ['accent on surface', 'accent', 'surface'],
     ['accent on its soft tint', 'accent', 'accentSoft'],
     ['button text on accent', 'accentInk', 'accent'],
+    ['mark on surface', 'mark', 'surface'],
+    ['text on a mark', 'markInk', 'mark'],
     ['good on its tint', 'good', 'goodSoft'],
     ['warn on its tint', 'warn', 'warnSoft'],
     ['bad on its tint', 'bad', 'badSoft'],

@@ -19,6 +19,12 @@ export const colors = {
   accentInk: '#FFFFFF',
   accentSoft: '#DCECEC',
   focus: '#C26A00',
+  /**
+   * Drawn data that is not an action (reserve feed lines, main-station marks,
+   * chart bars), so the accent keeps its one meaning: press here, you are here.
+   */
+  mark: '#3F4A8E',
+  markInk: '#FFFFFF',
   /** Status colours come second to words and shapes (docs/screens.md). */
   good: '#1F6B34',
   goodSoft: '#E1F0E4',

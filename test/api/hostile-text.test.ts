@@ -57,7 +57,7 @@ describe('reserved names as codes', () => {
     expect(doc.body.errors[0].message).toMatch(/cannot be __proto__, constructor or prototype/);
     const csv = await uploadFiles(app(), [{ name: 'services.csv', data: 'code,name,kind\nprototype,X,fm\n' }]);
     expect(csv.status).toBe(422);
-    expect(csv.body.errors[0]).toMatchObject({ row: 1, field: 'code' });
+    expect(csv.body.errors[0]).toMatchObject({ row: 2, field: 'code' });
     expect(await countOf(app(), 'services')).toBe(2);
   });
 });
@@ -96,7 +96,7 @@ describe('text PostgreSQL cannot store', () => {
   it('reports a NUL in a CSV name as an error of its row and field', async () => {
     const r = await uploadFiles(app(), [{ name: 'services.csv', data: 'code,name,kind\nS9,a\u0000b,fm\n' }]);
     expect(r.status).toBe(422);
-    expect(r.body.errors[0]).toMatchObject({ row: 1, field: 'name' });
+    expect(r.body.errors[0]).toMatchObject({ row: 2, field: 'name' });
     expect(await countOf(app(), 'services')).toBe(2);
   });
 });

@@ -133,12 +133,12 @@ describe('upload', () => {
     expect(doc.carriages).toEqual([{ code: 'S9.TV9', site: 'S9', service: 'TV9', erpW: 1000 }]);
   });
 
-  it('names the file and row (1-based, header excluded) of a CSV error', async () => {
+  it('names the file and row (as a spreadsheet numbers it: header = row 1) of a CSV error', async () => {
     const sites = 'code,name,role,lat,lon\nA1,Alpha,origin,-38,-29\nA2,Beta,relay,-38.1,-29.1\nA3,Gamma,relay,-138,-29.2\n';
     const r = await upload([{ name: 'sites.csv', data: sites }]);
     expect(r.status).toBe(422);
-    expect(r.body.errors).toEqual([expect.objectContaining({ kind: 'sites', file: 'sites.csv', row: 3, code: 'A3', field: 'lat' })]);
-    expect(r.body.errors[0].message).toMatch(/row 3|A3/);
+    expect(r.body.errors).toEqual([expect.objectContaining({ kind: 'sites', file: 'sites.csv', row: 4, code: 'A3', field: 'lat' })]);
+    expect(r.body.errors[0].message).toMatch(/row 4|A3/);
     expect(await countOf('sites')).toBe(0);
   });
 
@@ -147,7 +147,7 @@ describe('upload', () => {
     zip.file('services.csv', 'code,name,kind\nTV1,One,dtt\nTV2,Two,hologram\n');
     const r = await upload([{ name: 'bad.zip', data: await zip.generateAsync({ type: 'nodebuffer' }) }]);
     expect(r.status).toBe(422);
-    expect(r.body.errors).toEqual([expect.objectContaining({ kind: 'services', row: 2, code: 'TV2', field: 'kind', rule: 'unknown-enum' })]);
+    expect(r.body.errors).toEqual([expect.objectContaining({ kind: 'services', row: 3, code: 'TV2', field: 'kind', rule: 'unknown-enum' })]);
   });
 
   it('refuses files it cannot read with 422 and a sentence, never a 500', async () => {

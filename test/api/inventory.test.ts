@@ -153,7 +153,7 @@ describe('feeds', () => {
   it('refuses a service mismatch, a self-feed and a via-site at an end (422)', async () => {
     const mismatch = await post('/feeds', { ...feed, from: 'O1.FM1' });
     expect(mismatch.status).toBe(422);
-    expect(mismatch.body.error.message).toMatch(/carries service FM1 but target carriage R1\.TV1 carries TV1/);
+    expect(mismatch.body.error.message).toMatch(/carries service FM1 but receiving carriage R1\.TV1 carries TV1/);
     const self = await post('/feeds', { ...feed, from: 'R1.TV1' });
     expect(self.status).toBe(422);
     expect(self.body.error.details.map((d: { rule: string }) => d.rule)).toContain('self-feed');

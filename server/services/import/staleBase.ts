@@ -10,6 +10,7 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import type { StaleBase } from '@/shared/schemas/import';
 import { ApiError } from '../../http/errors';
+import { countOf } from '@/shared/format';
 
 export async function changesSince(sequelize: Sequelize, baseVersion: number, transaction?: Transaction): Promise<number> {
   const [rows] = await sequelize.query(
@@ -41,7 +42,7 @@ export function staleRefusal(stale: StaleBase): ApiError {
   return new ApiError(
     409,
     'stale-base',
-    `this file was made from network version ${stale.baseVersion}, and the network is now at version ${stale.currentVersion} with ${n.toLocaleString('en')} change${n === 1 ? '' : 's'} since; ` +
+    `this file was made from network version ${stale.baseVersion}, and the network is now at version ${stale.currentVersion} with ${countOf(n, 'change')} since; ` +
       `replacing the network with it would undo ${n === 1 ? 'that change' : 'those changes'}. Export again and make your changes there, or send undoNewer=true to replace anyway`,
     stale,
   );

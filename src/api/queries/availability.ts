@@ -31,7 +31,7 @@ export function useAvailabilityCsv() {
         } catch {
           throw new ApiError(0, 'network', 'Could not reach the Headwater server. Check the connection and try again.');
         }
-        if (!res.ok) throw new ApiError(res.status, `http_${res.status}`, `The server answered ${res.status}.`);
+        if (!res.ok) throw new ApiError(res.status, `http-${res.status}`, `The server answered ${res.status}.`);
         return { name: attachmentName(res.headers.get('Content-Disposition'), 'availability.csv'), blob: await res.blob() };
       },
     [tokenRef],

@@ -21,11 +21,11 @@ export const useDocuments = (kind: DocumentOwnerKind, code: string) => useApiQue
 async function failure(res: Response): Promise<ApiError> {
   try {
     const body = (await res.json()) as { error?: { code?: string; message?: string } };
-    if (body.error?.message) return new ApiError(res.status, body.error.code ?? `http_${res.status}`, body.error.message);
+    if (body.error?.message) return new ApiError(res.status, body.error.code ?? `http-${res.status}`, body.error.message);
   } catch {
     // not JSON: fall through
   }
-  return new ApiError(res.status, `http_${res.status}`, `The server answered ${res.status}.`);
+  return new ApiError(res.status, `http-${res.status}`, `The server answered ${res.status}.`);
 }
 
 /** The small preview of an image document as a blob: URL, released when no longer shown. */

@@ -67,14 +67,14 @@ export function BarChart({ title, unit, rows, testID }: { title: string; unit: s
               const text = formatCount(r.value);
               const place = valuePlacement(len, text, CHAR_PX);
               return [
-                <Rect key={`b${r.key}`} x={labelPx} y={y} width={Math.max(len, 1)} height={BAR} fill={colors.accent} />,
+                <Rect key={`b${r.key}`} x={labelPx} y={y} width={Math.max(len, 1)} height={BAR} fill={colors.mark} />,
                 <SvgText
                   key={`v${r.key}`}
                   x={labelPx + place.x}
                   y={y + BAR / 2 + 4.5}
                   fontFamily={fonts.monoBold}
                   fontSize={13}
-                  fill={place.inside ? colors.accentInk : colors.ink}
+                  fill={place.inside ? colors.markInk : colors.ink}
                   textAnchor={place.inside ? 'end' : 'start'}
                 >
                   {text}

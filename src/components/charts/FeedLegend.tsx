@@ -32,11 +32,11 @@ export function FeedLegend({ marks = [], testID }: { marks?: LegendMark[]; testI
           <Text style={styles.text}>{`${MEDIUM_LABEL[m]} (${MEDIUM_NOTE[m]})`}</Text>
         </View>
       ))}
-      <Text style={styles.head}>Feeds: role by line</Text>
+      <Text style={styles.head}>Feeds: main or reserve by line</Text>
       {ROLE_ORDER.map((r) => (
         <View key={r} style={styles.row}>
           <FeedSwatch medium="line" role={r} />
-          <Text style={styles.text}>{r === 'main' ? 'main (single line, dark)' : 'reserve (double line, accent colour)'}</Text>
+          <Text style={styles.text}>{r === 'main' ? 'main feed (single line, dark)' : 'reserve feed (double line, blue)'}</Text>
         </View>
       ))}
       {marks.length > 0 ? <Text style={styles.head}>Marks</Text> : null}

@@ -41,6 +41,6 @@ describe('feedStrokes', () => {
 
 describe('feedWords', () => {
   it('says medium and role', () => {
-    expect(feedWords('off-air', 'reserve')).toBe('off-air, reserve');
+    expect(feedWords('off-air', 'reserve')).toBe('off-air, reserve feed');
   });
 });

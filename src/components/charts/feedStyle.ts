@@ -8,6 +8,7 @@
  * The patterns are our own choice (common practice, no source).
  */
 import type { FeedRole, Medium } from '@/shared/schemas/network';
+import { FEED_ROLE_WORDS } from '@/shared/words';
 import { colors } from '@/src/theme/colors';
 
 export const MEDIUM_ORDER: readonly Medium[] = ['line', 'microwave', 'satellite', 'off-air'];
@@ -28,7 +29,7 @@ export const MEDIUM_LABEL: Record<Medium, string> = {
   'off-air': 'off-air',
 };
 
-export const ROLE_LABEL: Record<FeedRole, string> = { main: 'main', reserve: 'reserve' };
+export const ROLE_LABEL: Record<FeedRole, string> = FEED_ROLE_WORDS;
 
 export interface StrokeLayer {
   stroke: string;
@@ -45,13 +46,13 @@ export function feedStrokes(medium: Medium, role: FeedRole, scale = 1, backgroun
     // Dots and dashes grow with the line so the pattern stays readable when thick.
     return pattern ? pattern.map((n) => +(n * Math.max(1, w / 2)).toFixed(2)).join(' ') : undefined;
   };
-  const ink = role === 'main' ? colors.ink : colors.accent;
+  const ink = role === 'main' ? colors.ink : colors.mark;
   const layers: StrokeLayer[] = [{ stroke: ink, width: outer, dash: dashOf(outer) }];
   if (role === 'reserve') layers.push({ stroke: background, width: outer / 3, dash: dashOf(outer) });
   return layers;
 }
 
-/** "off-air, reserve": the words that go with the pattern. */
+/** "off-air, reserve feed": the words that go with the pattern. */
 export function feedWords(medium: Medium, role: FeedRole): string {
   return `${MEDIUM_LABEL[medium]}, ${ROLE_LABEL[role]}`;
 }

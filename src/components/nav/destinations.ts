@@ -22,7 +22,7 @@ export interface Destination {
 
 export const DESTINATIONS: readonly Destination[] = [
   { id: 'home', label: 'Home', href: '/', icon: 'home', matches: [], blurb: 'Network counts and what needs attention now' },
-  { id: 'reach', label: 'Fault reach', href: '/reach', icon: 'reach', matches: ['/reach'], blurb: 'Mark sites or feeds failed and see what goes off air' },
+  { id: 'reach', label: 'Fault reach', href: '/reach', icon: 'reach', matches: ['/reach'], blurb: 'Put what has failed in a failure set and see what goes off air' },
   { id: 'network', label: 'Network', href: '/network', icon: 'network', matches: ['/network'], blurb: 'Sites and feeds on a diagram' },
   { id: 'resilience', label: 'Resilience', href: '/resilience', icon: 'resilience', matches: ['/resilience'], blurb: 'Exposure, diversity gaps and unfed carriages' },
   {

@@ -3,6 +3,8 @@ import { StyleSheet, Text, View } from 'react-native';
 import type { CarriageFeeds as CarriageFeedsAnswer } from '@/src/api/schemas';
 import { FeedSwatch } from '@/src/components/charts/FeedSwatch';
 import { feedWords } from '@/src/components/charts/feedStyle';
+import { erpText, withUnit } from '@/shared/format';
+import { capitalised, siteTypeWord } from '@/shared/words';
 import { Columns } from '@/src/components/layout/Columns';
 import { Card } from '@/src/components/Card';
 import { Capped } from '@/src/screens/reach/Capped';
@@ -25,7 +27,7 @@ function FeedRows({ feeds, end, empty }: { feeds: Feed[]; end: 'from' | 'to'; em
             <FeedSwatch medium={f.medium} role={f.role} width={40} />
           </View>
           <View style={styles.feedLink}>
-            <LinkRow href={`/carriages/${encodeURIComponent(f[end])}`} title={f[end]} detail={`${feedWords(f.medium, f.role)} feed ${f.code}`} />
+            <LinkRow href={`/carriages/${encodeURIComponent(f[end])}`} title={f[end]} detail={`${feedWords(f.medium, f.role)} ${f.code}`} />
           </View>
         </View>
       )}
@@ -49,11 +51,11 @@ export function CarriageFacts({ detail }: { detail: CarriageFeedsAnswer }) {
     <Card testID="carriage-facts">
       <Fact label="Service" value={detail.service ? `${detail.service.name} (${c.service})` : c.service} text />
       <Fact label="Channel" value={c.channel} />
-      <Fact label="Frequency" value={c.frequencyMHz != null ? `${c.frequencyMHz} MHz` : null} />
-      <Fact label="ERP" value={c.erpW != null ? `${c.erpW} W` : null} />
+      <Fact label="Frequency" value={c.frequencyMHz != null ? withUnit(c.frequencyMHz, 'MHz', 3) : null} />
+      <Fact label="ERP" value={c.erpW != null ? erpText(c.erpW) : null} />
       <Fact label="Polarisation" value={c.polarisation} />
       <View style={styles.siteLink}>
-        <LinkRow href={`/sites/${encodeURIComponent(c.site)}`} title={detail.site ? detail.site.name : c.site} code={c.site} detail={detail.site ? `${detail.site.role} site` : 'site'} />
+        <LinkRow href={`/sites/${encodeURIComponent(c.site)}`} title={detail.site ? detail.site.name : c.site} code={c.site} detail={detail.site ? capitalised(siteTypeWord(detail.site.role)) : 'site'} />
       </View>
     </Card>
   );

@@ -27,9 +27,9 @@ function Hop({ item, direction, onFold, isRoot }: { item: ChainItem; direction: 
           <FeedSwatch medium={via.medium} role={via.role} width={36} />
           <View style={styles.viaTexts}>
             <Text style={styles.viaText}>
-              {`${direction === 'up' ? 'Fed by' : 'Feeds'} ${feedWords(via.medium, via.role)} feed `}
+              {`${direction === 'up' ? 'Fed by' : 'Feeds'} ${feedWords(via.medium, via.role)} `}
               <Text style={styles.code}>{via.feed}</Text>
-              {`, ${formatKm(via.distanceKm)}, ${via.up ? 'up (carries programme)' : 'down (no programme at its source)'}`}
+              {`, ${formatKm(via.distanceKm)}, ${via.up ? 'carries programme' : 'no programme at its source'}`}
               {via.hops.length > 0 ? `, via ${via.hops.join(', ')}` : ''}
             </Text>
             {via.warnings.map((w, i) => (

@@ -13,6 +13,7 @@
 import { Circle, G, Path, Rect, Svg, Text as SvgText } from 'react-native-svg';
 import { feedStrokes, MEDIUM_LABEL } from '@/src/components/charts/feedStyle';
 import { formatKm } from '@/shared/format';
+import { feedRoleWord } from '@/shared/words';
 import { colors, fonts } from '@/src/theme';
 import type { ChainLayout, LayoutSizes, PlacedLink, PlacedNode } from './chainLayout';
 
@@ -94,10 +95,10 @@ function FeedLink({ link, direction }: { link: PlacedLink; direction: 'up' | 'do
       ))}
       <Path d={arrow} stroke={colors.ink} strokeWidth={1.8} fill="none" strokeLinejoin="round" />
       <SvgText x={labelX} y={link.y1 - 9} fontFamily={fonts.text} fontSize={12} fill={colors.ink}>
-        {`${MEDIUM_LABEL[via.medium]}, ${via.role}`}
+        {`${MEDIUM_LABEL[via.medium]}, ${feedRoleWord(via.role)}`}
       </SvgText>
       <SvgText x={labelX} y={link.y1 + 18} fontFamily={fonts.mono} fontSize={11} fill={via.up ? colors.inkMuted : colors.bad}>
-        {`${formatKm(via.distanceKm)}, ${via.up ? 'up' : 'down'}`}
+        {`${formatKm(via.distanceKm)}, ${via.up ? 'carries programme' : 'no programme'}`}
       </SvgText>
       {warn > 0 ? (
         <G>

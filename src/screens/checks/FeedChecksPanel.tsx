@@ -49,8 +49,8 @@ function VerdictBox({ answer }: { answer: FeedChecksReply }) {
 function Geometry({ answer }: { answer: FeedChecksReply }) {
   const items = [
     { label: 'Distance (WGS84)', value: formatFigure(answer.distanceKm, 'km'), testID: 'feed-checks-distance' },
-    { label: 'Bearing to the parent', value: formatBearing(answer.bearingDeg), hint: 'where the receive antenna points (true north)', testID: 'feed-checks-bearing' },
-    { label: 'Reverse bearing', value: formatBearing(answer.reverseBearingDeg), hint: 'from the parent towards this relay', testID: 'feed-checks-reverse-bearing' },
+    { label: 'Bearing to the source site', value: formatBearing(answer.bearingDeg), hint: 'where the receive antenna points (true north)', testID: 'feed-checks-bearing' },
+    { label: 'Reverse bearing', value: formatBearing(answer.reverseBearingDeg), hint: 'from the source site towards this relay', testID: 'feed-checks-reverse-bearing' },
   ];
   if (answer.rxFrequencyMHz != null) items.push({ label: 'Receive frequency', value: formatFigure(answer.rxFrequencyMHz, 'MHz'), testID: 'feed-checks-frequency' });
   return <FigureList items={items} />;

@@ -16,9 +16,9 @@ describe('checkState and stateWords', () => {
   });
 
   it('names the missing field when a value was not computed', () => {
-    const c: FeedCheck = { ...base, value: null, limit: undefined, ok: null, note: 'not computed: erpW missing on carriage C12' };
+    const c: FeedCheck = { ...base, value: null, limit: undefined, ok: null, note: 'not computed: ERP missing on carriage C12' };
     expect(checkState(c)).toBe('notComputed');
-    expect(stateWords(c).words).toBe('not computed: erpW missing on carriage C12');
+    expect(stateWords(c).words).toBe('not computed: ERP missing on carriage C12');
     expect(stateWords(c).shape).toBe('ring');
   });
 
@@ -36,7 +36,7 @@ describe('checkState and stateWords', () => {
   });
 
   it('still reads a failure with no value (an ERP of 0) as a failure', () => {
-    expect(checkState({ ...base, value: null, ok: false, note: 'erpW is 0 on carriage C3' })).toBe('fails');
+    expect(checkState({ ...base, value: null, ok: false, note: 'ERP is 0 W on carriage C3' })).toBe('fails');
   });
 });
 
@@ -78,7 +78,7 @@ describe('titles', () => {
 describe('verdictOf', () => {
   const pass: FeedCheck = base;
   const fail: FeedCheck = { ...base, value: 50, ok: false };
-  const missing: FeedCheck = { ...base, value: null, limit: undefined, ok: null, note: 'not computed: bearingDeg missing on feed F1' };
+  const missing: FeedCheck = { ...base, value: null, limit: undefined, ok: null, note: 'not computed: recorded bearing missing on feed F1' };
   const na = (why: string): FeedCheck => ({ name: 'clearance', value: null, unit: 'm', ok: null, note: `not applicable: ${why}` });
 
   it('counts problems from failing checks and warnings, whichever says more', () => {

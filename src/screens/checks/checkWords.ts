@@ -6,19 +6,7 @@
 import { CONFIDENCE_WORDS, type CheckName, type CheckSeverity, type Confidence, type FeedCheck } from '@/shared/schemas/checks';
 import { formatFigure } from '@/shared/format';
 
-/** A check's name as a person reads it. */
-export const CHECK_TITLES: Readonly<Record<CheckName, string>> = {
-  'free-space-loss': 'Free-space loss',
-  'field-strength': 'Field strength at the relay',
-  horizon: 'Path length against radio horizon',
-  'earth-bulge': 'Earth bulge at mid-path',
-  'fresnel-f1': 'First Fresnel zone at mid-path',
-  clearance: 'Clearance at mid-path',
-  'channel-clash': 'Receive and transmit channels apart',
-  'bearing-record': 'Recorded bearing against computed',
-};
-
-/** Short names for filter chips and narrow cells. */
+/** A check's name as a person reads it: one name on every screen and size, chips and cells included. */
 export const CHECK_SHORT: Readonly<Record<CheckName, string>> = {
   'free-space-loss': 'Free-space loss',
   'field-strength': 'Field strength',
@@ -29,6 +17,9 @@ export const CHECK_SHORT: Readonly<Record<CheckName, string>> = {
   'channel-clash': 'Channel clash',
   'bearing-record': 'Bearing record',
 };
+
+/** The same names (kept under both names so callers need not change). */
+export const CHECK_TITLES = CHECK_SHORT;
 
 /**
  * passes / fails: compared with a limit. figure: worked out, with no limit to pass or fail
@@ -54,7 +45,7 @@ export function checkState(c: Pick<FeedCheck, 'ok' | 'note' | 'value' | 'limit'>
 
 export interface StateWords {
   state: CheckState;
-  /** The badge text: "passes", "fails", "not computed: erpW missing on carriage C12". */
+  /** The badge text: "passes", "fails", "not computed: ERP missing on carriage C12". */
   words: string;
   /** Why, when the state itself does not say it (the rest of the note). */
   reason: string | null;

@@ -1,11 +1,8 @@
 /** Words for a document's size and type. */
-import { formatCount } from '@/shared/format';
+import { formatBytes } from '@/shared/format';
 
-export function sizeText(bytes: number): string {
-  if (bytes < 1024) return `${formatCount(bytes)} bytes`;
-  if (bytes < 1024 * 1024) return `${formatCount(Math.round(bytes / 1024))} kB`;
-  return `${(bytes / 1024 / 1024).toFixed(1)} MB`;
-}
+/** The one file-size form (shared/format.ts). */
+export const sizeText = formatBytes;
 
 const TYPES: Record<string, string> = {
   'image/jpeg': 'JPEG photo',

@@ -27,7 +27,7 @@ function Counts({ summary }: { summary: NetworkSummary }) {
         testID="count-sites"
         parts={[
           { label: 'Origin', count: sitesByRole.origin, testID: 'count-sites-origin' },
-          { label: 'Main', count: sitesByRole.main, testID: 'count-sites-main' },
+          { label: 'Main station', count: sitesByRole.main, testID: 'count-sites-main' },
           { label: 'Relay', count: sitesByRole.relay, testID: 'count-sites-relay' },
         ]}
       />

@@ -125,6 +125,6 @@ export function canCommit(report: ImportReport | null | undefined, confirmed: Co
 /** The sentence about a file made from an older network version (report.stale). */
 export function staleText(stale: NonNullable<ImportReport['stale']>): string {
   const n = stale.changesSince;
-  const changes = `${n.toLocaleString('en')} change${n === 1 ? '' : 's'}`;
-  return `This file was made from network version ${stale.baseVersion.toLocaleString('en')}; the network is now at version ${stale.currentVersion.toLocaleString('en')}, with ${changes} since. Replacing the network with this file undoes ${n === 1 ? 'it' : 'them'}.`;
+  const changes = countOf(n, 'change');
+  return `This file was made from network version ${formatCount(stale.baseVersion)}; the network is now at version ${formatCount(stale.currentVersion)}, with ${changes} since. Replacing the network with this file undoes ${n === 1 ? 'it' : 'them'}.`;
 }

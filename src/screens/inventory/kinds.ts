@@ -7,6 +7,7 @@
 import { countOf as countWords } from '@/shared/format';
 import type { Href } from 'expo-router';
 import { FEED_ROLES, MEDIA, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
+import { FEED_ROLE_WORDS, SITE_TYPE_WORDS } from '@/shared/words';
 
 export interface KindWords {
   /** "site" */
@@ -44,7 +45,7 @@ export const SORTS: Record<EntityKind, readonly SortOption[]> = {
   sites: [
     { value: 'code', label: 'Code' },
     { value: 'name', label: 'Name' },
-    { value: 'role', label: 'Role' },
+    { value: 'role', label: 'Site type' },
     { value: 'households', label: 'Households' },
     { value: 'updatedAt', label: 'Last changed' },
   ],
@@ -69,9 +70,9 @@ export const SORTS: Record<EntityKind, readonly SortOption[]> = {
   feeds: [
     { value: 'code', label: 'Code' },
     { value: 'toSite', label: 'Receiving site' },
-    { value: 'fromSite', label: 'Parent site' },
+    { value: 'fromSite', label: 'Source site' },
     { value: 'medium', label: 'Medium' },
-    { value: 'role', label: 'Role' },
+    { value: 'role', label: 'Main or reserve' },
   ],
 };
 
@@ -81,16 +82,18 @@ export interface FilterSpec {
   label: string;
   /** fixed values; absent for a filter by a service code (chosen from the services) */
   values?: readonly string[];
+  /** the words shown for each value, where the stored code is not a word ("main" -> "main station") */
+  valueLabels?: Readonly<Record<string, string>>;
 }
 
 export const FILTERS: Record<EntityKind, readonly FilterSpec[]> = {
-  sites: [{ name: 'role', label: 'Site role', values: SITE_ROLES }],
+  sites: [{ name: 'role', label: 'Site type', values: SITE_ROLES, valueLabels: SITE_TYPE_WORDS }],
   services: [],
   groups: [],
   carriages: [{ name: 'service', label: 'Service' }],
   feeds: [
     { name: 'medium', label: 'Medium', values: MEDIA },
-    { name: 'role', label: 'Feed role', values: FEED_ROLES },
+    { name: 'role', label: 'Main or reserve', values: FEED_ROLES, valueLabels: FEED_ROLE_WORDS },
     { name: 'service', label: 'Service' },
   ],
 };

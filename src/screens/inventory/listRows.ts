@@ -7,6 +7,7 @@ import type { DataColumn } from '@/src/components/DataTable/DataTable';
 import type { StoredEntities } from '@/src/api/schemas';
 import type { EntityKind } from '@/shared/schemas/network';
 import { codesText, erpText, figure, householdsText, withUnit } from '@/shared/format';
+import { feedRoleWord, serviceKindWord, siteTypeWord } from '@/shared/words';
 
 export interface CardLines {
   /** the code, shown in the monospaced face */
@@ -30,7 +31,7 @@ const sites: RowView<StoredEntities['sites']> = {
   columns: [
     code(),
     { key: 'name', label: 'Name', width: 200, value: (r) => r.name, sortable: false },
-    { key: 'role', label: 'Role', width: 100, value: (r) => r.role, sortable: false },
+    { key: 'role', label: 'Site type', width: 130, value: (r) => siteTypeWord(r.role), sortable: false },
     { key: 'households', label: 'Households', numeric: true, width: 130, value: (r) => r.households, format: (v) => figure(v as number | undefined), sortable: false },
     { key: 'mast', label: 'Mast', unit: 'm', numeric: true, width: 100, value: (r) => r.mastHeightM, format: (v) => figure(v as number | undefined), sortable: false },
     { key: 'groups', label: 'Groups', width: 180, value: (r) => (r.groups?.length ? r.groups.join('; ') : ''), sortable: false },
@@ -38,14 +39,14 @@ const sites: RowView<StoredEntities['sites']> = {
   card: (r) => ({
     code: r.code,
     title: r.name,
-    tag: r.role,
+    tag: siteTypeWord(r.role),
     facts: [householdsText(r.households), r.mastHeightM !== undefined ? `mast ${withUnit(r.mastHeightM, 'm')}` : 'mast height not recorded'],
   }),
 };
 
 const services: RowView<StoredEntities['services']> = {
-  columns: [code(), { key: 'name', label: 'Name', width: 260, value: (r) => r.name, sortable: false }, { key: 'kind', label: 'Kind', width: 100, value: (r) => r.kind, sortable: false }],
-  card: (r) => ({ code: r.code, title: r.name, tag: r.kind, facts: [] }),
+  columns: [code(), { key: 'name', label: 'Name', width: 260, value: (r) => r.name, sortable: false }, { key: 'kind', label: 'Kind', width: 160, value: (r) => serviceKindWord(r.kind), sortable: false }],
+  card: (r) => ({ code: r.code, title: r.name, tag: serviceKindWord(r.kind), facts: [] }),
 };
 
 const groups: RowView<StoredEntities['groups']> = {
@@ -60,7 +61,7 @@ const carriages: RowView<StoredEntities['carriages']> = {
     { key: 'service', label: 'Service', mono: true, width: 100, value: (r) => r.service, sortable: false },
     { key: 'frequency', label: 'Frequency', unit: 'MHz', numeric: true, width: 140, value: (r) => r.frequencyMHz, format: (v) => figure(v as number | undefined, 3), sortable: false },
     { key: 'channel', label: 'Channel', mono: true, width: 100, value: (r) => r.channel ?? '', sortable: false },
-    { key: 'erp', label: 'ERP', unit: 'kW', numeric: true, width: 110, value: (r) => (r.erpW === undefined ? undefined : r.erpW / 1000), format: (v) => figure(v as number | undefined, 2), sortable: false },
+    { key: 'erp', label: 'ERP', numeric: true, width: 110, value: (r) => r.erpW, format: (v) => erpText(v as number | undefined), sortable: false },
     { key: 'pol', label: 'Pol.', width: 70, value: (r) => r.polarisation ?? '', sortable: false },
   ],
   card: (r) => ({
@@ -77,16 +78,16 @@ const carriages: RowView<StoredEntities['carriages']> = {
 const feeds: RowView<StoredEntities['feeds']> = {
   columns: [
     code(),
-    { key: 'from', label: 'From carriage', mono: true, width: 160, value: (r) => r.from, sortable: false },
-    { key: 'to', label: 'To carriage', mono: true, width: 160, value: (r) => r.to, sortable: false },
+    { key: 'from', label: 'Source carriage', mono: true, width: 160, value: (r) => r.from, sortable: false },
+    { key: 'to', label: 'Receiving carriage', mono: true, width: 160, value: (r) => r.to, sortable: false },
     { key: 'medium', label: 'Medium', width: 110, value: (r) => r.medium, sortable: false },
-    { key: 'role', label: 'Role', width: 90, value: (r) => r.role, sortable: false },
+    { key: 'role', label: 'Main or reserve', width: 130, value: (r) => feedRoleWord(r.role), sortable: false },
     { key: 'via', label: 'Via', mono: true, width: 120, value: (r) => (r.via?.length ? r.via.join('; ') : ''), sortable: false },
   ],
   card: (r) => ({
     code: r.code,
     title: `${r.from} to ${r.to}`,
-    tag: `${r.role}, ${r.medium}`,
+    tag: `${feedRoleWord(r.role)}, ${r.medium}`,
     facts: [...(r.via?.length ? [`via ${codesText(r.via)}`] : []), ...(r.groups?.length ? [`groups ${codesText(r.groups)}`] : [])],
   }),
 };

@@ -115,7 +115,7 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
       {drawn.ring ? <Path d={drawn.ring} fill={colors.surface} stroke={colors.warn} strokeWidth={2} /> : null}
       {drawn.half ? <Path d={drawn.half} fill={colors.warn} /> : null}
       <Path d={drawn.byRole.relay} fill={colors.surface} stroke={colors.ink} strokeWidth={1.5} />
-      <Path d={drawn.byRole.main} fill={colors.accent} stroke={colors.ink} strokeWidth={1.2} />
+      <Path d={drawn.byRole.main} fill={colors.mark} stroke={colors.ink} strokeWidth={1.2} />
       <Path d={drawn.byRole.origin} fill={colors.ink} stroke={colors.ink} strokeWidth={1} />
       {drawn.cross ? <Path d={drawn.cross} stroke={colors.bad} strokeWidth={3} strokeLinecap="round" fill="none" /> : null}
       {selected !== null && selected < xs.length ? (

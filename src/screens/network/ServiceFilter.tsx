@@ -5,7 +5,7 @@
  * so nothing runs off the edge unseen.
  */
 import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
-import { StatusShape } from '@/src/components/StatusShape';
+import { RadioMark } from '@/src/components/RadioMark';
 import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { colors, fonts, space, type } from '@/src/theme';
 import { toggleOn, toggleOption, togglePressed } from '@/src/components/toggleStyles';
@@ -27,7 +27,7 @@ export function ServiceFilter({ services, value, onChange }: { services: { code:
             style={({ pressed }) => [styles.option, chosen && styles.chosen, pressed && styles.pressed]}
             testID={`network-service-${o.code ?? 'all'}`}
           >
-            <StatusShape shape={chosen ? 'solid' : 'ring'} color={chosen ? colors.accent : colors.lineStrong} size={12} />
+            <RadioMark chosen={chosen} size={12} />
             <Text style={[styles.text, chosen && styles.chosenText]}>{o.code ?? o.name}</Text>
           </Pressable>
         );

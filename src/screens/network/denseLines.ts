@@ -18,7 +18,7 @@ export function plainStrokes(role: FeedRole): PlainStroke[] {
   return role === 'main'
     ? [{ stroke: colors.ink, width: 1 }]
     : [
-        { stroke: colors.accent, width: 2.6 },
+        { stroke: colors.mark, width: 2.6 },
         { stroke: colors.surface, width: 0.9 },
       ];
 }

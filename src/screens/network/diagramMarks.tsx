@@ -13,7 +13,7 @@ const sample = (children: React.ReactNode) => (
 export const DIAGRAM_MARKS: LegendMark[] = [
   { key: 'land', label: 'land (shaded, with its coastline)', sample: sample(<Path d="M3 20L6 6L15 3L25 8L22 21Z" fill={colors.sunken} stroke={colors.line} strokeWidth={1} />) },
   { key: 'origin', label: 'origin (filled square)', sample: sample(<Path d={siteShape('origin', 14, 12, 5)} fill={colors.ink} />) },
-  { key: 'main', label: 'main station (diamond)', sample: sample(<Path d={siteShape('main', 14, 12, 5)} fill={colors.accent} stroke={colors.ink} strokeWidth={1.2} />) },
+  { key: 'main', label: 'main station (diamond)', sample: sample(<Path d={siteShape('main', 14, 12, 5)} fill={colors.mark} stroke={colors.ink} strokeWidth={1.2} />) },
   {
     key: 'group',
     label: 'nearby sites drawn together (circle with a double outline holding their number; zoom in or tap it to separate them)',

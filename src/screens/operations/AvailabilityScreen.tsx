@@ -10,7 +10,7 @@ import { useAvailability, useAvailabilityCsv } from '@/src/api/queries/availabil
 import { BarChart } from '@/src/components/charts/BarChart';
 import { Button } from '@/src/components/Button';
 import { Card } from '@/src/components/Card';
-import { formatCount } from '@/shared/format';
+import { formatCount, formatPercent } from '@/shared/format';
 import { Screen } from '@/src/components/layout/Screen';
 import { Section } from '@/src/components/layout/Section';
 import { describeError, EmptyState, ErrorState, LoadingState } from '@/src/components/states';
@@ -20,7 +20,7 @@ import { colors, space, type } from '@/src/theme';
 import { saveFile } from '../importer/download';
 import { fromLocalInput, toLocalInput, zoneName } from './time';
 
-const pct = (x: number) => `${(x * 100).toLocaleString('en', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} %`;
+const pct = (x: number) => formatPercent(x);
 const mins = (m: number) => `${formatCount(Math.round(m))} min`;
 
 export function AvailabilityScreen() {

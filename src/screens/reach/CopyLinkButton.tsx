@@ -16,6 +16,8 @@ function appOrigin(): string {
 
 export function CopyLinkButton({ elements }: { elements: readonly Element[] }) {
   const [said, setSaid] = useState<string | null>(null);
+  // A failure is said in the error colour, never the success green.
+  const [failed, setFailed] = useState(false);
   useEffect(() => {
     if (!said) return;
     const t = setTimeout(() => setSaid(null), 4000);
@@ -31,13 +33,15 @@ export function CopyLinkButton({ elements }: { elements: readonly Element[] }) {
         onPress={async () => {
           try {
             await Clipboard.setStringAsync(url);
+            setFailed(false);
             setSaid('Link copied.');
           } catch {
+            setFailed(true);
             setSaid(`Could not copy. The link is: ${url}`);
           }
         }}
       />
-      <Text style={styles.said} accessibilityLiveRegion="polite" testID="reach-copy-status">
+      <Text style={[styles.said, failed && styles.failed]} accessibilityLiveRegion="polite" testID="reach-copy-status">
         {said ?? ''}
       </Text>
     </View>
@@ -47,4 +51,5 @@ export function CopyLinkButton({ elements }: { elements: readonly Element[] }) {
 const styles = StyleSheet.create({
   wrap: { gap: space.xxs, alignItems: 'flex-end' },
   said: { ...type.small, color: colors.good, minHeight: 20 },
+  failed: { color: colors.bad },
 });

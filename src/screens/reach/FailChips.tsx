@@ -8,7 +8,7 @@ export function FailChips({ elements, onRemove, onClear }: { elements: readonly 
   if (elements.length === 0) return null;
   return (
     <View style={styles.wrap} testID="reach-fail-set">
-      <Text style={styles.label}>{`Marked failed (${elements.length})`}</Text>
+      <Text style={styles.label}>{`Failure set (${elements.length})`}</Text>
       <View style={styles.chips}>
         {elements.map((e) => (
           <View key={`${e.kind}:${e.code}`} style={styles.chip} testID={`fail-chip-${e.kind}-${e.code}`}>
@@ -17,7 +17,7 @@ export function FailChips({ elements, onRemove, onClear }: { elements: readonly 
             <Text style={styles.code}>{e.code}</Text>
             <Pressable
               accessibilityRole="button"
-              accessibilityLabel={`Remove ${e.kind} ${e.code} from the failed set`}
+              accessibilityLabel={`Remove ${e.kind} ${e.code} from the failure set`}
               onPress={() => onRemove(e)}
               style={({ pressed }) => [styles.remove, pressed && styles.pressed]}
             >
@@ -28,7 +28,7 @@ export function FailChips({ elements, onRemove, onClear }: { elements: readonly 
           </View>
         ))}
         {elements.length > 1 ? (
-          <Pressable accessibilityRole="button" accessibilityLabel="Clear all failed elements" onPress={onClear} style={({ pressed }) => [styles.clear, pressed && styles.pressed]}>
+          <Pressable accessibilityRole="button" accessibilityLabel="Clear the failure set" onPress={onClear} style={({ pressed }) => [styles.clear, pressed && styles.pressed]}>
             <Text style={styles.clearText}>Clear all</Text>
           </Pressable>
         ) : null}

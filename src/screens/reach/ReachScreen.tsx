@@ -71,7 +71,7 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
   if (elements.length === 0) {
     results = (
       <EmptyState
-        title="Nothing is marked failed"
+        title="The failure set is empty"
         message="Search above for the site, feed or shared-risk group that has failed and add it. What goes off air shows here at once; add more to combine failures."
         testID="reach-empty"
       />

@@ -27,11 +27,14 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
   const send = useSend();
   const [busy, setBusy] = useState(false);
   const [said, setSaid] = useState<string | null>(null);
+  // A failure is said in the error colour, never the success green.
+  const [failed, setFailed] = useState(false);
   const ranked = rows.map((r, i) => ({ ...r, rank: i + 1 }));
 
   const download = async () => {
     setBusy(true);
     setSaid(null);
+    setFailed(false);
     try {
       // The file holds the whole ranking, not only the rows on screen.
       const path = api.exposure();
@@ -39,6 +42,7 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
       const csv = exposureCsv(all.elements.map((r, i) => ({ rank: i + 1, element: r.element, name: name(r.element), households: r.households, carriages: r.carriages })));
       setSaid(await saveCsv(exposureFileName(all.networkVersion, new Date()), csv));
     } catch (e) {
+      setFailed(true);
       setSaid(`Could not export: ${describeError(e)}`);
     } finally {
       setBusy(false);
@@ -49,7 +53,7 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
     <View style={styles.wrap}>
       <View style={styles.tools}>
         <Button label="Download CSV" icon="inventory" variant="secondary" busy={busy} onPress={() => void download()} testID="exposure-csv" />
-        <Text style={styles.said} accessibilityLiveRegion="polite" testID="exposure-csv-status">
+        <Text style={[styles.said, failed && styles.failed]} accessibilityLiveRegion="polite" testID="exposure-csv-status">
           {said ?? ''}
         </Text>
       </View>
@@ -68,8 +72,8 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
           { key: 'kind', label: 'Kind', width: 80, value: (r) => r.element.kind },
           { key: 'code', label: 'Element', mono: true, width: 150, value: (r) => r.element.code },
           { key: 'name', label: 'Name', width: 180, value: (r) => name(r.element) ?? '' },
-          { key: 'households', label: 'Households', unit: 'lost', numeric: true, width: 140, value: (r) => r.households, format: (v) => formatCount(v as number) },
-          { key: 'carriages', label: 'Carriages', unit: 'lost', numeric: true, width: 130, value: (r) => r.carriages, format: (v) => formatCount(v as number) },
+          { key: 'households', label: 'Households', unit: 'off air', numeric: true, width: 140, value: (r) => r.households, format: (v) => formatCount(v as number) },
+          { key: 'carriages', label: 'Carriages', unit: 'off air', numeric: true, width: 130, value: (r) => r.carriages, format: (v) => formatCount(v as number) },
         ]}
         />
       </ScrollView>
@@ -82,6 +86,7 @@ const styles = StyleSheet.create({
   wrap: { gap: space.sm },
   tools: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', gap: space.md },
   said: { ...type.small, color: colors.good },
+  failed: { color: colors.bad },
   note: { ...type.small },
   tableBox: { maxHeight: 520 },
 });

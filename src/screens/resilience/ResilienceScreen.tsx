@@ -69,7 +69,7 @@ export function ResilienceScreen() {
 
       <Columns max={2}>
         <Section title="Top 10 by households" testID="resilience-chart">
-          {top10.length > 0 ? <BarChart title="Households lost if this element alone fails" unit="households" rows={top10} testID="exposure-chart" /> : exposure.data ? <Text style={styles.small}>Nothing to chart.</Text> : <LoadingState what="the chart" />}
+          {top10.length > 0 ? <BarChart title="Households off air if this element alone fails" unit="households" rows={top10} testID="exposure-chart" /> : exposure.data ? <Text style={styles.small}>Nothing to chart.</Text> : <LoadingState what="the chart" />}
         </Section>
         <Section title="Per service" testID="resilience-services">
           <ServiceTable

@@ -35,7 +35,7 @@ describe('exposureCsv', () => {
       { rank: 3, element: { kind: 'feed', code: 'F.1' }, households: 10, carriages: 1 },
     ]);
     expect(csv).toBe(
-      'rank,kind,code,name,households_lost,carriages_lost\r\n' +
+      'rank,kind,code,name,households_off_air,carriages_off_air\r\n' +
         '1,site,O-LPC,Lanneth Playout Centre,851490,208\r\n' +
         '2,group,PWR-N,"Power, north",519830,178\r\n' +
         '3,feed,F.1,,10,1\r\n',
@@ -43,7 +43,7 @@ describe('exposureCsv', () => {
   });
 
   it('writes just the header for an empty ranking', () => {
-    expect(exposureCsv([])).toBe('rank,kind,code,name,households_lost,carriages_lost\r\n');
+    expect(exposureCsv([])).toBe('rank,kind,code,name,households_off_air,carriages_off_air\r\n');
   });
 });
 

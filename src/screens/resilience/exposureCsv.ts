@@ -18,7 +18,7 @@ export interface ExposureCsvRow {
   carriages: number;
 }
 
-export const EXPOSURE_CSV_HEADER = ['rank', 'kind', 'code', 'name', 'households_lost', 'carriages_lost'] as const;
+export const EXPOSURE_CSV_HEADER = ['rank', 'kind', 'code', 'name', 'households_off_air', 'carriages_off_air'] as const;
 
 export function csvField(value: string | number): string {
   if (typeof value === 'number') {

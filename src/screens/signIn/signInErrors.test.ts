@@ -4,8 +4,8 @@ import { checkSignInFields, NOT_RECOGNISED, signInFailureMessage, TOO_MANY } fro
 
 describe('signInFailureMessage', () => {
   it('says the same thing for a wrong email and a wrong password', () => {
-    const unknownEmail = new ApiError(401, 'invalid_credentials', 'no such user');
-    const wrongPassword = new ApiError(401, 'invalid_credentials', 'password mismatch');
+    const unknownEmail = new ApiError(401, 'bad-credentials', 'no such user');
+    const wrongPassword = new ApiError(401, 'bad-credentials', 'password mismatch');
     expect(signInFailureMessage(unknownEmail)).toBe(NOT_RECOGNISED);
     expect(signInFailureMessage(wrongPassword)).toBe(NOT_RECOGNISED);
     expect(NOT_RECOGNISED).toMatch(/email or password not recognised/i);
@@ -16,12 +16,12 @@ describe('signInFailureMessage', () => {
   });
 
   it('asks the person to wait when rate-limited', () => {
-    expect(signInFailureMessage(new ApiError(429, 'rate_limited', 'slow down'))).toBe(TOO_MANY);
+    expect(signInFailureMessage(new ApiError(429, 'rate-limited', 'slow down'))).toBe(TOO_MANY);
   });
 
   it('says when the server cannot be reached or fails', () => {
     expect(signInFailureMessage(new ApiError(0, 'network', 'Could not reach the Headwater server.'))).toBe('Could not reach the Headwater server.');
-    expect(signInFailureMessage(new ApiError(503, 'http_503', 'x'))).toMatch(/could not sign you in just now/);
+    expect(signInFailureMessage(new ApiError(503, 'http-503', 'x'))).toMatch(/could not sign you in just now/);
     expect(signInFailureMessage(new Error('boom'))).toMatch(/did not work/);
   });
 });

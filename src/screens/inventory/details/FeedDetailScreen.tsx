@@ -1,7 +1,7 @@
 /**
  * A feed's page: its two ends (carriage and site), medium and role, the hops
  * it passes through and the groups it shares a risk with, the receive
- * details, a way to the target carriage's chain, and the feed's engineering
+ * details, a way to the receiving carriage's chain, and the feed's engineering
  * screening (FeedChecksPanel, which carries the screening and mast cautions).
  */
 import { StyleSheet, View } from 'react-native';
@@ -11,6 +11,7 @@ import { DocumentsPanel } from '@/src/screens/documents/DocumentsPanel';
 import { useCanEditDocuments } from '../useCanEdit';
 import { space } from '@/src/theme';
 import { figure, whenText, withUnit } from '@/shared/format';
+import { capitalised, feedRoleWord } from '@/shared/words';
 import { detailHref } from '../kinds';
 import { CodeLink } from '../parts/CodeLink';
 import { FieldList } from '../parts/FieldList';
@@ -34,7 +35,7 @@ export function FeedDetailScreen({ code }: { code: string }) {
       kind="feeds"
       code={code}
       title={(d) => `Feed ${d.feed.code}`}
-      subtitle={(d) => `${d.feed.role} feed by ${d.feed.medium}, ${d.source.site?.code ?? d.feed.from} to ${d.target.site?.code ?? d.feed.to}`}
+      subtitle={(d) => `${capitalised(feedRoleWord(d.feed.role))} by ${d.feed.medium}, ${d.source.site?.code ?? d.feed.from} to ${d.target.site?.code ?? d.feed.to}`}
     >
       {({ feed, source, target, via }) => (
         <>
@@ -47,15 +48,15 @@ export function FeedDetailScreen({ code }: { code: string }) {
               items={[
                 { label: 'Code', value: feed.code, mono: true },
                 { label: 'Medium', value: feed.medium },
-                { label: 'Role', value: feed.role },
-                { label: 'From (parent)', value: <End carriage={feed.from} site={source.site} testID="feed-from" /> },
-                { label: 'To (receiving)', value: <End carriage={feed.to} site={target.site} testID="feed-to" /> },
+                { label: 'Main or reserve', value: feedRoleWord(feed.role) },
+                { label: 'Source carriage and site', value: <End carriage={feed.from} site={source.site} testID="feed-from" /> },
+                { label: 'Receiving carriage and site', value: <End carriage={feed.to} site={target.site} testID="feed-to" /> },
                 {
                   label: 'Via sites',
                   value: <LinkList items={via.length ? via.map((s) => ({ code: s.code, href: detailHref('sites', s.code), note: s.name })) : codeLinks('sites', feed.via ?? [])} empty="none: a direct path" testID="feed-via" />,
                 },
                 { label: 'Shared-risk groups', value: <LinkList items={codeLinks('groups', feed.groups ?? [])} empty="none" testID="feed-groups" /> },
-                { label: 'Source carriage', value: source.carriage ? carriageNote(source.carriage) : 'not found', mono: true },
+                { label: 'What the source radiates', value: source.carriage ? carriageNote(source.carriage) : 'not found', mono: true },
                 { label: 'Receive frequency', value: withUnit(feed.rxFrequencyMHz, 'MHz', 3), mono: true },
                 { label: 'Receive channel', value: feed.rxChannel ?? '—', mono: true },
                 { label: 'Receive antenna', value: feed.rxAntenna ?? '—' },

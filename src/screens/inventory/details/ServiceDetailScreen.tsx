@@ -8,6 +8,7 @@ import { Section } from '@/src/components/layout/Section';
 import { ErrorState, LoadingState } from '@/src/components/states';
 import { type } from '@/src/theme';
 import { erpText, whenText, withUnit } from '@/shared/format';
+import { serviceKindWord } from '@/shared/words';
 import { countOf, detailHref } from '../kinds';
 import { filteredListHref, listApiPath } from '../listQuery';
 import { FieldList } from '../parts/FieldList';
@@ -39,7 +40,7 @@ function ServiceCarriages({ service }: { service: string }) {
 
 export function ServiceDetailScreen({ code }: { code: string }) {
   return (
-    <DetailFrame kind="services" code={code} title={(d) => d.service.name} subtitle={(d) => `Service ${d.service.code}, ${d.service.kind}`}>
+    <DetailFrame kind="services" code={code} title={(d) => d.service.name} subtitle={(d) => `Service ${d.service.code}, ${serviceKindWord(d.service.kind)}`}>
       {({ service, counts }) => (
         <>
           <Section title="Record" testID="service-record">
@@ -47,7 +48,7 @@ export function ServiceDetailScreen({ code }: { code: string }) {
               items={[
                 { label: 'Code', value: service.code, mono: true },
                 { label: 'Name', value: service.name },
-                { label: 'Kind', value: service.kind },
+                { label: 'Kind', value: serviceKindWord(service.kind) },
                 { label: 'Radiated by', value: countOf('carriages', counts.carriages), mono: true },
                 { label: 'Carried by', value: countOf('feeds', counts.feeds), mono: true },
                 { label: 'Last changed', value: `${whenText(service.updatedAt)} (version ${service.version})` },

@@ -11,6 +11,7 @@ import { MastCautions } from '@/src/screens/checks/MastCautions';
 import { DocumentsPanel } from '@/src/screens/documents/DocumentsPanel';
 import { space } from '@/src/theme';
 import { householdsText, positionText, whenText, withUnit } from '@/shared/format';
+import { siteTypeWord } from '@/shared/words';
 import { filteredListHref } from '../listQuery';
 import { FieldList } from '../parts/FieldList';
 import { LinkButton } from '../parts/LinkButton';
@@ -22,7 +23,7 @@ export function SiteDetailScreen({ code }: { code: string }) {
   const canEdit = useCanEdit();
   const canEditDocuments = useCanEditDocuments();
   return (
-    <DetailFrame kind="sites" code={code} title={(d) => d.site.name} subtitle={(d) => `Site ${d.site.code}, ${d.site.role}`}>
+    <DetailFrame kind="sites" code={code} title={(d) => d.site.name} subtitle={(d) => `Site ${d.site.code}, ${siteTypeWord(d.site.role)}`}>
       {({ site, carriages, feedsIn, feedsOut, feedsVia }) => (
         <>
           <View style={styles.actions}>
@@ -35,7 +36,7 @@ export function SiteDetailScreen({ code }: { code: string }) {
                 items={[
                   { label: 'Code', value: site.code, mono: true },
                   { label: 'Name', value: site.name },
-                  { label: 'Role', value: site.role },
+                  { label: 'Site type', value: siteTypeWord(site.role) },
                   { label: 'Position (WGS84)', value: positionText(site.lat, site.lon), mono: true, testID: 'site-position' },
                   { label: 'Ground height (above sea level)', value: withUnit(site.groundHeightM, 'm'), mono: true },
                   { label: 'Mast height', value: withUnit(site.mastHeightM, 'm'), mono: true },

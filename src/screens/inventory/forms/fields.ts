@@ -6,6 +6,7 @@
  * turns into the document's value.
  */
 import { FEED_ROLES, MEDIA, POLARISATIONS, SERVICE_KINDS, SITE_ROLES, type EntityKind } from '@/shared/schemas/network';
+import { FEED_ROLE_WORDS, SERVICE_KIND_WORDS, SITE_TYPE_WORDS } from '@/shared/words';
 
 export type FieldType =
   /** a code (monospaced text) */
@@ -50,7 +51,7 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
   sites: [
     code,
     name,
-    { name: 'role', label: 'Role', type: 'choice', options: SITE_ROLES, required: true },
+    { name: 'role', label: 'Site type', type: 'choice', options: SITE_ROLES, optionLabels: SITE_TYPE_WORDS, required: true },
     { name: 'lat', label: 'Latitude', type: 'number', unit: 'deg', required: true, hint: 'WGS84 degrees, -90 to 90 (south is negative).' },
     { name: 'lon', label: 'Longitude', type: 'number', unit: 'deg', required: true, hint: 'WGS84 degrees, -180 to 180 (west is negative).' },
     { name: 'groundHeightM', label: 'Ground height', type: 'number', unit: 'm', required: false, hint: 'Metres above sea level (optional).' },
@@ -58,7 +59,7 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
     { name: 'households', label: 'Households', type: 'int', required: false, hint: 'Households served (optional).' },
     groups,
   ],
-  services: [code, name, { name: 'kind', label: 'Kind', type: 'choice', options: SERVICE_KINDS, required: true }],
+  services: [code, name, { name: 'kind', label: 'Kind', type: 'choice', options: SERVICE_KINDS, optionLabels: SERVICE_KIND_WORDS, required: true }],
   groups: [code, name, { name: 'note', label: 'Note', type: 'text', required: false, hint: 'What fails together, and why (optional).' }],
   carriages: [
     { name: 'site', label: 'Site', type: 'code', required: true, picker: 'sites', hint: 'The site that radiates it: search by code or name.' },
@@ -79,10 +80,10 @@ export const FORM_FIELDS: Record<EntityKind, readonly FieldSpec[]> = {
     { name: 'onChannelRepeater', label: 'On-channel repeater', type: 'flag', required: false, hint: 'It may transmit on the channel it receives.' },
   ],
   feeds: [
-    { name: 'to', label: 'Target carriage', type: 'code', required: true, picker: 'carriages', hint: 'The carriage this feed brings programme into: search by code, site or service.' },
-    { name: 'from', label: 'Source carriage', type: 'code', required: true, picker: 'sources', hint: 'The parent carriage the programme comes from: once the target is chosen, the nearest of its service come first.' },
+    { name: 'to', label: 'Receiving carriage', type: 'code', required: true, picker: 'carriages', hint: 'The carriage this feed brings programme into: search by code, site or service.' },
+    { name: 'from', label: 'Source carriage', type: 'code', required: true, picker: 'sources', hint: 'The parent carriage the programme comes from: once the receiving carriage is chosen, the nearest of its service come first.' },
     { name: 'medium', label: 'Medium', type: 'choice', options: MEDIA, required: true },
-    { name: 'role', label: 'Feed role', type: 'choice', options: FEED_ROLES, required: true },
+    { name: 'role', label: 'Main or reserve', type: 'choice', options: FEED_ROLES, optionLabels: FEED_ROLE_WORDS, required: true },
     proposedCode,
     { name: 'via', label: 'Via sites', type: 'codes', required: false, picker: 'sites', hint: 'Sites the path passes through, in order: search to add each (optional).' },
     groups,

@@ -43,9 +43,9 @@ describe('refusalFromError', () => {
 
   it('keeps field messages and also shows unplaced ones', () => {
     const e = new ApiError(422, 'invalid', 'x', [
-      { field: 'to', message: 'feed F: target carriage C9 does not exist' },
+      { field: 'to', message: 'feed F: receiving carriage C9 does not exist' },
       { field: 'weird', message: 'something else' },
     ]);
-    expect(refusalFromError(e, ['code', 'from', 'to'])).toEqual({ fields: { to: 'feed F: target carriage C9 does not exist' }, form: 'something else' });
+    expect(refusalFromError(e, ['code', 'from', 'to'])).toEqual({ fields: { to: 'feed F: receiving carriage C9 does not exist' }, form: 'something else' });
   });
 });

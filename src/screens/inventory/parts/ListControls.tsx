@@ -96,7 +96,7 @@ export function ListControls({ kind, state, services, onChange }: ListControlsPr
               <Choice
                 key={f.name}
                 label={f.label}
-                options={[{ value: ANY, label: 'any' }, ...values.map((v) => ({ value: v, label: v }))]}
+                options={[{ value: ANY, label: 'any' }, ...values.map((v) => ({ value: v, label: f.valueLabels?.[v] ?? v }))]}
                 value={state.filters[f.name] ?? ANY}
                 onChange={(v) => setFilter(f.name, v)}
                 testID={`list-filter-${f.name}`}
