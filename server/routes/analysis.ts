@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { can } from '@/shared/api';
 import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning } from '@/shared/schemas/analysis';
+import { pageQuerySchema, pageRows } from '@/shared/schemas/paging';
 import { ApiError, badRequest, conflict, notFound, parseOr400 } from '../http/errors';
 import { actorOf, settled } from './inventory';
 import { createEntities } from '../services/inventory/write';
@@ -40,12 +41,19 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     res.json(currentModel(ctx).engine.exposure(limit));
   });
 
-  routes.add('get', '/analysis/diversity', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.diversity());
+  // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md).
+  routes.add('get', '/analysis/diversity', can.analyse, async (req, res) => {
+    const page = parseOr400(pageQuerySchema, req.query, 'query');
+    const answer = currentModel(ctx).engine.diversity();
+    const { rows, total, offset } = pageRows(answer.carriages, page);
+    res.json({ ...answer, carriages: rows, total, offset });
   });
 
-  routes.add('get', '/analysis/unfed', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.unfed());
+  routes.add('get', '/analysis/unfed', can.analyse, async (req, res) => {
+    const page = parseOr400(pageQuerySchema, req.query, 'query');
+    const answer = currentModel(ctx).engine.unfed();
+    const { rows, total, offset } = pageRows(answer.carriages, page);
+    res.json({ ...answer, carriages: rows, total, offset });
   });
 
   routes.add('get', '/analysis/proposals', can.analyse, async (req, res) => {

@@ -177,11 +177,15 @@ const carriagePlaceSchema = { carriage: z.string(), service: z.string(), site: z
 export const diversityAnswerSchema = z.object({
   networkVersion: z.number(),
   carriages: z.array(z.object({ ...carriagePlaceSchema, spof: z.array(analysisElementSchema), avoidable: z.array(analysisElementSchema) })),
+  total: z.number().optional(),
+  offset: z.number().optional(),
 }) satisfies z.ZodType<analysisTypes.DiversityAnswer>;
 
 export const unfedAnswerSchema = z.object({
   networkVersion: z.number(),
   carriages: z.array(z.object(carriagePlaceSchema)),
+  total: z.number().optional(),
+  offset: z.number().optional(),
 }) satisfies z.ZodType<analysisTypes.UnfedAnswer>;
 
 export const chainNodeSchema: z.ZodType<analysisTypes.ChainNode> = z.lazy(() =>
@@ -283,6 +287,8 @@ export const checkFailureSchema = z.object({
 export const checksListAnswerSchema = z.object({
   networkVersion: z.union([z.number(), z.string()]).optional(),
   failures: z.array(checkFailureSchema),
+  total: z.number().optional(),
+  offset: z.number().optional(),
 });
 export type ChecksListReply = z.infer<typeof checksListAnswerSchema>;
 
