@@ -58,8 +58,8 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
   const drawing = useNetworkDrawing(!!reach.data);
   const serviceNames = useServiceNames();
   const names = useMemo<Names>(() => {
-    const sites = new Map((drawing.data?.sites ?? []).map((s) => [s.code, s.name]));
-    return { site: (c) => sites.get(c), service: (c) => serviceNames.data?.get(c) };
+    const sites = new Map((drawing.data?.sites ?? []).map((s) => [s.code, s]));
+    return { site: (c) => sites.get(c)?.name, households: (c) => (sites.has(c) ? (sites.get(c)!.households ?? 0) : undefined), service: (c) => serviceNames.data?.get(c) };
   }, [drawing.data, serviceNames.data]);
 
   const unknown = reach.error && isApiError(reach.error) && reach.error.status === 404 ? unknownFromDetails(reach.error.details) : [];

@@ -5,7 +5,7 @@
  */
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
-import { ScrollView, StyleSheet, Text, View } from 'react-native';
+import { StyleSheet, Text, View } from 'react-native';
 import { api } from '@/shared/api';
 import type { ExposureRow } from '@/shared/schemas/analysis';
 import { useSend } from '@/src/api/ApiProvider';
@@ -53,11 +53,12 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
           {said ?? ''}
         </Text>
       </View>
-      {/* The ranking scrolls in its own box so the charts and lists below stay within reach. */}
-      <ScrollView style={styles.tableBox} nestedScrollEnabled focusable accessibilityLabel="Exposure ranking (scrolls)">
-        <DataTable
+      {/* The ranking scrolls in its own box (rows on screen only) so the charts and lists below stay within reach; cards on a phone. */}
+      <DataTable
         caption="Elements ranked by exposure"
         testID="exposure-table"
+        virtual
+        cardsOnPhone={{ lead: 'households', title: (r) => `${r.rank}. ${elementWords(r.element)}${name(r.element) ? `, ${name(r.element)}` : ''}`, hide: ['rank', 'kind', 'code', 'name'] }}
         rows={ranked}
         rowKey={(r) => `${r.element.kind}:${r.element.code}`}
         initialSort={{ column: 'households', direction: 'desc' }}
@@ -71,8 +72,7 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
           { key: 'households', label: 'Households', unit: 'lost', numeric: true, width: 140, value: (r) => r.households, format: (v) => formatCount(v as number) },
           { key: 'carriages', label: 'Carriages', unit: 'lost', numeric: true, width: 130, value: (r) => r.carriages, format: (v) => formatCount(v as number) },
         ]}
-        />
-      </ScrollView>
+      />
       <Text style={styles.note}>{`Network version ${networkVersion}. Press a row to see what that element's failure takes off air.`}</Text>
     </View>
   );
@@ -83,5 +83,4 @@ const styles = StyleSheet.create({
   tools: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', gap: space.md },
   said: { ...type.small, color: colors.good },
   note: { ...type.small },
-  tableBox: { maxHeight: 520 },
 });

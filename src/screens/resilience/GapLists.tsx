@@ -6,6 +6,8 @@ import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { space, type } from '@/src/theme';
 import { elementWords } from './elementNames';
 
+const carriageKey = (g: { carriage: string }) => g.carriage;
+
 type Gap = { carriage: string; service: string; site: string; spof: Element[]; avoidable: Element[] };
 
 /** The weak points no other feed can fix: each holds every origin of the service. */
@@ -25,6 +27,8 @@ export function DiversityList({ gaps }: { gaps: Gap[] }) {
       items={gaps}
       what="carriages"
       first={10}
+      keyOf={carriageKey}
+      testID="diversity-list"
       render={(g) => (
         <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={gapWords(g)} />
       )}
@@ -40,6 +44,8 @@ export function UnfedList({ unfed }: { unfed: { carriage: string; service: strin
         items={unfed}
         what="carriages"
         first={10}
+        keyOf={carriageKey}
+        testID="unfed-list"
         render={(u) => <LinkRow key={u.carriage} href={`/carriages/${encodeURIComponent(u.carriage)}`} title={u.carriage} status="off-air" detail={`${u.service} at ${u.site}: no programme even with nothing failed`} />}
       />
     </View>
