@@ -1,7 +1,7 @@
 /** The analysis API over the in-memory graphs (docs/api.md). */
 import { z } from 'zod';
 import { can } from '@/shared/api';
-import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning } from '@/shared/schemas/analysis';
+import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning, type SiteInfo } from '@/shared/schemas/analysis';
 import { pageQuerySchema, pageRows } from '@/shared/schemas/paging';
 import { ApiError, badRequest, conflict, notFound, parseOr400 } from '../http/errors';
 import { actorOf, settled } from './inventory';
@@ -9,6 +9,7 @@ import { createEntities } from '../services/inventory/write';
 import { findPlan, forgetPlan, makePlan, pairsState } from '../services/planner';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
+import type { ServedNetwork } from '../services/servedNetwork';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { cachedFeedChecks, currentModel } from './checks';
 
@@ -17,15 +18,29 @@ export const exposureQuery = z.object({
   limit: z.coerce.number({ error: 'limit must be a number' }).int('limit is a whole number').min(1, 'limit is at least 1').max(100_000).optional(),
 });
 
+export const reachQuerySchema = z.strictObject({ with: z.enum(['sites'], { error: 'with is sites (or left out)' }).optional() });
+
+function siteInfoOf(m: ServedNetwork, sites: readonly { site: string }[]): Record<string, SiteInfo> {
+  const out: Record<string, SiteInfo> = {};
+  for (const { site } of sites) {
+    const s = m.sites.get(site);
+    if (s) out[site] = { name: s.name, households: s.households ?? 0 };
+  }
+  return out;
+}
+
 export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('post', '/analysis/reach', can.analyse, async (req, res) => {
     if (req.body === undefined || req.body === null || typeof req.body !== 'object' || Array.isArray(req.body)) {
       throw badRequest('body: send { "failed": [{ "kind": "site"|"feed"|"group", "code": "..." }] }');
     }
     const { failed } = parseOr400(reachRequestSchema, req.body);
+    const { with: extra } = parseOr400(reachQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     try {
-      res.json(m.engine.reach(failed));
+      const answer = m.engine.reach(failed);
+      // ?with=sites: the name and households of each site in the answer, so a phone need not load the whole network to label them.
+      res.json(extra === 'sites' ? { ...answer, siteInfo: siteInfoOf(m, answer.sites) } : answer);
     } catch (e) {
       if (e instanceof UnknownElementsError) throw notFound(e.message, { unknown: e.elements });
       throw e;

@@ -166,6 +166,7 @@ export const reachAnswerSchema = z.object({
   households: z.object({ lost: z.number(), fallback: z.number() }),
   byService: z.array(z.object({ service: z.string(), lost: z.number(), fallback: z.number() })),
   sites: z.array(z.object({ site: z.string(), lost: z.array(z.string()), fallback: z.array(z.string()).optional() })),
+  siteInfo: z.record(z.string(), z.object({ name: z.string(), households: z.number() })).optional(),
 }) satisfies z.ZodType<analysisTypes.ReachAnswer>;
 
 export const exposureAnswerSchema = z.object({

@@ -109,3 +109,27 @@ describe('paged failing checks', () => {
     expect(bad.body.error.message).toContain('check is a comma-separated list of');
   });
 });
+
+describe('POST /api/analysis/reach?with=sites', () => {
+  it('adds the name and households of each listed site, and nothing without it', async () => {
+    const main = demo.sites.find((s) => s.role === 'main')!;
+    const body = { failed: [{ kind: 'site', code: main.code }] };
+    const plain = await request(t.app).post('/api/analysis/reach').set(t.auth('operator')).send(body);
+    expect(plain.status).toBe(200);
+    expect(plain.body.siteInfo).toBeUndefined();
+    const r = await request(t.app).post('/api/analysis/reach?with=sites').set(t.auth('operator')).send(body);
+    expect(r.status).toBe(200);
+    const { siteInfo, ...rest } = r.body;
+    expect(rest).toEqual(plain.body);
+    const listed = (rest.sites as { site: string }[]).map((s) => s.site);
+    expect(listed.length).toBeGreaterThan(0);
+    expect(Object.keys(siteInfo).sort()).toEqual([...listed].sort());
+    for (const code of listed) {
+      const s = demo.sites.find((x) => x.code === code)!;
+      expect(siteInfo[code]).toEqual({ name: s.name, households: s.households ?? 0 });
+    }
+    const bad = await request(t.app).post('/api/analysis/reach?with=everything').set(t.auth('operator')).send(body);
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.message).toContain('with is sites');
+  });
+});

@@ -33,7 +33,8 @@ export function useReach(failed: readonly Element[], failSet: string) {
   const send = useSend();
   return useSWR<ReachResult, ApiError>(
     failed.length > 0 ? analysisKeys.reach(failSet) : null,
-    async () => parseAnswer(reachAnswerSchema, api.reach, await send(api.reach, { method: 'POST', body: { failed } })),
+    // with=sites: names and households of the sites listed, without loading the whole network.
+    async () => parseAnswer(reachAnswerSchema, api.reach, await send(`${api.reach}?with=sites`, { method: 'POST', body: { failed } })),
     { ...freshness.incident, keepPreviousData: true },
   );
 }

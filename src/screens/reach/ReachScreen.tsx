@@ -9,7 +9,6 @@ import { useCallback, useMemo } from 'react';
 import { ActivityIndicator, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
 import { useReach } from '@/src/api/queries/analysis';
-import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
 import { useServiceNames } from '@/src/api/queries/serviceNames';
 import { isApiError } from '@/src/api/client';
 import { Button } from '@/src/components/Button';
@@ -55,12 +54,12 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
   );
 
   const reach = useReach(elements, failText);
-  const drawing = useNetworkDrawing(!!reach.data);
   const serviceNames = useServiceNames();
+  // Site names and households come with the answer (?with=sites): the whole network is never loaded here.
   const names = useMemo<Names>(() => {
-    const sites = new Map((drawing.data?.sites ?? []).map((s) => [s.code, s]));
-    return { site: (c) => sites.get(c)?.name, households: (c) => (sites.has(c) ? (sites.get(c)!.households ?? 0) : undefined), service: (c) => serviceNames.data?.get(c) };
-  }, [drawing.data, serviceNames.data]);
+    const info = reach.data?.siteInfo ?? {};
+    return { site: (c) => info[c]?.name, households: (c) => info[c]?.households, service: (c) => serviceNames.data?.get(c) };
+  }, [reach.data, serviceNames.data]);
 
   const unknown = reach.error && isApiError(reach.error) && reach.error.status === 404 ? unknownFromDetails(reach.error.details) : [];
 
