@@ -15,6 +15,8 @@ import { cachedFeedChecks, currentModel } from './checks';
 
 export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
 export const exposureQuery = z.object({
+  /** with=names: the name of each listed element (site and group names; a feed as "from → to"). */
+  with: z.enum(['names'], { error: 'with is names (or left out)' }).optional(),
   limit: z.coerce.number({ error: 'limit must be a number' }).int('limit is a whole number').min(1, 'limit is at least 1').max(100_000).optional(),
 });
 
@@ -25,6 +27,17 @@ function siteInfoOf(m: ServedNetwork, sites: readonly { site: string }[]): Recor
   for (const { site } of sites) {
     const s = m.sites.get(site);
     if (s) out[site] = { name: s.name, households: s.households ?? 0 };
+  }
+  return out;
+}
+
+/** "kind:code" -> a name a person reads, for the elements listed (so a screen need not load the whole network). */
+function namesOf(m: ServedNetwork, elements: readonly { kind: string; code: string }[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const e of elements) {
+    const f = e.kind === 'feed' ? m.feeds.get(e.code) : undefined;
+    const name = e.kind === 'site' ? m.sites.get(e.code)?.name : e.kind === 'group' ? m.groups.get(e.code)?.name : f ? `${f.from} → ${f.to}` : undefined;
+    if (name) out[`${e.kind}:${e.code}`] = name;
   }
   return out;
 }
@@ -52,8 +65,10 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('get', '/analysis/exposure', can.analyse, async (req, res) => {
-    const { limit } = parseOr400(exposureQuery, req.query, 'query');
-    res.json(currentModel(ctx).engine.exposure(limit));
+    const { limit, with: extra } = parseOr400(exposureQuery, req.query, 'query');
+    const m = currentModel(ctx);
+    const answer = m.engine.exposure(limit);
+    res.json(extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer);
   });
 
   // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md).

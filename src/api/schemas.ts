@@ -172,6 +172,8 @@ export const reachAnswerSchema = z.object({
 export const exposureAnswerSchema = z.object({
   networkVersion: z.number(),
   elements: z.array(z.object({ element: analysisElementSchema, households: z.number(), carriages: z.number() })),
+  /** with=names: "kind:code" -> name of the listed elements */
+  names: z.record(z.string(), z.string()).optional(),
 }) satisfies z.ZodType<analysisTypes.ExposureAnswer>;
 
 const carriagePlaceSchema = { carriage: z.string(), service: z.string(), site: z.string() };

@@ -133,3 +133,29 @@ describe('POST /api/analysis/reach?with=sites', () => {
     expect(bad.body.error.message).toContain('with is sites');
   });
 });
+
+describe('GET /api/analysis/exposure?with=names', () => {
+  it('names each listed element, and answers as before without it', async () => {
+    const plain = await get('/api/analysis/exposure?limit=20');
+    const named = await get('/api/analysis/exposure?limit=20&with=names');
+    expect(named.status).toBe(200);
+    expect(plain.body.names).toBeUndefined();
+    const { names, ...rest } = named.body;
+    expect(rest).toEqual(plain.body);
+    const rows = rest.elements as { element: { kind: string; code: string } }[];
+    expect(rows.length).toBeGreaterThan(0);
+    for (const { element: e } of rows) {
+      const expected =
+        e.kind === 'site'
+          ? demo.sites.find((s) => s.code === e.code)!.name
+          : e.kind === 'group'
+            ? demo.groups.find((g) => g.code === e.code)!.name
+            : (() => {
+                const f = demo.feeds.find((x) => x.code === e.code)!;
+                return `${f.from} → ${f.to}`;
+              })();
+      expect(names[`${e.kind}:${e.code}`], `${e.kind} ${e.code}`).toBe(expected);
+    }
+    expect((await get('/api/analysis/exposure?with=all')).status).toBe(400);
+  });
+});

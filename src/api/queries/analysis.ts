@@ -20,6 +20,8 @@ export const analysisKeys = {
   /** The failure set in canonical form (see src/screens/reach/failSet.ts) keys the answer. */
   reach: (failSet: string) => [api.reach, failSet] as const,
   exposure: (limit?: number) => api.exposure(limit),
+  /** The ranking with its elements' names (?with=names), for screens that label them without loading the whole network. */
+  namedExposure: (limit?: number) => `${api.exposure(limit)}${limit ? '&' : '?'}with=names`,
   diversity: () => api.diversity,
   unfed: () => api.unfed,
   chain: (code: string, direction: 'up' | 'down') => api.chain(code, direction),
@@ -43,8 +45,17 @@ export function useExposure(limit?: number) {
   return useApiQuery(analysisKeys.exposure(limit), exposureAnswerSchema, 'network');
 }
 
-export function useDiversity() {
-  return useApiQuery(analysisKeys.diversity(), diversityAnswerSchema, 'network');
+export function useNamedExposure(limit?: number) {
+  return useApiQuery(analysisKeys.namedExposure(limit), exposureAnswerSchema, 'network');
+}
+
+/**
+ * Diversity gaps: the first `limit` (with the total), or all of them when
+ * `limit` is undefined; `enabled` false waits. A 20,000-site network has
+ * thousands (3 MB), so screens ask for the whole list only when shown.
+ */
+export function useDiversity(limit?: number, enabled = true) {
+  return useApiQuery(enabled ? `${analysisKeys.diversity()}${limit ? `?limit=${limit}` : ''}` : null, diversityAnswerSchema, 'network');
 }
 
 export function useUnfed() {

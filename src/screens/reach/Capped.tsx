@@ -8,6 +8,7 @@ import { useCallback, useMemo, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { formatCount } from '@/shared/format';
 import { Button } from '@/src/components/Button';
+import { LoadingState } from '@/src/components/states';
 import { VirtualList } from '@/src/components/VirtualList';
 import { colors, radius, space } from '@/src/theme';
 
@@ -23,19 +24,38 @@ export interface CappedProps<T> {
   rowHeight?: number;
   /** Test id of the long list (its rows get `<testID>-row`). */
   testID?: string;
+  /** When `items` is only the first page: the length of the whole list, and how to fetch it on "Show all". */
+  total?: number;
+  onShowAll?: () => void;
 }
 
-export function Capped<T>({ items, render, what, first = 20, keyOf, rowHeight, testID }: CappedProps<T>) {
+export function Capped<T>({ items, render, what, first = 20, keyOf, rowHeight, testID, total, onShowAll }: CappedProps<T>) {
   const [all, setAll] = useState(false);
   const indexed = useMemo(() => items.map((item, i) => ({ item, i })), [items]);
   const rowKey = useCallback(({ item, i }: { item: T; i: number }) => (keyOf ? keyOf(item, i) : String(i)), [keyOf]);
   const renderRow = useCallback(({ item }: { item: T }) => render(item), [render]);
-  const more = items.length > first;
+  const whole = Math.max(total ?? 0, items.length);
+  const more = whole > first;
   const toggle = more ? (
     <View style={styles.more}>
-      <Button variant="quiet" label={all ? `Show the first ${first}` : `Show all ${formatCount(items.length)} ${what}`} onPress={() => setAll((a) => !a)} />
+      <Button
+        variant="quiet"
+        label={all ? `Show the first ${first}` : `Show all ${formatCount(whole)} ${what}`}
+        onPress={() => {
+          if (!all) onShowAll?.();
+          setAll((a) => !a);
+        }}
+      />
     </View>
   ) : null;
+  if (all && more && items.length < whole) {
+    return (
+      <View style={styles.gap}>
+        <LoadingState what={`all ${formatCount(whole)} ${what}`} />
+        {toggle}
+      </View>
+    );
+  }
   if (all && more) {
     return (
       <View style={styles.gap}>

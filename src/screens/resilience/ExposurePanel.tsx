@@ -6,7 +6,7 @@
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import { api } from '@/shared/api';
+import { analysisKeys } from '@/src/api/queries/analysis';
 import type { ExposureRow } from '@/shared/schemas/analysis';
 import { useSend } from '@/src/api/ApiProvider';
 import { parseAnswer } from '@/src/api/client';
@@ -34,9 +34,10 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
     setSaid(null);
     try {
       // The file holds the whole ranking, not only the rows on screen.
-      const path = api.exposure();
+      const path = analysisKeys.namedExposure();
       const all = parseAnswer(exposureAnswerSchema, path, await send(path));
-      const csv = exposureCsv(all.elements.map((r, i) => ({ rank: i + 1, element: r.element, name: name(r.element), households: r.households, carriages: r.carriages })));
+      const nameOf = (e: ExposureRow['element']) => all.names?.[`${e.kind}:${e.code}`] ?? name(e);
+      const csv = exposureCsv(all.elements.map((r, i) => ({ rank: i + 1, element: r.element, name: nameOf(r.element), households: r.households, carriages: r.carriages })));
       setSaid(await saveCsv(exposureFileName(all.networkVersion, new Date()), csv));
     } catch (e) {
       setSaid(`Could not export: ${describeError(e)}`);
