@@ -8,6 +8,7 @@
 import type { z } from 'zod';
 import { reachRequestSchema } from '@/shared/schemas/analysis';
 import { checksQuerySchema } from '@/shared/schemas/checks';
+import { pageQuerySchema } from '@/shared/schemas/paging';
 import { ENTITY_KINDS, entitySchemas, networkDocumentSchema, versionSchema } from '@/shared/schemas/network';
 import { invitationSchema, personChangeSchema } from '@/shared/schemas/people';
 import { chainQuery, exposureQuery } from '../routes/analysis';
@@ -77,8 +78,8 @@ export const routeDocs: Record<string, RouteDoc> = {
   'post /api/analysis/reach': { summary: 'What a set of failures takes off air, and for how many households', body: reachRequestSchema },
   'get /api/analysis/spof': { summary: 'Single points of failure of every fed carriage' },
   'get /api/analysis/exposure': { summary: 'Elements ranked by the households their failure alone takes off air', query: exposureQuery },
-  'get /api/analysis/diversity': { summary: 'Carriages whose reserve feed still shares an avoidable single point of failure' },
-  'get /api/analysis/unfed': { summary: 'Carriages with no programme even when nothing has failed' },
+  'get /api/analysis/diversity': { summary: 'Carriages whose reserve feed still shares an avoidable single point of failure (limit/offset page it; total always)', query: pageQuerySchema },
+  'get /api/analysis/unfed': { summary: 'Carriages with no programme even when nothing has failed (limit/offset page it; total always)', query: pageQuerySchema },
   'get /api/carriages/:code/chain': { summary: 'The chain of feeds above (up) or below (down) a carriage', query: chainQuery },
   'get /api/feeds/:code/checks': { summary: "Engineering screening of one feed (see docs/checks.md)" },
   'get /api/checks': { summary: "Every feed's failed checks, worst first", query: checksQuerySchema },

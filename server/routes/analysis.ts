@@ -1,20 +1,46 @@
 /** The analysis API over the in-memory graphs (docs/api.md). */
 import { z } from 'zod';
 import { can } from '@/shared/api';
-import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning } from '@/shared/schemas/analysis';
+import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning, type SiteInfo } from '@/shared/schemas/analysis';
+import { pageQuerySchema, pageRows } from '@/shared/schemas/paging';
 import { ApiError, badRequest, conflict, notFound, parseOr400 } from '../http/errors';
 import { actorOf, settled } from './inventory';
 import { createEntities } from '../services/inventory/write';
 import { findPlan, forgetPlan, makePlan, pairsState } from '../services/planner';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
+import type { ServedNetwork } from '../services/servedNetwork';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { cachedFeedChecks, currentModel } from './checks';
 
 export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
 export const exposureQuery = z.object({
+  /** with=names: the name of each listed element (site and group names; a feed as "from → to"). */
+  with: z.enum(['names'], { error: 'with is names (or left out)' }).optional(),
   limit: z.coerce.number({ error: 'limit must be a number' }).int('limit is a whole number').min(1, 'limit is at least 1').max(100_000).optional(),
 });
+
+export const reachQuerySchema = z.strictObject({ with: z.enum(['sites'], { error: 'with is sites (or left out)' }).optional() });
+
+function siteInfoOf(m: ServedNetwork, sites: readonly { site: string }[]): Record<string, SiteInfo> {
+  const out: Record<string, SiteInfo> = {};
+  for (const { site } of sites) {
+    const s = m.sites.get(site);
+    if (s) out[site] = { name: s.name, households: s.households ?? 0 };
+  }
+  return out;
+}
+
+/** "kind:code" -> a name a person reads, for the elements listed (so a screen need not load the whole network). */
+function namesOf(m: ServedNetwork, elements: readonly { kind: string; code: string }[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const e of elements) {
+    const f = e.kind === 'feed' ? m.feeds.get(e.code) : undefined;
+    const name = e.kind === 'site' ? m.sites.get(e.code)?.name : e.kind === 'group' ? m.groups.get(e.code)?.name : f ? `${f.from} → ${f.to}` : undefined;
+    if (name) out[`${e.kind}:${e.code}`] = name;
+  }
+  return out;
+}
 
 export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('post', '/analysis/reach', can.analyse, async (req, res) => {
@@ -22,9 +48,12 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
       throw badRequest('body: send { "failed": [{ "kind": "site"|"feed"|"group", "code": "..." }] }');
     }
     const { failed } = parseOr400(reachRequestSchema, req.body);
+    const { with: extra } = parseOr400(reachQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     try {
-      res.json(m.engine.reach(failed));
+      const answer = m.engine.reach(failed);
+      // ?with=sites: the name and households of each site in the answer, so a phone need not load the whole network to label them.
+      res.json(extra === 'sites' ? { ...answer, siteInfo: siteInfoOf(m, answer.sites) } : answer);
     } catch (e) {
       if (e instanceof UnknownElementsError) throw notFound(e.message, { unknown: e.elements });
       throw e;
@@ -36,16 +65,25 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('get', '/analysis/exposure', can.analyse, async (req, res) => {
-    const { limit } = parseOr400(exposureQuery, req.query, 'query');
-    res.json(currentModel(ctx).engine.exposure(limit));
+    const { limit, with: extra } = parseOr400(exposureQuery, req.query, 'query');
+    const m = currentModel(ctx);
+    const answer = m.engine.exposure(limit);
+    res.json(extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer);
   });
 
-  routes.add('get', '/analysis/diversity', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.diversity());
+  // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md).
+  routes.add('get', '/analysis/diversity', can.analyse, async (req, res) => {
+    const page = parseOr400(pageQuerySchema, req.query, 'query');
+    const answer = currentModel(ctx).engine.diversity();
+    const { rows, total, offset } = pageRows(answer.carriages, page);
+    res.json({ ...answer, carriages: rows, total, offset });
   });
 
-  routes.add('get', '/analysis/unfed', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.unfed());
+  routes.add('get', '/analysis/unfed', can.analyse, async (req, res) => {
+    const page = parseOr400(pageQuerySchema, req.query, 'query');
+    const answer = currentModel(ctx).engine.unfed();
+    const { rows, total, offset } = pageRows(answer.carriages, page);
+    res.json({ ...answer, carriages: rows, total, offset });
   });
 
   routes.add('get', '/analysis/proposals', can.analyse, async (req, res) => {

@@ -2,6 +2,7 @@
 import { can } from '@/shared/api';
 import { checksQuerySchema, type ChecksListAnswer, type FeedChecksAnswer } from '@/shared/schemas/checks';
 import { checksForFeed, CheckInputError, networkCheckFailures } from '../checks/networkChecks';
+import { pageRows } from '@/shared/schemas/paging';
 import { ApiError, notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
@@ -45,10 +46,13 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('get', '/checks', can.read, async (req, res) => {
-    const { severity = 'warning' } = parseOr400(checksQuerySchema, req.query, 'query');
+    const { severity = 'warning', check, ...page } = parseOr400(checksQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     const c = cacheOf(m);
     c.failures ??= networkCheckFailures(m.document, { severity: 'warning', networkVersion: m.networkVersion });
-    res.json(severity === 'warning' ? c.failures : { ...c.failures, failures: c.failures.failures.filter((f) => f.severity === 'error') });
+    const all = c.failures.failures;
+    const wanted = severity === 'warning' && !check ? all : all.filter((f) => (severity === 'warning' || f.severity === 'error') && (!check || check.includes(f.check.name)));
+    const { rows, total, offset } = pageRows(wanted, page);
+    res.json({ ...c.failures, failures: rows, total, offset });
   });
 }

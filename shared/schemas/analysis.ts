@@ -26,6 +26,12 @@ export interface ReachAnswer {
   sites: { site: string; lost: string[]; fallback?: string[] }[];
 }
 
+/** `POST /api/analysis/reach?with=sites` adds `siteInfo`: each listed site's name and households. */
+export interface SiteInfo {
+  name: string;
+  households: number;
+}
+
 export interface SpofAnswer {
   networkVersion: number;
   carriages: { carriage: string; spof: Element[] }[];

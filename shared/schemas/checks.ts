@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 import type { Medium } from './network';
+import { pageQueryShape } from './paging';
 
 export const CHECK_NAMES = [
   'free-space-loss',
@@ -71,6 +72,14 @@ export type CheckSeverity = (typeof CHECK_SEVERITIES)[number];
  */
 export const checksQuerySchema = z.strictObject({
   severity: z.enum(CHECK_SEVERITIES, { error: 'severity is one of warning, error' }).optional(),
+  /** kinds of check to list (comma-separated); all when absent */
+  check: z
+    .string({ error: 'check is a comma-separated list of check names' })
+    .max(400, 'check is a comma-separated list of check names')
+    .transform((v) => v.split(',').map((k) => k.trim()))
+    .pipe(z.array(z.enum(CHECK_NAMES, { error: `check is a comma-separated list of: ${CHECK_NAMES.join(', ')}` })))
+    .optional(),
+  ...pageQueryShape,
 });
 
 export interface CheckFailure {
@@ -104,4 +113,7 @@ export interface CheckFailure {
 export interface ChecksListAnswer {
   networkVersion?: number;
   failures: CheckFailure[];
+  /** failures in the whole filtered list (this page may hold fewer) */
+  total?: number;
+  offset?: number;
 }

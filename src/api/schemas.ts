@@ -170,22 +170,29 @@ export const reachAnswerSchema = z.object({
   households: z.object({ lost: z.number(), fallback: z.number() }),
   byService: z.array(z.object({ service: z.string(), lost: z.number(), fallback: z.number() })),
   sites: z.array(z.object({ site: z.string(), lost: z.array(z.string()), fallback: z.array(z.string()).optional() })),
+  siteInfo: z.record(z.string(), z.object({ name: z.string(), households: z.number() })).optional(),
 }) satisfies z.ZodType<analysisTypes.ReachAnswer>;
 
 export const exposureAnswerSchema = z.object({
   networkVersion: z.number(),
   elements: z.array(z.object({ element: analysisElementSchema, households: z.number(), carriages: z.number() })),
+  /** with=names: "kind:code" -> name of the listed elements */
+  names: z.record(z.string(), z.string()).optional(),
 }) satisfies z.ZodType<analysisTypes.ExposureAnswer>;
 
 const carriagePlaceSchema = { carriage: z.string(), service: z.string(), site: z.string() };
 export const diversityAnswerSchema = z.object({
   networkVersion: z.number(),
   carriages: z.array(z.object({ ...carriagePlaceSchema, spof: z.array(analysisElementSchema), avoidable: z.array(analysisElementSchema) })),
+  total: z.number().optional(),
+  offset: z.number().optional(),
 }) satisfies z.ZodType<analysisTypes.DiversityAnswer>;
 
 export const unfedAnswerSchema = z.object({
   networkVersion: z.number(),
   carriages: z.array(z.object(carriagePlaceSchema)),
+  total: z.number().optional(),
+  offset: z.number().optional(),
 }) satisfies z.ZodType<analysisTypes.UnfedAnswer>;
 
 export const chainNodeSchema: z.ZodType<analysisTypes.ChainNode> = z.lazy(() =>
@@ -287,6 +294,8 @@ export const checkFailureSchema = z.object({
 export const checksListAnswerSchema = z.object({
   networkVersion: z.union([z.number(), z.string()]).optional(),
   failures: z.array(checkFailureSchema),
+  total: z.number().optional(),
+  offset: z.number().optional(),
 });
 export type ChecksListReply = z.infer<typeof checksListAnswerSchema>;
 

@@ -25,6 +25,8 @@ export const analysisKeys = {
   /** The failure set in canonical form (see src/screens/reach/failSet.ts) keys the answer. */
   reach: (failSet: string) => [api.reach, failSet] as const,
   exposure: (limit?: number) => api.exposure(limit),
+  /** The ranking with its elements' names (?with=names), for screens that label them without loading the whole network. */
+  namedExposure: (limit?: number) => `${api.exposure(limit)}${limit ? '&' : '?'}with=names`,
   diversity: () => api.diversity,
   unfed: () => api.unfed,
   chain: (code: string, direction: 'up' | 'down') => api.chain(code, direction),
@@ -53,7 +55,8 @@ export function useReach(failed: readonly Element[], failSet: string) {
       const fromCopy = async (c: OfflineCopy) => ({ ...(await localReach(c, failed)), offlineCopy: { fetchedAt: c.fetchedAt } });
       if (stored && browserOffline()) return fromCopy(stored);
       try {
-        return parseAnswer(reachAnswerSchema, api.reach, await send(api.reach, { method: 'POST', body: { failed } }));
+        // with=sites: names and households of the sites listed, without loading the whole network.
+        return parseAnswer(reachAnswerSchema, api.reach, await send(`${api.reach}?with=sites`, { method: 'POST', body: { failed } }));
       } catch (e) {
         if (stored && isApiError(e) && e.code === 'network') return fromCopy(stored);
         throw e;
@@ -67,8 +70,17 @@ export function useExposure(limit?: number) {
   return useApiQuery(analysisKeys.exposure(limit), exposureAnswerSchema, 'network');
 }
 
-export function useDiversity() {
-  return useApiQuery(analysisKeys.diversity(), diversityAnswerSchema, 'network');
+export function useNamedExposure(limit?: number) {
+  return useApiQuery(analysisKeys.namedExposure(limit), exposureAnswerSchema, 'network');
+}
+
+/**
+ * Diversity gaps: the first `limit` (with the total), or all of them when
+ * `limit` is undefined; `enabled` false waits. A 20,000-site network has
+ * thousands (3 MB), so screens ask for the whole list only when shown.
+ */
+export function useDiversity(limit?: number, enabled = true) {
+  return useApiQuery(enabled ? `${analysisKeys.diversity()}${limit ? `?limit=${limit}` : ''}` : null, diversityAnswerSchema, 'network');
 }
 
 export function useUnfed() {

@@ -19,7 +19,10 @@ import { useMemo, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
 import Svg, { Path } from 'react-native-svg';
 import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';
+import { useBreakpoints } from '@/src/hooks/useBreakpoints';
+import { VirtualList } from '../VirtualList';
 import { webAria } from '../webAria';
+import { DataCards } from './DataCards';
 import { nextSort, sortRows, type Sortable, type SortState } from './sortRows';
 
 export interface DataColumn<Row> {
@@ -54,9 +57,21 @@ export interface DataTableProps<Row> {
   rowLabel?: (row: Row) => string;
   emptyText?: string;
   testID?: string;
+  /**
+   * Render only the body rows on screen, in a scrolling box under the header
+   * (for tables of hundreds of rows and more). Its rows get `<testID>-body-row`.
+   */
+  virtual?: boolean;
+  /**
+   * On a phone, one card per row instead of columns that would sit off-screen:
+   * the `lead` column's figure first and large, then every other column as
+   * "label: value", so every number stays on screen. `hide` leaves out
+   * columns the title already says.
+   */
+  cardsOnPhone?: { lead: string; title: (row: Row) => string; hide?: string[] };
 }
 
-function display<Row>(col: DataColumn<Row>, row: Row): string {
+export function display<Row>(col: DataColumn<Row>, row: Row): string {
   const v = col.value(row);
   if (col.format) return col.format(v, row);
   if (v === null || v === undefined || v === '') return '—';
@@ -73,7 +88,9 @@ function Caret({ direction }: { direction: 'asc' | 'desc' | null }) {
   );
 }
 
-export function DataTable<Row>({ caption, columns, rows, rowKey, initialSort, onRowPress, rowLabel, emptyText = 'Nothing to list.', testID }: DataTableProps<Row>) {
+export function DataTable<Row>(props: DataTableProps<Row>) {
+  const { caption, columns, rows, rowKey, initialSort, onRowPress, rowLabel, emptyText = 'Nothing to list.', testID, virtual, cardsOnPhone } = props;
+  const { wide } = useBreakpoints();
   const [sort, setSort] = useState<SortState | null>(initialSort ?? null);
   const sorted = useMemo(() => {
     const col = sort && columns.find((c) => c.key === sort.column);
@@ -82,6 +99,39 @@ export function DataTable<Row>({ caption, columns, rows, rowKey, initialSort, on
 
   const widthOf = (c: DataColumn<Row>) => c.width ?? (c.numeric ? 110 : 140);
   const minWidth = columns.reduce((sum, c) => sum + widthOf(c), 0);
+
+  if (cardsOnPhone && !wide) {
+    return <DataCards {...props} rows={sorted} cards={cardsOnPhone} display={display} />;
+  }
+
+  const bodyRow = (row: Row) => {
+    const cells = columns.map((c) => (
+      <View key={c.key} style={[styles.cell, { flexBasis: widthOf(c), minWidth: widthOf(c) }]} role="cell">
+        {c.render ? (
+          c.render(row)
+        ) : (
+          <Text style={[styles.cellText, (c.mono || c.numeric) && styles.mono, c.numeric && styles.right]}>{display(c, row)}</Text>
+        )}
+      </View>
+    ));
+    const key = rowKey(row);
+    return onRowPress ? (
+      <Pressable
+        key={key}
+        role="row"
+        accessibilityRole="button"
+        accessibilityLabel={rowLabel ? rowLabel(row) : display(columns[0], row)}
+        onPress={() => onRowPress(row)}
+        style={({ pressed }) => [styles.row, styles.bodyRow, pressed && styles.pressed]}
+      >
+        {cells}
+      </Pressable>
+    ) : (
+      <View key={key} style={[styles.row, styles.bodyRow]} role="row">
+        {cells}
+      </View>
+    );
+  };
 
   return (
     <ScrollView horizontal contentContainerStyle={styles.scroller} testID={testID}>
@@ -118,34 +168,11 @@ export function DataTable<Row>({ caption, columns, rows, rowKey, initialSort, on
         {sorted.length === 0 ? (
           <Text style={styles.empty}>{emptyText}</Text>
         ) : (
-          sorted.map((row) => {
-            const cells = columns.map((c) => (
-              <View key={c.key} style={[styles.cell, { flexBasis: widthOf(c), minWidth: widthOf(c) }]} role="cell">
-                {c.render ? (
-                  c.render(row)
-                ) : (
-                  <Text style={[styles.cellText, (c.mono || c.numeric) && styles.mono, c.numeric && styles.right]}>{display(c, row)}</Text>
-                )}
-              </View>
-            ));
-            const key = rowKey(row);
-            return onRowPress ? (
-              <Pressable
-                key={key}
-                role="row"
-                accessibilityRole="button"
-                accessibilityLabel={rowLabel ? rowLabel(row) : display(columns[0], row)}
-                onPress={() => onRowPress(row)}
-                style={({ pressed }) => [styles.row, styles.bodyRow, pressed && styles.pressed]}
-              >
-                {cells}
-              </Pressable>
-            ) : (
-              <View key={key} style={[styles.row, styles.bodyRow]} role="row">
-                {cells}
-              </View>
-            );
-          })
+          virtual ? (
+            <VirtualList data={sorted} keyOf={rowKey} renderRow={bodyRow} framed={false} label={caption} testID={testID ? `${testID}-body` : undefined} />
+          ) : (
+            sorted.map(bodyRow)
+          )
         )}
       </View>
     </ScrollView>

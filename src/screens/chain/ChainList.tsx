@@ -5,11 +5,13 @@
  * shows the shape; this says it all in words (and is what a screen reader uses).
  */
 import { Link } from 'expo-router';
+import { useCallback } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { FeedSwatch } from '@/src/components/charts/FeedSwatch';
 import { feedWords } from '@/src/components/charts/feedStyle';
 import { formatKm } from '@/shared/format';
 import { StatusShape } from '@/src/components/StatusShape';
+import { VirtualList } from '@/src/components/VirtualList';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { nodeNotes, type ChainItem } from './chainLayout';
 
@@ -77,19 +79,19 @@ function Hop({ item, direction, onFold, isRoot }: { item: ChainItem; direction: 
   );
 }
 
+/**
+ * Every shown hop in a scrolling box that renders only the hops on screen: an
+ * origin's downstream tree holds thousands of carriages.
+ */
 export function ChainList({ items, direction, onFold }: { items: ChainItem[]; direction: 'up' | 'down'; onFold: (id: string) => void }) {
-  return (
-    <View style={styles.list} testID="chain-list">
-      {items.map((it) => (
-        <Hop key={it.id} item={it} direction={direction} onFold={onFold} isRoot={it.depth === 0} />
-      ))}
-    </View>
-  );
+  const renderHop = useCallback((it: ChainItem) => <Hop item={it} direction={direction} onFold={onFold} isRoot={it.depth === 0} />, [direction, onFold]);
+  return <VirtualList data={items} keyOf={itemKey} renderRow={renderHop} estimatedRowHeight={110} label="The chain, hop by hop" testID="chain-list" />;
 }
 
+const itemKey = (it: ChainItem) => it.id;
+
 const styles = StyleSheet.create({
-  list: { gap: space.xs },
-  hop: { gap: space.xs, borderLeftWidth: 2, borderLeftColor: colors.line, paddingLeft: space.sm, paddingVertical: space.xs },
+  hop: { gap: space.xs, marginVertical: space.xxs, marginRight: space.xs, borderLeftWidth: 2, borderLeftColor: colors.line, paddingLeft: space.sm, paddingVertical: space.xs },
   via: { flexDirection: 'row', gap: space.sm, alignItems: 'flex-start' },
   viaTexts: { flex: 1, gap: space.xxs },
   viaText: { ...type.small, color: colors.ink },

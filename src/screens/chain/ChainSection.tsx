@@ -4,7 +4,8 @@
  * legend one tap away, and the hop-by-hop list. Big trees open folded.
  */
 import { useRouter } from 'expo-router';
-import { useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
+import { countOf, formatCount } from '@/shared/format';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 import Svg, { Path, Rect } from 'react-native-svg';
 import type { ChainNode } from '@/shared/schemas/analysis';
@@ -17,12 +18,15 @@ import { ErrorState, LoadingState } from '@/src/components/states';
 import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { colors, radius, space, type } from '@/src/theme';
 import { ChainList } from './ChainList';
-import { DEFAULT_SIZES, flattenChain, initialFolds, layoutChain, toggleFold, type LayoutSizes } from './chainLayout';
+import { DEFAULT_SIZES, flattenChain, foldsToLevel, initialFolds, layoutChain, levelCounts, toggleFold, type LayoutSizes } from './chainLayout';
+import { ChainLevels } from './ChainLevels';
 import { ChainTree } from './ChainTree';
 
 const ZOOMS = [0.5, 0.75, 1, 1.25] as const;
 /** Past this many carriages, unfolding everything at once would draw more than anyone can read; fold by fold still works. */
 const MAX_UNFOLD_ALL = 300;
+/** The drawing holds at most this many boxes; past it the hop-by-hop list (which renders only what is on screen) carries the tree. */
+const MAX_DRAWN = 150;
 
 const box = (extra: React.ReactNode) => (
   <Svg width={40} height={22} aria-hidden accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
@@ -57,16 +61,19 @@ export function ChainSection({ code, direction }: { code: string; direction: 'up
   }, [root, wide]);
 
   const sizes: LayoutSizes = wide ? { ...DEFAULT_SIZES, boxWidth: 220, gap: 190 } : { ...DEFAULT_SIZES, gap: 170 };
-  const layout = useMemo(() => (root ? layoutChain(root, folded, sizes) : null), [root, folded, sizes.boxWidth, sizes.gap]); // eslint-disable-line react-hooks/exhaustive-deps
   const items = useMemo(() => (root ? flattenChain(root, folded) : []), [root, folded]);
+  const drawn = items.length <= MAX_DRAWN;
+  const layout = useMemo(() => (root && drawn ? layoutChain(root, folded, sizes) : null), [root, folded, drawn, sizes.boxWidth, sizes.gap]); // eslint-disable-line react-hooks/exhaustive-deps
+  const levels = useMemo(() => (root ? levelCounts(root) : []), [root]);
 
   const setDirection = (d: 'up' | 'down') => router.setParams({ direction: d });
-  const onFold = (id: string) => setFolded((f) => toggleFold(f, id));
+  const onFold = useCallback((id: string) => setFolded((f) => toggleFold(f, id)), []);
+  const openTo = useCallback((depth: number) => root && setFolded(foldsToLevel(root, depth)), [root]);
   const onOpen = (carriage: string) => router.push(`/carriages/${encodeURIComponent(carriage)}?direction=${direction}`);
 
   let body: React.ReactNode;
   if (chain.error && !chain.data) body = <ErrorState what={`the ${direction === 'up' ? 'upstream' : 'downstream'} chain`} error={chain.error} onRetry={() => void chain.mutate()} testID="chain-error" />;
-  else if (!root || !layout) body = <LoadingState what="the chain" testID="chain-loading" />;
+  else if (!root) body = <LoadingState what="the chain" testID="chain-loading" />;
   else {
     const total = countNodes(root);
     const word = direction === 'up' ? 'upstream' : 'downstream';
@@ -77,23 +84,30 @@ export function ChainSection({ code, direction }: { code: string; direction: 'up
             ? `${code} is at an origin: programme enters the network here.`
             : `${code} has no feed coming in: a dead end.`
           : `${code} feeds no other carriage.`
-        : `The ${word} chain of ${code}: ${total} carriage${total === 1 ? '' : 's'}${total > items.length ? `, ${items.length} shown and ${total - items.length} folded away` : ''}.`;
+        : `The ${word} chain of ${code}: ${countOf(total, 'carriage')}${total > items.length ? `, ${formatCount(items.length)} shown and ${formatCount(total - items.length)} folded away` : ''}.`;
     body = (
       <>
         <Text style={styles.summary} testID="chain-summary">
           {summary}
         </Text>
         <View style={styles.tools}>
-          <Button label="Smaller" variant="secondary" disabled={zoom === 0} onPress={() => setZoom((z) => Math.max(0, z - 1))} />
-          <Button label="Larger" variant="secondary" disabled={zoom === ZOOMS.length - 1} onPress={() => setZoom((z) => Math.min(ZOOMS.length - 1, z + 1))} />
+          <Button label="Smaller" variant="secondary" disabled={zoom === 0 || !layout} onPress={() => setZoom((z) => Math.max(0, z - 1))} />
+          <Button label="Larger" variant="secondary" disabled={zoom === ZOOMS.length - 1 || !layout} onPress={() => setZoom((z) => Math.min(ZOOMS.length - 1, z + 1))} />
           <Button label={legend ? 'Hide legend' : 'Legend'} variant="quiet" onPress={() => setLegend((l) => !l)} testID="chain-legend-toggle" />
           {folded.size > 0 && total <= MAX_UNFOLD_ALL ? <Button label="Unfold all" variant="quiet" onPress={() => setFolded(new Set())} /> : null}
         </View>
         {legend ? <FeedLegend marks={NODE_MARKS} testID="chain-legend" /> : null}
-        <ScrollView horizontal focusable accessibilityLabel="Chain drawing (scrolls sideways)" style={styles.scroller} contentContainerStyle={styles.scrollContent} testID="chain-scroller">
-          <ChainTree layout={layout} sizes={sizes} direction={direction} zoom={ZOOMS[zoom]} summary={summary} onOpen={onOpen} onFold={onFold} />
-        </ScrollView>
-        <Text style={styles.hint}>Press a box to walk the chain from that carriage; the round button folds or unfolds what hangs from it. Warnings come from the feed screening checks.</Text>
+        {levels.length > 2 ? <ChainLevels levels={levels} onOpenTo={openTo} /> : null}
+        {layout ? (
+          <>
+            <ScrollView horizontal focusable accessibilityLabel="Chain drawing (scrolls sideways)" style={styles.scroller} contentContainerStyle={styles.scrollContent} testID="chain-scroller">
+              <ChainTree layout={layout} sizes={sizes} direction={direction} zoom={ZOOMS[zoom]} summary={summary} onOpen={onOpen} onFold={onFold} />
+            </ScrollView>
+            <Text style={styles.hint}>Press a box to walk the chain from that carriage; the round button folds or unfolds what hangs from it. Warnings come from the feed screening checks.</Text>
+          </>
+        ) : (
+          <Text style={styles.hint} testID="chain-not-drawn">{`${formatCount(items.length)} carriages are unfolded: more than the drawing holds (${MAX_DRAWN}). The list below has every one of them; fold some, or open fewer hops, to draw the tree.`}</Text>
+        )}
         <Section title="Hop by hop" testID="chain-hops">
           <ChainList items={items} direction={direction} onFold={onFold} />
         </Section>

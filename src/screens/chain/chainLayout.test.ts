@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { ChainNode } from '@/shared/schemas/analysis';
-import { DEFAULT_SIZES, flattenChain, initialFolds, layoutChain, nodeNotes, ROOT_ID, toggleFold } from './chainLayout';
+import { DEFAULT_SIZES, flattenChain, foldsToLevel, initialFolds, layoutChain, levelCounts, nodeNotes, ROOT_ID, toggleFold } from './chainLayout';
 
 const node = (carriage: string, children: ChainNode[] = [], extra: Partial<ChainNode> = {}): ChainNode => ({
   carriage,
@@ -117,5 +117,30 @@ describe('nodeNotes', () => {
     ]);
     expect(nodeNotes(node('D', [], { deadEnd: true }), 'up')[0]).toMatch(/^dead end/);
     expect(nodeNotes(node('P', [], { repeated: true }), 'down')[0]).toMatch(/what it feeds/);
+  });
+});
+
+describe('levels', () => {
+  // 1 + 3 + 6 + 6 nodes: a root, three children with two children each, each of those with one.
+  const tree = node('R', Array.from({ length: 3 }, (_, i) => node(`A${i}`, Array.from({ length: 2 }, (_, j) => node(`B${i}${j}`, [node(`C${i}${j}`)])))));
+
+  it('counts the carriages at each depth', () => {
+    expect(levelCounts(tree)).toEqual([1, 3, 6, 6]);
+    expect(levelCounts(node('alone'))).toEqual([1]);
+  });
+
+  it('opens the tree down to a level and folds what lies below it, with the hidden counts', () => {
+    expect(flattenChain(tree, foldsToLevel(tree, 0)).map((i) => i.hiddenCount)).toEqual([15]);
+    const two = flattenChain(tree, foldsToLevel(tree, 1));
+    expect(two).toHaveLength(4);
+    expect(two.slice(1).map((i) => [i.folded, i.hiddenCount])).toEqual([
+      [true, 4],
+      [true, 4],
+      [true, 4],
+    ]);
+    expect(flattenChain(tree, foldsToLevel(tree, 2))).toHaveLength(10);
+    // Past the deepest level nothing is folded: every node shows.
+    expect(foldsToLevel(tree, 3).size).toBe(0);
+    expect(flattenChain(tree, foldsToLevel(tree, 9))).toHaveLength(16);
   });
 });

@@ -167,3 +167,29 @@ export function nodeNotes(node: ChainNode, direction: 'up' | 'down'): string[] {
   if (node.repeated) notes.push(direction === 'up' ? 'shown once: its own feeds are drawn where it first appears' : 'shown once: what it feeds is drawn where it first appears');
   return notes;
 }
+
+/** How many carriages sit at each depth of the tree: [1, children of the root, their children, ...]. */
+export function levelCounts(root: ChainNode): number[] {
+  const counts: number[] = [];
+  let level: ChainNode[] = [root];
+  while (level.length > 0) {
+    counts.push(level.length);
+    level = level.flatMap((n) => n.children);
+  }
+  return counts;
+}
+
+/** Folds that open every node above `depth` and fold the nodes at `depth`: the tree shown down to that level, with counts below. */
+export function foldsToLevel(root: ChainNode, depth: number): Set<string> {
+  const folded = new Set<string>();
+  const walk = (node: ChainNode, id: string, d: number) => {
+    if (node.children.length === 0) return;
+    if (d >= depth) {
+      folded.add(id);
+      return;
+    }
+    node.children.forEach((c, i) => walk(c, childId(id, i), d + 1));
+  };
+  walk(root, ROOT_ID, 0);
+  return folded;
+}

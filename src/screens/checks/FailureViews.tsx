@@ -7,6 +7,7 @@ import { Link, type Href } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import type { CheckFailure } from '@/shared/schemas/checks';
 import { DataTable } from '@/src/components/DataTable/DataTable';
+import { VirtualList } from '@/src/components/VirtualList';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { CHECK_SHORT, CHECK_TITLES, SEVERITY_WORDS } from './checkWords';
 import { marginWords, valueAgainstLimit } from './failureList';
@@ -28,40 +29,43 @@ function Severity({ f }: { f: CheckFailure }) {
   return <StateTag words={s.words} shape={s.shape} tone={s.tone} />;
 }
 
-export function FailureCards({ failures }: { failures: readonly CheckFailure[] }) {
+function FailureCard({ f }: { f: CheckFailure }) {
   return (
-    <View style={styles.cards} role="list" aria-label="Failing checks, worst first">
-      {failures.map((f) => (
-        <View key={failureKey(f)} style={[styles.card, f.severity === 'error' ? styles.cardError : styles.cardWarning]} role="listitem" testID={`failure-${failureKey(f)}`}>
-          <View style={styles.cardHead}>
-            <Severity f={f} />
-            <Text style={styles.checkName}>{CHECK_TITLES[f.check.name]}</Text>
-          </View>
-          <View style={styles.feedLine}>
-            <Text style={styles.key}>Feed</Text>
-            <FeedLink code={f.feed} />
-          </View>
-          <Text style={styles.route}>
-            <Text style={styles.code}>{f.from}</Text>
-            {' → '}
-            <Text style={styles.code}>{f.to}</Text>
-            {`  ·  ${f.medium}`}
-          </Text>
-          <Text style={styles.figures}>
-            <Text style={styles.key}>Value </Text>
-            {valueAgainstLimit(f)}
-          </Text>
-          <Text style={styles.figures}>
-            <Text style={styles.key}>Margin </Text>
-            {marginWords(f)}
-          </Text>
-          <Text style={styles.note} selectable>
-            {f.check.note}
-          </Text>
-        </View>
-      ))}
+    <View style={[styles.card, f.severity === 'error' ? styles.cardError : styles.cardWarning]} testID={`failure-${failureKey(f)}`}>
+      <View style={styles.cardHead}>
+        <Severity f={f} />
+        <Text style={styles.checkName}>{CHECK_TITLES[f.check.name]}</Text>
+      </View>
+      <View style={styles.feedLine}>
+        <Text style={styles.key}>Feed</Text>
+        <FeedLink code={f.feed} />
+      </View>
+      <Text style={styles.route}>
+        <Text style={styles.code}>{f.from}</Text>
+        {' → '}
+        <Text style={styles.code}>{f.to}</Text>
+        {`  ·  ${f.medium}`}
+      </Text>
+      <Text style={styles.figures}>
+        <Text style={styles.key}>Value </Text>
+        {valueAgainstLimit(f)}
+      </Text>
+      <Text style={styles.figures}>
+        <Text style={styles.key}>Margin </Text>
+        {marginWords(f)}
+      </Text>
+      <Text style={styles.note} selectable>
+        {f.check.note}
+      </Text>
     </View>
   );
+}
+
+const renderCard = (f: CheckFailure) => <FailureCard f={f} />;
+
+/** Thousands of failures on a big network: only the cards on screen are rendered. */
+export function FailureCards({ failures, onEndReached, footer }: { failures: readonly CheckFailure[]; onEndReached?: () => void; footer?: React.ReactElement | null }) {
+  return <VirtualList data={failures} keyOf={failureKey} renderRow={renderCard} estimatedRowHeight={230} label="Failing checks, worst first" testID="failing-checks-list" framed={false} onEndReached={onEndReached} footer={footer} />;
 }
 
 export function FailureTable({ failures }: { failures: readonly CheckFailure[] }) {
@@ -71,6 +75,7 @@ export function FailureTable({ failures }: { failures: readonly CheckFailure[] }
       rows={failures}
       rowKey={failureKey}
       testID="failures-table"
+      virtual
       columns={[
         { key: 'severity', label: 'Severity', width: 130, value: (f) => (f.severity === 'error' ? 0 : 1), render: (f) => <Severity f={f} /> },
         { key: 'feed', label: 'Feed', width: 170, value: (f) => f.feed, render: (f) => <FeedLink code={f.feed} /> },
@@ -84,8 +89,7 @@ export function FailureTable({ failures }: { failures: readonly CheckFailure[] }
 }
 
 const styles = StyleSheet.create({
-  cards: { gap: space.sm },
-  card: { backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, borderLeftWidth: 6, borderRadius: radius.lg, padding: space.md, gap: space.xs },
+  card: { marginBottom: space.sm, backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, borderLeftWidth: 6, borderRadius: radius.lg, padding: space.md, gap: space.xs },
   cardError: { borderLeftColor: colors.bad },
   cardWarning: { borderLeftColor: colors.warn },
   cardHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },

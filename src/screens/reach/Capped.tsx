@@ -1,25 +1,86 @@
-/** A framed list that shows its first rows and a button for the rest, so a long answer does not bury what follows it. */
-import { useState, type ReactNode } from 'react';
+/**
+ * A framed list that shows its first rows and a button for the rest, so a
+ * long answer does not bury what follows it. "Show all" opens the whole list
+ * in its own scrolling box that renders only the rows on screen
+ * (src/components/VirtualList), so thousands of rows open at once.
+ */
+import { useCallback, useMemo, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { formatCount } from '@/shared/format';
 import { Button } from '@/src/components/Button';
+import { LoadingState } from '@/src/components/states';
+import { VirtualList } from '@/src/components/VirtualList';
 import { colors, radius, space } from '@/src/theme';
 
-export function Capped<T>({ items, render, what, first = 20 }: { items: readonly T[]; render: (item: T) => ReactNode; what: string; first?: number }) {
+export interface CappedProps<T> {
+  items: readonly T[];
+  render: (item: T) => ReactNode;
+  /** What the rows are, plural ("sites"): the button and the list's name use it. */
+  what: string;
+  first?: number;
+  /** The key of a row (default: the rendered element's own key is not enough for the long list). */
+  keyOf?: (item: T, index: number) => string;
+  /** Fixed row height in px when every row has it (faster scrolling). */
+  rowHeight?: number;
+  /** Test id of the long list (its rows get `<testID>-row`). */
+  testID?: string;
+  /** When `items` is only the first page: the length of the whole list, and how to fetch it on "Show all". */
+  total?: number;
+  onShowAll?: () => void;
+}
+
+export function Capped<T>({ items, render, what, first = 20, keyOf, rowHeight, testID, total, onShowAll }: CappedProps<T>) {
   const [all, setAll] = useState(false);
-  const shown = all ? items : items.slice(0, first);
+  const indexed = useMemo(() => items.map((item, i) => ({ item, i })), [items]);
+  const rowKey = useCallback(({ item, i }: { item: T; i: number }) => (keyOf ? keyOf(item, i) : String(i)), [keyOf]);
+  const renderRow = useCallback(({ item }: { item: T }) => render(item), [render]);
+  const whole = Math.max(total ?? 0, items.length);
+  const more = whole > first;
+  const toggle = more ? (
+    <View style={styles.more}>
+      <Button
+        variant="quiet"
+        label={all ? `Show the first ${first}` : `Show all ${formatCount(whole)} ${what}`}
+        onPress={() => {
+          if (!all) onShowAll?.();
+          setAll((a) => !a);
+        }}
+      />
+    </View>
+  ) : null;
+  if (all && more && items.length < whole) {
+    return (
+      <View style={styles.gap}>
+        <LoadingState what={`all ${formatCount(whole)} ${what}`} />
+        {toggle}
+      </View>
+    );
+  }
+  if (all && more) {
+    return (
+      <View style={styles.gap}>
+        <VirtualList
+          data={indexed}
+          keyOf={rowKey}
+          renderRow={renderRow}
+          rowHeight={rowHeight}
+          label={`All ${formatCount(items.length)} ${what}`}
+          testID={testID}
+        />
+        {toggle}
+      </View>
+    );
+  }
   return (
     <View style={styles.list}>
-      {shown.map(render)}
-      {items.length > first ? (
-        <View style={styles.more}>
-          <Button variant="quiet" label={all ? `Show the first ${first}` : `Show all ${items.length} ${what}`} onPress={() => setAll((a) => !a)} />
-        </View>
-      ) : null}
+      {items.slice(0, first).map(render)}
+      {toggle}
     </View>
   );
 }
 
 const styles = StyleSheet.create({
   list: { borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, overflow: 'hidden' },
+  gap: { gap: space.xs },
   more: { padding: space.xs, backgroundColor: colors.surface },
 });

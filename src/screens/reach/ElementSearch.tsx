@@ -4,13 +4,16 @@
  * already in the set say so instead of offering to add them again.
  */
 import { useState } from 'react';
-import { ActivityIndicator, Pressable, StyleSheet, Text, View } from 'react-native';
+import { ActivityIndicator, Platform, Pressable, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
 import { useElementSearch, type ElementHit } from '@/src/api/queries/elementSearch';
 import { describeError } from '@/src/components/states';
 import { TextField } from '@/src/components/TextField';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { useDebounced } from '@/src/hooks/useDebounced';
+
+/** Web only: the browser must not break a code or a tag inside a word. */
+const noWrap = (Platform.OS === 'web' ? { whiteSpace: 'nowrap' } : {}) as object;
 
 const KIND_WORD: Record<Element['kind'], string> = { site: 'site', feed: 'feed', group: 'group' };
 
@@ -21,17 +24,25 @@ export function ElementSearch({ chosen, onAdd }: { chosen: readonly Element[]; o
   const isChosen = (h: ElementHit) => chosen.some((e) => e.kind === h.kind && e.code === h.code);
   const typing = text.trim() !== q.trim();
   const hits = search.data?.hits ?? [];
+  // Enter adds the only match, as a fault desk types a code and presses Enter.
+  const addOnly = () => {
+    const open = !typing && !search.isLoading ? hits.filter((h) => !isChosen(h)) : [];
+    if (hits.length !== 1 || open.length !== 1) return;
+    onAdd({ kind: open[0].kind, code: open[0].code });
+    setText('');
+  };
 
   return (
     <View style={styles.wrap}>
       <TextField
         label="Find a site, feed or group"
-        hint="Part of a code or name, for example a site's name"
+        hint="Part of a code or name, for example a site's name; Enter adds the only match"
         value={text}
         onChangeText={setText}
         autoCapitalize="none"
         autoCorrect={false}
         returnKeyType="search"
+        onSubmitEditing={addOnly}
         testID="reach-search"
       />
       {q.trim() === '' ? null : search.error ? (
@@ -105,7 +116,8 @@ const styles = StyleSheet.create({
   },
   pressed: { backgroundColor: colors.accentSoft },
   already: { backgroundColor: colors.sunken },
-  kind: { ...type.label, fontSize: 13, color: colors.inkMuted, width: 44, textTransform: 'uppercase' },
+  // The kind tag keeps its word whole ("GROUP" never splits): it grows to fit rather than wrapping.
+  kind: { ...type.label, fontSize: 13, color: colors.inkMuted, minWidth: 44, flexShrink: 0, textTransform: 'uppercase', ...noWrap },
   hitTexts: { flex: 1 },
   code: { fontFamily: fonts.monoBold, fontSize: 16, lineHeight: 22, color: colors.ink },
   action: { ...type.label, color: colors.accent },

@@ -1,8 +1,11 @@
 /** The failure set as chips, each with a button that takes the element out again. */
-import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { Platform, Pressable, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
 import { StatusShape } from '@/src/components/StatusShape';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
+
+/** Web only: a browser would break a code at its hyphens and dots; the chip moves whole to the next line instead. */
+const noWrap = (Platform.OS === 'web' ? { whiteSpace: 'nowrap' } : {}) as object;
 
 export function FailChips({ elements, onRemove, onClear }: { elements: readonly Element[]; onRemove: (e: Element) => void; onClear: () => void }) {
   if (elements.length === 0) return null;
@@ -41,7 +44,10 @@ const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   label: { ...type.label },
   chips: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  // A chip moves to the next line whole: it never shrinks, and its words never break inside.
   chip: {
+    flexShrink: 0,
+    maxWidth: '100%',
     flexDirection: 'row',
     alignItems: 'center',
     gap: space.xs,
@@ -52,8 +58,8 @@ const styles = StyleSheet.create({
     borderColor: colors.bad,
     backgroundColor: colors.badSoft,
   },
-  kind: { ...type.label, fontSize: 13, color: colors.bad },
-  code: { fontFamily: fonts.monoBold, fontSize: 15, color: colors.ink },
+  kind: { ...type.label, fontSize: 13, color: colors.bad, ...noWrap },
+  code: { fontFamily: fonts.monoBold, fontSize: 15, color: colors.ink, ...noWrap },
   remove: { width: TOUCH_MIN, height: TOUCH_MIN, alignItems: 'center', justifyContent: 'center', borderRadius: radius.pill },
   removeText: { fontSize: 24, lineHeight: 26, color: colors.bad, fontFamily: fonts.textBold },
   clear: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingHorizontal: space.md },

@@ -15,17 +15,31 @@ import { LinkRow } from './LinkRow';
 
 export interface Names {
   site: (code: string) => string | undefined;
+  /** Households the site serves (undefined while unknown). */
+  households: (code: string) => number | undefined;
   service: (code: string) => string | undefined;
 }
+
+const serviceKey = (s: { service: string }) => s.service;
+const siteKey = (s: { site: string }) => s.site;
+const plain = (c: string) => c;
+/** A carriage row is one line of title in a 48 px row (LinkRow's minimum height). */
+const CARRIAGE_ROW = 48;
+const householdsWords = (n: number | undefined) => (n === undefined ? undefined : countOf(n, 'household'));
 
 export function ReachBreakdown({ reach, failText, names }: { reach: ReachResult; failText: string; names: Names }) {
   const services = useMemo(() => [...reach.byService].sort((a, b) => b.lost - a.lost || b.fallback - a.fallback || a.service.localeCompare(b.service)), [reach]);
   const sites = useMemo(
     () =>
+      // Off air before on reserve, then the most households first: the order a fault desk calls sites in.
       [...reach.sites].sort(
-        (a, b) => b.lost.length - a.lost.length || (b.fallback?.length ?? 0) - (a.fallback?.length ?? 0) || a.site.localeCompare(b.site),
+        (a, b) =>
+          Number(b.lost.length > 0) - Number(a.lost.length > 0) ||
+          (names.households(b.site) ?? 0) - (names.households(a.site) ?? 0) ||
+          b.lost.length - a.lost.length ||
+          a.site.localeCompare(b.site),
       ),
-    [reach],
+    [reach, names],
   );
 
   return (
@@ -35,6 +49,8 @@ export function ReachBreakdown({ reach, failText, names }: { reach: ReachResult;
           <Capped
             items={services}
             what="services"
+            keyOf={serviceKey}
+            testID="reach-by-service-list"
             render={(s) => (
               <LinkRow
                 key={s.service}
@@ -48,10 +64,12 @@ export function ReachBreakdown({ reach, failText, names }: { reach: ReachResult;
           />
         </Section>
 
-        <Section title="By site" note="Households are counted once per site: a site with any carriage off air counts as off air." testID="reach-by-site">
+        <Section title="By site" note="Households each site serves, off air first, then most households first. Households are counted once per site: a site with any carriage off air counts as off air." testID="reach-by-site">
           <Capped
             items={sites}
             what="sites"
+            keyOf={siteKey}
+            testID="reach-by-site-list"
             render={(s) => (
               <LinkRow
                 key={s.site}
@@ -59,6 +77,7 @@ export function ReachBreakdown({ reach, failText, names }: { reach: ReachResult;
                 title={names.site(s.site) ?? s.site}
                 code={s.site}
                 status={s.lost.length > 0 ? 'off-air' : 'on-reserve'}
+                figure={householdsWords(names.households(s.site))}
                 detail={[s.lost.length > 0 ? `off air: ${s.lost.join(', ')}` : null, s.fallback && s.fallback.length > 0 ? `on reserve: ${s.fallback.join(', ')}` : null].filter(Boolean).join('; ')}
               />
             )}
@@ -73,7 +92,7 @@ export function ReachBreakdown({ reach, failText, names }: { reach: ReachResult;
             {reach.lost.length === 0 ? (
               <Text style={styles.none}>None: every carriage keeps programme.</Text>
             ) : (
-              <Capped items={reach.lost} what="carriages" render={(c) => <LinkRow key={c} href={`/carriages/${encodeURIComponent(c)}`} title={c} status="off-air" />} />
+              <Capped items={reach.lost} what="carriages" keyOf={plain} rowHeight={CARRIAGE_ROW} testID="reach-lost-list" render={(c) => <LinkRow key={c} href={`/carriages/${encodeURIComponent(c)}`} title={c} status="off-air" />} />
             )}
           </View>
           <View style={styles.group}>
@@ -81,7 +100,7 @@ export function ReachBreakdown({ reach, failText, names }: { reach: ReachResult;
             {reach.fallback.length === 0 ? (
               <Text style={styles.none}>None: nothing runs on a reserve feed.</Text>
             ) : (
-              <Capped items={reach.fallback} what="carriages" render={(c) => <LinkRow key={c} href={`/carriages/${encodeURIComponent(c)}`} title={c} status="on-reserve" />} />
+              <Capped items={reach.fallback} what="carriages" keyOf={plain} rowHeight={CARRIAGE_ROW} testID="reach-fallback-list" render={(c) => <LinkRow key={c} href={`/carriages/${encodeURIComponent(c)}`} title={c} status="on-reserve" />} />
             )}
           </View>
         </Columns>

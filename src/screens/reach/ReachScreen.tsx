@@ -9,7 +9,6 @@ import { useCallback, useMemo } from 'react';
 import { ActivityIndicator, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
 import { useReach } from '@/src/api/queries/analysis';
-import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
 import { useServiceNames } from '@/src/api/queries/serviceNames';
 import { isApiError } from '@/src/api/client';
 import { Button } from '@/src/components/Button';
@@ -57,13 +56,18 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
   );
 
   const reach = useReach(elements, failText);
-  const drawing = useNetworkDrawing(!!reach.data);
   const serviceNames = useServiceNames();
   const offlineNames = useOfflineNames();
+  // Site names and households come with the answer (?with=sites): the whole network is never loaded here.
+  // Worked out offline, the answer has none, and the stored copy names the sites.
   const names = useMemo<Names>(() => {
-    const sites = new Map((drawing.data?.sites ?? []).map((s) => [s.code, s.name]));
-    return { site: (c) => sites.get(c) ?? offlineNames.site(c), service: (c) => serviceNames.data?.get(c) ?? offlineNames.service(c) };
-  }, [drawing.data, serviceNames.data, offlineNames]);
+    const info = reach.data?.siteInfo ?? {};
+    return {
+      site: (c) => info[c]?.name ?? offlineNames.site(c),
+      households: (c) => info[c]?.households ?? offlineNames.households(c),
+      service: (c) => serviceNames.data?.get(c) ?? offlineNames.service(c),
+    };
+  }, [reach.data, serviceNames.data, offlineNames]);
 
   const unknown = reach.error && isApiError(reach.error) && reach.error.status === 404 ? unknownFromDetails(reach.error.details) : [];
 

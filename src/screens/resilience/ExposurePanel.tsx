@@ -5,8 +5,8 @@
  */
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
-import { ScrollView, StyleSheet, Text, View } from 'react-native';
-import { api } from '@/shared/api';
+import { StyleSheet, Text, View } from 'react-native';
+import { analysisKeys } from '@/src/api/queries/analysis';
 import type { ExposureRow } from '@/shared/schemas/analysis';
 import { useSend } from '@/src/api/ApiProvider';
 import { parseAnswer } from '@/src/api/client';
@@ -37,9 +37,10 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
     setFailed(false);
     try {
       // The file holds the whole ranking, not only the rows on screen.
-      const path = api.exposure();
+      const path = analysisKeys.namedExposure();
       const all = parseAnswer(exposureAnswerSchema, path, await send(path));
-      const csv = exposureCsv(all.elements.map((r, i) => ({ rank: i + 1, element: r.element, name: name(r.element), households: r.households, carriages: r.carriages })));
+      const nameOf = (e: ExposureRow['element']) => all.names?.[`${e.kind}:${e.code}`] ?? name(e);
+      const csv = exposureCsv(all.elements.map((r, i) => ({ rank: i + 1, element: r.element, name: nameOf(r.element), households: r.households, carriages: r.carriages })));
       setSaid(await saveCsv(exposureFileName(all.networkVersion, new Date()), csv));
     } catch (e) {
       setFailed(true);
@@ -57,11 +58,12 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
           {said ?? ''}
         </Text>
       </View>
-      {/* The ranking scrolls in its own box so the charts and lists below stay within reach. */}
-      <ScrollView style={styles.tableBox} nestedScrollEnabled focusable accessibilityLabel="Exposure ranking (scrolls)">
-        <DataTable
+      {/* The ranking scrolls in its own box (rows on screen only) so the charts and lists below stay within reach; cards on a phone. */}
+      <DataTable
         caption="Elements ranked by exposure"
         testID="exposure-table"
+        virtual
+        cardsOnPhone={{ lead: 'households', title: (r) => `${r.rank}. ${elementWords(r.element)}${name(r.element) ? `, ${name(r.element)}` : ''}`, hide: ['rank', 'kind', 'code', 'name'] }}
         rows={ranked}
         rowKey={(r) => `${r.element.kind}:${r.element.code}`}
         initialSort={{ column: 'households', direction: 'desc' }}
@@ -75,8 +77,7 @@ export function ExposurePanel({ rows, networkVersion, name }: { rows: ExposureRo
           { key: 'households', label: 'Households', unit: 'off air', numeric: true, width: 140, value: (r) => r.households, format: (v) => formatCount(v as number) },
           { key: 'carriages', label: 'Carriages', unit: 'off air', numeric: true, width: 130, value: (r) => r.carriages, format: (v) => formatCount(v as number) },
         ]}
-        />
-      </ScrollView>
+      />
       <Text style={styles.note}>{`Network version ${networkVersion}. Press a row to see what that element's failure takes off air.`}</Text>
     </View>
   );
@@ -88,5 +89,4 @@ const styles = StyleSheet.create({
   said: { ...type.small, color: colors.good },
   failed: { color: colors.bad },
   note: { ...type.small },
-  tableBox: { maxHeight: 520 },
 });

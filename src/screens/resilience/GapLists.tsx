@@ -1,10 +1,15 @@
 /** Diversity gaps (with the elements main and reserve still share) and unfed carriages, each row opening the carriage's chain. */
+import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
+import { useDiversity } from '@/src/api/queries/analysis';
+import { ErrorState } from '@/src/components/states';
 import type { Element } from '@/shared/schemas/analysis';
 import { Capped } from '@/src/screens/reach/Capped';
 import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { space, type } from '@/src/theme';
 import { elementWords } from './elementNames';
+
+const carriageKey = (g: { carriage: string }) => g.carriage;
 
 type Gap = { carriage: string; service: string; site: string; spof: Element[]; avoidable: Element[] };
 
@@ -18,13 +23,22 @@ function gapWords(g: Gap): string {
   return `${fixable} No feed can avoid ${fixed.map(elementWords).join(', ')}: it holds every origin of ${g.service}.`;
 }
 
-export function DiversityList({ gaps }: { gaps: Gap[] }) {
+/** `first` is the first page of the gaps and `total` their number; the whole list is fetched only on "Show all". */
+export function DiversityList({ first, total }: { first: Gap[]; total: number }) {
+  const [all, setAll] = useState(false);
+  const whole = useDiversity(undefined, all);
+  const gaps = all && whole.data ? whole.data.carriages : first;
+  if (all && whole.error && !whole.data) return <ErrorState what="all the diversity gaps" error={whole.error} onRetry={() => void whole.mutate()} />;
   if (gaps.length === 0) return <Text style={styles.none}>None: every reserve feed protects its carriage from every failure another feed could avoid.</Text>;
   return (
     <Capped
       items={gaps}
       what="carriages"
       first={10}
+      keyOf={carriageKey}
+      testID="diversity-list"
+      total={total}
+      onShowAll={() => setAll(true)}
       render={(g) => (
         <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={gapWords(g)} />
       )}
@@ -40,6 +54,8 @@ export function UnfedList({ unfed }: { unfed: { carriage: string; service: strin
         items={unfed}
         what="carriages"
         first={10}
+        keyOf={carriageKey}
+        testID="unfed-list"
         render={(u) => <LinkRow key={u.carriage} href={`/carriages/${encodeURIComponent(u.carriage)}`} title={u.carriage} status="off-air" detail={`${u.service} at ${u.site}: no programme even with nothing failed`} />}
       />
     </View>

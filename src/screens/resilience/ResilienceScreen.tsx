@@ -5,9 +5,9 @@
  * (unfed), and counts per service, with charts. Two or three columns on a
  * wide screen, one on a phone.
  */
-import { useMemo } from 'react';
+import { useCallback, useState } from 'react';
 import { StyleSheet, Text } from 'react-native';
-import { useDiversity, useExposure, useUnfed } from '@/src/api/queries/analysis';
+import { useDiversity, useNamedExposure, useUnfed } from '@/src/api/queries/analysis';
 import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
 import { BarChart } from '@/src/components/charts/BarChart';
 import { countOf, formatCount } from '@/shared/format';
@@ -17,19 +17,43 @@ import { Screen } from '@/src/components/layout/Screen';
 import { Section } from '@/src/components/layout/Section';
 import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';
 import { type } from '@/src/theme';
-import { elementNamer } from './elementNames';
+import type { ElementNamer } from './elementNames';
+import { Button } from '@/src/components/Button';
 import { EXPOSURE_SHOWN, ExposurePanel } from './ExposurePanel';
 import { DiversityList, UnfedList } from './GapLists';
 import { PairsPanel } from './PairsPanel';
 import { PlanPanel, ProposalsList } from './ProposalsPanel';
 import { ServiceTable } from './ServiceTable';
 
-export function ResilienceScreen() {
-  const exposure = useExposure(EXPOSURE_SHOWN);
+/** Gaps listed before "Show all"; the rest load when asked for. */
+const DIVERSITY_FIRST = 10;
+
+/** Counts per service need the whole network and every gap, so they load only when asked for. */
+function PerService() {
+  const drawing = useNetworkDrawing();
   const diversity = useDiversity();
   const unfed = useUnfed();
-  const drawing = useNetworkDrawing();
-  const name = useMemo(() => elementNamer(drawing.data), [drawing.data]);
+  return (
+    <ServiceTable
+      drawing={drawing.data}
+      diversity={diversity.data}
+      unfed={unfed.data}
+      error={drawing.error ?? diversity.error ?? unfed.error}
+      onRetry={() => void Promise.all([drawing.mutate(), diversity.mutate(), unfed.mutate()])}
+    />
+  );
+}
+
+export function ResilienceScreen() {
+  // Names come with the ranking, and the gaps a first page at a time: a 20,000-site network is
+  // 26 MB whole and 3 MB of gaps, too much to load on a phone before the screen answers.
+  const exposure = useNamedExposure(EXPOSURE_SHOWN);
+  const diversity = useDiversity(DIVERSITY_FIRST);
+  const unfed = useUnfed();
+  const [perService, setPerService] = useState(false);
+  const names = exposure.data?.names;
+  const name = useCallback<ElementNamer>((e) => names?.[`${e.kind}:${e.code}`], [names]);
+  const gapCount = diversity.data ? (diversity.data.total ?? diversity.data.carriages.length) : undefined;
 
   const top10 = (exposure.data?.elements ?? []).slice(0, 10).map((r) => ({ key: `${r.element.kind}:${r.element.code}`, label: r.element.code, value: r.households }));
 
@@ -56,7 +80,7 @@ export function ResilienceScreen() {
           )}
         </Card>
         <Card title="Diversity gaps" testID="resilience-gap-count">
-          <Text style={styles.big}>{diversity.data ? countOf(diversity.data.carriages.length, 'carriage') : diversity.error ? 'Not available' : 'Loading…'}</Text>
+          <Text style={styles.big}>{gapCount !== undefined ? countOf(gapCount, 'carriage') : diversity.error ? 'Not available' : 'Loading…'}</Text>
         </Card>
         <Card title="Unfed carriages" testID="resilience-unfed-count">
           <Text style={styles.big}>{unfed.data ? countOf(unfed.data.carriages.length, 'carriage') : unfed.error ? 'Not available' : 'Loading…'}</Text>
@@ -72,13 +96,11 @@ export function ResilienceScreen() {
           {top10.length > 0 ? <BarChart title="Households off air if this element alone fails" unit="households" rows={top10} testID="exposure-chart" /> : exposure.data ? <Text style={styles.small}>Nothing to chart.</Text> : <LoadingState what="the chart" />}
         </Section>
         <Section title="Per service" testID="resilience-services">
-          <ServiceTable
-            drawing={drawing.data}
-            diversity={diversity.data}
-            unfed={unfed.data}
-            error={drawing.error ?? diversity.error ?? unfed.error}
-            onRetry={() => void Promise.all([drawing.mutate(), diversity.mutate(), unfed.mutate()])}
-          />
+          {perService ? (
+            <PerService />
+          ) : (
+            <Button label="Show counts per service" variant="secondary" onPress={() => setPerService(true)} testID="service-counts-show" />
+          )}
         </Section>
       </Columns>
 
@@ -88,7 +110,7 @@ export function ResilienceScreen() {
           note="Carriages with a reserve feed that still have a weak point another feed could avoid. A weak point that holds every origin of its service cannot be avoided by any feed and is listed apart."
           testID="resilience-diversity"
         >
-          {diversity.data ? <DiversityList gaps={diversity.data.carriages} /> : diversity.error ? <ErrorState what="the diversity gaps" error={diversity.error} onRetry={() => void diversity.mutate()} /> : <LoadingState what="the diversity gaps" />}
+          {diversity.data ? <DiversityList first={diversity.data.carriages} total={gapCount ?? 0} /> : diversity.error ? <ErrorState what="the diversity gaps" error={diversity.error} onRetry={() => void diversity.mutate()} /> : <LoadingState what="the diversity gaps" />}
         </Section>
         <Section title="Unfed carriages" note="A data problem: no programme reaches them even with nothing failed, so they are left out of every reach." testID="resilience-unfed">
           {unfed.data ? <UnfedList unfed={unfed.data.carriages} /> : unfed.error ? <ErrorState what="the unfed carriages" error={unfed.error} onRetry={() => void unfed.mutate()} /> : <LoadingState what="the unfed carriages" />}

@@ -39,6 +39,7 @@ export function ServiceTable({ drawing, diversity, unfed, error, onRetry }: Serv
         rows={rows}
         rowKey={(r) => r.service}
         initialSort={{ column: 'service', direction: 'asc' }}
+        cardsOnPhone={{ lead: 'carriages', title: (r) => `${names.get(r.service) ?? r.service} (${r.service})`, hide: ['service', 'name'] }}
         columns={[
           { key: 'service', label: 'Service', mono: true, width: 80, value: (r) => r.service },
           { key: 'name', label: 'Name', width: 150, value: (r) => names.get(r.service) ?? '' },

@@ -1,0 +1,161 @@
+/**
+ * Long lists and phone layouts in a real browser:
+ * - the resilience exposure ranking as cards on a phone (390 px), each
+ *   leading with its households, and as a table on a wide screen (1440 px);
+ * - on a generated 2,000-site network, lists of thousands of rows render
+ *   only a bounded number of row elements (virtualised), and an origin's
+ *   downstream tree opens folded by level with a count per hop.
+ * Structural checks only: the timings are scripts/bench-browser-lists.ts.
+ */
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { ExposureAnswer } from '@/shared/schemas/analysis';
+import { formatCount } from '@/shared/format';
+import { loadConfig } from '@/server/config';
+import { openDatabase } from '@/server/db';
+import { importNetwork } from '@/server/services/importer';
+import { startServer, type RunningServer } from '@/server/server';
+import { resolveDatabaseUrl } from '@/scripts/lib/postgres';
+import { generateNetwork } from '@/scripts/generator';
+import { loadDemo } from '@/scripts/start';
+import { apiGet, baseUrl, demoUser, launch, openPage, PHONE, shot, signIn, SIZES } from './browser';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => browser?.close());
+
+describe.each(Object.entries(SIZES))('resilience exposure at %s size', (sizeName, size) => {
+  it('keeps every figure on screen: cards led by households on a phone, a table on a wide screen', async () => {
+    const exposure = await apiGet<ExposureAnswer>('/api/analysis/exposure?limit=100');
+    const top = exposure.elements[0];
+    expect(top.households).toBeGreaterThan(0);
+    const { page, errors } = await openPage(browser, size);
+    await signIn(page, 'viewer');
+    await page.goto(`${baseUrl()}/resilience`);
+    const ranking = page.getByTestId('resilience-exposure');
+    if (sizeName === 'phone') {
+      const card = ranking.getByTestId('exposure-table-card').first();
+      await card.waitFor({ timeout: 30_000 });
+      const text = await card.innerText();
+      // households first, with thousands separators, then the element and its other figure
+      expect(text.trimStart().startsWith(formatCount(top.households))).toBe(true);
+      expect(text).toContain('households lost');
+      expect(text).toContain(`${top.element.kind} ${top.element.code}`);
+      expect(text).toContain(`Carriages (lost)`);
+      // nothing sits off-screen to the right
+      const box = await card.boundingBox();
+      expect(box!.x + box!.width).toBeLessThanOrEqual(size.width);
+      expect(await ranking.getByRole('table').count()).toBe(0);
+      // the per-service counts (loaded on request) are cards too
+      await page.getByTestId('service-counts-show').click();
+      await page.getByTestId('service-counts-card').first().waitFor({ timeout: 30_000 });
+    } else {
+      const table = ranking.getByRole('table', { name: 'Elements ranked by exposure' });
+      await table.waitFor({ timeout: 30_000 });
+      expect(await table.getByRole('columnheader').allInnerTexts()).toContain('Households (lost)');
+      expect(await table.innerText()).toContain(formatCount(top.households));
+      expect(await ranking.getByTestId('exposure-table-card').count()).toBe(0);
+    }
+    await shot(page, `lists-resilience-${sizeName}`);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+});
+
+describe('lists of thousands of rows (2,000 generated sites)', () => {
+  let running: RunningServer;
+  let base: string;
+  beforeAll(async () => {
+    const { url } = await resolveDatabaseUrl('headwater_e2e_lists', { fresh: true });
+    const db = openDatabase(url);
+    await db.migrate();
+    const report = await importNetwork(db, generateNetwork({ sites: 2000, seed: 3 }), { actor: { email: 'e2e' } });
+    expect(report.errors).toEqual([]);
+    await db.close();
+    await loadDemo(url, () => undefined);
+    running = await startServer(url, loadConfig({ ...process.env, PORT: '0', DEMO: '1' }));
+    base = running.url.replace('localhost', '127.0.0.1');
+  }, 240_000);
+  afterAll(async () => running?.close());
+
+  async function signInHere(page: Page) {
+    const u = demoUser('engineer');
+    await page.goto(`${base}/sign-in`);
+    await page.getByLabel('Email').fill(u.email);
+    await page.getByLabel('Password').fill(u.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 20_000 });
+  }
+
+  const rowsIn = (page: Page, testID: string) => page.locator(`[data-testid="${testID}-row"]`).count();
+
+  it('"Show all" on the fault reach renders only a bounded number of rows, before and after a scroll', async () => {
+    const { page, errors } = await openPage(browser, PHONE);
+    await signInHere(page);
+    const token = await loginToken(base);
+    const exposure = (await (await fetch(`${base}/api/analysis/exposure?limit=1`, { headers: { authorization: `Bearer ${token}` } })).json()) as ExposureAnswer;
+    const worst = exposure.elements[0].element;
+    await page.goto(`${base}/reach?fail=${worst.kind}:${worst.code}`);
+    const lost = page.getByTestId('reach-lost-count');
+    await lost.waitFor({ timeout: 30_000 });
+    const lostCount = Number(((await lost.textContent()) ?? '').replace(/[^0-9]/g, ''));
+    expect(lostCount).toBeGreaterThan(1000);
+    await page.getByTestId('reach-carriages').getByRole('button', { name: `Show all ${formatCount(lostCount)} carriages` }).first().click();
+    const list = page.getByTestId('reach-lost-list');
+    await list.waitFor({ timeout: 30_000 });
+    await page.waitForTimeout(500);
+    const first = await rowsIn(page, 'reach-lost-list');
+    expect(first).toBeGreaterThan(5);
+    expect(first).toBeLessThan(120);
+    // Scrolling far down brings later rows in and keeps the count bounded.
+    await list.evaluate((el) => {
+      const scroller = (el.scrollHeight > el.clientHeight ? el : el.querySelector('div')) as HTMLElement;
+      scroller.scrollTop = scroller.scrollHeight / 2;
+    });
+    await page.waitForTimeout(800);
+    expect(await rowsIn(page, 'reach-lost-list')).toBeLessThan(160);
+
+    // the By site rows carry households
+    const bySite = page.getByTestId('reach-by-site');
+    expect(await bySite.innerText()).toMatch(/\d households?/);
+    await shot(page, 'lists-reach-show-all-phone');
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
+  it('an origin\'s downstream tree opens folded by level, with counts, and the hop list stays bounded', async () => {
+    const { page, errors } = await openPage(browser, PHONE);
+    await signInHere(page);
+    const token = await loginToken(base);
+    const api = async <T,>(p: string) => (await (await fetch(`${base}${p}`, { headers: { authorization: `Bearer ${token}` } })).json()) as T;
+    const origin = (await api<{ items: { code: string }[] }>('/api/sites?role=origin&pageSize=1')).items[0].code;
+    const carriage = (await api<{ items: { code: string }[] }>(`/api/carriages?site=${origin}&pageSize=1`)).items[0].code;
+    await page.goto(`${base}/carriages/${encodeURIComponent(carriage)}?direction=down`);
+    const levels = page.getByTestId('chain-levels');
+    await levels.waitFor({ timeout: 60_000 });
+    const summary = (await page.getByTestId('chain-summary').innerText()).replace(/,/g, '');
+    const total = Number(/: (\d+) carriages/.exec(summary)?.[1]);
+    expect(total).toBeGreaterThan(300);
+    expect(await levels.innerText()).toMatch(/carriages? at hop 2/);
+    expect(await rowsIn(page, 'chain-list')).toBeLessThan(120);
+    // Open everything to the deepest hop: thousands of carriages, still a bounded number of rows.
+    const buttons = levels.getByRole('button');
+    await buttons.last().click();
+    await page.getByTestId('chain-not-drawn').waitFor({ timeout: 30_000 });
+    await page.waitForTimeout(500);
+    const after = (await page.getByTestId('chain-summary').innerText()).replace(/,/g, '');
+    expect(after).not.toContain('folded away');
+    expect(await rowsIn(page, 'chain-list')).toBeLessThan(120);
+    await shot(page, 'lists-chain-levels-phone');
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+});
+
+async function loginToken(base: string): Promise<string> {
+  const u = demoUser('engineer');
+  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: u.email, password: u.password }) });
+  return ((await r.json()) as { token: string }).token;
+}
