@@ -1,0 +1,113 @@
+/**
+ * Fault reach with no connection, in a real browser at both sizes: after one
+ * visit online the service worker holds the app shell and IndexedDB holds the
+ * network; with the browser offline, a shared reach link still opens, the
+ * answer equals the server's, and the screen says it is the offline copy with its
+ * version (a change refused in words is tested in src/api/client.test.ts). A stored copy that is corrupt is
+ * thrown away and fetched again.
+ */
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { NetworkDocument } from '@/shared/schemas/network';
+import type { ReachAnswer } from '@/shared/schemas/analysis';
+import { COPY_LOCATION } from '@/src/offline/copyStore';
+import { apiGet, apiToken, baseUrl, digits, launch, openPage, shot, signIn, SIZES } from './browser';
+
+let browser: Browser;
+let demo: NetworkDocument;
+let version: number;
+beforeAll(async () => {
+  browser = await launch();
+  demo = await apiGet<NetworkDocument>('/api/network/export');
+  version = Number((await apiGet<{ networkVersion: number }>('/api/network/summary')).networkVersion);
+});
+afterAll(async () => browser?.close());
+
+async function apiReach(failed: { kind: string; code: string }[]): Promise<ReachAnswer> {
+  const r = await fetch(`${baseUrl()}/api/analysis/reach`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', authorization: `Bearer ${await apiToken('operator')}` },
+    body: JSON.stringify({ failed }),
+  });
+  return (await r.json()) as ReachAnswer;
+}
+
+/** The stored copy as the page's IndexedDB holds it (null when there is none). */
+function storedCopy(page: Page): Promise<{ networkVersion: number; sites: number } | null> {
+  return page.evaluate(
+    ({ database, store, key }) =>
+      new Promise((resolve, reject) => {
+        const open = indexedDB.open(database);
+        open.onerror = () => reject(open.error);
+        open.onsuccess = () => {
+          const db = open.result;
+          if (!db.objectStoreNames.contains(store)) return resolve(null);
+          const get = db.transaction(store).objectStore(store).get(key);
+          get.onsuccess = () => {
+            const v = get.result as { networkVersion: number; document: { sites: unknown[] } } | undefined;
+            resolve(v ? { networkVersion: v.networkVersion, sites: v.document?.sites?.length ?? -1 } : null);
+          };
+          get.onerror = () => reject(get.error);
+        };
+      }),
+    COPY_LOCATION,
+  );
+}
+
+async function waitForCopy(page: Page) {
+  await expect.poll(() => storedCopy(page), { timeout: 60_000, interval: 500 }).toEqual({ networkVersion: version, sites: demo.sites.length });
+}
+
+async function waitForWorker(page: Page) {
+  await page.waitForFunction(() => navigator.serviceWorker?.controller != null, undefined, { timeout: 60_000 });
+}
+
+describe.each(Object.entries(SIZES))('offline fault reach at %s size', (sizeName, size) => {
+  it('opens a shared reach link with no connection and answers from the stored copy as the server would', async () => {
+    const origin = demo.sites.find((s) => s.role === 'origin')!;
+    const expected = await apiReach([{ kind: 'site', code: origin.code }]);
+    const { page } = await openPage(browser, size);
+    await signIn(page, 'operator');
+    await page.goto(`${baseUrl()}/reach`);
+    await waitForCopy(page);
+    await waitForWorker(page);
+
+    await page.context().setOffline(true);
+    await page.goto(`${baseUrl()}/reach?fail=site:${origin.code}`);
+    const note = page.getByTestId('offline-note');
+    await note.waitFor({ timeout: 30_000 });
+    expect(await note.textContent()).toMatch(new RegExp(`Offline — network version ${version}, fetched at \\d\\d:\\d\\d`));
+    expect(digits(await page.getByTestId('reach-lost-count').textContent())).toBe(expected.lost.length);
+    expect(digits(await page.getByTestId('reach-households-lost').textContent())).toBe(expected.households.lost);
+    expect(digits(await page.getByTestId('reach-fallback-count').textContent())).toBe(expected.fallback.length);
+    await shot(page, `offline-reach-${sizeName}`);
+
+    await page.context().close();
+  });
+});
+
+describe('a corrupt stored copy', () => {
+  it('is discarded and fetched again', async () => {
+    const { page } = await openPage(browser, SIZES.phone);
+    await signIn(page, 'viewer');
+    await page.goto(`${baseUrl()}/reach`);
+    await waitForCopy(page);
+    await page.evaluate(
+      ({ database, store, key }) =>
+        new Promise<void>((resolve, reject) => {
+          const open = indexedDB.open(database);
+          open.onsuccess = () => {
+            const tx = open.result.transaction(store, 'readwrite');
+            tx.objectStore(store).put({ networkVersion: 'not a number', document: { format: 'something else' } }, key);
+            tx.oncomplete = () => resolve();
+            tx.onerror = () => reject(tx.error);
+          };
+        }),
+      COPY_LOCATION,
+    );
+    expect(await storedCopy(page)).toEqual({ networkVersion: 'not a number' as unknown as number, sites: -1 });
+    await page.reload();
+    await waitForCopy(page);
+    await page.context().close();
+  });
+});
