@@ -56,7 +56,7 @@ export function useElementSearch(q: string, pageSize = 6) {
       );
       return {
         hits: KINDS.flatMap(({ kind }, i) => hitsOf(kind, pages[i])),
-        totals: { site: pages[0].total, feed: pages[1].total, group: pages[2].total },
+        totals: { site: pages[0].total, carriage: 0, feed: pages[1].total, group: pages[2].total },
       };
     },
     { ...freshness.network, keepPreviousData: true },

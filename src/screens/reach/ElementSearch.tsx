@@ -12,7 +12,7 @@ import { TextField } from '@/src/components/TextField';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { useDebounced } from '@/src/hooks/useDebounced';
 
-const KIND_WORD: Record<Element['kind'], string> = { site: 'site', feed: 'feed', group: 'group' };
+const KIND_WORD: Record<Element['kind'], string> = { site: 'site', carriage: 'carriage', feed: 'feed', group: 'group' };
 
 export function ElementSearch({ chosen, onAdd }: { chosen: readonly Element[]; onAdd: (e: Element) => void }) {
   const [text, setText] = useState('');
