@@ -11,6 +11,7 @@ import type {
   DiversityAnswer,
   Element,
   ExposureAnswer,
+  ExposureGroupsAnswer,
   ExposureRow,
   PairsAnswer,
   ProposalsAnswer,
@@ -22,6 +23,7 @@ import { elementKey } from '@/shared/schemas/analysis';
 import { buildCore, type BuildTimings, type EngineCore } from './core';
 import { elementId, isCarriageId, KIND_BIT, kindMask, listOf, normaliseCode } from './model';
 import { computeResilience, type Resilience } from './resilience';
+import { groupExposure } from './exposure-groups';
 import { avoidableOf, unavoidableByService } from './avoidable';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
@@ -82,6 +84,7 @@ export class NetworkEngine {
   /** every element, ranked; `exposureRows` keeps the rows of one kinds mask once asked */
   private readonly exposureAll: ExposureRow[];
   private readonly exposureRows = new Map<number, ExposureRow[]>();
+  private readonly exposureGroupRows = new Map<number, ExposureGroupsAnswer['groups']>();
   private readonly graphology: (ServiceGraph | undefined)[] = [];
   /** per service: element ids that hold every origin of the service (rule 9, unavoidable) */
   private readonly unavoidable: Int32Array[];
@@ -265,6 +268,25 @@ export class NetworkEngine {
     let rows = this.exposureRows.get(mask);
     if (!rows) this.exposureRows.set(mask, (rows = this.exposureAll.filter((r) => (KIND_BIT[r.element.kind] & mask) !== 0)));
     return { networkVersion: this.networkVersion, elements: limit === undefined ? rows : rows.slice(0, limit) };
+  }
+
+  /**
+   * The exposure ranking with elements that take off exactly the same
+   * carriages in one row (exposure-groups.ts), highest households first.
+   */
+  exposureGroups(limit?: number, kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): ExposureGroupsAnswer {
+    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) {
+      throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    }
+    const mask = kindMask(kinds);
+    let rows = this.exposureGroupRows.get(mask);
+    if (!rows) {
+      const { model } = this.core;
+      const { ranked, exposureHouseholds, exposureCarriages } = this.resilience;
+      const wanted = Array.from(ranked).filter((x) => (KIND_BIT[model.elements[x].kind] & mask) !== 0);
+      this.exposureGroupRows.set(mask, (rows = groupExposure(this.core, wanted, exposureHouseholds, exposureCarriages)));
+    }
+    return { networkVersion: this.networkVersion, groups: limit === undefined ? rows : rows.slice(0, limit) };
   }
 
   diversity(): DiversityAnswer {

@@ -1,7 +1,17 @@
 /** The analysis API over the in-memory graphs (docs/api.md). */
 import { z } from 'zod';
 import { can } from '@/shared/api';
-import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning } from '@/shared/schemas/analysis';
+import {
+  carriageSearchQuerySchema,
+  exposureQuerySchema,
+  listFormatQuerySchema,
+  pairsQuerySchema,
+  planRequestSchema,
+  proposalsQuerySchema,
+  reachRequestSchema,
+  spofQuerySchema,
+  type PairsRunning,
+} from '@/shared/schemas/analysis';
 import { ApiError, badRequest, conflict, notFound, parseOr400 } from '../http/errors';
 import { actorOf, settled } from './inventory';
 import { createEntities } from '../services/inventory/write';
@@ -10,16 +20,16 @@ import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { cachedFeedChecks, currentModel } from './checks';
+import { csvFileName, diversityCsv, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
+import { searchCarriages } from '../services/carriageSearch';
 
 export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
-export const exposureQuery = z.object({
-  limit: z.coerce.number({ error: 'limit must be a number' }).int('limit is a whole number').min(1, 'limit is at least 1').max(100_000).optional(),
-});
+export const exposureQuery = exposureQuerySchema;
 
 export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('post', '/analysis/reach', can.analyse, async (req, res) => {
     if (req.body === undefined || req.body === null || typeof req.body !== 'object' || Array.isArray(req.body)) {
-      throw badRequest('body: send { "failed": [{ "kind": "site"|"feed"|"group", "code": "..." }] }');
+      throw badRequest('body: send { "failed": [{ "kind": "site"|"carriage"|"feed"|"group", "code": "..." }] }');
     }
     const { failed } = parseOr400(reachRequestSchema, req.body);
     const m = currentModel(ctx);
@@ -31,21 +41,51 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     }
   });
 
-  routes.add('get', '/analysis/spof', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.spof());
+  routes.add('get', '/analysis/spof', can.analyse, async (req, res) => {
+    const { kinds } = parseOr400(spofQuerySchema, req.query, 'query');
+    res.json(currentModel(ctx).engine.spof(kinds));
   });
 
+  // format=csv: the same ranking as a file, one line per element, elements with the same loss sharing a rank.
   routes.add('get', '/analysis/exposure', can.analyse, async (req, res) => {
-    const { limit } = parseOr400(exposureQuery, req.query, 'query');
-    res.json(currentModel(ctx).engine.exposure(limit));
+    const { limit, kinds, format } = parseOr400(exposureQuery, req.query, 'query');
+    const m = currentModel(ctx);
+    if (format === 'csv') {
+      const groups = m.engine.exposure(limit, kinds).elements.map((r) => ({ elements: [r.element], households: r.households, carriages: r.carriages }));
+      res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(exposureGroupsCsv(m, { networkVersion: m.networkVersion, groups }));
+      return;
+    }
+    res.json(m.engine.exposure(limit, kinds));
   });
 
-  routes.add('get', '/analysis/diversity', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.diversity());
+  // Elements that take off exactly the same carriages in one row (a site and the feeds that only serve it).
+  routes.add('get', '/analysis/exposure-groups', can.analyse, async (req, res) => {
+    const { limit, kinds, format } = parseOr400(exposureQuery, req.query, 'query');
+    const m = currentModel(ctx);
+    const answer = m.engine.exposureGroups(limit, kinds);
+    if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(exposureGroupsCsv(m, answer));
+    else res.json(answer);
   });
 
-  routes.add('get', '/analysis/unfed', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.unfed());
+  routes.add('get', '/analysis/diversity', can.analyse, async (req, res) => {
+    const { format } = parseOr400(listFormatQuerySchema, req.query, 'query');
+    const m = currentModel(ctx);
+    if (format === 'csv') res.type('text/csv').attachment(csvFileName('diversity-gaps', m.networkVersion)).send(diversityCsv(m, m.engine.diversity()));
+    else res.json(m.engine.diversity());
+  });
+
+  routes.add('get', '/analysis/unfed', can.analyse, async (req, res) => {
+    const { format } = parseOr400(listFormatQuerySchema, req.query, 'query');
+    const m = currentModel(ctx);
+    if (format === 'csv') res.type('text/csv').attachment(csvFileName('unfed-carriages', m.networkVersion)).send(unfedCsv(m, m.engine.unfed()));
+    else res.json(m.engine.unfed());
+  });
+
+  // Carriages to mark failed, by code or by site and service together (server/services/carriageSearch.ts).
+  routes.add('get', '/analysis/carriage-search', can.analyse, async (req, res) => {
+    const { q, pageSize } = parseOr400(carriageSearchQuerySchema, req.query, 'query');
+    const m = currentModel(ctx);
+    res.json({ networkVersion: m.networkVersion, ...searchCarriages(m, q, pageSize) });
   });
 
   routes.add('get', '/analysis/proposals', can.analyse, async (req, res) => {

@@ -6,6 +6,7 @@ import { ApiError, notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
+import { checksCsv, csvFileName } from '../services/analysisCsv';
 
 export function currentModel(ctx: AppContext): ServedNetwork {
   const m = ctx.network.model;
@@ -45,10 +46,12 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('get', '/checks', can.read, async (req, res) => {
-    const { severity = 'warning' } = parseOr400(checksQuerySchema, req.query, 'query');
+    const { severity = 'warning', format } = parseOr400(checksQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     const c = cacheOf(m);
     c.failures ??= networkCheckFailures(m.document, { severity: 'warning', networkVersion: m.networkVersion });
-    res.json(severity === 'warning' ? c.failures : { ...c.failures, failures: c.failures.failures.filter((f) => f.severity === 'error') });
+    const answer = severity === 'warning' ? c.failures : { ...c.failures, failures: c.failures.failures.filter((f) => f.severity === 'error') };
+    if (format === 'csv') res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv(answer));
+    else res.json(answer);
   });
 }

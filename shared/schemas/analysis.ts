@@ -41,6 +41,12 @@ export interface ExposureAnswer {
   elements: ExposureRow[];
 }
 
+/** Exposure with elements that take off exactly the same carriages in one row; `elements[0]` names the row. */
+export interface ExposureGroupsAnswer {
+  networkVersion: number;
+  groups: { elements: Element[]; households: number; carriages: number }[];
+}
+
 export interface DiversityAnswer {
   networkVersion: number;
   /**
@@ -123,6 +129,18 @@ export const exposureQuerySchema = z.object({
   kinds: kindsQuery(DEFAULT_WEAK_POINT_KINDS),
   format: formatField,
 });
+
+/** `GET /api/analysis/carriage-search?q=...&pageSize=N`: carriages by code, or by site and service words together. */
+export const carriageSearchQuerySchema = z.object({
+  q: z.string({ error: 'q is the text to look for' }).max(200, 'q is at most 200 characters'),
+  pageSize: z.coerce.number({ error: 'pageSize must be a number' }).int('pageSize is a whole number').min(1, 'pageSize is at least 1').max(50, 'pageSize is at most 50').default(6),
+});
+
+export interface CarriageSearchAnswer {
+  networkVersion: number;
+  items: { code: string; site: string; siteName: string; service: string; serviceName: string }[];
+  total: number;
+}
 
 /** `GET /api/analysis/diversity` and `/unfed`: `format=csv` for the file. */
 export const listFormatQuerySchema = z.object({ format: formatField });

@@ -71,6 +71,8 @@ export type CheckSeverity = (typeof CHECK_SEVERITIES)[number];
  */
 export const checksQuerySchema = z.strictObject({
   severity: z.enum(CHECK_SEVERITIES, { error: 'severity is one of warning, error' }).optional(),
+  /** csv: the list as a spreadsheet file */
+  format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json'),
 });
 
 export interface CheckFailure {
