@@ -1,5 +1,6 @@
 /**
- * "Find a site, feed or group": type part of a code or name, press a result
+ * "Find a site, carriage, feed or group": type part of a code or name (a
+ * carriage also by its site and service together), press a result
  * to add it to the failure set. Results say their kind in words; elements
  * already in the set say so instead of offering to add them again.
  */
@@ -25,8 +26,8 @@ export function ElementSearch({ chosen, onAdd }: { chosen: readonly Element[]; o
   return (
     <View style={styles.wrap}>
       <TextField
-        label="Find a site, feed or group"
-        hint="Part of a code or name, for example a site's name"
+        label="Find a site, carriage, feed or group"
+        hint="Part of a code or name; a carriage also by site and service, for example a site's name and a service's name"
         value={text}
         onChangeText={setText}
         autoCapitalize="none"
