@@ -228,6 +228,12 @@ export const codeNamePageSchema = z.object({
 });
 export type CodeNamePage = z.infer<typeof codeNamePageSchema>;
 
+/** GET /api/analysis/exposure-groups */
+export const exposureGroupsAnswerSchema = z.object({
+  networkVersion: z.number(),
+  groups: z.array(z.object({ elements: z.array(analysisElementSchema).min(1), households: z.number(), carriages: z.number() })),
+});
+
 /** GET /api/analysis/carriage-search */
 export const carriageSearchSchema = z.object({
   items: z.array(z.object({ code: z.string(), site: z.string(), siteName: z.string(), service: z.string(), serviceName: z.string() })),

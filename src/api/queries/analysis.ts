@@ -10,7 +10,11 @@ import type { Element } from '@/shared/schemas/analysis';
 import { useSend } from '../ApiProvider';
 import { parseAnswer, type ApiError } from '../client';
 import { freshness } from '../freshness';
-import { chainAnswerSchema, diversityAnswerSchema, exposureAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
+import { chainAnswerSchema, diversityAnswerSchema, exposureAnswerSchema, exposureGroupsAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
+import { useMemo } from 'react';
+import { useSession } from '@/src/session/SessionProvider';
+import { ApiError as ClientError } from '../client';
+import { attachmentName, type DownloadedFile } from './network';
 import type { z } from 'zod';
 import { useApiQuery } from '../useApiQuery';
 
@@ -40,6 +44,31 @@ export function useReach(failed: readonly Element[], failSet: string) {
 
 export function useExposure(limit?: number) {
   return useApiQuery(analysisKeys.exposure(limit), exposureAnswerSchema, 'network');
+}
+
+/** The exposure ranking with elements that take off the same carriages in one row; kinds comma-separated. */
+export function useExposureGroups(limit: number, kinds: string) {
+  return useApiQuery(api.exposureGroups({ limit, kinds }), exposureGroupsAnswerSchema, 'network');
+}
+
+/** A list of the analysis API as a CSV file (the bearer token rides along, so a plain link would not do). */
+export function useCsvDownload() {
+  const { tokenRef } = useSession();
+  return useMemo(
+    () =>
+      async (path: string, fallbackName: string): Promise<DownloadedFile> => {
+        const token = tokenRef.current;
+        let res: Response;
+        try {
+          res = await fetch(path, { headers: { Accept: 'text/csv', ...(token ? { Authorization: `Bearer ${token}` } : {}) } });
+        } catch {
+          throw new ClientError(0, 'network', 'Could not reach the Headwater server. Check the connection and try again.');
+        }
+        if (!res.ok) throw new ClientError(res.status, `http_${res.status}`, `The server answered ${res.status}.`);
+        return { name: attachmentName(res.headers.get('Content-Disposition'), fallbackName), blob: await res.blob() };
+      },
+    [tokenRef],
+  );
 }
 
 export function useDiversity() {
