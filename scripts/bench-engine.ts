@@ -16,6 +16,7 @@ import type { Element } from '@/shared/schemas/analysis';
 import { NetworkEngine } from '@/server/engine/engine';
 import { immediateDominators } from '@/server/engine/dominators';
 import { timeNetworkxDominators } from '@/test/helpers/networkx';
+import { baselineExposure, flowGraphs, recomputeResilience, walkFloor } from '@/test/helpers/engine-yardsticks';
 import { nationalNetwork, prng } from '@/test/helpers/random-network';
 import { benchPlanner, type PlannerBenchResult } from './bench-planner';
 
@@ -50,6 +51,8 @@ export interface EngineBenchResult extends Partial<PlannerBenchResult> {
   /** reach of 2-5 random elements (sites, feeds, groups drawn alike) */
   reachMultiP50Ms: number;
   reachMultiP95Ms: number;
+  /** reach of one random carriage (one transmitter) */
+  reachCarriageP95Ms: number;
   /** reach of 2-5 random sites (each site has nodes in most service graphs) */
   reachMultiSitesP95Ms: number;
   /** plain typed-array BFS of every service graph with the same failed elements removed */
@@ -57,7 +60,7 @@ export interface EngineBenchResult extends Partial<PlannerBenchResult> {
   walkFloorP95Ms: number;
   /** reachMultiP95Ms / walkFloorP95Ms */
   reachMultiToFloorP95: number;
-  /** single points of failure of every fed carriage and exposure of every element */
+  /** single points of failure of every fed carriage and exposure of every element (carriages included) */
   spofAllMs: number;
   spofAllCpuMs: number;
   /** remove-and-walk of a timed sample of elements, scaled to every element (an estimate) */
@@ -93,7 +96,10 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
   const engine = NetworkEngine.build(doc, 1);
   const buildMs = performance.now() - t;
   const buildCpuMs = cpu() - c;
-  const elements = engine.elements();
+  const allElements = engine.elements();
+  // Failure sets are drawn from sites, feeds and groups as before carriages could fail, so runs stay comparable.
+  const elements = allElements.filter((e) => e.kind !== 'carriage');
+  const carriages = allElements.filter((e) => e.kind === 'carriage');
   const sites = elements.filter((e) => e.kind === 'site');
   if (sites.length === 0) throw new Error('the network has no sites to fail');
   const anyElement = () => elements[Math.floor(rnd() * elements.length)];
@@ -106,7 +112,7 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
   // Warm the JIT on the paths being timed, then time.
   for (let i = 0; i < 20; i++) {
     engine.reach([sites[Math.floor(rnd() * sites.length)]]);
-    engine.walkFloor([anyElement(), anyElement()]);
+    walkFloor(engine, [anyElement(), anyElement()]);
   }
   const one = Array.from({ length: trials }, () => {
     const failed = [sites[Math.floor(rnd() * sites.length)]];
@@ -117,8 +123,13 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
   for (let i = 0; i < trials; i++) {
     const failed: Element[] = Array.from({ length: 2 + Math.floor(rnd() * 4) }, anyElement);
     multi.push(timed(() => engine.reach(failed)));
-    floor.push(timed(() => engine.walkFloor(failed)));
+    floor.push(timed(() => walkFloor(engine, failed)));
   }
+
+  const oneCarriage = carriages.length === 0 ? [0] : Array.from({ length: trials }, () => {
+    const failed = [carriages[Math.floor(rnd() * carriages.length)]];
+    return timed(() => engine.reach(failed));
+  });
 
   const multiSites = Array.from({ length: trials }, () => {
     const failed = Array.from({ length: 2 + Math.floor(rnd() * 4) }, () => sites[Math.floor(rnd() * sites.length)]);
@@ -126,12 +137,12 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
   });
 
   c = cpu();
-  const spofAllMs = engine.recomputeResilience().ms;
+  const spofAllMs = recomputeResilience(engine).ms;
   const spofAllCpuMs = cpu() - c;
-  const sample = Array.from({ length: sampleSize }, anyElement);
-  const baselineMs = timed(() => engine.baselineExposure(sample));
+  const sample = Array.from({ length: sampleSize }, () => allElements[Math.floor(rnd() * allElements.length)]);
+  const baselineMs = timed(() => baselineExposure(engine, sample));
 
-  const graphs = engine.flowGraphs();
+  const graphs = flowGraphs(engine);
   t = performance.now();
   for (const g of graphs) immediateDominators(g.graph, 0);
   const idomMs = performance.now() - t;
@@ -145,7 +156,7 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     sites: counts.sites,
     carriages: counts.carriages,
     feeds: counts.feeds,
-    elements: elements.length,
+    elements: allElements.length,
     nodes: counts.nodes,
     edges: counts.edges,
     buildMs: round(buildMs),
@@ -156,12 +167,13 @@ export function benchEngine(doc: NetworkDocument, opts: EngineBenchOptions = {})
     reachMultiP50Ms: round(percentile(multi, 50)),
     reachMultiP95Ms: round(percentile(multi, 95)),
     reachMultiSitesP95Ms: round(percentile(multiSites, 95)),
+    reachCarriageP95Ms: round(percentile(oneCarriage, 95)),
     walkFloorMs: round(percentile(floor, 50)),
     walkFloorP95Ms: round(percentile(floor, 95)),
     reachMultiToFloorP95: round(percentile(multi, 95) / percentile(floor, 95)),
     spofAllMs: round(spofAllMs),
     spofAllCpuMs: round(spofAllCpuMs),
-    baselineSpofAllMsEstimate: round((baselineMs / sampleSize) * elements.length),
+    baselineSpofAllMsEstimate: round((baselineMs / sampleSize) * allElements.length),
     baselineSampleSize: sampleSize,
     idomMs: round(idomMs),
     networkxIdomMs: networkxIdomMs === null ? null : round(networkxIdomMs),

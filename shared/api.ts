@@ -22,6 +22,16 @@ export const api = {
   reach: '/api/analysis/reach',
   spof: '/api/analysis/spof',
   exposure: (limit?: number) => `/api/analysis/exposure${limit ? `?limit=${limit}` : ''}`,
+  /** kinds: comma-separated element kinds; format csv for the file */
+  exposureGroups: (q: { limit?: number; kinds?: string; format?: 'csv' } = {}) =>
+    `/api/analysis/exposure-groups?${[q.limit ? `limit=${q.limit}` : '', q.kinds ? `kinds=${q.kinds}` : '', q.format ? `format=${q.format}` : ''].filter(Boolean).join('&')}`,
+  carriageSearch: (q: string, pageSize: number) => `/api/analysis/carriage-search?q=${encodeURIComponent(q)}&pageSize=${pageSize}`,
+  /** the same lists as spreadsheet files */
+  csv: {
+    diversity: '/api/analysis/diversity?format=csv',
+    unfed: '/api/analysis/unfed?format=csv',
+    checks: '/api/checks?format=csv',
+  },
   diversity: '/api/analysis/diversity',
   unfed: '/api/analysis/unfed',
   proposals: (q: { carriage?: string; limit?: number } = {}) =>

@@ -12,6 +12,7 @@ import { pageQuerySchema } from '@/shared/schemas/paging';
 import { ENTITY_KINDS, entitySchemas, networkDocumentSchema, versionSchema } from '@/shared/schemas/network';
 import { invitationSchema, personChangeSchema } from '@/shared/schemas/people';
 import { chainQuery, exposureQuery } from '../routes/analysis';
+import { carriageSearchQuerySchema, listFormatQuerySchema, spofQuerySchema } from '@/shared/schemas/analysis';
 import { loginSchema } from '../routes/auth';
 import { historyQuerySchema, sourcesQuerySchema } from '@/shared/schemas/editing';
 import { deleteQuerySchema, writeQuerySchema } from '../routes/inventory';
@@ -76,10 +77,15 @@ export const routeDocs: Record<string, RouteDoc> = {
   },
   'get /api/network/export': { summary: 'The whole network as a document (JSON) or a zip of CSV files', query: exportQuerySchema, answer: networkDocumentSchema },
   'post /api/analysis/reach': { summary: 'What a set of failures takes off air, and for how many households', body: reachRequestSchema },
-  'get /api/analysis/spof': { summary: 'Single points of failure of every fed carriage' },
-  'get /api/analysis/exposure': { summary: 'Elements ranked by the households their failure alone takes off air', query: exposureQuery },
-  'get /api/analysis/diversity': { summary: 'Carriages whose reserve feed still shares an avoidable single point of failure (limit/offset page it; total always)', query: pageQuerySchema },
-  'get /api/analysis/unfed': { summary: 'Carriages with no programme even when nothing has failed (limit/offset page it; total always)', query: pageQuerySchema },
+  'get /api/analysis/spof': { summary: 'Single points of failure of every fed carriage (kinds=site,feed,group by default; carriage adds parent transmitters)', query: spofQuerySchema },
+  'get /api/analysis/exposure': { summary: 'Elements ranked by the households their failure alone takes off air (format=csv for a file)', query: exposureQuery },
+  'get /api/analysis/exposure-groups': {
+    summary: 'The exposure ranking with elements that take off exactly the same carriages in one row (format=csv for a file)',
+    query: exposureQuery,
+  },
+  'get /api/analysis/diversity': { summary: 'Carriages whose reserve feed still shares an avoidable single point of failure (format=csv for a file; limit/offset page it, total always)', query: pageQuerySchema.extend(listFormatQuerySchema.shape) },
+  'get /api/analysis/unfed': { summary: 'Carriages with no programme even when nothing has failed (format=csv for a file; limit/offset page it, total always)', query: pageQuerySchema.extend(listFormatQuerySchema.shape) },
+  'get /api/analysis/carriage-search': { summary: 'Carriages by code, or by site and service together, to mark failed', query: carriageSearchQuerySchema },
   'get /api/carriages/:code/chain': { summary: 'The chain of feeds above (up) or below (down) a carriage', query: chainQuery },
   'get /api/feeds/:code/checks': { summary: "Engineering screening of one feed (see docs/checks.md)" },
   'get /api/checks': { summary: "Every feed's failed checks, worst first", query: checksQuerySchema },

@@ -11,6 +11,7 @@ import type {
   DiversityAnswer,
   Element,
   ExposureAnswer,
+  ExposureGroupsAnswer,
   ExposureRow,
   PairsAnswer,
   ProposalsAnswer,
@@ -20,7 +21,8 @@ import type {
 } from '@/shared/schemas/analysis';
 import { elementKey } from '@/shared/schemas/analysis';
 import { buildCore, type BuildTimings, type EngineCore } from './core';
-import { elementId, listOf, normaliseCode } from './model';
+import { elementId, isCarriageId, KIND_BIT, kindMask, listOf, normaliseCode } from './model';
+import { groupExposure } from './exposure-groups';
 import { computeResilience, type Resilience } from './resilience';
 import { avoidableOf, unavoidableByService } from './avoidable';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
@@ -29,11 +31,10 @@ import { IntList } from './removal-walk';
 import { PairsJob, type PairRow } from './pairs';
 import { proposalContext, proposalsFor, type ProposalContext, type ProposalRow } from './proposals';
 import { bestOverNetwork } from './proposals-ranking';
-import type { ElementKind } from '@/shared/schemas/network';
+import { DEFAULT_WEAK_POINT_KINDS, type ElementKind } from '@/shared/schemas/network';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
 import { toGraphology, type ServiceGraph } from './graphs';
 import { IncrementalUpdateError, updateCore, type ChangedCodes } from './update';
-import type { Csr } from './csr';
 
 export { UnknownElementsError, UnknownCarriageError } from './errors';
 export type { ChangedCodes } from './update';
@@ -63,9 +64,23 @@ interface Analysis {
   unavoidable: Int32Array[];
   /** carriages with a diversity gap -> their avoidable weak points (element ids) */
   gaps: Map<number, number[]>;
-  spofAnswer: SpofAnswer;
   diversityAnswer: DiversityAnswer;
-  exposureRows: ExposureRow[];
+  /** every element, ranked; the engine keeps the rows of each kinds mask once asked */
+  exposureAll: ExposureRow[];
+}
+
+/** Each engine's compiled state, for code that times or checks its parts (`engineCore`). */
+const cores = new WeakMap<NetworkEngine, EngineCore>();
+
+/**
+ * The compiled state behind an engine: for benchmarks and yardsticks that
+ * time or cross-check the engine's parts (test/helpers/engine-yardsticks.ts),
+ * never for answering requests.
+ */
+export function engineCore(engine: NetworkEngine): EngineCore {
+  const core = cores.get(engine);
+  if (!core) throw new TypeError('engineCore needs an engine made by NetworkEngine.build');
+  return core;
 }
 
 function checkVersion(networkVersion: number) {
@@ -83,6 +98,10 @@ export class NetworkEngine {
   private readonly scratch: ReachScratch;
   private readonly unfedAnswer: UnfedAnswer;
   private analysed: Analysis | null = null;
+  /** per kinds mask (kindMask): single points of failure of every fed carriage, kept once asked */
+  private readonly spofAnswers = new Map<number, SpofAnswer>();
+  private readonly exposureRows = new Map<number, ExposureRow[]>();
+  private readonly exposureGroupRows = new Map<number, ExposureGroupsAnswer['groups']>();
   /** built by an edit's update rather than from scratch */
   incremental = false;
   private readonly graphology: (ServiceGraph | undefined)[] = [];
@@ -102,6 +121,7 @@ export class NetworkEngine {
     for (let c = 0; c < model.carriages.length; c++) if (!fed[c]) unfedRows.push(this.placed(c));
     this.unfedAnswer = { networkVersion, carriages: unfedRows };
     this.timings = { ...core.timings, resilienceMs: 0, answersMs: 0, totalMs: performance.now() - started };
+    cores.set(this, core);
   }
 
   private placed(c: number) {
@@ -126,22 +146,20 @@ export class NetworkEngine {
     const { spofOffsets, spofElements } = resilience;
     const unavoidable = unavoidableByService(core);
     const gaps = new Map<number, number[]>();
-    const spofIds = (c: number) => spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]);
+    // Diversity and proposals speak of sites, feeds and groups: a parent transmitter that is a weak point comes with its site.
+    const spofIds = (c: number) => spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]).filter((x) => !isCarriageId(model, x));
     const spofOf = (c: number) => Array.from(spofIds(c), (x) => model.elements[x]);
-    const spofRows: SpofAnswer['carriages'] = [];
     const diversityRows: DiversityAnswer['carriages'] = [];
     for (let c = 0; c < model.carriages.length; c++) {
       if (!fed[c]) continue;
-      const spof = spofOf(c);
-      spofRows.push({ carriage: model.carriageCodes[c], spof });
       const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
-      if (!hasReserve || spof.length === 0) continue;
+      if (!hasReserve || spofOffsets[c] === spofOffsets[c + 1]) continue;
       const avoidable = avoidableOf(unavoidable, model.carriageService[c], spofIds(c));
       if (avoidable.length > 0) gaps.set(c, avoidable);
-      if (avoidable.length > 0) diversityRows.push({ ...this.placed(c), spof, avoidable: avoidable.map((x) => model.elements[x]) });
+      if (avoidable.length > 0) diversityRows.push({ ...this.placed(c), spof: spofOf(c), avoidable: avoidable.map((x) => model.elements[x]) });
     }
     const { ranked, exposureHouseholds, exposureCarriages } = resilience;
-    const exposureRows = Array.from(ranked, (x) => ({
+    const exposureAll = Array.from(ranked, (x) => ({
       element: model.elements[x],
       households: exposureHouseholds[x],
       carriages: exposureCarriages[x],
@@ -154,9 +172,8 @@ export class NetworkEngine {
       resilience,
       unavoidable,
       gaps,
-      spofAnswer: { networkVersion, carriages: spofRows },
       diversityAnswer: { networkVersion, carriages: diversityRows },
-      exposureRows,
+      exposureAll,
     };
     return this.analysed;
   }
@@ -222,15 +239,6 @@ export class NetworkEngine {
     return this.graphology[s];
   }
 
-  /** The compiled full graph of every service (root = node 0), e.g. to compare dominators with another implementation. */
-  flowGraphs(): { service: string; graph: Csr; idom: Int32Array }[] {
-    return this.core.services.map((svc, s) => ({
-      service: this.core.model.serviceCodes[s],
-      graph: svc.full,
-      idom: this.core.full[s].tree.idom,
-    }));
-  }
-
   private resolve(failed: Element[]): number[] {
     if (!Array.isArray(failed)) throw new TypeError('failed must be an array of { kind, code } elements');
     const ids: number[] = [];
@@ -274,15 +282,60 @@ export class NetworkEngine {
     return out.map((c) => this.core.model.carriageCodes[c]);
   }
 
-  spof(): SpofAnswer {
-    return this.analysis.spofAnswer;
+  /**
+   * Single points of failure (rule 6) of every fed carriage, in element
+   * order, of the given kinds (default sites, feeds and groups; with
+   * `carriage`, the parent transmitters too).
+   */
+  spof(kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): SpofAnswer {
+    const mask = kindMask(kinds);
+    let answer = this.spofAnswers.get(mask);
+    if (!answer) this.spofAnswers.set(mask, (answer = this.spofFor(mask)));
+    return answer;
   }
 
-  exposure(limit?: number): ExposureAnswer {
+  private spofFor(mask: number): SpofAnswer {
+    const { model, fed } = this.core;
+    const { spofOffsets, spofElements } = this.analysis.resilience;
+    const wanted = (x: number) => (KIND_BIT[model.elements[x].kind] & mask) !== 0;
+    const carriages: SpofAnswer['carriages'] = [];
+    for (let c = 0; c < model.carriages.length; c++) {
+      if (!fed[c]) continue;
+      const spof: Element[] = [];
+      for (let i = spofOffsets[c]; i < spofOffsets[c + 1]; i++) if (wanted(spofElements[i])) spof.push(model.elements[spofElements[i]]);
+      carriages.push({ carriage: model.carriageCodes[c], spof });
+    }
+    return { networkVersion: this.networkVersion, carriages };
+  }
+
+  /** Exposure (rule 7) of every element of the given kinds (default sites, feeds and groups), highest households first. */
+  exposure(limit?: number, kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): ExposureAnswer {
     if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) {
       throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
     }
-    return { networkVersion: this.networkVersion, elements: limit === undefined ? this.analysis.exposureRows : this.analysis.exposureRows.slice(0, limit) };
+    const mask = kindMask(kinds);
+    let rows = this.exposureRows.get(mask);
+    if (!rows) this.exposureRows.set(mask, (rows = this.analysis.exposureAll.filter((r) => (KIND_BIT[r.element.kind] & mask) !== 0)));
+    return { networkVersion: this.networkVersion, elements: limit === undefined ? rows : rows.slice(0, limit) };
+  }
+
+  /**
+   * The exposure ranking with elements that take off exactly the same
+   * carriages in one row (exposure-groups.ts), highest households first.
+   */
+  exposureGroups(limit?: number, kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): ExposureGroupsAnswer {
+    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) {
+      throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    }
+    const mask = kindMask(kinds);
+    let rows = this.exposureGroupRows.get(mask);
+    if (!rows) {
+      const { model } = this.core;
+      const { ranked, exposureHouseholds, exposureCarriages } = this.analysis.resilience;
+      const wanted = Array.from(ranked).filter((x) => (KIND_BIT[model.elements[x].kind] & mask) !== 0);
+      this.exposureGroupRows.set(mask, (rows = groupExposure(this.core, wanted, exposureHouseholds, exposureCarriages)));
+    }
+    return { networkVersion: this.networkVersion, groups: limit === undefined ? rows : rows.slice(0, limit) };
   }
 
   diversity(): DiversityAnswer {
@@ -324,9 +377,7 @@ export class NetworkEngine {
    * server can yield between them; `pairsAnswer` turns its rows into the answer.
    */
   pairsJob(kinds: readonly ElementKind[] = ['site', 'group']): PairsJob {
-    if (!Array.isArray(kinds) || kinds.length === 0 || kinds.some((k) => k !== 'site' && k !== 'feed' && k !== 'group')) {
-      throw new RangeError(`kinds is a non-empty list of site, feed, group (got ${JSON.stringify(kinds)})`);
-    }
+    kindMask(kinds);
     return new PairsJob(this.core, kinds);
   }
 
@@ -358,62 +409,7 @@ export class NetworkEngine {
     return chainTree(this.core, this.networkVersion, c, direction, opts);
   }
 
-  /**
-   * The yardstick for reach: remove the failed elements' nodes and walk every
-   * service graph from its root with a plain typed-array BFS. Returns the
-   * number of carriages lost (no fallback, no answer building).
-   */
-  walkFloor(failed: Element[]): number {
-    const ids = this.resolve(failed);
-    const perService = this.scratch.perService;
-    removedNodesByService(this.core, ids, perService);
-    let lost = 0;
-    for (let s = 0; s < this.core.services.length; s++) {
-      lost += this.core.walker.floorLost(this.core.full[s], perService[s].data, perService[s].length);
-    }
-    return lost;
-  }
-
-  /**
-   * The obvious method for exposure: per element, remove its nodes and walk
-   * every service graph it has nodes in. Used to time the baseline and to
-   * cross-check the dominator method.
-   */
-  baselineExposure(sample: Element[]): ExposureRow[] {
-    const { model, services, full, walker } = this.core;
-    const perService = this.scratch.perService;
-    const lostNodes = new IntList(1024);
-    const siteStamp = new Uint8Array(model.sites.length);
-    return this.resolve(sample).map((x) => {
-      const touched = removedNodesByService(this.core, [x], perService);
-      const sites: number[] = [];
-      let carriages = 0;
-      let households = 0;
-      for (const s of touched) {
-        lostNodes.clear();
-        carriages += walker.floorLost(full[s], perService[s].data, perService[s].length, lostNodes);
-        for (let i = 0; i < lostNodes.length; i++) {
-          const site = model.carriageSite[services[s].ref[lostNodes.data[i]]];
-          if (!siteStamp[site]) {
-            siteStamp[site] = 1;
-            sites.push(site);
-            households += model.siteHouseholds[site];
-          }
-        }
-      }
-      for (const site of sites) siteStamp[site] = 0;
-      return { element: model.elements[x], households, carriages };
-    });
-  }
-
-  /** Recomputes single points of failure and exposure for every element (what `build` did), for timing. */
-  recomputeResilience(): { ms: number; elements: number } {
-    const t = performance.now();
-    computeResilience(this.core);
-    return { ms: performance.now() - t, elements: this.core.model.elementCount };
-  }
-
-  /** Every element of the network, in compareElements order. */
+  /** Every element of the network (carriages included), in compareElements order. */
   elements(): readonly Element[] {
     return this.core.model.elements;
   }

@@ -12,8 +12,9 @@
  *   source carriage -> hop(feed, via-site)... -> hop(feed, group)... -> feed -> receiving carriage
  *
  * Rules 1-3 are then reachability from the root once every node owned by a
- * failed element is removed. Owners of a node: a carriage node belongs to its
- * site and the site's groups (rule 1), a feed node to the feed, a hop
+ * failed element is removed. Owners of a node: a carriage node belongs to the
+ * carriage itself (removing it is exactly "no programme, and every feed it is
+ * the source of is down"), its site and the site's groups (rule 1), a feed node to the feed, a hop
  * (feed, via-site) to the via-site and the via-site's groups, a hop
  * (feed, group) to the group (rule 2).
  *
@@ -241,11 +242,11 @@ export function compileFlowSpec(spec: FlowSpec, model: NetworkModel, base: numbe
   const ownerCount = (u: number) => {
     switch (kind[u]) {
       case NODE_CARRIAGE:
-        return 1 + groupCount(model.carriageSite[ref[u]]);
+        return 2 + groupCount(model.carriageSite[ref[u]]);
       case NODE_FEED:
         return 1;
       case NODE_HOP:
-        return ref[u] < model.feedBase ? 1 + groupCount(ref[u]) : 1;
+        return ref[u] < model.carriageBase ? 1 + groupCount(ref[u]) : 1;
       default:
         return 0;
     }
@@ -255,19 +256,21 @@ export function compileFlowSpec(spec: FlowSpec, model: NetworkModel, base: numbe
     ownerOffsets[u + 1] = count;
   }
   const owners = new Int32Array(count);
-  const siteWithGroups = (at: number, site: number) => {
+  // Owners of a node stay ascending (site < carriage < group ids), as the element order.
+  const siteWithGroups = (at: number, site: number, carriage = -1) => {
     owners[at] = site;
+    if (carriage >= 0) owners[++at] = model.carriageBase + carriage;
     for (let k = sg.offsets[site]; k < sg.offsets[site + 1]; k++) owners[++at] = model.groupBase + sg.ids[k];
   };
   for (let u = 0; u < n; u++) {
     const at = ownerOffsets[u];
     if (kind[u] === NODE_CARRIAGE) {
       isCarriage[u] = 1;
-      siteWithGroups(at, model.carriageSite[ref[u]]);
+      siteWithGroups(at, model.carriageSite[ref[u]], ref[u]);
     } else if (kind[u] === NODE_FEED) {
       owners[at] = model.feedBase + ref[u];
     } else if (kind[u] === NODE_HOP) {
-      if (ref[u] < model.feedBase) siteWithGroups(at, ref[u]);
+      if (ref[u] < model.carriageBase) siteWithGroups(at, ref[u]);
       else owners[at] = ref[u];
     }
   }

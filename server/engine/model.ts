@@ -4,7 +4,8 @@
  *
  * Every kind is sorted by code (plain UTF-16 order, the same order as
  * `compareElements`), so sorting ids sorts codes, and element ids
- * (sites, then feeds, then groups) are already in `compareElements` order.
+ * (sites, then carriages, then feeds, then groups) are already in
+ * `compareElements` order.
  */
 import type { NetworkDocument, Site, Carriage, Feed, Service, Group, Medium, FeedRole } from '@/shared/schemas/network';
 import type { Element } from '@/shared/schemas/analysis';
@@ -140,7 +141,8 @@ export interface NetworkModel {
   /** feeds into each carriage / out of each carriage, ids ascending (= code order) */
   feedsInto: IdLists;
   feedsOutOf: IdLists;
-  /** element ids: sites [0, feedBase), feeds [feedBase, groupBase), groups [groupBase, elementCount) */
+  /** element ids: sites [0, carriageBase), carriages [carriageBase, feedBase), feeds [feedBase, groupBase), groups [groupBase, elementCount) */
+  carriageBase: number;
   feedBase: number;
   groupBase: number;
   elementCount: number;
@@ -216,11 +218,13 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     feedGroups.next();
   }
 
-  const feedBase = S;
-  const groupBase = S + F;
+  const carriageBase = S;
+  const feedBase = S + C;
+  const groupBase = feedBase + F;
   const elementCount = groupBase + groups.items.length;
   const elements: Element[] = new Array(elementCount);
   for (let i = 0; i < S; i++) elements[i] = Object.freeze({ kind: 'site' as const, code: sites.codes[i] });
+  for (let i = 0; i < C; i++) elements[carriageBase + i] = Object.freeze({ kind: 'carriage' as const, code: carriages.codes[i] });
   for (let i = 0; i < F; i++) elements[feedBase + i] = Object.freeze({ kind: 'feed' as const, code: feeds.codes[i] });
   for (let i = 0; i < groups.items.length; i++) elements[groupBase + i] = Object.freeze({ kind: 'group' as const, code: groups.codes[i] });
 
@@ -254,6 +258,7 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     feedGroups: feedGroups.done(),
     feedsInto: invert(C, feedTo),
     feedsOutOf: invert(C, feedFrom),
+    carriageBase,
     feedBase,
     groupBase,
     elementCount,
@@ -265,6 +270,10 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
 export function elementId(model: NetworkModel, kind: ElementKind, code: string): number {
   const c = normaliseCode(code);
   if (kind === 'site') return model.siteIndex.get(c) ?? -1;
+  if (kind === 'carriage') {
+    const k = model.carriageIndex.get(c);
+    return k === undefined ? -1 : model.carriageBase + k;
+  }
   if (kind === 'feed') {
     const f = model.feedIndex.get(c);
     return f === undefined ? -1 : model.feedBase + f;
@@ -274,4 +283,19 @@ export function elementId(model: NetworkModel, kind: ElementKind, code: string):
     return g === undefined ? -1 : model.groupBase + g;
   }
   return -1;
+}
+
+export const isCarriageId = (model: NetworkModel, x: number): boolean => x >= model.carriageBase && x < model.feedBase;
+
+/** One bit per element kind, for filters over element ids. */
+export const KIND_BIT: Readonly<Record<ElementKind, number>> = { site: 1, carriage: 2, feed: 4, group: 8 };
+
+/** The bits of a non-empty list of kinds; a RangeError for anything else. */
+export function kindMask(kinds: readonly ElementKind[]): number {
+  let mask = 0;
+  if (Array.isArray(kinds)) for (const k of kinds as readonly string[]) mask |= Object.hasOwn(KIND_BIT, k) ? KIND_BIT[k as ElementKind] : 0x100;
+  if (!Array.isArray(kinds) || kinds.length === 0 || mask & 0x100) {
+    throw new RangeError(`kinds is a non-empty list of site, carriage, feed, group (got ${JSON.stringify(kinds)})`);
+  }
+  return mask;
 }

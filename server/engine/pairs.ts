@@ -51,6 +51,7 @@ import type { EngineCore } from './core';
 import { csrFromEdges } from './csr';
 import { immediateDominators } from './dominators';
 import { IntList } from './removal-walk';
+import { KIND_BIT } from './model';
 
 export interface PairRow {
   /** element ids, a < b (compareElements order) */
@@ -61,7 +62,6 @@ export interface PairRow {
   households: number;
 }
 
-const KIND_BIT: Record<ElementKind, number> = { site: 1, feed: 2, group: 4 };
 
 export class PairsJob {
   readonly total: number;

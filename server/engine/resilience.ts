@@ -8,6 +8,9 @@
  * An element owning several nodes in one service graph (a via-site that also
  * carries the service, a group on several feeds or sites) is not a single
  * dominator: it is removed and walked (removal-walk.ts) once per such service.
+ * A carriage owns exactly one node (its own), so it is always a single
+ * dominator: a parent transmitter is a single point of failure of everything
+ * its node dominates.
  */
 import type { EngineCore } from './core';
 import { IntList } from './removal-walk';
@@ -106,10 +109,11 @@ export function computeResilience(core: EngineCore): Resilience {
       const idom = full[s].tree.idom;
       const single = ownerSingle[s];
       const ownSite = model.carriageSite[c];
+      const self = model.carriageBase + c;
       const start = spof.length;
       for (let w = carriageNode[c]; w > 0; w = idom[w]) {
         for (let j = svc.ownerOffsets[w]; j < svc.ownerOffsets[w + 1]; j++) {
-          if (single[j] && svc.owners[j] !== ownSite) spof.push(svc.owners[j]);
+          if (single[j] && svc.owners[j] !== ownSite && svc.owners[j] !== self) spof.push(svc.owners[j]);
         }
       }
       for (let i = extra.offsets[c]; i < extra.offsets[c + 1]; i++) spof.push(extra.values[i]);

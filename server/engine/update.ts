@@ -193,12 +193,14 @@ function updateModel(old: NetworkModel, doc: NetworkDocument, changed: Record<'s
     feedGroups.next();
   }
 
-  const feedBase = S;
-  const groupBase = S + F;
+  // Element ids run sites, carriages, feeds, groups (model.ts).
+  const carriageBase = S;
+  const feedBase = S + C;
+  const groupBase = feedBase + F;
   const elementCount = groupBase + groups.items.length;
   let elements = old.elements;
   let elementMap: Int32Array | null = null;
-  if (sites.oldToNew || feeds.oldToNew || groups.oldToNew) {
+  if (sites.oldToNew || carriages.oldToNew || feeds.oldToNew || groups.oldToNew) {
     elements = new Array(elementCount);
     const fresh = (kind: Element['kind'], code: string) => Object.freeze({ kind, code }) as Element;
     const reuse = (u: KindUpdate<unknown>, i: number, oldBase: number, kind: Element['kind']) => {
@@ -206,6 +208,7 @@ function updateModel(old: NetworkModel, doc: NetworkDocument, changed: Record<'s
       return o >= 0 ? old.elements[oldBase + o] : fresh(kind, u.codes[i]);
     };
     for (let i = 0; i < S; i++) elements[i] = reuse(sites, i, 0, 'site');
+    for (let i = 0; i < C; i++) elements[carriageBase + i] = reuse(carriages, i, old.carriageBase, 'carriage');
     for (let i = 0; i < F; i++) elements[feedBase + i] = reuse(feeds, i, old.feedBase, 'feed');
     for (let i = 0; i < groups.items.length; i++) elements[groupBase + i] = reuse(groups, i, old.groupBase, 'group');
     elementMap = new Int32Array(old.elementCount);
@@ -214,7 +217,8 @@ function updateModel(old: NetworkModel, doc: NetworkDocument, changed: Record<'s
       return id < 0 ? -1 : base + id;
     };
     for (let x = 0; x < old.elementCount; x++) {
-      if (x < old.feedBase) elementMap[x] = through(sites.oldToNew, x, 0);
+      if (x < old.carriageBase) elementMap[x] = through(sites.oldToNew, x, 0);
+      else if (x < old.feedBase) elementMap[x] = through(carriages.oldToNew, x - old.carriageBase, carriageBase);
       else if (x < old.groupBase) elementMap[x] = through(feeds.oldToNew, x - old.feedBase, feedBase);
       else elementMap[x] = through(groups.oldToNew, x - old.groupBase, groupBase);
     }
@@ -250,6 +254,7 @@ function updateModel(old: NetworkModel, doc: NetworkDocument, changed: Record<'s
     feedGroups: feedGroups.done(),
     feedsInto: invert(C, feedTo),
     feedsOutOf: invert(C, feedFrom),
+    carriageBase,
     feedBase,
     groupBase,
     elementCount,

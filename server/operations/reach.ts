@@ -167,7 +167,8 @@ function adjacencyFor(model: ServedNetwork): Adjacency {
 
 /**
  * Carriages downstream of what the set brings down: the carriages at its
- * down sites and the targets of its down feeds, and everything they feed. A
+ * down sites, its failed carriages and the targets of its down feeds, and
+ * everything they feed. A
  * carriage the set's removal can affect, alone or with another set, is in here.
  */
 function downstreamOf(model: ServedNetwork, elements: readonly Element[]): Set<string> {
@@ -178,6 +179,7 @@ function downstreamOf(model: ServedNetwork, elements: readonly Element[]): Set<s
   };
   for (const e of elements) {
     if (e.kind === 'site') downSite(e.code);
+    else if (e.kind === 'carriage') start.push(e.code);
     else if (e.kind === 'feed') {
       const t = a.feedTarget.get(e.code);
       if (t) start.push(t);

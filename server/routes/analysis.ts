@@ -1,7 +1,18 @@
 /** The analysis API over the in-memory graphs (docs/api.md). */
 import { z } from 'zod';
 import { can } from '@/shared/api';
-import { pairsQuerySchema, planRequestSchema, proposalsQuerySchema, reachRequestSchema, type PairsRunning, type SiteInfo } from '@/shared/schemas/analysis';
+import {
+  carriageSearchQuerySchema,
+  exposureQuerySchema,
+  listFormatQuerySchema,
+  pairsQuerySchema,
+  planRequestSchema,
+  proposalsQuerySchema,
+  reachRequestSchema,
+  spofQuerySchema,
+  type PairsRunning,
+  type SiteInfo,
+} from '@/shared/schemas/analysis';
 import { pageQuerySchema, pageRows } from '@/shared/schemas/paging';
 import { ApiError, badRequest, conflict, notFound, parseOr400 } from '../http/errors';
 import { actorOf, settled } from './inventory';
@@ -12,12 +23,13 @@ import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { cachedFeedChecks, currentModel } from './checks';
+import { csvFileName, diversityCsv, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
+import { searchCarriages } from '../services/carriageSearch';
 
 export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
-export const exposureQuery = z.object({
+export const exposureQuery = exposureQuerySchema.extend({
   /** with=names: the name of each listed element (site and group names; a feed as "from → to"). */
   with: z.enum(['names'], { error: 'with is names (or left out)' }).optional(),
-  limit: z.coerce.number({ error: 'limit must be a number' }).int('limit is a whole number').min(1, 'limit is at least 1').max(100_000).optional(),
 });
 
 export const reachQuerySchema = z.strictObject({ with: z.enum(['sites'], { error: 'with is sites (or left out)' }).optional() });
@@ -45,7 +57,7 @@ function namesOf(m: ServedNetwork, elements: readonly { kind: string; code: stri
 export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('post', '/analysis/reach', can.analyse, async (req, res) => {
     if (req.body === undefined || req.body === null || typeof req.body !== 'object' || Array.isArray(req.body)) {
-      throw badRequest('body: send { "failed": [{ "kind": "site"|"feed"|"group", "code": "..." }] }');
+      throw badRequest('body: send { "failed": [{ "kind": "site"|"carriage"|"feed"|"group", "code": "..." }] }');
     }
     const { failed } = parseOr400(reachRequestSchema, req.body);
     const { with: extra } = parseOr400(reachQuerySchema, req.query, 'query');
@@ -60,30 +72,63 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     }
   });
 
-  routes.add('get', '/analysis/spof', can.analyse, async (_req, res) => {
-    res.json(currentModel(ctx).engine.spof());
+  routes.add('get', '/analysis/spof', can.analyse, async (req, res) => {
+    const { kinds } = parseOr400(spofQuerySchema, req.query, 'query');
+    res.json(currentModel(ctx).engine.spof(kinds));
   });
 
+  // format=csv: the same ranking as a file, one line per element, elements with the same loss sharing a rank.
   routes.add('get', '/analysis/exposure', can.analyse, async (req, res) => {
-    const { limit, with: extra } = parseOr400(exposureQuery, req.query, 'query');
+    const { limit, kinds, format, with: extra } = parseOr400(exposureQuery, req.query, 'query');
     const m = currentModel(ctx);
-    const answer = m.engine.exposure(limit);
+    const answer = m.engine.exposure(limit, kinds);
+    if (format === 'csv') {
+      const groups = answer.elements.map((r) => ({ elements: [r.element], households: r.households, carriages: r.carriages }));
+      res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(exposureGroupsCsv(m, { networkVersion: m.networkVersion, groups }));
+      return;
+    }
     res.json(extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer);
   });
 
-  // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md).
+  // Elements that take off exactly the same carriages in one row (a site and the feeds that only serve it).
+  routes.add('get', '/analysis/exposure-groups', can.analyse, async (req, res) => {
+    const { limit, kinds, format } = parseOr400(exposureQuery, req.query, 'query');
+    const m = currentModel(ctx);
+    const answer = m.engine.exposureGroups(limit, kinds);
+    if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(exposureGroupsCsv(m, answer));
+    else res.json(answer);
+  });
+
+  // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md). CSV is always the whole list.
   routes.add('get', '/analysis/diversity', can.analyse, async (req, res) => {
-    const page = parseOr400(pageQuerySchema, req.query, 'query');
-    const answer = currentModel(ctx).engine.diversity();
+    const { format, ...page } = parseOr400(pageQuerySchema.extend(listFormatQuerySchema.shape), req.query, 'query');
+    const m = currentModel(ctx);
+    const answer = m.engine.diversity();
+    if (format === 'csv') {
+      res.type('text/csv').attachment(csvFileName('diversity-gaps', m.networkVersion)).send(diversityCsv(m, answer));
+      return;
+    }
     const { rows, total, offset } = pageRows(answer.carriages, page);
     res.json({ ...answer, carriages: rows, total, offset });
   });
 
   routes.add('get', '/analysis/unfed', can.analyse, async (req, res) => {
-    const page = parseOr400(pageQuerySchema, req.query, 'query');
-    const answer = currentModel(ctx).engine.unfed();
+    const { format, ...page } = parseOr400(pageQuerySchema.extend(listFormatQuerySchema.shape), req.query, 'query');
+    const m = currentModel(ctx);
+    const answer = m.engine.unfed();
+    if (format === 'csv') {
+      res.type('text/csv').attachment(csvFileName('unfed-carriages', m.networkVersion)).send(unfedCsv(m, answer));
+      return;
+    }
     const { rows, total, offset } = pageRows(answer.carriages, page);
     res.json({ ...answer, carriages: rows, total, offset });
+  });
+
+  // Carriages to mark failed, by code or by site and service together (server/services/carriageSearch.ts).
+  routes.add('get', '/analysis/carriage-search', can.analyse, async (req, res) => {
+    const { q, pageSize } = parseOr400(carriageSearchQuerySchema, req.query, 'query');
+    const m = currentModel(ctx);
+    res.json({ networkVersion: m.networkVersion, ...searchCarriages(m, q, pageSize) });
   });
 
   routes.add('get', '/analysis/proposals', can.analyse, async (req, res) => {

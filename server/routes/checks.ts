@@ -7,6 +7,7 @@ import { ApiError, notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
+import { checksCsv, csvFileName } from '../services/analysisCsv';
 
 export function currentModel(ctx: AppContext): ServedNetwork {
   const m = ctx.network.model;
@@ -46,12 +47,16 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('get', '/checks', can.read, async (req, res) => {
-    const { severity = 'warning', check, ...page } = parseOr400(checksQuerySchema, req.query, 'query');
+    const { severity = 'warning', check, format, ...page } = parseOr400(checksQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     const c = cacheOf(m);
     c.failures ??= networkCheckFailures(m.document, { severity: 'warning', networkVersion: m.networkVersion });
     const all = c.failures.failures;
     const wanted = severity === 'warning' && !check ? all : all.filter((f) => (severity === 'warning' || f.severity === 'error') && (!check || check.includes(f.check.name)));
+    if (format === 'csv') {
+      res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv({ ...c.failures, failures: wanted }));
+      return;
+    }
     const { rows, total, offset } = pageRows(wanted, page);
     res.json({ ...c.failures, failures: rows, total, offset });
   });

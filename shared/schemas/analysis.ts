@@ -1,11 +1,11 @@
 /** Analysis API bodies and answers (docs/api.md). */
 import { z } from 'zod';
-import { codeSchema, ELEMENT_KINDS, type ElementKind, type Medium, type FeedRole } from './network';
+import { codeSchema, DEFAULT_WEAK_POINT_KINDS, ELEMENT_KINDS, type ElementKind, type Medium, type FeedRole } from './network';
 
 export const MAX_FAILED_ELEMENTS = 5000;
 
 export const elementSchema = z.strictObject({
-  kind: z.enum(ELEMENT_KINDS, { error: 'kind is one of site, feed, group' }),
+  kind: z.enum(ELEMENT_KINDS, { error: 'kind is one of site, carriage, feed, group' }),
   code: codeSchema,
 });
 export type Element = { kind: ElementKind; code: string };
@@ -47,13 +47,21 @@ export interface ExposureAnswer {
   elements: ExposureRow[];
 }
 
+/** Exposure with elements that take off exactly the same carriages in one row; `elements[0]` names the row. */
+export interface ExposureGroupsAnswer {
+  networkVersion: number;
+  groups: { elements: Element[]; households: number; carriages: number }[];
+}
+
 export interface DiversityAnswer {
   networkVersion: number;
   /**
    * Carriages with a diversity gap (rule 9, revised): a reserve feed and at
    * least one avoidable single point of failure. `spof` is the full list,
    * `avoidable` the part another feed could avoid (some origin of the service
-   * keeps programme); both sorted site, feed, group, then code.
+   * keeps programme); both sorted site, feed, group, then code. Carriages
+   * are left out of both: a parent transmitter that is a weak point always
+   * comes with its site, which is listed.
    */
   carriages: { carriage: string; service: string; site: string; spof: Element[]; avoidable: Element[] }[];
 }
@@ -96,16 +104,52 @@ export const proposalsQuerySchema = z.strictObject({
   limit: limitSchema.optional(),
 });
 
+const KINDS_MESSAGE = 'kinds is a comma-separated list of site, carriage, feed, group';
+
+/** A `kinds=site,carriage` query field: known kinds, each once, in the order given; `fallback` when absent. */
+export const kindsQuery = (fallback: readonly ElementKind[]) =>
+  z
+    .string({ error: KINDS_MESSAGE })
+    .max(40, KINDS_MESSAGE)
+    .transform((v) => [...new Set(v.split(',').map((k) => k.trim()))])
+    .pipe(z.array(z.enum(ELEMENT_KINDS, { error: KINDS_MESSAGE })).min(1, KINDS_MESSAGE))
+    .default([...fallback]);
+
 /** `GET /api/analysis/pairs?limit=N&kinds=site,group` (kinds default to site and group) */
 export const pairsQuerySchema = z.strictObject({
   limit: limitSchema.default(100),
-  kinds: z
-    .string({ error: 'kinds is a comma-separated list of site, feed, group' })
-    .max(40, 'kinds is a comma-separated list of site, feed, group')
-    .transform((v) => v.split(',').map((k) => k.trim()))
-    .pipe(z.array(z.enum(ELEMENT_KINDS, { error: 'kinds is a comma-separated list of site, feed, group' })).min(1))
-    .default(['site', 'group']),
+  kinds: kindsQuery(['site', 'group']),
 });
+
+/** `GET /api/analysis/spof?kinds=...` (default site, feed, group; `carriage` adds parent transmitters) */
+export const spofQuerySchema = z.object({
+  kinds: kindsQuery(DEFAULT_WEAK_POINT_KINDS),
+});
+
+/** Answers that can also be had as a spreadsheet file: `format=csv`. */
+const formatField = z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json');
+
+/** `GET /api/analysis/exposure?limit=N&kinds=...&format=csv` */
+export const exposureQuerySchema = z.object({
+  limit: z.coerce.number({ error: 'limit must be a number' }).int('limit is a whole number').min(1, 'limit is at least 1').max(100_000, 'limit is at most 100,000').optional(),
+  kinds: kindsQuery(DEFAULT_WEAK_POINT_KINDS),
+  format: formatField,
+});
+
+/** `GET /api/analysis/carriage-search?q=...&pageSize=N`: carriages by code, or by site and service words together. */
+export const carriageSearchQuerySchema = z.object({
+  q: z.string({ error: 'q is the text to look for' }).max(200, 'q is at most 200 characters'),
+  pageSize: z.coerce.number({ error: 'pageSize must be a number' }).int('pageSize is a whole number').min(1, 'pageSize is at least 1').max(50, 'pageSize is at most 50').default(6),
+});
+
+export interface CarriageSearchAnswer {
+  networkVersion: number;
+  items: { code: string; site: string; siteName: string; service: string; serviceName: string }[];
+  total: number;
+}
+
+/** `GET /api/analysis/diversity` and `/unfed`: `format=csv` for the file. */
+export const listFormatQuerySchema = z.object({ format: formatField });
 
 /** `GET` pairs while the background job runs (HTTP 202). */
 export interface PairsRunning {
@@ -177,6 +221,6 @@ export interface ChainAnswer {
 }
 
 export const elementKey = (e: Element) => `${e.kind}:${e.code}`;
-export const KIND_ORDER: Record<ElementKind, number> = { site: 0, feed: 1, group: 2 };
+export const KIND_ORDER: Record<ElementKind, number> = { site: 0, carriage: 1, feed: 2, group: 3 };
 export const compareElements = (a: Element, b: Element) =>
   KIND_ORDER[a.kind] - KIND_ORDER[b.kind] || (a.code < b.code ? -1 : a.code > b.code ? 1 : 0);

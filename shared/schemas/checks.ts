@@ -80,6 +80,8 @@ export const checksQuerySchema = z.strictObject({
     .pipe(z.array(z.enum(CHECK_NAMES, { error: `check is a comma-separated list of: ${CHECK_NAMES.join(', ')}` })))
     .optional(),
   ...pageQueryShape,
+  /** csv: the list as a spreadsheet file */
+  format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json'),
 });
 
 export interface CheckFailure {

@@ -25,7 +25,10 @@ export const SERVICE_KINDS = ['dtt', 'fm', 'dab', 'am', 'other'] as const;
 export const POLARISATIONS = ['H', 'V', 'M', 'C'] as const;
 export const MEDIA = ['off-air', 'satellite', 'line', 'microwave'] as const;
 export const FEED_ROLES = ['main', 'reserve'] as const;
-export const ELEMENT_KINDS = ['site', 'feed', 'group'] as const;
+/** What can fail (docs/domain.md): a carriage is one transmitter; its failure takes it and every feed it is the source of down. */
+export const ELEMENT_KINDS = ['site', 'carriage', 'feed', 'group'] as const;
+/** The kinds that lists and rankings of weak points cover unless carriages are asked for. */
+export const DEFAULT_WEAK_POINT_KINDS = ['site', 'feed', 'group'] as const;
 
 export type SiteRole = (typeof SITE_ROLES)[number];
 export type ServiceKind = (typeof SERVICE_KINDS)[number];

@@ -30,7 +30,7 @@ const instant = (what: string) =>
 
 export const elementsSchema = z
   .array(elementSchema, { error: 'elements must be an array of { kind, code } elements' })
-  .min(1, 'elements needs at least one element (a site, feed or group)')
+  .min(1, 'elements needs at least one element (a site, carriage, feed or group)')
   .max(MAX_OPERATION_ELEMENTS, `elements holds at most ${MAX_OPERATION_ELEMENTS} elements`);
 
 const title = z.string({ error: 'a title is required' }).trim().min(1, 'a title is required').max(200, 'a title is at most 200 characters');

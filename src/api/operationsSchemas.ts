@@ -5,8 +5,9 @@
  */
 import { z } from 'zod';
 import type { AvailabilityAnswer, IncidentAnswer, WorkAnswer } from '@/shared/schemas/operations';
+import { ELEMENT_KINDS } from '@/shared/schemas/network';
 
-const element = z.object({ kind: z.enum(['site', 'feed', 'group']), code: z.string() });
+const element = z.object({ kind: z.enum(ELEMENT_KINDS), code: z.string() });
 const reach = z.object({
   lost: z.array(z.string()),
   fallback: z.array(z.string()),

@@ -239,6 +239,19 @@ export const codeNamePageSchema = z.object({
 });
 export type CodeNamePage = z.infer<typeof codeNamePageSchema>;
 
+/** GET /api/analysis/exposure-groups */
+export const exposureGroupsAnswerSchema = z.object({
+  networkVersion: z.number(),
+  groups: z.array(z.object({ elements: z.array(analysisElementSchema).min(1), households: z.number(), carriages: z.number() })),
+});
+
+/** GET /api/analysis/carriage-search */
+export const carriageSearchSchema = z.object({
+  items: z.array(z.object({ code: z.string(), site: z.string(), siteName: z.string(), service: z.string(), serviceName: z.string() })),
+  total: z.number(),
+});
+export type CarriageSearchPage = z.infer<typeof carriageSearchSchema>;
+
 /** GET /api/carriages/:code as the chain screen reads it: the carriage, where it is, and its feeds. */
 const feedLineSchema = z.object({ code: z.string(), from: z.string(), to: z.string(), medium: mediumSchema, role: feedRoleSchema });
 export const carriageFeedsSchema = z.object({

@@ -51,7 +51,7 @@ describe('search on the offline copy', () => {
     const r = localElementSearch(copy, site.code.toLowerCase(), 6);
     expect(r.hits.some((h) => h.kind === 'site' && h.code === site.code)).toBe(true);
     expect(r.totals.site).toBe(copy.document.sites.filter((s) => s.code.toLowerCase().includes(site.code.toLowerCase()) || s.name.toLowerCase().includes(site.code.toLowerCase())).length);
-    expect(localElementSearch(copy, 'zzz-nothing-like-this', 6)).toEqual({ hits: [], totals: { site: 0, feed: 0, group: 0 } });
+    expect(localElementSearch(copy, 'zzz-nothing-like-this', 6)).toEqual({ hits: [], totals: { site: 0, carriage: 0, feed: 0, group: 0 } });
   });
 });
 

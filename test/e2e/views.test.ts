@@ -56,7 +56,7 @@ describe.each(Object.entries(SIZES))('views at %s size', (sizeName, size) => {
     const { page, errors } = await openPage(browser, size);
     await signIn(page, 'operator');
     await page.goto(`${baseUrl()}/reach`);
-    const search = page.getByLabel('Find a site, feed or group');
+    const search = page.getByLabel('Find a site, carriage, feed or group');
     await search.waitFor({ timeout: 20_000 });
     await search.fill(main.code);
     const add = page.getByRole('button', { name: new RegExp(`^Add.*${main.code.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first();

@@ -3,10 +3,13 @@
  * no graph library, no dominators. "Has programme" is the least fixed point
  * of rule 3, reached by starting from the origin carriages and sweeping the
  * feeds until nothing changes. Slow on purpose, obviously right on purpose.
+ * A failed carriage has no programme and takes down every feed it is the
+ * source of; the rest of the rules are unchanged.
  */
 import type { NetworkDocument } from '@/shared/schemas/network';
 import type { Element, ReachAnswer } from '@/shared/schemas/analysis';
 import { compareElements } from '@/shared/schemas/analysis';
+import { DEFAULT_WEAK_POINT_KINDS, ELEMENT_KINDS } from '@/shared/schemas/network';
 
 const sorted = (codes: Iterable<string>) => [...codes].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
 
@@ -21,6 +24,8 @@ export class BruteForce {
     const failedSites = new Set(failed.filter((e) => e.kind === 'site').map((e) => e.code));
     const failedFeeds = new Set(failed.filter((e) => e.kind === 'feed').map((e) => e.code));
     const failedGroups = new Set(failed.filter((e) => e.kind === 'group').map((e) => e.code));
+    // A failed carriage has no programme, and every feed whose source it is is down.
+    const failedCarriages = new Set(failed.filter((e) => e.kind === 'carriage').map((e) => e.code));
     // Rule 1.
     const siteDown = new Set(
       doc.sites.filter((s) => failedSites.has(s.code) || (s.groups ?? []).some((g) => failedGroups.has(g))).map((s) => s.code),
@@ -31,6 +36,7 @@ export class BruteForce {
     const feedUp = doc.feeds.filter(
       (f) =>
         !failedFeeds.has(f.code) &&
+        !failedCarriages.has(f.from) &&
         !(f.groups ?? []).some((g) => failedGroups.has(g)) &&
         !siteDown.has(site.get(f.from)!) &&
         !siteDown.has(site.get(f.to)!) &&
@@ -38,12 +44,12 @@ export class BruteForce {
         !(reservesDown && f.role === 'reserve'),
     );
     // Rule 3, least fixed point.
-    const has = new Set(doc.carriages.filter((c) => origin.has(c.site) && !siteDown.has(c.site)).map((c) => c.code));
+    const has = new Set(doc.carriages.filter((c) => origin.has(c.site) && !siteDown.has(c.site) && !failedCarriages.has(c.code)).map((c) => c.code));
     let changed = true;
     while (changed) {
       changed = false;
       for (const f of feedUp) {
-        if (has.has(f.from) && !has.has(f.to) && !siteDown.has(site.get(f.to)!)) {
+        if (has.has(f.from) && !has.has(f.to) && !siteDown.has(site.get(f.to)!) && !failedCarriages.has(f.to)) {
           has.add(f.to);
           changed = true;
         }
@@ -88,12 +94,16 @@ export class BruteForce {
     };
   }
 
-  elements(): Element[] {
+  /** Every element of the given kinds (all four by default), in element order. */
+  elements(kinds: readonly Element['kind'][] = ELEMENT_KINDS): Element[] {
     return [
       ...this.doc.sites.map((s) => ({ kind: 'site' as const, code: s.code })),
+      ...this.doc.carriages.map((c) => ({ kind: 'carriage' as const, code: c.code })),
       ...this.doc.feeds.map((f) => ({ kind: 'feed' as const, code: f.code })),
       ...this.doc.groups.map((g) => ({ kind: 'group' as const, code: g.code })),
-    ].sort(compareElements);
+    ]
+      .filter((e) => kinds.includes(e.kind))
+      .sort(compareElements);
   }
 
   /** Rule 8. */
@@ -102,23 +112,24 @@ export class BruteForce {
     return sorted(this.doc.carriages.filter((c) => !before.has(c.code)).map((c) => c.code));
   }
 
-  /** Rule 6, for every fed carriage, by trying every element alone. */
-  spof(): { carriage: string; spof: Element[] }[] {
+  /** Rule 6, for every fed carriage, by trying every element of the given kinds alone (c itself and c's site excepted). */
+  spof(kinds: readonly Element['kind'][] = DEFAULT_WEAK_POINT_KINDS): { carriage: string; spof: Element[] }[] {
     const before = this.programme([]);
     const fed = sorted([...before]);
-    const under = new Map(this.elements().map((x) => [x, this.programme([x])]));
+    const under = new Map(this.elements(kinds).map((x) => [x, this.programme([x])]));
+    const self = (x: Element, carriage: string) => (x.kind === 'site' && x.code === this.siteOf(carriage)) || (x.kind === 'carriage' && x.code === carriage);
     return fed.map((carriage) => ({
       carriage,
       spof: [...under.entries()]
-        .filter(([x, has]) => !(x.kind === 'site' && x.code === this.siteOf(carriage)) && !has.has(carriage))
+        .filter(([x, has]) => !self(x, carriage) && !has.has(carriage))
         .map(([x]) => x)
         .sort(compareElements),
     }));
   }
 
   /** Rule 7: exposure of every element, ranked as the engine ranks it. */
-  exposure(): { element: Element; households: number; carriages: number }[] {
-    return this.elements()
+  exposure(kinds: readonly Element['kind'][] = DEFAULT_WEAK_POINT_KINDS): { element: Element; households: number; carriages: number }[] {
+    return this.elements(kinds)
       .map((element) => {
         const r = this.reach([element]);
         return { element, households: r.households.lost, carriages: r.lost.length };

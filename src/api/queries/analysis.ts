@@ -4,18 +4,19 @@
  * chain. All are computed by the server from its in-memory graphs and change
  * only with the network version, except reach, which a fault desk watches.
  */
-import { useRef } from 'react';
+import { useMemo, useRef } from 'react';
 import useSWR from 'swr';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
-import { useSend } from '../ApiProvider';
+import { useSend, useSendRaw } from '../ApiProvider';
 import { isApiError, parseAnswer, type ApiError } from '../client';
 import { browserOffline } from '@/src/offline/online';
 import { useOffline } from '@/src/offline/OfflineProvider';
 import { localReach } from '@/src/offline/localEngine';
 import type { OfflineCopy } from '@/src/offline/copyStore';
 import { freshness } from '../freshness';
-import { chainAnswerSchema, diversityAnswerSchema, exposureAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
+import { chainAnswerSchema, diversityAnswerSchema, exposureAnswerSchema, exposureGroupsAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
+import { attachmentName, type DownloadedFile } from './network';
 import type { z } from 'zod';
 import { useApiQuery } from '../useApiQuery';
 
@@ -68,6 +69,24 @@ export function useReach(failed: readonly Element[], failSet: string) {
 
 export function useExposure(limit?: number) {
   return useApiQuery(analysisKeys.exposure(limit), exposureAnswerSchema, 'network');
+}
+
+/** The exposure ranking with elements that take off the same carriages in one row; kinds comma-separated. */
+export function useExposureGroups(limit: number, kinds: string) {
+  return useApiQuery(api.exposureGroups({ limit, kinds }), exposureGroupsAnswerSchema, 'network');
+}
+
+/** A list of the analysis API as a CSV file, through the same client as every download (token, errors, 401). */
+export function useCsvDownload() {
+  const sendRaw = useSendRaw();
+  return useMemo(
+    () =>
+      async (path: string, fallbackName: string): Promise<DownloadedFile> => {
+        const res = await sendRaw(path, { accept: 'text/csv' });
+        return { name: attachmentName(res.headers.get('Content-Disposition'), fallbackName), blob: await res.blob() };
+      },
+    [sendRaw],
+  );
 }
 
 export function useNamedExposure(limit?: number) {

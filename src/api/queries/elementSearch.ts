@@ -1,7 +1,9 @@
 /**
- * Finds elements (sites, feeds, shared-risk groups) whose code or name holds
- * some text, for marking them failed: the three list endpoints asked at once
- * (GET /api/sites|feeds|groups?q=...&pageSize=N), answers merged in that order.
+ * Finds elements (sites, carriages, feeds, shared-risk groups) whose code or
+ * name holds some text, for marking them failed: the three list endpoints
+ * (GET /api/sites|feeds|groups?q=...&pageSize=N) and the carriage search
+ * (GET /api/analysis/carriage-search, by code or by site and service words
+ * together) asked at once, answers merged site, carriage, feed, group.
  */
 import { useRef } from 'react';
 import useSWR from 'swr';
@@ -13,10 +15,10 @@ import type { Element } from '@/shared/schemas/analysis';
 import { useSend } from '../ApiProvider';
 import { parseAnswer, type ApiError } from '../client';
 import { freshness } from '../freshness';
-import { codeNamePageSchema, type CodeNamePage } from '../schemas';
+import { carriageSearchSchema, codeNamePageSchema, type CarriageSearchPage, type CodeNamePage } from '../schemas';
 
 export interface ElementHit extends Element {
-  /** A site's or group's name; for a feed, "from -> to". */
+  /** A site's or group's name; for a feed, "from -> to"; for a carriage, "site name, service name". */
   label: string;
 }
 
@@ -45,6 +47,10 @@ function hitsOf(kind: Element['kind'], page: CodeNamePage): ElementHit[] {
   }));
 }
 
+function carriageHits(page: CarriageSearchPage): ElementHit[] {
+  return page.items.map((c) => ({ kind: 'carriage' as const, code: c.code, label: `${c.siteName || c.site}, ${c.serviceName || c.service}` }));
+}
+
 /** Waits for at least one non-blank character; `q` is trimmed. */
 export function useElementSearch(q: string, pageSize = 6) {
   const send = useSend();
@@ -58,15 +64,20 @@ export function useElementSearch(q: string, pageSize = 6) {
     async () => {
       const stored = copyRef.current;
       if (stored && browserOffline()) return localElementSearch(stored, text, pageSize);
-      const pages = await Promise.all(
-        KINDS.map(async ({ list }) => {
-          const path = searchPath(list, text, pageSize);
-          return parseAnswer(codeNamePageSchema, path, await send(path));
-        }),
-      );
+      const carriagePath = api.carriageSearch(text, pageSize);
+      const [pages, carriages] = await Promise.all([
+        Promise.all(
+          KINDS.map(async ({ list }) => {
+            const path = searchPath(list, text, pageSize);
+            return parseAnswer(codeNamePageSchema, path, await send(path));
+          }),
+        ),
+        send(carriagePath).then((r) => parseAnswer(carriageSearchSchema, carriagePath, r)),
+      ]);
+      const [sites, ...others] = KINDS.map(({ kind }, i) => hitsOf(kind, pages[i]));
       return {
-        hits: KINDS.flatMap(({ kind }, i) => hitsOf(kind, pages[i])),
-        totals: { site: pages[0].total, feed: pages[1].total, group: pages[2].total },
+        hits: [...sites, ...carriageHits(carriages), ...others.flat()],
+        totals: { site: pages[0].total, carriage: carriages.total, feed: pages[1].total, group: pages[2].total },
       };
     },
     { ...freshness.network, keepPreviousData: true },

@@ -37,7 +37,7 @@ export function WorkFormScreen() {
 
   const save = async (submit: boolean) => {
     if (!title.trim()) return setError('Give the work a title.');
-    if (!elements.length) return setError('Add at least one site, feed or group the work takes out.');
+    if (!elements.length) return setError('Add at least one site, carriage, feed or group the work takes out.');
     if (!startIso || !endIso) return setError('Type start and end as YYYY-MM-DD HH:MM.');
     setBusy(true);
     setError(null);

@@ -80,7 +80,7 @@ export function WorksScreen() {
       <Section title="Filter">
         <View style={wide ? styles.filtersWide : styles.filters}>
           <Choice<StateFilter> label="State" value={state} onChange={setState} options={[{ value: 'all', label: 'All' }, ...WORK_STATES.map((s) => ({ value: s, label: WORK_STATE_LABELS[s] }))]} testID="works-state" />
-          <TextField label="Element code" value={element} onChangeText={setElement} placeholder="site, feed or group" autoCapitalize="none" testID="works-element" />
+          <TextField label="Element code" value={element} onChangeText={setElement} placeholder="site, carriage, feed or group" autoCapitalize="none" testID="works-element" />
           <TextField label="Service code" value={service} onChangeText={setService} placeholder="a service it affects" autoCapitalize="none" testID="works-service" />
         </View>
       </Section>

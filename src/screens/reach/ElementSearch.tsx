@@ -1,5 +1,6 @@
 /**
- * "Find a site, feed or group": type part of a code or name, press a result
+ * "Find a site, carriage, feed or group": type part of a code or name (a
+ * carriage also by its site and service together), press a result
  * to add it to the failure set. Results say their kind in words; elements
  * already in the set say so instead of offering to add them again.
  */
@@ -15,7 +16,7 @@ import { useDebounced } from '@/src/hooks/useDebounced';
 /** Web only: the browser must not break a code or a tag inside a word. */
 const noWrap = (Platform.OS === 'web' ? { whiteSpace: 'nowrap' } : {}) as object;
 
-const KIND_WORD: Record<Element['kind'], string> = { site: 'site', feed: 'feed', group: 'group' };
+const KIND_WORD: Record<Element['kind'], string> = { site: 'site', carriage: 'carriage', feed: 'feed', group: 'group' };
 
 export function ElementSearch({ chosen, onAdd }: { chosen: readonly Element[]; onAdd: (e: Element) => void }) {
   const [text, setText] = useState('');
@@ -35,8 +36,8 @@ export function ElementSearch({ chosen, onAdd }: { chosen: readonly Element[]; o
   return (
     <View style={styles.wrap}>
       <TextField
-        label="Find a site, feed or group"
-        hint="Part of a code or name, for example a site's name; Enter adds the only match"
+        label="Find a site, carriage, feed or group"
+        hint="Part of a code or name; a carriage also by site and service; Enter adds the only match"
         value={text}
         onChangeText={setText}
         autoCapitalize="none"

@@ -30,7 +30,7 @@ describe('parseFailSet', () => {
     expect(elements).toEqual([{ kind: 'site', code: 'A' }]);
     expect(bad.map((b) => b.token)).toEqual(['nonsense', 'mast:B', 'feed:', 'feed:has space']);
     expect(bad[0].reason).toMatch(/kind:code/);
-    expect(bad[1].reason).toMatch(/"mast" is not site, feed or group/);
+    expect(bad[1].reason).toMatch(/"mast" is not site, carriage, feed or group/);
     expect(bad[2].reason).toMatch(/1-64/);
   });
 

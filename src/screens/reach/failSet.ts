@@ -1,6 +1,6 @@
 /**
  * The failure set of the reach screen as it travels in a shareable URL:
- * `?fail=site:S1,feed:F2,group:G3`. Tokens are `kind:code`; codes follow the
+ * `?fail=site:S1,carriage:S1.TV,feed:F2,group:G3`. Tokens are `kind:code`; codes follow the
  * network document's code rule (docs/format.md), so they never hold
  * a comma or a colon and need no escaping of their own.
  */
@@ -33,7 +33,7 @@ export function parseFailSet(param: string | string[] | undefined | null): Parse
     const kind = token.slice(0, colon).toLowerCase();
     const code = token.slice(colon + 1);
     if (!isKind(kind)) {
-      bad.push({ token, reason: `"${token.slice(0, colon)}" is not site, feed or group` });
+      bad.push({ token, reason: `"${token.slice(0, colon)}" is not site, carriage, feed or group` });
       continue;
     }
     if (!CODE_PATTERN.test(code)) {

@@ -21,6 +21,7 @@ import type { ElementNamer } from './elementNames';
 import { Button } from '@/src/components/Button';
 import { EXPOSURE_SHOWN, ExposurePanel } from './ExposurePanel';
 import { DiversityList, UnfedList } from './GapLists';
+import { GroupedExposure } from './GroupedExposure';
 import { PairsPanel } from './PairsPanel';
 import { PlanPanel, ProposalsList } from './ProposalsPanel';
 import { ServiceTable } from './ServiceTable';
@@ -89,6 +90,10 @@ export function ResilienceScreen() {
 
       <Section title="Exposure" note={`The ${EXPOSURE_SHOWN} elements whose failure alone takes the most households off air. The download holds the whole ranking.`} testID="resilience-exposure">
         {exposureBody}
+      </Section>
+
+      <Section title="Same loss, one row" note="Elements that take off exactly the same carriages, ranked by households; open a row to see them. Files for spreadsheets below." testID="resilience-exposure-groups">
+        <GroupedExposure name={name} />
       </Section>
 
       <Columns max={2}>

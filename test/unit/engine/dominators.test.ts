@@ -5,6 +5,7 @@ import { csrFromPairs, reverseCsr, type Csr } from '@/server/engine/csr';
 import { findNetworkxPython, networkxImmediateDominatorsMany } from '@/test/helpers/networkx';
 import { nationalNetwork, prng } from '@/test/helpers/random-network';
 import { NetworkEngine } from '@/server/engine/engine';
+import { flowGraphs } from '@/test/helpers/engine-yardsticks';
 
 type Pairs = [number, number][];
 const idomOf = (n: number, edges: Pairs, root: number) => Array.from(immediateDominators(csrFromPairs(n, edges), root));
@@ -147,7 +148,7 @@ describe('immediateDominators: generated graphs', () => {
 
   it.skipIf(!nx)(`agrees with networkx on the engine's own service graphs${nx ? '' : ' (skipped: no python3 with networkx found)'}`, () => {
     const engine = NetworkEngine.build(nationalNetwork({ sites: 1500, seed: 21, services: 4 }), 1);
-    const graphs = engine.flowGraphs();
+    const graphs = flowGraphs(engine);
     expect(graphs.length).toBe(4);
     const theirs = networkxImmediateDominatorsMany(graphs.map(({ graph }) => ({ graph, root: 0 })));
     graphs.forEach(({ idom }, i) => expect(Array.from(idom)).toEqual(Array.from(theirs[i].idom)));

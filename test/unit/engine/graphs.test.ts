@@ -5,13 +5,14 @@
  */
 import { describe, expect, it } from 'vitest';
 import { NetworkEngine } from '@/server/engine/engine';
+import { flowGraphs } from '@/test/helpers/engine-yardsticks';
 import { nationalNetwork, smallRandomNetwork } from '@/test/helpers/random-network';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import { valleyNetwork } from './fixtures';
 
 function sameGraphs(doc: NetworkDocument) {
   const engine = NetworkEngine.build(doc, 1);
-  for (const { service, graph } of engine.flowGraphs()) {
+  for (const { service, graph } of flowGraphs(engine)) {
     const g = engine.serviceGraph(service)!;
     expect(g.order).toBe(graph.n);
     expect(g.size).toBe(graph.targets.length);
@@ -23,7 +24,7 @@ function sameGraphs(doc: NetworkDocument) {
     expect(fromGraphology.map((l) => l.sort((a, b) => a - b))).toEqual(compiled.map((l) => l.sort((a, b) => a - b)));
   }
   // built once, then kept
-  const first = engine.flowGraphs()[0].service;
+  const first = flowGraphs(engine)[0].service;
   expect(engine.serviceGraph(first)).toBe(engine.serviceGraph(first));
 }
 

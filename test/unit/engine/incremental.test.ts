@@ -19,6 +19,11 @@ function sameAnswers(updated: NetworkEngine, built: NetworkEngine, rnd: () => nu
   expect(updated.spof()).toEqual(built.spof());
   expect(updated.exposure()).toEqual(built.exposure());
   expect(updated.diversity()).toEqual(built.diversity());
+  // Carriages are elements too (parent transmitters as weak points): their ids move with an edit like the rest.
+  const all = ['site', 'carriage', 'feed', 'group'] as const;
+  expect(updated.spof(all)).toEqual(built.spof(all));
+  expect(updated.exposure(undefined, all)).toEqual(built.exposure(undefined, all));
+  expect(updated.exposureGroups(undefined, all)).toEqual(built.exposureGroups(undefined, all));
   const elements = built.elements() as Element[];
   const sets = [...elements.filter(() => rnd() < 0.3).map((e) => [e]), ...Array.from({ length: 4 }, () => elements.filter(() => rnd() < 0.15))];
   for (const failed of sets) expect(updated.reach(failed)).toEqual(built.reach(failed));

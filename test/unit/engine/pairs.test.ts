@@ -19,7 +19,7 @@ const strip = (rows: { elements: [Element, Element]; jointLost: string[]; househ
 describe('critical pairs: bad arguments', () => {
   const engine = NetworkEngine.build(valleyNetwork(), 1);
   it('rejects unknown kinds and a bad limit', () => {
-    expect(() => engine.pairs({ kinds: ['carriage' as never] })).toThrow(/kinds/);
+    expect(() => engine.pairs({ kinds: ['mast' as never] })).toThrow(/kinds/);
     expect(() => engine.pairs({ limit: 0 })).toThrow(/limit/);
     expect(() => engine.pairs({ limit: 1.5 })).toThrow(/limit/);
   });

@@ -1,0 +1,76 @@
+/**
+ * The exposure ranking with elements that take off exactly the same
+ * carriages folded into one row: a site and the feeds that only serve it, a
+ * transmitter and its site when the site carries nothing else, a group and
+ * the one feed it holds. Exact: elements are first bucketed by (households,
+ * carriages lost), which equal sets share, and only buckets of two or more
+ * compare their lost carriage sets, walked once each (removal-walk.ts).
+ */
+import type { Element } from '@/shared/schemas/analysis';
+import type { EngineCore } from './core';
+import { removedNodesByService } from './reach';
+import { IntList } from './removal-walk';
+
+export interface ExposureGroupRow {
+  /** in element order: the first one names the row */
+  elements: Element[];
+  households: number;
+  carriages: number;
+}
+
+/** Lost carriage ids (ascending) when element x alone fails. */
+function lostIds(core: EngineCore, x: number, perService: IntList[], lostNodes: IntList): Int32Array {
+  const out = new IntList(16);
+  for (const s of removedNodesByService(core, [x], perService)) {
+    lostNodes.clear();
+    core.walker.lostMarked(core.full[s], perService[s].data, perService[s].length, lostNodes);
+    for (let i = 0; i < lostNodes.length; i++) out.push(core.services[s].ref[lostNodes.data[i]]);
+  }
+  return out.toArray().sort();
+}
+
+/**
+ * `ranked` holds element ids by exposure (highest first, ties in element
+ * order), already filtered to the kinds asked for; each group keeps the
+ * position of its first element.
+ */
+export function groupExposure(
+  core: EngineCore,
+  ranked: readonly number[],
+  households: Float64Array,
+  carriages: Int32Array,
+): ExposureGroupRow[] {
+  const buckets = new Map<string, number[]>();
+  for (const x of ranked) {
+    const key = `${households[x]}:${carriages[x]}`;
+    const b = buckets.get(key);
+    if (b) b.push(x);
+    else buckets.set(key, [x]);
+  }
+  const perService = core.services.map(() => new IntList());
+  const lostNodes = new IntList(1024);
+  // leader element id -> its members (itself first)
+  const groupOf = new Map<number, number[]>();
+  for (const members of buckets.values()) {
+    if (members.length === 1 || carriages[members[0]] === 0) {
+      // One element, or elements that take nothing off air: nothing to fold (a row of everything harmless helps nobody).
+      for (const x of members) groupOf.set(x, [x]);
+      continue;
+    }
+    const bySet = new Map<string, number[]>();
+    for (const x of members) {
+      const key = lostIds(core, x, perService, lostNodes).join(',');
+      const g = bySet.get(key);
+      if (g) g.push(x);
+      else bySet.set(key, [x]);
+    }
+    for (const g of bySet.values()) groupOf.set(g[0], g);
+  }
+  const rows: ExposureGroupRow[] = [];
+  for (const x of ranked) {
+    const g = groupOf.get(x);
+    if (!g) continue;
+    rows.push({ elements: g.map((y) => core.model.elements[y]), households: households[x], carriages: carriages[x] });
+  }
+  return rows;
+}

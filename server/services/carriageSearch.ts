@@ -1,0 +1,59 @@
+/**
+ * Finds carriages (transmitters) to mark failed, from the served network in
+ * memory: by the carriage's code, or by its site and service together ("Ridge
+ * FM2", "ST0012 SV03"): every word of the query must appear in the carriage
+ * code, the site's code or name, or the service's code or name (case
+ * ignored). Exact code matches come first, then code order.
+ */
+import type { ServedNetwork } from './servedNetwork';
+
+export interface CarriageHit {
+  code: string;
+  site: string;
+  siteName: string;
+  service: string;
+  serviceName: string;
+}
+
+interface Indexed extends CarriageHit {
+  /** everything a word may match, lower case, joined by a character no query word holds */
+  text: string;
+}
+
+const indexes = new WeakMap<ServedNetwork, Indexed[]>();
+
+function indexOf(m: ServedNetwork): Indexed[] {
+  let index = indexes.get(m);
+  if (!index) {
+    index = m.document.carriages
+      .map((c) => {
+        const siteName = m.sites.get(c.site)?.name ?? '';
+        const serviceName = m.services.get(c.service)?.name ?? '';
+        const hit = { code: c.code.trim(), site: c.site, siteName, service: c.service, serviceName };
+        return { ...hit, text: [hit.code, c.site, siteName, c.service, serviceName].join('\u0000').toLowerCase() };
+      })
+      .sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0));
+    indexes.set(m, index);
+  }
+  return index;
+}
+
+/** Words of the query: white space, commas and "+" separate them. */
+export const queryWords = (q: string) => q.toLowerCase().split(/[\s,+]+/).filter(Boolean);
+
+export function searchCarriages(m: ServedNetwork, q: string, pageSize: number): { items: CarriageHit[]; total: number } {
+  const words = queryWords(q);
+  if (words.length === 0) return { items: [], total: 0 };
+  const exact = q.trim().toLowerCase();
+  const first: CarriageHit[] = [];
+  const rest: CarriageHit[] = [];
+  let total = 0;
+  for (const c of indexOf(m)) {
+    if (!words.every((w) => c.text.includes(w))) continue;
+    total++;
+    const { text: _text, ...hit } = c;
+    if (c.code.toLowerCase() === exact) first.push(hit);
+    else if (rest.length < pageSize) rest.push(hit);
+  }
+  return { items: [...first, ...rest].slice(0, pageSize), total };
+}
