@@ -8,8 +8,8 @@
  * - site: the reach of the site failing (its carriages, the feeds in and out
  *   of them and the feeds routed through it all go with it).
  * - feed: the reach of the feed failing.
- * - carriage: the reach of the feeds out of it failing (rule 2: a feed whose
- *   source carriage is failed is down), plus the carriage itself.
+ * - carriage: the reach of the carriage failing (itself, and every feed whose
+ *   source it is).
  * - service: every carriage of the service that has programme today.
  * - group: nothing: its members only leave the group.
  * Unfed carriages (rule 8) are never counted.
@@ -70,12 +70,9 @@ export function deleteImpact(m: ServedNetwork, kind: EntityKind, code: string): 
       return fromReach(m, kind, code, m.engine.reach([{ kind: 'site', code }]), 'The fault reach of this site failing: its carriages, and every feed into, out of or through it.');
     case 'feeds':
       return fromReach(m, kind, code, m.engine.reach([{ kind: 'feed', code }]), 'The fault reach of this feed failing.');
-    case 'carriages': {
-      const out = m.document.feeds.filter((f) => f.from === code).map((f) => ({ kind: 'feed' as const, code: f.code }));
-      const reach = out.length > 0 ? m.engine.reach(out) : m.engine.reach([]);
-      const self = unfed.has(code) ? [] : [code];
-      return fromReach(m, kind, code, reach, 'The carriage itself, and the fault reach of the feeds it is the source of.', self);
-    }
+    case 'carriages':
+      // A carriage in the failure set has no programme and every feed it is the source of is down: exactly what deleting it does.
+      return fromReach(m, kind, code, m.engine.reach([{ kind: 'carriage', code }]), 'The fault reach of this carriage failing: itself, and every feed it is the source of.');
     case 'services': {
       const fed = m.document.carriages.filter((c) => c.service === code && !unfed.has(c.code)).map((c) => c.code);
       return fromReach(m, kind, code, m.engine.reach([]), 'Every carriage of this service that has programme today.', fed);
