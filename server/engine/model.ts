@@ -218,51 +218,62 @@ export function buildNetworkModel(doc: NetworkDocument): NetworkModel {
     feedGroups.next();
   }
 
-  const carriageBase = S;
-  const feedBase = S + C;
-  const groupBase = feedBase + F;
-  const elementCount = groupBase + groups.items.length;
+  const { carriageBase, feedBase, groupBase, elementCount } = elementBases(S, C, F, groups.items.length);
   const elements: Element[] = new Array(elementCount);
   for (let i = 0; i < S; i++) elements[i] = Object.freeze({ kind: 'site' as const, code: sites.codes[i] });
   for (let i = 0; i < C; i++) elements[carriageBase + i] = Object.freeze({ kind: 'carriage' as const, code: carriages.codes[i] });
   for (let i = 0; i < F; i++) elements[feedBase + i] = Object.freeze({ kind: 'feed' as const, code: feeds.codes[i] });
   for (let i = 0; i < groups.items.length; i++) elements[groupBase + i] = Object.freeze({ kind: 'group' as const, code: groups.codes[i] });
 
+  const parts = { siteOrigin, siteHouseholds, siteGroups: siteGroups.done(), carriageSite, carriageService, feedFrom, feedTo, feedReserve };
+  return assembleModel({ sites, services, groups, carriages, feeds }, { ...parts, feedVia: feedVia.done(), feedGroups: feedGroups.done(), elements });
+}
+
+/** Element ids run sites, carriages, feeds, groups: where each kind starts. */
+export function elementBases(sites: number, carriages: number, feeds: number, groups: number) {
+  return { carriageBase: sites, feedBase: sites + carriages, groupBase: sites + carriages + feeds, elementCount: sites + carriages + feeds + groups };
+}
+
+interface Indexed<T> {
+  items: T[];
+  codes: string[];
+  index: Map<string, number>;
+}
+
+/** The per-entity arrays of a model, read from a document (`buildNetworkModel`) or patched after an edit (update.ts). */
+export type ModelArrays = Pick<
+  NetworkModel,
+  'siteOrigin' | 'siteHouseholds' | 'siteGroups' | 'carriageSite' | 'carriageService' | 'feedFrom' | 'feedTo' | 'feedReserve' | 'feedVia' | 'feedGroups' | 'elements'
+>;
+
+/** A model from each kind in code order and its arrays; what follows from them (feed look-ups, element id bases) is filled in here. */
+export function assembleModel(
+  k: { sites: Indexed<Site>; services: Indexed<Service>; groups: Indexed<Group>; carriages: Indexed<Carriage>; feeds: Indexed<Feed> },
+  arrays: ModelArrays,
+): NetworkModel {
+  const C = k.carriages.items.length;
   return {
-    sites: sites.items,
-    services: services.items,
-    groups: groups.items,
-    carriages: carriages.items,
-    feeds: feeds.items,
-    siteCodes: sites.codes,
-    serviceCodes: services.codes,
-    groupCodes: groups.codes,
-    carriageCodes: carriages.codes,
-    feedCodes: feeds.codes,
-    siteIndex: sites.index,
-    serviceIndex: services.index,
-    groupIndex: groups.index,
-    carriageIndex: carriages.index,
-    feedIndex: feeds.index,
-    siteOrigin,
-    siteHouseholds,
-    siteGroups: siteGroups.done(),
-    carriageSite,
-    carriageService,
-    feedFrom,
-    feedTo,
-    feedReserve,
-    feedMedium: feeds.items.map((f) => f.medium),
-    feedRole: feeds.items.map((f) => f.role),
-    feedVia: feedVia.done(),
-    feedGroups: feedGroups.done(),
-    feedsInto: invert(C, feedTo),
-    feedsOutOf: invert(C, feedFrom),
-    carriageBase,
-    feedBase,
-    groupBase,
-    elementCount,
-    elements,
+    sites: k.sites.items,
+    services: k.services.items,
+    groups: k.groups.items,
+    carriages: k.carriages.items,
+    feeds: k.feeds.items,
+    siteCodes: k.sites.codes,
+    serviceCodes: k.services.codes,
+    groupCodes: k.groups.codes,
+    carriageCodes: k.carriages.codes,
+    feedCodes: k.feeds.codes,
+    siteIndex: k.sites.index,
+    serviceIndex: k.services.index,
+    groupIndex: k.groups.index,
+    carriageIndex: k.carriages.index,
+    feedIndex: k.feeds.index,
+    ...arrays,
+    feedMedium: k.feeds.items.map((f) => f.medium),
+    feedRole: k.feeds.items.map((f) => f.role),
+    feedsInto: invert(C, arrays.feedTo),
+    feedsOutOf: invert(C, arrays.feedFrom),
+    ...elementBases(k.sites.items.length, C, k.feeds.items.length, k.groups.items.length),
   };
 }
 

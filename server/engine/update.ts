@@ -15,7 +15,7 @@
  * reference the changed codes do not account for.
  */
 import type { NetworkDocument, Site, Carriage, Feed } from '@/shared/schemas/network';
-import { IdListBuilder, invert, normaliseCode, type NetworkModel } from './model';
+import { assembleModel, elementBases, IdListBuilder, normaliseCode, type NetworkModel } from './model';
 import { buildSomeFlowSpecs, compileFlowSpec, NODE_CARRIAGE, NODE_FEED, NODE_HOP, type CompiledService, type FlowSpec } from './graphs';
 import { assembleCore, fullView, mainView, type EngineCore } from './core';
 import type { FlowView } from './removal-walk';
@@ -194,10 +194,7 @@ function updateModel(old: NetworkModel, doc: NetworkDocument, changed: Record<'s
   }
 
   // Element ids run sites, carriages, feeds, groups (model.ts).
-  const carriageBase = S;
-  const feedBase = S + C;
-  const groupBase = feedBase + F;
-  const elementCount = groupBase + groups.items.length;
+  const { carriageBase, feedBase, groupBase, elementCount } = elementBases(S, C, F, groups.items.length);
   let elements = old.elements;
   let elementMap: Int32Array | null = null;
   if (sites.oldToNew || carriages.oldToNew || feeds.oldToNew || groups.oldToNew) {
@@ -224,42 +221,12 @@ function updateModel(old: NetworkModel, doc: NetworkDocument, changed: Record<'s
     }
   }
 
-  const model: NetworkModel = {
-    sites: sites.items,
-    services: doc.services,
-    groups: groups.items as NetworkModel['groups'],
-    carriages: carriages.items,
-    feeds: feeds.items,
-    siteCodes: sites.codes,
-    serviceCodes: old.serviceCodes,
-    groupCodes: groups.codes,
-    carriageCodes: carriages.codes,
-    feedCodes: feeds.codes,
-    siteIndex: sites.index,
-    serviceIndex: old.serviceIndex,
-    groupIndex: groups.index,
-    carriageIndex: carriages.index,
-    feedIndex: feeds.index,
-    siteOrigin,
-    siteHouseholds,
-    siteGroups: siteGroups.done(),
-    carriageSite,
-    carriageService,
-    feedFrom,
-    feedTo,
-    feedReserve,
-    feedMedium: feeds.items.map((f) => f.medium),
-    feedRole: feeds.items.map((f) => f.role),
-    feedVia: feedVia.done(),
-    feedGroups: feedGroups.done(),
-    feedsInto: invert(C, feedTo),
-    feedsOutOf: invert(C, feedFrom),
-    carriageBase,
-    feedBase,
-    groupBase,
-    elementCount,
-    elements,
-  };
+  const services = { items: doc.services, codes: old.serviceCodes, index: old.serviceIndex };
+  const parts = { siteOrigin, siteHouseholds, siteGroups: siteGroups.done(), carriageSite, carriageService, feedFrom, feedTo, feedReserve };
+  const model = assembleModel(
+    { sites, services, groups: groups as KindUpdate<NetworkModel['groups'][number]>, carriages, feeds },
+    { ...parts, feedVia: feedVia.done(), feedGroups: feedGroups.done(), elements },
+  );
   return { model, sites, groups, carriages, feeds, elementMap };
 }
 

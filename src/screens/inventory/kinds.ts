@@ -40,40 +40,18 @@ export interface SortOption {
   label: string;
 }
 
+const sort = (value: string, label: string): SortOption => ({ value, label });
+const BY_CODE = sort('code', 'Code');
+const BY_NAME = sort('name', 'Name');
+const BY_CHANGE = sort('updatedAt', 'Last changed');
+
 /** The sorts a list offers, the most useful first; each is in the server's whitelist. */
 export const SORTS: Record<EntityKind, readonly SortOption[]> = {
-  sites: [
-    { value: 'code', label: 'Code' },
-    { value: 'name', label: 'Name' },
-    { value: 'role', label: 'Site type' },
-    { value: 'households', label: 'Households' },
-    { value: 'updatedAt', label: 'Last changed' },
-  ],
-  services: [
-    { value: 'code', label: 'Code' },
-    { value: 'name', label: 'Name' },
-    { value: 'kind', label: 'Kind' },
-    { value: 'updatedAt', label: 'Last changed' },
-  ],
-  groups: [
-    { value: 'code', label: 'Code' },
-    { value: 'name', label: 'Name' },
-    { value: 'updatedAt', label: 'Last changed' },
-  ],
-  carriages: [
-    { value: 'code', label: 'Code' },
-    { value: 'site', label: 'Site' },
-    { value: 'service', label: 'Service' },
-    { value: 'frequencyMHz', label: 'Frequency' },
-    { value: 'erpW', label: 'ERP' },
-  ],
-  feeds: [
-    { value: 'code', label: 'Code' },
-    { value: 'toSite', label: 'Receiving site' },
-    { value: 'fromSite', label: 'Source site' },
-    { value: 'medium', label: 'Medium' },
-    { value: 'role', label: 'Main or reserve' },
-  ],
+  sites: [BY_CODE, BY_NAME, sort('role', 'Site type'), sort('households', 'Households'), BY_CHANGE],
+  services: [BY_CODE, BY_NAME, sort('kind', 'Kind'), BY_CHANGE],
+  groups: [BY_CODE, BY_NAME, BY_CHANGE],
+  carriages: [BY_CODE, sort('site', 'Site'), sort('service', 'Service'), sort('frequencyMHz', 'Frequency'), sort('erpW', 'ERP')],
+  feeds: [BY_CODE, sort('toSite', 'Receiving site'), sort('fromSite', 'Source site'), sort('medium', 'Medium'), sort('role', 'Main or reserve')],
 };
 
 export interface FilterSpec {

@@ -31,6 +31,11 @@ interface End {
 const EMPTY: End = { text: { lat: '', lon: '' }, site: null };
 const topOf = (s: SitePosition | null) => (s && s.groundHeightM != null && s.mastHeightM != null ? s.groundHeightM + s.mastHeightM : null);
 
+const AXES = [
+  { key: 'lat', word: 'Latitude', placeholder: '52.1 or 52.1 N' },
+  { key: 'lon', word: 'Longitude', placeholder: '-3.4 or 3.4 W' },
+] as const;
+
 function EndFields({ name, end, onChange }: { name: 'A' | 'B'; end: End; onChange: (next: End) => void }) {
   const { touched, touch } = useTouched<'lat' | 'lon'>();
   const { errors } = readPosition(end.text, name);
@@ -40,32 +45,21 @@ function EndFields({ name, end, onChange }: { name: 'A' | 'B'; end: End; onChang
       <SitePicker end={name} onPick={(s) => onChange({ site: s, text: { lat: String(s.lat), lon: String(s.lon) } })} />
       {end.site ? <Text style={styles.picked} testID={`calc-picked-${name}`}>{`Site ${end.site.name} (${end.site.code})`}</Text> : null}
       <View style={styles.pair}>
-        <View style={styles.half}>
-          <TextField
-            label={`Latitude of ${name}`}
-            value={end.text.lat}
-            onChangeText={(lat) => onChange({ site: null, text: { ...end.text, lat } })}
-            onBlur={() => touch('lat')}
-            error={visibleError(end.text.lat, touched('lat'), errors.lat)}
-            placeholder="52.1 or 52.1 N"
-            mono
-            keyboardType="numbers-and-punctuation"
-            testID={`calc-lat-${name}`}
-          />
-        </View>
-        <View style={styles.half}>
-          <TextField
-            label={`Longitude of ${name}`}
-            value={end.text.lon}
-            onChangeText={(lon) => onChange({ site: null, text: { ...end.text, lon } })}
-            onBlur={() => touch('lon')}
-            error={visibleError(end.text.lon, touched('lon'), errors.lon)}
-            placeholder="-3.4 or 3.4 W"
-            mono
-            keyboardType="numbers-and-punctuation"
-            testID={`calc-lon-${name}`}
-          />
-        </View>
+        {AXES.map(({ key, word, placeholder }) => (
+          <View style={styles.half} key={key}>
+            <TextField
+              label={`${word} of ${name}`}
+              value={end.text[key]}
+              onChangeText={(value) => onChange({ site: null, text: { ...end.text, [key]: value } })}
+              onBlur={() => touch(key)}
+              error={visibleError(end.text[key], touched(key), errors[key])}
+              placeholder={placeholder}
+              mono
+              keyboardType="numbers-and-punctuation"
+              testID={`calc-${key}-${name}`}
+            />
+          </View>
+        ))}
       </View>
     </View>
   );
