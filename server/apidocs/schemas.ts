@@ -67,7 +67,7 @@ export const routeDocs: Record<string, RouteDoc> = {
     summary: 'Import a network document (JSON body, or multipart "file": .json, .csv or .zip)',
     description:
       'All or nothing; 422 with every error when the document has any. A replace needs confirmReplace from its dry run ' +
-      '(428 replace-unconfirmed without it, 409 replace-confirmation-outdated when the network changed since). See docs/format.md.',
+      '(428 replace-not-confirmed without it, 409 replace-confirmation-outdated when the network changed since). See docs/format.md.',
     query: importQuerySchema,
     body: networkDocumentSchema,
   },

@@ -111,13 +111,13 @@ const cases: RuleCase[] = [
   {
     rule: 'self-feed',
     fail: (d) => (feed(d, 'R1.TV1.R').from = 'R1.TV1'),
-    expect: { kind: 'feeds', index: 4, field: 'to', message: 'feed R1.TV1.R: source and target are the same carriage R1.TV1; a feed joins two different carriages' },
+    expect: { kind: 'feeds', index: 4, field: 'to', message: 'feed R1.TV1.R: source and receiving carriage are the same carriage R1.TV1; a feed joins two different carriages' },
     pass: (d) => (feed(d, 'R1.TV1.R').from = 'M1.TV1'),
   },
   {
     rule: 'via-endpoint',
     fail: (d) => (feed(d, 'M1.FM1.M').via = ['H1', 'M1']),
-    expect: { kind: 'feeds', index: 2, field: 'via[1]', message: 'feed M1.FM1.M: via-site M1 is the target site (of carriage M1.FM1); a via-site is a hop between the two ends' },
+    expect: { kind: 'feeds', index: 2, field: 'via[1]', message: 'feed M1.FM1.M: via-site M1 is the receiving site (of carriage M1.FM1); a via-site is a hop between the two ends' },
     pass: (d) => (feed(d, 'M1.FM1.M').via = ['H1', 'R1']),
   },
   {

@@ -99,7 +99,7 @@ describe('validateDocument: a document with many planted errors reports every on
     { kind: 'feeds', index: 0, code: 'F1', field: 'to', rule: 'service-mismatch', message: 'feed F1: source carriage C1 carries service TV but receiving carriage C2 carries FM; both ends of a feed carry the same service' },
     { kind: 'feeds', index: 1, code: 'F2', field: 'medium', rule: 'unknown-enum', message: 'feed F2: medium is one of off-air, satellite, line, microwave (got "radio")' },
     { kind: 'feeds', index: 1, code: 'F2', field: 'from', rule: 'unknown-reference', message: 'feed F2: source carriage C99 does not exist' },
-    { kind: 'feeds', index: 2, code: 'F3', field: 'to', rule: 'self-feed', message: 'feed F3: source and target are the same carriage C2; a feed joins two different carriages' },
+    { kind: 'feeds', index: 2, code: 'F3', field: 'to', rule: 'self-feed', message: 'feed F3: source and receiving carriage are the same carriage C2; a feed joins two different carriages' },
     { kind: 'feeds', index: 2, code: 'F3', field: 'via[0]', rule: 'via-endpoint', message: 'feed F3: via-site S2 is the source site (of carriage C2); a via-site is a hop between the two ends' },
   ];
 

@@ -10,7 +10,7 @@
  *           413 an upload past a limit (server/interchange/limits.ts); 429 with
  *           Retry-After when imports are queued up (one runs at a time);
  *           409 stale-base for a replace from an older baseVersion without undoNewer;
- *           a replace needs ?confirmReplace= from its dry run: 428 replace-unconfirmed
+ *           a replace needs ?confirmReplace= from its dry run: 428 replace-not-confirmed
  *           without it, 409 replace-confirmation-outdated when the network changed since
  *   GET  /network/import/progress/:id  -> { stage, done, total } of the import sent with ?progressId=id
  *        (reading, validating, writing, rebuilding, done, failed); 404 unknown-import

@@ -288,7 +288,7 @@ describe('import errors', () => {
 
     const bare = await importDoc(doc, '?replace=true');
     expect(bare.status).toBe(428);
-    expect(bare.body.error.code).toBe('replace-unconfirmed');
+    expect(bare.body.error.code).toBe('replace-not-confirmed');
     expect(bare.body.error.message).toContain(`deletes 1 site, 1 carriage and ${droppedFeeds} feed${droppedFeeds === 1 ? '' : 's'}`);
     expect(bare.body.error.message).toContain('confirmReplace');
     expect(bare.body.error.details.deletions).toEqual({ sites: 1, services: 0, groups: 0, carriages: 1, feeds: droppedFeeds });

@@ -3,7 +3,7 @@
  * only with the confirmation its dry run hands out: `confirmReplace`, a
  * token over the network version the dry run saw and the deletions it
  * counted per kind. The commit recomputes the token from its own plan; a
- * missing token is 428 `replace-unconfirmed`, a token from another version
+ * missing token is 428 `replace-not-confirmed`, a token from another version
  * or other deletions is 409 `replace-confirmation-outdated`. Both messages
  * name what would be deleted, so the person knows what they are confirming.
  */
@@ -41,7 +41,7 @@ export function requireConfirmation(given: string | undefined, version: number, 
   if (given === replaceToken(version, deletions)) return;
   const what = `this replace deletes ${deletionsText(deletions)} (everything the file leaves out)`;
   if (given === undefined || given === '') {
-    throw new ApiError(428, 'replace-unconfirmed',
+    throw new ApiError(428, 'replace-not-confirmed',
       `${what}; check it first with dryRun=true and send the confirmReplace value of that check to carry it out`, { deletions });
   }
   throw new ApiError(409, 'replace-confirmation-outdated',

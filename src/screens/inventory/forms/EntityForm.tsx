@@ -167,7 +167,7 @@ export function EntityForm({ kind, stored, prefill, onSaved, onCancel, onReload 
       {secondMain ? (
         <View style={styles.stale} accessibilityRole="alert" testID="form-second-main">
           <Text style={styles.staleText}>{`⚠ A second main feed. ${secondMain}`}</Text>
-          <Text style={styles.note}>Choose "reserve" as the feed role above, or save it as a second main feed if both are meant to carry the programme.</Text>
+          <Text style={styles.note}>Choose "reserve feed" under "Main or reserve" above, or save it as a second main feed if both are meant to carry the programme.</Text>
           <Button label="Save as a second main feed" variant="secondary" busy={busy} onPress={() => void save(SECOND_MAIN)} testID="form-confirm-second-main" style={styles.left} />
         </View>
       ) : null}
