@@ -33,7 +33,7 @@ describe('one set of cross-entity rules', () => {
     expect(fromImport.map((i) => i.rule).sort()).toEqual(['service-mismatch', 'via-endpoint']);
     expect(fromImport).toContainEqual({
       rule: 'service-mismatch', field: 'to',
-      message: 'feed X.BAD: source carriage M1.FM1 carries service FM1 but target carriage R1.TV1 carries TV1; both ends of a feed carry the same service',
+      message: 'feed X.BAD: source carriage M1.FM1 carries service FM1 but receiving carriage R1.TV1 carries TV1; both ends of a feed carry the same service',
     });
     expect(issuesOf(dry.body.errors)).toEqual(fromImport);
     const fromEdit = (single.body.error.details as Array<{ rule: string; message: string; field: string }>).map(({ rule, message, field }) => ({ rule, message, field }));
