@@ -35,9 +35,11 @@ export interface VirtualListProps<T> {
   onEndReached?: () => void;
   footer?: ReactElement | null;
   framed?: boolean;
+  /** 'rows': the body of a table (a rowgroup of rows that carry their own role), not a list of items */
+  as?: 'list' | 'rows';
 }
 
-export function VirtualList<T>({ data, keyOf, renderRow, rowHeight, estimatedRowHeight = 72, maxHeight, label, testID, onEndReached, footer, framed = true }: VirtualListProps<T>) {
+export function VirtualList<T>({ data, keyOf, renderRow, rowHeight, estimatedRowHeight = 72, maxHeight, label, testID, onEndReached, footer, framed = true, as = 'list' }: VirtualListProps<T>) {
   const { height: windowHeight } = useWindowDimensions();
   const boxHeight = maxHeight ?? Math.round(Math.min(640, Math.max(320, windowHeight * 0.7)));
   const perScreen = Math.ceil(boxHeight / (rowHeight ?? estimatedRowHeight)) + 2;
@@ -47,11 +49,11 @@ export function VirtualList<T>({ data, keyOf, renderRow, rowHeight, estimatedRow
   );
   const renderItem = useCallback(
     ({ item, index }: ListRenderItemInfo<T>) => (
-      <View testID={testID ? `${testID}-row` : undefined} role="listitem" style={rowHeight ? { height: rowHeight, overflow: 'hidden' } : undefined}>
+      <View testID={testID ? `${testID}-row` : undefined} role={as === 'list' ? 'listitem' : undefined} style={rowHeight ? { height: rowHeight, overflow: 'hidden' } : undefined}>
         {renderRow(item, index)}
       </View>
     ),
-    [renderRow, rowHeight, testID],
+    [renderRow, rowHeight, testID, as],
   );
   return (
     <FlatList
@@ -69,7 +71,7 @@ export function VirtualList<T>({ data, keyOf, renderRow, rowHeight, estimatedRow
       onEndReachedThreshold={1}
       ListFooterComponent={footer}
       style={[framed && styles.frame, { maxHeight: boxHeight }]}
-      role="list"
+      role={as === 'list' ? 'list' : 'rowgroup'}
       aria-label={label}
       accessibilityLabel={label}
       testID={testID}

@@ -12,6 +12,7 @@ import { createStore, del, get, set, type UseStore } from 'idb-keyval';
 import { Platform } from 'react-native';
 import { z } from 'zod';
 import { networkDocumentSchema, type NetworkDocument } from '@/shared/schemas/network';
+import { COPY_LOCATION } from './location';
 
 export interface OfflineCopy {
   networkVersion: number;
@@ -20,8 +21,7 @@ export interface OfflineCopy {
   document: NetworkDocument;
 }
 
-/** The stored layout; a change to it changes the key, so an old entry is simply not found. */
-const KEY = 'network-copy/1';
+const KEY = COPY_LOCATION.key;
 const storedSchema = z.strictObject({
   networkVersion: z.number().int().min(0),
   fetchedAt: z.iso.datetime(),
@@ -30,7 +30,7 @@ const storedSchema = z.strictObject({
 
 let store: UseStore | null = null;
 function theStore(): UseStore {
-  store ??= createStore('headwater-offline', 'copies');
+  store ??= createStore(COPY_LOCATION.database, COPY_LOCATION.store);
   return store;
 }
 
@@ -64,5 +64,3 @@ export async function clearCopy(): Promise<void> {
   await del(KEY, theStore());
 }
 
-/** For tests and the browser benchmark: the key and store names, so they can corrupt or inspect the entry. */
-export const COPY_LOCATION = { database: 'headwater-offline', store: 'copies', key: KEY } as const;

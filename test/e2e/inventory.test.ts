@@ -32,7 +32,7 @@ describe('inventory on a phone', () => {
     await page.getByLabel('Name', { exact: true }).fill('Test Hollow relay');
     await page.getByLabel('Latitude').fill('95');
     await page.getByLabel('Longitude').fill('-29.5');
-    await page.getByRole('radiogroup', { name: 'Role' }).getByRole('radio', { name: /relay/i }).click();
+    await page.getByRole('radiogroup', { name: 'Site type' }).getByRole('radio', { name: /relay/i }).click();
     await page.getByRole('button', { name: 'Save site' }).click();
     await page.getByText('latitude is between -90 and 90').first().waitFor({ timeout: 10_000 });
     await shot(page, 'site-form-latitude-phone');

@@ -41,7 +41,7 @@ describe.each(Object.entries(SIZES))('resilience exposure at %s size', (sizeName
       const text = await card.innerText();
       // households first, with thousands separators, then the element and its other figure
       expect(text.trimStart().startsWith(formatCount(top.households))).toBe(true);
-      expect(text).toContain('households lost');
+      expect(text).toContain('households off air');
       expect(text).toContain(`${top.element.kind} ${top.element.code}`);
       expect(text).toContain(`Carriages (lost)`);
       // nothing sits off-screen to the right
@@ -54,7 +54,7 @@ describe.each(Object.entries(SIZES))('resilience exposure at %s size', (sizeName
     } else {
       const table = ranking.getByRole('table', { name: 'Elements ranked by exposure' });
       await table.waitFor({ timeout: 30_000 });
-      expect(await table.getByRole('columnheader').allInnerTexts()).toContain('Households (lost)');
+      expect(await table.getByRole('columnheader').allInnerTexts()).toContain('Households (off air)');
       expect(await table.innerText()).toContain(formatCount(top.households));
       expect(await ranking.getByTestId('exposure-table-card').count()).toBe(0);
     }

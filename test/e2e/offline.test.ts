@@ -10,7 +10,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import type { ReachAnswer } from '@/shared/schemas/analysis';
-import { COPY_LOCATION } from '@/src/offline/copyStore';
+import { COPY_LOCATION } from '@/src/offline/location';
 import { apiGet, apiToken, baseUrl, digits, launch, openPage, shot, signIn, SIZES } from './browser';
 
 let browser: Browser;

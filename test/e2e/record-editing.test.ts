@@ -70,7 +70,7 @@ describe.each(Object.entries(SIZES))('record editing at %s size', (sizeName, siz
     const { page, errors } = await openPage(browser, size);
     await signIn(page, 'engineer');
     await page.goto(`${baseUrl()}/feeds?new=1`);
-    const to = page.getByLabel('Target carriage', { exact: true });
+    const to = page.getByLabel('Receiving carriage', { exact: true });
     await to.waitFor({ timeout: 20_000 });
     await to.fill(target);
     await page.getByRole('button', { name: new RegExp(`^Pick ${target},`) }).click();
@@ -87,7 +87,7 @@ describe.each(Object.entries(SIZES))('record editing at %s size', (sizeName, siz
     expect(await from.inputValue()).toBe(nearest);
 
     await page.getByRole('radiogroup', { name: 'Medium' }).getByRole('radio', { name: 'line' }).click();
-    await page.getByRole('radiogroup', { name: 'Feed role' }).getByRole('radio', { name: 'main' }).click();
+    await page.getByRole('radiogroup', { name: 'Main or reserve' }).getByRole('radio', { name: 'main' }).click();
     expect(await page.getByLabel('Code', { exact: true }).inputValue()).toBe(`${target}.M`);
     await page.getByRole('button', { name: 'Save feed' }).click();
     await page.waitForURL((u) => u.pathname === `/feeds/${target}.M`, { timeout: 20_000 });

@@ -38,6 +38,8 @@ describe.each(Object.entries(SIZES))('shell at %s size', (sizeName, size) => {
     // only admins are offered the people screen
     const people = page.getByTestId(sizeName === 'phone' ? 'more-people' : 'nav-people');
     if (sizeName === 'phone') await page.getByTestId('nav-more').click();
+    // routes load on demand: wait for the menu before counting what it offers
+    await page.locator(sizeName === 'phone' ? '[data-testid^="more-"]' : '[data-testid="side-nav"]').first().waitFor({ timeout: 20_000 });
     expect(await people.count()).toBe(role === 'admin' ? 1 : 0);
     await shot(page, `shell-${role}-${sizeName}`);
 

@@ -169,7 +169,7 @@ export function DataTable<Row>(props: DataTableProps<Row>) {
           <Text style={styles.empty}>{emptyText}</Text>
         ) : (
           virtual ? (
-            <VirtualList data={sorted} keyOf={rowKey} renderRow={bodyRow} framed={false} label={caption} testID={testID ? `${testID}-body` : undefined} />
+            <VirtualList data={sorted} keyOf={rowKey} renderRow={bodyRow} framed={false} as="rows" label={caption} testID={testID ? `${testID}-body` : undefined} />
           ) : (
             sorted.map(bodyRow)
           )

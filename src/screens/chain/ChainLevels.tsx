@@ -25,7 +25,7 @@ export function ChainLevels({ levels, onOpenTo }: { levels: number[]; onOpenTo: 
             <Button
               label={`Open to hop ${hop}`}
               variant="quiet"
-              accessibilityLabel={`Open the tree to hop ${hop}: ${formatCount(upTo)} carriages in the list`}
+              accessibilityLabel={`Open to hop ${hop}: ${formatCount(upTo)} carriages in the tree`}
               onPress={() => onOpenTo(hop)}
               testID={`chain-open-to-${hop}`}
             />
