@@ -100,29 +100,20 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md). CSV is always the whole list.
-  routes.add('get', '/analysis/diversity', can.analyse, async (req, res) => {
-    const { format, ...page } = parseOr400(pageQuerySchema.extend(listFormatQuerySchema.shape), req.query, 'query');
-    const m = currentModel(ctx);
-    const answer = m.engine.diversity();
-    if (format === 'csv') {
-      res.type('text/csv').attachment(csvFileName('diversity-gaps', m.networkVersion)).send(diversityCsv(m, answer));
-      return;
-    }
-    const { rows, total, offset } = pageRows(answer.carriages, page);
-    res.json({ ...answer, carriages: rows, total, offset });
-  });
-
-  routes.add('get', '/analysis/unfed', can.analyse, async (req, res) => {
-    const { format, ...page } = parseOr400(pageQuerySchema.extend(listFormatQuerySchema.shape), req.query, 'query');
-    const m = currentModel(ctx);
-    const answer = m.engine.unfed();
-    if (format === 'csv') {
-      res.type('text/csv').attachment(csvFileName('unfed-carriages', m.networkVersion)).send(unfedCsv(m, answer));
-      return;
-    }
-    const { rows, total, offset } = pageRows(answer.carriages, page);
-    res.json({ ...answer, carriages: rows, total, offset });
-  });
+  const carriageList = <A extends { carriages: unknown[] }>(path: string, file: string, answerOf: (m: ServedNetwork) => A, csvOf: (m: ServedNetwork, a: A) => string) =>
+    routes.add('get', path, can.analyse, async (req, res) => {
+      const { format, ...page } = parseOr400(pageQuerySchema.extend(listFormatQuerySchema.shape), req.query, 'query');
+      const m = currentModel(ctx);
+      const answer = answerOf(m);
+      if (format === 'csv') {
+        res.type('text/csv').attachment(csvFileName(file, m.networkVersion)).send(csvOf(m, answer));
+        return;
+      }
+      const { rows, total, offset } = pageRows(answer.carriages, page);
+      res.json({ ...answer, carriages: rows, total, offset });
+    });
+  carriageList('/analysis/diversity', 'diversity-gaps', (m) => m.engine.diversity(), diversityCsv);
+  carriageList('/analysis/unfed', 'unfed-carriages', (m) => m.engine.unfed(), unfedCsv);
 
   // Carriages to mark failed, by code or by site and service together (server/services/carriageSearch.ts).
   routes.add('get', '/analysis/carriage-search', can.analyse, async (req, res) => {
