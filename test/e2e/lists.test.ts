@@ -43,7 +43,7 @@ describe.each(Object.entries(SIZES))('resilience exposure at %s size', (sizeName
       expect(text.trimStart().startsWith(formatCount(top.households))).toBe(true);
       expect(text).toContain('households off air');
       expect(text).toContain(`${top.element.kind} ${top.element.code}`);
-      expect(text).toContain(`Carriages (lost)`);
+      expect(text).toContain('Carriages (off air)');
       // nothing sits off-screen to the right
       const box = await card.boundingBox();
       expect(box!.x + box!.width).toBeLessThanOrEqual(size.width);
