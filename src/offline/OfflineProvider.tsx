@@ -19,6 +19,8 @@ import { networkDocumentSchema } from '@/shared/schemas/network';
 
 /** Our choice (common practice, no source): a fresh copy at most every 5 minutes once one exists. */
 const MIN_REFRESH_MS = 5 * 60_000;
+/** After a failed fetch (our choice): soon enough to have a copy before the signal goes, rare enough not to hammer a weak link. */
+const RETRY_MS = 15_000;
 
 export interface OfflineState {
   supported: boolean;
@@ -61,6 +63,8 @@ export function OfflineProvider({ children }: { children: ReactNode }) {
   const [read, setRead] = useState(false);
   const fetching = useRef(false);
   const lastFetch = useRef(0);
+  // A failed fetch is tried again after a pause (the version alone would not change to prompt it).
+  const [attempt, setAttempt] = useState(0);
 
   useEffect(() => {
     if (!supported) return;
@@ -96,7 +100,9 @@ export function OfflineProvider({ children }: { children: ReactNode }) {
       setCopy(next);
       setDiscarded(false);
     } catch {
-      // No copy this time (no connection, or an answer that did not check out); the next version change tries again.
+      // No copy this time (no connection, or an answer that did not check out): try again in a while.
+      lastFetch.current = 0;
+      setTimeout(() => setAttempt((n) => n + 1), RETRY_MS);
     } finally {
       fetching.current = false;
     }
@@ -108,7 +114,7 @@ export function OfflineProvider({ children }: { children: ReactNode }) {
     if (copy && copy.networkVersion === serverVersion) return;
     if (copy && Date.now() - lastFetch.current < MIN_REFRESH_MS) return;
     void refresh();
-  }, [supported, read, online, serverVersion, copy, refresh]);
+  }, [supported, read, online, serverVersion, copy, refresh, attempt]);
 
   const value = useMemo(() => ({ supported, online, copy, discarded }), [supported, online, copy, discarded]);
   return <OfflineContext.Provider value={value}>{children}</OfflineContext.Provider>;

@@ -52,7 +52,7 @@ describe.each(Object.entries(SIZES))('a replace import at %s size', (sizeName, s
       const deletions = page.getByTestId('import-deletions');
       await deletions.waitFor({ timeout: 60_000 });
       const total = 1 + cut.carriages + cut.feeds;
-      await expect.poll(() => deletions.innerText()).toContain(`This replace deletes ${total} records`);
+      await expect.poll(() => deletions.innerText()).toContain(`This replace deletes ${total} record${total === 1 ? '' : 's'}`);
       const kinds = [`1 site`, `${cut.carriages} carriage${cut.carriages === 1 ? '' : 's'}`, `${cut.feeds} feed${cut.feeds === 1 ? '' : 's'}`];
       for (const k of kinds) expect(await deletions.innerText()).toContain(k);
       const commit = page.getByTestId('import-commit');

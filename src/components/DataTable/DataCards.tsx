@@ -46,7 +46,8 @@ export function DataCards<Row>({ caption, columns, rows, rowKey, onRowPress, row
       <Pressable
         key={key}
         accessibilityRole="button"
-        accessibilityLabel={rowLabel ? rowLabel(row) : cards.title(row)}
+        // The card's name is what it shows (figures included), so what is read out matches what is seen; rowLabel says the action.
+        accessibilityHint={rowLabel ? rowLabel(row) : undefined}
         onPress={() => onRowPress(row)}
         style={({ pressed }) => [styles.card, pressed && styles.pressed]}
         testID={testID ? `${testID}-card` : undefined}
