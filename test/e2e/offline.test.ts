@@ -38,13 +38,19 @@ function storedCopy(page: Page): Promise<{ networkVersion: number; sites: number
     ({ database, store, key }) =>
       new Promise((resolve, reject) => {
         const open = indexedDB.open(database);
-        open.onerror = () => reject(open.error);
+        // Never create the database here: one made before the app's own would lack its store.
+        open.onupgradeneeded = () => open.transaction?.abort();
+        open.onerror = () => resolve(null);
         open.onsuccess = () => {
           const db = open.result;
-          if (!db.objectStoreNames.contains(store)) return resolve(null);
+          if (!db.objectStoreNames.contains(store)) {
+            db.close();
+            return resolve(null);
+          }
           const get = db.transaction(store).objectStore(store).get(key);
           get.onsuccess = () => {
             const v = get.result as { networkVersion: number; document: { sites: unknown[] } } | undefined;
+            db.close();
             resolve(v ? { networkVersion: v.networkVersion, sites: v.document?.sites?.length ?? -1 } : null);
           };
           get.onerror = () => reject(get.error);
