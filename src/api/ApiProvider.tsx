@@ -15,7 +15,7 @@
 import { createContext, useContext, useMemo, type ReactNode } from 'react';
 import { SWRConfig, type SWRConfiguration } from 'swr';
 import { useSession } from '@/src/session/SessionProvider';
-import { isApiError, request, requestRaw, type RawRequestOptions, type RequestOptions } from './client';
+import { ApiError, isApiError, request, requestRaw, type RawRequestOptions, type RequestOptions } from './client';
 import { retryable } from './retry';
 
 export type Send = (path: string, options?: Omit<RequestOptions, 'token'>) => Promise<unknown>;
@@ -25,25 +25,43 @@ export type SendRaw = (path: string, options?: Omit<RawRequestOptions, 'token'>)
 const SendContext = createContext<{ send: Send; sendRaw: SendRaw } | null>(null);
 
 export function ApiProvider({ children }: { children: ReactNode }) {
-  const { tokenRef, signOut } = useSession();
+  const { tokenRef, signOut, sessionSignal } = useSession();
 
   const value = useMemo(() => {
-    /** Runs one call with the current token; a 401 for that token ends the session. */
-    async function withSession<T>(call: (token: string | null) => Promise<T>): Promise<T> {
+    /**
+     * Runs one call with the current token; a 401 for that token ends the
+     * session. Signed out, nothing is sent (it could only be refused), and a
+     * call still running when the session ends is aborted.
+     */
+    async function withSession<T>(call: (token: string, signal: AbortSignal) => Promise<T>, own?: AbortSignal): Promise<T> {
       const token = tokenRef.current;
+      if (!token) throw new ApiError(401, 'signed-out', 'Signed out: sign in again to go on.');
+      const session = sessionSignal.current;
+      const signal = own ? anySignal([own, session]) : session;
       try {
-        return await call(token);
+        return await call(token, signal);
       } catch (e) {
         if (isApiError(e) && e.status === 401 && token && token === tokenRef.current) signOut('expired');
         throw e;
       }
     }
-    const send: Send = (path, options = {}) => withSession((token) => request(path, { ...options, token }));
-    const sendRaw: SendRaw = (path, options = {}) => withSession((token) => requestRaw(path, { ...options, token }));
+    const send: Send = (path, options = {}) => withSession((token, signal) => request(path, { ...options, token, signal }), options.signal);
+    const sendRaw: SendRaw = (path, options = {}) => withSession((token, signal) => requestRaw(path, { ...options, token, signal }), options.signal);
     return { send, sendRaw };
-  }, [tokenRef, signOut]);
+  }, [tokenRef, signOut, sessionSignal]);
 
   return <SendContext.Provider value={value}>{children}</SendContext.Provider>;
+}
+
+/** A signal aborted when any of `signals` is (AbortSignal.any where the platform has it). */
+function anySignal(signals: AbortSignal[]): AbortSignal {
+  if (typeof AbortSignal.any === 'function') return AbortSignal.any(signals);
+  const both = new AbortController();
+  for (const s of signals) {
+    if (s.aborted) both.abort();
+    else s.addEventListener('abort', () => both.abort(), { once: true });
+  }
+  return both.signal;
 }
 
 export function SessionCache({ children }: { children: ReactNode }) {

@@ -17,4 +17,10 @@ describe('retryable', () => {
   it('retries errors that are not from the API client (a thrown TypeError, say)', () => {
     expect(retryable(new TypeError('x'))).toBe(true);
   });
+  it('does not retry a read aborted because its session ended', () => {
+    const aborted = new AbortController();
+    aborted.abort();
+    expect(retryable(aborted.signal.reason)).toBe(false);
+    expect(retryable(new DOMException('stopped', 'AbortError'))).toBe(false);
+  });
 });

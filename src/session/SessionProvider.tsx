@@ -23,6 +23,8 @@ export interface Session {
   lastSignOut: SignOutReason | null;
   /** The current token, readable without re-rendering (for fetchers). */
   tokenRef: { readonly current: string | null };
+  /** Aborted when this session ends, so no request of it is answered after sign-out. */
+  sessionSignal: { readonly current: AbortSignal };
 }
 
 export type SignOutReason = 'chosen' | 'expired';
@@ -47,6 +49,8 @@ function persist(token: string | null, user: User | null): void {
 export function SessionProvider({ children }: { children: ReactNode }) {
   const [state, setState] = useState<State>({ status: 'restoring', token: null, user: null, lastSignOut: null });
   const tokenRef = useRef<string | null>(null);
+  const abortRef = useRef(new AbortController());
+  const sessionSignal = useMemo(() => ({ get current() { return abortRef.current.signal; } }), []);
 
   useEffect(() => {
     let live = true;
@@ -70,12 +74,17 @@ export function SessionProvider({ children }: { children: ReactNode }) {
   }, []);
 
   const signIn = useCallback((token: string, user: User) => {
+    abortRef.current.abort();
+    abortRef.current = new AbortController();
     tokenRef.current = token;
     setState({ status: 'signedIn', token, user, lastSignOut: null });
     persist(token, user);
   }, []);
 
   const signOut = useCallback((reason: SignOutReason = 'chosen') => {
+    // Requests still on their way belong to the ended session: stop them, so none is answered with a 401.
+    abortRef.current.abort();
+    abortRef.current = new AbortController();
     tokenRef.current = null;
     setState({ status: 'signedOut', token: null, user: null, lastSignOut: reason });
     persist(null, null);
@@ -92,8 +101,8 @@ export function SessionProvider({ children }: { children: ReactNode }) {
   }, []);
 
   const value = useMemo<Session>(
-    () => ({ ...state, signIn, signOut, replaceUser, tokenRef }),
-    [state, signIn, signOut, replaceUser],
+    () => ({ ...state, signIn, signOut, replaceUser, tokenRef, sessionSignal }),
+    [state, signIn, signOut, replaceUser, sessionSignal],
   );
   return <SessionContext.Provider value={value}>{children}</SessionContext.Provider>;
 }

@@ -24,13 +24,15 @@ export function useOwnAccountActions() {
         const answer = parseAnswer(loginAnswerSchema, api.ownPassword, await send(api.ownPassword, { method: 'POST', body: { currentPassword, newPassword } }));
         session.signIn(answer.token, answer.user);
       },
-      /** Ends every session of this person on the server, then here; here it ends even if the server cannot be reached. */
+      /**
+       * Ends the session here first (its requests in flight are aborted, so
+       * none comes back refused), then on the server for every device, with
+       * the token just ended. Here it ends even if the server cannot be reached.
+       */
       signOutEverywhere: async () => {
-        try {
-          await send(api.logout, { method: 'POST' });
-        } finally {
-          session.signOut('chosen');
-        }
+        const token = session.tokenRef.current;
+        session.signOut('chosen');
+        if (token) await request(api.logout, { method: 'POST', token });
       },
     }),
     [send, session],
