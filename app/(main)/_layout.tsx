@@ -10,7 +10,7 @@ import { SessionCache } from '@/src/api/ApiProvider';
 import { AppShell } from '@/src/components/nav/AppShell';
 import { LoadingState } from '@/src/components/states';
 import { OfflineProvider } from '@/src/offline/OfflineProvider';
-import { queryFromParams, signInHref } from '@/src/session/nextPath';
+import { openedAt, queryFromParams, signInHref } from '@/src/session/nextPath';
 import { useSession } from '@/src/session/SessionProvider';
 import { colors } from '@/src/theme';
 
@@ -36,8 +36,9 @@ export default function SignedInLayout() {
     );
   }
   if (session.status === 'signedOut') {
-    // After choosing to sign out there is nothing to come back to.
-    const href = session.lastSignOut === 'chosen' ? '/sign-in' : signInHref(lastPlace.current ?? here);
+    // After choosing to sign out there is nothing to come back to. Never signed
+    // in on this page: back to the address it was opened at (see openedAt).
+    const href = session.lastSignOut === 'chosen' ? '/sign-in' : signInHref(lastPlace.current ?? openedAt ?? here);
     return <Redirect href={href} />;
   }
   return (

@@ -13,6 +13,16 @@ export type AppPath = Extract<Href, string>;
 const FALLBACK: AppPath = '/';
 
 /**
+ * The address the page was opened at (web), read when this module is first
+ * evaluated, before any screen renders. A signed-out visitor of a deep link
+ * is sent to sign-in with it: by the time the session has been read, the
+ * router may already have rewritten the address bar to "/" (the signed-in
+ * group's navigator is not mounted while the session is being restored).
+ */
+export const openedAt: string | null =
+  typeof window !== 'undefined' && typeof window.location?.pathname === 'string' ? `${window.location.pathname}${window.location.search}` : null;
+
+/**
  * A path on this origin, other than the sign-in screen. Checked at run time,
  * since it arrives in a URL; one that matches no route shows the not-found screen.
  */
