@@ -51,7 +51,7 @@ export function Button({ label, onPress, variant = 'primary', icon, disabled, bu
       ]}
     >
       <View style={styles.row}>
-        {busy ? <ActivityIndicator size="small" color={look.ink} /> : icon ? <Icon name={icon} size={20} color={look.ink} /> : null}
+        {busy ? <ActivityIndicator size="small" color={look.ink} accessibilityLabel={`${label}: working`} /> : icon ? <Icon name={icon} size={20} color={look.ink} /> : null}
         <Text style={[styles.label, { color: look.ink }]}>{label}</Text>
       </View>
     </Pressable>

@@ -16,7 +16,8 @@ import { StatusShape } from './StatusShape';
 export function LoadingState({ what, testID }: { what: string; testID?: string }) {
   return (
     <View style={styles.box} accessibilityLiveRegion="polite" testID={testID ?? 'loading'}>
-      <ActivityIndicator color={colors.accent} />
+      {/* a progress indicator is named, or a screen reader announces a nameless "progress bar" */}
+      <ActivityIndicator color={colors.accent} accessibilityLabel={`Loading ${what}`} />
       <Text style={styles.muted}>Loading {what}…</Text>
     </View>
   );

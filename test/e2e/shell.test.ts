@@ -5,6 +5,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES } from '@/shared/api';
+import { seriousViolations } from './axe';
 import { apiGet, baseUrl, demoUser, digits, launch, openPage, shot, signIn, SIZES } from './browser';
 
 let browser: Browser;
@@ -81,6 +82,28 @@ describe('sign-in guard', () => {
     await msg.waitFor({ timeout: 10_000 });
     expect((await msg.textContent())?.toLowerCase()).toContain('not recognised');
     expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await page.context().close();
+  });
+});
+
+describe('a screen still loading', () => {
+  it('names its progress indicator and passes the accessibility scan', async () => {
+    const { page, errors } = await openPage(browser, SIZES.phone);
+    await signIn(page, 'viewer');
+    // hold the checks list back, so the loading state stays on screen for the scan
+    let release = () => {};
+    const held = new Promise<void>((resolve) => (release = resolve));
+    await page.route('**/api/checks**', async (route) => {
+      await held;
+      await route.continue();
+    });
+    await page.goto(`${baseUrl()}/checks`);
+    const loading = page.getByRole('progressbar', { name: 'Loading the failing checks' });
+    await loading.waitFor({ timeout: 20_000 });
+    expect(await seriousViolations(page)).toEqual([]);
+    release();
+    await loading.waitFor({ state: 'detached', timeout: 30_000 });
+    expect(errors).toEqual([]);
     await page.context().close();
   });
 });

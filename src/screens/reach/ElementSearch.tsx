@@ -52,7 +52,7 @@ export function ElementSearch({ chosen, onAdd }: { chosen: readonly Element[]; o
         </Text>
       ) : !search.data || typing || search.isLoading ? (
         <View style={styles.status}>
-          <ActivityIndicator color={colors.accent} />
+          <ActivityIndicator color={colors.accent} accessibilityLabel="Searching" />
           <Text style={styles.muted}>Searching…</Text>
         </View>
       ) : hits.length === 0 ? (

@@ -105,7 +105,7 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
           aside={
             reach.isLoading ? (
               <View style={styles.updating} accessibilityLiveRegion="polite">
-                <ActivityIndicator color={colors.accent} size="small" />
+                <ActivityIndicator color={colors.accent} size="small" accessibilityLabel="Updating the answer" />
                 <Text style={styles.updatingText}>Updating…</Text>
               </View>
             ) : undefined
