@@ -73,7 +73,7 @@ export const routeDocs: Record<string, RouteDoc> = {
   },
   'get /api/network/import/progress/:id': {
     summary: 'How far a running import is: { stage, done, total } for the import sent with ?progressId=id',
-    description: 'Stages: reading, validating, writing, rebuilding, done, failed. 404 unknown-import before the import is heard of or after a few minutes.',
+    description: 'Stages: pending (not heard of by this process: not arrived yet, sent to another process, or finished more than a few minutes ago), reading, validating, writing, rebuilding, done, failed.',
   },
   'get /api/network/export': { summary: 'The whole network as a document (JSON) or a zip of CSV files', query: exportQuerySchema, answer: networkDocumentSchema },
   'post /api/analysis/reach': { summary: 'What a set of failures takes off air, and for how many households', body: reachRequestSchema },

@@ -12,7 +12,7 @@
  *           409 stale-base for a replace from an older baseVersion without undoNewer;
  *           a replace needs ?confirmReplace= from its dry run: 428 replace-not-confirmed
  *           without it, 409 replace-confirmation-outdated when the network changed since
- *   GET  /network/import/progress/:id  -> { stage, done, total } of the import sent with ?progressId=id
+ *   GET  /network/import/progress/:id  -> { stage, done, total } of the import sent with ?progressId=id (pending until heard of)
  *        (reading, validating, writing, rebuilding, done, failed); 404 unknown-import
  *        A client that goes away mid-import stops it: the transaction rolls back.
  *   GET  /network/export   ?format=json (default) | csv (a zip of the five CSV files and manifest.csv);
@@ -180,9 +180,9 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
 
   routes.add('get', '/network/import/progress/:id', can.editNetwork, (req, res) => {
     const { id } = parseOr400(progressParamsSchema, req.params, 'path');
-    const progress = board.get(id);
-    if (!progress) throw new ApiError(404, 'unknown-import', `no import with progress id ${id} is running here (it may not have started yet)`);
-    res.json(progress);
+    // An id not heard of is "pending", not a 404: the screen polls from the moment it sends, so its
+    // first polls usually arrive before the upload does (and a refused poll would be logged as an error).
+    res.json(board.get(id) ?? { stage: 'pending', done: 0, total: 0 });
   });
 
   routes.add('get', '/network/export', can.read, async (req, res) => {

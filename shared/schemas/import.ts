@@ -66,12 +66,13 @@ export interface ImportReport {
 }
 
 /**
- * Where a running import is (GET /api/network/import/progress/:id): the
- * upload being read, the document checked, the rows written, the served
+ * Where a running import is (GET /api/network/import/progress/:id): not
+ * heard of here yet (pending: its upload is still on the way, or went to
+ * another server process), the upload being read, the document checked, the rows written, the served
  * network rebuilt, then done or failed. `done` of `total` counts entities
  * (reading: files; rebuilding: 0 of 1 until it is built).
  */
-export const IMPORT_STAGES = ['reading', 'validating', 'writing', 'rebuilding', 'done', 'failed'] as const;
+export const IMPORT_STAGES = ['pending', 'reading', 'validating', 'writing', 'rebuilding', 'done', 'failed'] as const;
 export type ImportStage = (typeof IMPORT_STAGES)[number];
 
 export interface ImportProgress {

@@ -4,7 +4,7 @@
  * (GET /api/network/import/progress/:id) while its one request is still
  * open: the import's answer stays the report, as before. Kept in this
  * process's memory: with several server processes the poll may reach
- * another one and hear 404, which the screen shows as "still sending".
+ * another one and hear "pending", which the screen shows as "still sending".
  * Finished entries stay a few minutes for a last poll; the board holds a
  * bounded number.
  */

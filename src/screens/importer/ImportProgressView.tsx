@@ -29,7 +29,9 @@ export function stagePercent(p: ImportProgress | undefined): number {
 }
 
 export function ImportProgressView({ progressId, dryRun }: { progressId: string; dryRun: boolean }) {
-  const { data } = useImportProgress(progressId);
+  const answer = useImportProgress(progressId).data;
+  // pending: the upload has not reached the server yet
+  const data = answer && answer.stage !== 'pending' ? answer : undefined;
   const steps = stepsFor(dryRun);
   const current = data ? steps.findIndex((s) => s.stage === data.stage) : 0;
   const finished = data?.stage === 'done';
