@@ -43,7 +43,10 @@ export async function openPage(browser: Browser, size: { width: number; height: 
   const errors: string[] = [];
   const external: string[] = [];
   page.on('console', (m) => {
-    if (m.type() === 'error') errors.push(m.text());
+    if (m.type() !== 'error') return;
+    // a refused request names its address, so a failure says which call it was
+    const where = m.location().url;
+    errors.push(m.text().startsWith('Failed to load resource') && where ? `${m.text()} ${new URL(where).pathname}${new URL(where).search}` : m.text());
   });
   page.on('pageerror', (e) => errors.push(String(e)));
   page.on('request', (r) => {
