@@ -15,3 +15,15 @@ export function selectList(attributes: Attributes, alias: string, leaveOut: read
     .map(([name, a]) => `${alias}.${'field' in a && a.field ? a.field : name} AS "${name}"`)
     .join(', ');
 }
+
+/** A model's table name and the column of one of its attributes, for set-based SQL that must not name them by hand. */
+export function tableOf(model: { getTableName(): string | { tableName: string } }): string {
+  const name = model.getTableName();
+  return typeof name === 'string' ? name : name.tableName;
+}
+
+export function columnOf(model: { getAttributes(): Record<string, { field?: string }> }, attribute: string): string {
+  const a = model.getAttributes()[attribute];
+  if (!a) throw new Error(`the model has no attribute ${attribute}`);
+  return a.field ?? attribute;
+}

@@ -99,6 +99,10 @@ describe('services and groups', () => {
     expect((await patch('/groups/G-NEW', { version: 1, note: null })).body).not.toHaveProperty('note');
     const tel = await get('/groups/G-TEL');
     expect(tel.body.members).toEqual({ sites: [], feeds: ['M1.TV1.M', 'R2.TV1.R'] });
+    // sites in code order, with a member added by an edit
+    expect((await post('/sites', { code: 'A0', name: 'Alpha Zero', role: 'relay', lat: -38.2, lon: -29.2, groups: ['G-PWR'] })).status).toBe(201);
+    expect((await get('/groups/G-PWR')).body.members).toEqual({ sites: ['A0', 'M1'], feeds: [] });
+    expect((await get('/groups/G-NEW')).body.members).toEqual({ sites: [], feeds: [] });
   });
 });
 

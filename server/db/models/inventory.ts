@@ -102,4 +102,6 @@ export function defineInventory(sequelize: Sequelize) {
   FeedViaSiteRow.belongsTo(SiteRow, { as: 'site', foreignKey: 'siteId' });
   FeedRow.belongsToMany(RiskGroupRow, { as: 'groups', through: FeedGroupRow, foreignKey: 'feedId', otherKey: 'groupId' });
   SiteRow.belongsToMany(RiskGroupRow, { as: 'groups', through: SiteGroupRow, foreignKey: 'siteId', otherKey: 'groupId' });
+  RiskGroupRow.belongsToMany(SiteRow, { as: 'sites', through: SiteGroupRow, foreignKey: 'groupId', otherKey: 'siteId' });
+  RiskGroupRow.belongsToMany(FeedRow, { as: 'feeds', through: FeedGroupRow, foreignKey: 'groupId', otherKey: 'feedId' });
 }

@@ -11,6 +11,7 @@
  */
 import type { Sequelize } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
+import { FeedRow, RiskGroupRow, SiteRow } from '../../db/models/inventory';
 import { notFound } from '../../http/errors';
 import { countWhere, findByCode, findWhere } from './read';
 import { NOUN, type Fields } from './shape';
@@ -18,9 +19,15 @@ import { NOUN, type Fields } from './shape';
 const entities = async (sequelize: Sequelize, kind: EntityKind, condition: string, bind: unknown[]) =>
   (await findWhere(sequelize, kind, condition, bind)).map((f) => f.entity);
 
-async function codes(sequelize: Sequelize, sql: string, code: string): Promise<string[]> {
-  const [rows] = await sequelize.query(sql, { bind: [code] });
-  return (rows as { code: string }[]).map((r) => r.code);
+/** The codes of the sites or feeds in one shared-risk group, read through the membership models. */
+async function memberCodes(members: typeof SiteRow | typeof FeedRow, group: string): Promise<string[]> {
+  const rows = await members.findAll({
+    attributes: ['code'],
+    include: [{ model: RiskGroupRow, as: 'groups', where: { code: group }, attributes: [], through: { attributes: [] } }],
+    order: [['code', 'ASC']],
+    raw: true,
+  });
+  return rows.map((r) => (r as unknown as { code: string }).code);
 }
 
 export async function entityDetail(sequelize: Sequelize, kind: EntityKind, code: string): Promise<Record<string, unknown>> {
@@ -44,10 +51,7 @@ export async function entityDetail(sequelize: Sequelize, kind: EntityKind, code:
     case 'groups':
       return {
         group: entity,
-        members: {
-          sites: await codes(sequelize, 'SELECT s.code FROM site_groups sg JOIN sites s ON s.id = sg.site_id JOIN risk_groups g ON g.id = sg.group_id WHERE g.code = $1 ORDER BY s.code', code),
-          feeds: await codes(sequelize, 'SELECT f.code FROM feed_groups fg JOIN feeds f ON f.id = fg.feed_id JOIN risk_groups g ON g.id = fg.group_id WHERE g.code = $1 ORDER BY f.code', code),
-        },
+        members: { sites: await memberCodes(SiteRow, code), feeds: await memberCodes(FeedRow, code) },
       };
     case 'carriages':
       return {

@@ -12,6 +12,8 @@
  */
 import type { Sequelize, Transaction } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
+import { columnOf, tableOf } from '../../db/columns';
+import { FeedGroupRow, FeedRow, FeedViaSiteRow, RiskGroupRow, SiteGroupRow, SiteRow } from '../../db/models/inventory';
 import type { Fields } from './shape';
 
 export interface Tx {
@@ -127,7 +129,13 @@ export async function deleteByCodes(tx: Tx, kind: EntityKind, codes: readonly st
 
 /** Replaces the group memberships of these sites or feeds with the lists they carry (`created`: they have none yet). */
 export async function replaceGroupMemberships(tx: Tx, kind: 'sites' | 'feeds', entities: readonly Fields[], created = false): Promise<void> {
-  const [join, owner, ownerTable] = kind === 'sites' ? ['site_groups', 'site_id', 'sites'] : ['feed_groups', 'feed_id', 'feeds'];
+  // table and column names come from the link models, the schema's one description
+  const [link, ownerModel, ownerAttribute] = kind === 'sites' ? [SiteGroupRow, SiteRow, 'siteId'] : [FeedGroupRow, FeedRow, 'feedId'];
+  const join = tableOf(link);
+  const owner = columnOf(link, ownerAttribute);
+  const group = columnOf(link, 'groupId');
+  const ownerTable = tableOf(ownerModel);
+  const groupTable = tableOf(RiskGroupRow);
   await inBatches(entities, async (batch) => {
     if (!created) {
       await tx.sequelize.query(`DELETE FROM ${join} WHERE ${owner} IN (SELECT id FROM ${ownerTable} WHERE code = ANY($1::text[]))`, {
@@ -145,10 +153,10 @@ export async function replaceGroupMemberships(tx: Tx, kind: 'sites' | 'feeds', e
     }
     if (owners.length === 0) return;
     const [rows] = await tx.sequelize.query(
-      `INSERT INTO ${join} (${owner}, group_id)
+      `INSERT INTO ${join} (${owner}, ${group})
        SELECT o.id, g.id FROM unnest($1::text[], $2::text[]) AS u(owner, grp)
-       JOIN ${ownerTable} o ON o.code = u.owner JOIN risk_groups g ON g.code = u.grp
-       RETURNING group_id`,
+       JOIN ${ownerTable} o ON o.code = u.owner JOIN ${groupTable} g ON g.code = u.grp
+       RETURNING ${group}`,
       { bind: [owners, groups], transaction: tx.transaction },
     );
     if ((rows as unknown[]).length !== owners.length) throw new Error(`${join}: a group reference did not resolve`);
@@ -157,9 +165,11 @@ export async function replaceGroupMemberships(tx: Tx, kind: 'sites' | 'feeds', e
 
 /** Replaces the via-site lists of these feeds, keeping their order as positions 0, 1, ... (`created`: they have none yet). */
 export async function replaceViaSites(tx: Tx, feeds: readonly Fields[], created = false): Promise<void> {
+  const [via, feedsTable, sitesTable] = [tableOf(FeedViaSiteRow), tableOf(FeedRow), tableOf(SiteRow)];
+  const [feedColumn, positionColumn, siteColumn] = ['feedId', 'position', 'siteId'].map((a) => columnOf(FeedViaSiteRow, a));
   await inBatches(feeds, async (batch) => {
     if (!created) {
-      await tx.sequelize.query(`DELETE FROM feed_via_sites WHERE feed_id IN (SELECT id FROM feeds WHERE code = ANY($1::text[]))`, {
+      await tx.sequelize.query(`DELETE FROM ${via} WHERE ${feedColumn} IN (SELECT id FROM ${feedsTable} WHERE code = ANY($1::text[]))`, {
         bind: [batch.map((f) => f.code as string)],
         transaction: tx.transaction,
       });
@@ -176,13 +186,13 @@ export async function replaceViaSites(tx: Tx, feeds: readonly Fields[], created 
     }
     if (owners.length === 0) return;
     const [rows] = await tx.sequelize.query(
-      `INSERT INTO feed_via_sites (feed_id, position, site_id)
+      `INSERT INTO ${via} (${feedColumn}, ${positionColumn}, ${siteColumn})
        SELECT f.id, u.position, s.id FROM unnest($1::text[], $2::int4[], $3::text[]) AS u(feed, position, site)
-       JOIN feeds f ON f.code = u.feed JOIN sites s ON s.code = u.site
-       RETURNING feed_id`,
+       JOIN ${feedsTable} f ON f.code = u.feed JOIN ${sitesTable} s ON s.code = u.site
+       RETURNING ${feedColumn}`,
       { bind: [owners, positions, sites], transaction: tx.transaction },
     );
-    if ((rows as unknown[]).length !== owners.length) throw new Error('feed_via_sites: a via-site reference did not resolve');
+    if ((rows as unknown[]).length !== owners.length) throw new Error(`${via}: a via-site reference did not resolve`);
   });
 }
 
