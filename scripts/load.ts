@@ -28,6 +28,7 @@ import type { NetworkDocument } from '@/shared/schemas/network';
 import { generateNetwork } from './generator';
 import { Prng } from './generator/prng';
 import { REPO_ROOT, resolveDatabaseUrl } from './lib/postgres';
+import { stopChild } from './lib/supervisor';
 import { editsDuringImport, type EditRunResult } from './load/edits';
 
 function arg(name: string, fallback: string): string {
@@ -95,15 +96,6 @@ function startChild(databaseUrl: string, workers: number): Promise<{ child: Chil
     });
     child.on('exit', (code) => reject(new Error(`the server under load exited (${code}) before it listened`)));
   });
-}
-
-async function stopChild(child: ChildProcess) {
-  if (child.exitCode !== null || child.signalCode !== null) return;
-  const exited = new Promise((r) => child.once('exit', r));
-  child.kill('SIGTERM');
-  const kill = setTimeout(() => child.kill('SIGKILL'), 15_000);
-  await exited;
-  clearTimeout(kill);
 }
 
 async function login(base: string, email: string, password: string): Promise<string> {
@@ -231,7 +223,7 @@ async function main() {
     let engineer = '';
     // the first worker count last, so that the edits run against it
     for (const workers of [...workerCounts.slice(1), workerCounts[0]]) {
-      if (child) await stopChild(child);
+      if (child) await stopChild(child, 15_000);
       const started = await startChild(url, workers);
       child = started.child;
       base = started.base;
@@ -266,7 +258,7 @@ async function main() {
     fs.writeFileSync(`${out}.txt`, text);
     console.log(`\n${text}\nrecorded in ${out}.json and ${out}.txt`);
   } finally {
-    if (child) await stopChild(child);
+    if (child) await stopChild(child, 15_000);
     await db.close();
   }
 }

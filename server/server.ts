@@ -28,7 +28,7 @@ export interface RunningServer {
   server: Server;
   ctx: AppContext;
   url: string;
-  /** 127.0.0.1 with DEMO=1 (this machine only), else 0.0.0.0 */
+  /** the address listened on: opts.host, else 127.0.0.1 with DEMO=1 (this machine only), else 0.0.0.0 */
   host: string;
   demoAccounts: DemoAccountsResult;
   close(): Promise<void>;
@@ -50,9 +50,9 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
   ctx.notices = notices;
   const { app } = createApp(ctx);
 
-  const host = listenHost(config.DEMO);
+  const host = opts.host ?? listenHost(config.DEMO);
   const server = await new Promise<Server>((resolve, reject) => {
-    const s = app.listen(config.PORT, opts.host ?? host, () => resolve(s));
+    const s = app.listen(config.PORT, host, () => resolve(s));
     s.on('error', reject);
   });
   const address = server.address();

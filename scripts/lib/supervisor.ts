@@ -9,14 +9,11 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { Backoff } from '@/server/services/backoff';
 
-export interface SuperviseOptions {
+export interface SuperviseOptions extends RestartTiming {
   command: string;
   args: string[];
   env?: NodeJS.ProcessEnv;
   cwd?: string;
-  minDelayMs?: number;
-  maxDelayMs?: number;
-  stableAfterMs?: number;
   killAfterMs?: number;
   log?: (message: string) => void;
 }
@@ -30,10 +27,33 @@ export interface Supervisor {
   stop(): Promise<void>;
 }
 
-export function supervise(o: SuperviseOptions): Supervisor {
-  const log = o.log ?? ((m: string) => console.error(`[supervisor] ${m}`));
+export interface RestartTiming {
+  minDelayMs?: number;
+  maxDelayMs?: number;
+  stableAfterMs?: number;
+}
+
+/**
+ * The wait before starting again a process that exited unasked after running
+ * `upMs`: doubles on each quick crash (from minDelayMs to maxDelayMs) and
+ * starts over once a process stayed up for stableAfterMs. Shared by the
+ * supervisor and the WORKERS pool (workers.ts).
+ */
+export function restartDelay(o: RestartTiming): (upMs: number) => number {
   const backoff = new Backoff(o.minDelayMs ?? 1000, o.maxDelayMs ?? 30_000);
   const stableAfterMs = o.stableAfterMs ?? 60_000;
+  return (upMs) => {
+    if (upMs >= stableAfterMs) backoff.reset();
+    return backoff.next();
+  };
+}
+
+/** How a process ended, for the log: "was killed by SIGKILL" or "exited with code 1". */
+export const howItExited = (code: number | null, signal: string | null) => (signal ? `was killed by ${signal}` : `exited with code ${code}`);
+
+export function supervise(o: SuperviseOptions): Supervisor {
+  const log = o.log ?? ((m: string) => console.error(`[supervisor] ${m}`));
+  const delayAfter = restartDelay(o);
   const delays: number[] = [];
   let child: ChildProcess | null = null;
   let stopping = false;
@@ -56,12 +76,10 @@ export function supervise(o: SuperviseOptions): Supervisor {
       if (child === c) child = null;
       if (stopping) return;
       const upMs = Date.now() - startedAt;
-      if (upMs >= stableAfterMs) backoff.reset();
-      const delay = backoff.next();
+      const delay = delayAfter(upMs);
       delays.push(delay);
-      const how = signal ? `was killed by ${signal}` : `exited with code ${code}`;
       const reason = tail.length ? `; last words: ${tail.join(' | ')}` : '';
-      log(`the server ${how} after ${(upMs / 1000).toFixed(1)} s${reason}. Starting it again in ${(delay / 1000).toFixed(1)} s.`);
+      log(`the server ${howItExited(code, signal)} after ${(upMs / 1000).toFixed(1)} s${reason}. Starting it again in ${(delay / 1000).toFixed(1)} s.`);
       timer = setTimeout(() => {
         timer = null;
         if (stopping) return;
@@ -83,13 +101,17 @@ export function supervise(o: SuperviseOptions): Supervisor {
     async stop() {
       stopping = true;
       if (timer) clearTimeout(timer);
-      const c = child;
-      if (!c || c.exitCode !== null || c.signalCode !== null) return;
-      const exited = new Promise<void>((r) => c.once('exit', () => r()));
-      c.kill('SIGTERM');
-      const kill = setTimeout(() => c.kill('SIGKILL'), o.killAfterMs ?? 10_000);
-      await exited;
-      clearTimeout(kill);
+      if (child) await stopChild(child, o.killAfterMs ?? 10_000);
     },
   };
+}
+
+/** SIGTERM, then SIGKILL if the child has not exited after `killAfterMs`; resolves once it has exited. */
+export async function stopChild(c: ChildProcess, killAfterMs: number) {
+  if (c.exitCode !== null || c.signalCode !== null) return;
+  const exited = new Promise<void>((r) => c.once('exit', () => r()));
+  c.kill('SIGTERM');
+  const kill = setTimeout(() => c.kill('SIGKILL'), killAfterMs);
+  await exited;
+  clearTimeout(kill);
 }

@@ -7,11 +7,11 @@
  *
  * Workers start one after the other (the next once the previous listens), so
  * that start-up work (admin account, demo accounts) never races. A worker
- * that exits unasked is started again after a back-off that doubles on each
- * quick crash and starts over once a worker has stayed up for `stableAfterMs`.
+ * that exits unasked is started again after the supervisor's back-off
+ * (supervisor.ts restartDelay).
  */
 import type { EventEmitter } from 'node:events';
-import { Backoff } from '@/server/services/backoff';
+import { howItExited, restartDelay, type RestartTiming } from './supervisor';
 
 /** What the pool needs of a cluster worker (node:cluster's Worker has it). */
 export interface WorkerLike extends EventEmitter {
@@ -19,13 +19,10 @@ export interface WorkerLike extends EventEmitter {
   kill(signal?: string): void;
 }
 
-export interface WorkerPoolOptions {
+export interface WorkerPoolOptions extends RestartTiming {
   count: number;
   /** cluster.fork, or a stand-in in tests */
   fork: () => WorkerLike;
-  minDelayMs?: number;
-  maxDelayMs?: number;
-  stableAfterMs?: number;
   log?: (message: string) => void;
 }
 
@@ -47,8 +44,7 @@ export function workerCount(value: string | undefined): number {
 
 export function startWorkerPool(o: WorkerPoolOptions): WorkerPool {
   const log = o.log ?? ((m: string) => console.error(`[workers] ${m}`));
-  const backoff = new Backoff(o.minDelayMs ?? 1000, o.maxDelayMs ?? 30_000);
-  const stableAfterMs = o.stableAfterMs ?? 60_000;
+  const delayAfter = restartDelay(o);
   const live = new Set<WorkerLike>();
   const timers = new Set<NodeJS.Timeout>();
   let stopping = false;
@@ -65,10 +61,8 @@ export function startWorkerPool(o: WorkerPoolOptions): WorkerPool {
         resolve();
         if (stopping) return;
         const upMs = Date.now() - startedAt;
-        if (upMs >= stableAfterMs) backoff.reset();
-        const delay = backoff.next();
-        const how = signal ? `was killed by ${signal}` : `exited with code ${code}`;
-        log(`worker ${slot} (pid ${w.process.pid}) ${how} after ${(upMs / 1000).toFixed(1)} s; starting it again in ${(delay / 1000).toFixed(1)} s`);
+        const delay = delayAfter(upMs);
+        log(`worker ${slot} (pid ${w.process.pid}) ${howItExited(code, signal)} after ${(upMs / 1000).toFixed(1)} s; starting it again in ${(delay / 1000).toFixed(1)} s`);
         const t = setTimeout(() => {
           timers.delete(t);
           if (stopping) return;

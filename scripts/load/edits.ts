@@ -6,6 +6,7 @@
  * edit that waits past the lock limit is told "network-busy".
  */
 import type { Sequelize } from 'sequelize';
+import { percentile } from '../bench-engine';
 
 export interface EditOutcome {
   code: string;
@@ -53,12 +54,6 @@ async function editOnceOrThrow(base: string, token: string, code: string, name: 
   await r.arrayBuffer();
   return { code, name, status: r.status, ms: performance.now() - t0 };
 }
-
-const pct = (xs: number[], p: number) => {
-  if (xs.length === 0) return 0;
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.min(s.length - 1, Math.ceil((p / 100) * s.length) - 1)];
-};
 
 export async function editsDuringImport(o: Options): Promise<EditRunResult> {
   const outcomes: EditOutcome[] = [];
@@ -109,7 +104,7 @@ export async function editsDuringImport(o: Options): Promise<EditRunResult> {
   return {
     importStatus: imported.status,
     importMs: Math.round(imported.ms),
-    edits: { total: outcomes.length, byStatus, p50Ms: Math.round(pct(times, 50)), p99Ms: Math.round(pct(times, 99)) },
+    edits: { total: outcomes.length, byStatus, p50Ms: times.length ? Math.round(percentile(times, 50)) : 0, p99Ms: times.length ? Math.round(percentile(times, 99)) : 0 },
     lost,
     refusedButStored,
   };

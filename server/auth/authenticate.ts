@@ -7,7 +7,7 @@
  * A role change, a disable or a sign-out therefore takes effect on the next
  * request.
  */
-import type { RequestHandler } from 'express';
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { Role } from '@/shared/api';
 import { ApiError } from '../http/errors';
 import { isDatabaseUnavailableError } from '../db/unavailable';
@@ -34,20 +34,21 @@ export type LoadUserRow = (userId: number) => Promise<UserRow | null>;
 
 const unauthenticated = (message: string) => new ApiError(401, 'unauthenticated', message);
 
+/** A refused request's body is never read; close the connection rather than drain it. */
+function refuse(req: Request, res: Response, next: NextFunction, e: ApiError) {
+  if (!req.complete) res.set('Connection', 'close');
+  next(e);
+}
+
 /** Reads the bearer token and the user's row; 401 when either says no, 503 when the row cannot be read. */
 export function authenticate(secret: string, loadUserRow: LoadUserRow, cache = new UserRowCache()): RequestHandler {
   return async (req, res, next) => {
-    // A refused request's body is never read; close the connection rather than drain it.
-    const refuse = (e: ApiError) => {
-      if (!req.complete) res.set('Connection', 'close');
-      next(e);
-    };
     const m = /^Bearer\s+(.+)$/i.exec(req.get('authorization') ?? '');
-    if (!m) return refuse(unauthenticated('sign in first: no bearer token was sent'));
+    if (!m) return refuse(req, res, next, unauthenticated('sign in first: no bearer token was sent'));
     const claims = verifyToken(m[1].trim(), secret);
     const userId = Number(claims?.sub);
     if (!claims || !Number.isSafeInteger(userId) || userId < 1) {
-      return refuse(unauthenticated('the session token is not valid or has expired; sign in again'));
+      return refuse(req, res, next, unauthenticated('the session token is not valid or has expired; sign in again'));
     }
 
     // the row PostgreSQL holds now: from the cache while changes to users are heard, else read
@@ -62,14 +63,13 @@ export function authenticate(secret: string, loadUserRow: LoadUserRow, cache = n
         if (!isDatabaseUnavailableError(e)) return next(e);
         row = cache.fresh(userId);
         if (!row) {
-          return refuse(
-            new ApiError(503, 'database-unavailable', 'the database cannot be reached, so this session cannot be checked; try again in a minute'),
-          );
+          const down = new ApiError(503, 'database-unavailable', 'the database cannot be reached, so this session cannot be checked; try again in a minute');
+          return refuse(req, res, next, down);
         }
       }
     }
-    if (!row || row.disabled) return refuse(unauthenticated('this account is disabled or no longer exists'));
-    if (row.tokenVersion !== claims.tv) return refuse(unauthenticated('this session has ended (signed out, or the password changed); sign in again'));
+    if (!row || row.disabled) return refuse(req, res, next, unauthenticated('this account is disabled or no longer exists'));
+    if (row.tokenVersion !== claims.tv) return refuse(req, res, next, unauthenticated('this session has ended (signed out, or the password changed); sign in again'));
 
     req.auth = {
       userId,
@@ -87,10 +87,7 @@ export function authenticate(secret: string, loadUserRow: LoadUserRow, cache = n
 export function requireRole(...roles: Role[]): RequestHandler {
   return (req, res, next) => {
     if (!req.auth) return next(unauthenticated('sign in first'));
-    if (!roles.includes(req.auth.role)) {
-      if (!req.complete) res.set('Connection', 'close');
-      return next(new ApiError(403, 'forbidden', `this needs one of the roles: ${roles.join(', ')}`));
-    }
+    if (!roles.includes(req.auth.role)) return refuse(req, res, next, new ApiError(403, 'forbidden', `this needs one of the roles: ${roles.join(', ')}`));
     next();
   };
 }
@@ -98,8 +95,7 @@ export function requireRole(...roles: Role[]): RequestHandler {
 /** 403 while a temporary password has not been changed; the change and sign-out routes skip this. */
 export const requireCurrentPassword: RequestHandler = (req, res, next) => {
   if (req.auth?.mustChangePassword) {
-    if (!req.complete) res.set('Connection', 'close');
-    return next(new ApiError(403, 'password-change-required', 'this account has a temporary password: choose a new one first'));
+    return refuse(req, res, next, new ApiError(403, 'password-change-required', 'this account has a temporary password: choose a new one first'));
   }
   next();
 };

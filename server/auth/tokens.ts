@@ -44,23 +44,27 @@ function keyOf(secret: string): KeyObject {
  * Tokens whose signature was checked, with their claims, until they expire.
  * A token is the same bytes on every request of a session, so its signature
  * needs checking once; whether the session still counts is the user row's
- * business (authenticate.ts), not the token's. Bounded: the oldest half is
- * dropped when full.
+ * business (authenticate.ts), not the token's: a sign-out, password change,
+ * role change or disable refuses the next request whatever this holds.
+ * Bounded: at most MAX_VERIFIED tokens of at most MAX_CACHED_TOKEN
+ * characters each (ours are a few hundred), the oldest half dropped when
+ * full; a longer one is checked on every request instead.
  */
 const MAX_VERIFIED = 10_000;
-const verified = new Map<string, { claims: TokenClaims; expiresAtMs: number }>();
+const MAX_CACHED_TOKEN = 2048;
+const verified = new Map<string, { secret: string; claims: TokenClaims; expiresAtMs: number }>();
 
 /** Verify a bearer token; null for anything forged, expired or malformed. */
 export function verifyToken(token: string, secret: string): TokenClaims | null {
-  const cacheKey = `${secret.length}:${secret}\n${token}`;
-  const hit = verified.get(cacheKey);
-  if (hit) {
+  const hit = verified.get(token);
+  // a hit counts only for the secret it was checked with (tests run apps with different secrets)
+  if (hit && hit.secret === secret) {
     if (Date.now() < hit.expiresAtMs) return hit.claims;
-    verified.delete(cacheKey);
+    verified.delete(token);
     return null;
   }
-  const claims = verifyOnce(token, secret);
-  if (claims) {
+  const checked = verifyOnce(token, secret);
+  if (checked && token.length <= MAX_CACHED_TOKEN) {
     if (verified.size >= MAX_VERIFIED) {
       let drop = MAX_VERIFIED / 2;
       for (const key of verified.keys()) {
@@ -68,9 +72,9 @@ export function verifyToken(token: string, secret: string): TokenClaims | null {
         if (--drop === 0) break;
       }
     }
-    verified.set(cacheKey, { claims: claims.claims, expiresAtMs: claims.expiresAtMs });
+    verified.set(token, { secret, ...checked });
   }
-  return claims?.claims ?? null;
+  return checked?.claims ?? null;
 }
 
 function verifyOnce(token: string, secret: string): { claims: TokenClaims; expiresAtMs: number } | null {

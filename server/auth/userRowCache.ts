@@ -6,9 +6,9 @@
  *   (userChanges.ts: a trigger sends NOTIFY user_changed on every insert,
  *   update, delete and truncate), a row read since the listener last
  *   (re)connected, and within the last minute, is what PostgreSQL holds; the
- *   request skips the read. A write in this process forgets the rows at once
- *   (the model's hooks call userRowsChanged, again after the commit), so a
- *   role change, disable or sign-out takes effect on the very next request;
+ *   request skips the read. A write in this process forgets the rows once
+ *   it is committed (the model's hooks call userRowsChanged), so a role
+ *   change, disable or sign-out takes effect on the very next request;
  *   other processes forget on the notification.
  * - Outage fallback: when the database cannot be reached, a row read within
  *   the last minute still lets that person use the read and analysis routes
@@ -108,8 +108,12 @@ export class UserRowCache {
 
 /**
  * A user row changed in this process (id), or some rows did (null): every
- * cache forgets now, and once more after the commit, so that a request
- * reading between the write and the commit cannot keep the old row.
+ * cache forgets once the change is committed. Inside a transaction that is
+ * after the commit, not at the write: until then every reader still gets the
+ * old row from PostgreSQL, so forgetting earlier would only let a request
+ * between the write and the commit cache the old row again; a rolled-back
+ * change is never forgotten, since nothing changed. Without a transaction
+ * the write has already committed when the hook runs.
  */
 export function userRowsChanged(id: number | null, transaction?: { afterCommit(fn: () => void): void } | null) {
   const forget = () => {
@@ -118,6 +122,6 @@ export function userRowsChanged(id: number | null, transaction?: { afterCommit(f
       else cache.forget(id);
     }
   };
-  forget();
-  transaction?.afterCommit(forget);
+  if (transaction) transaction.afterCommit(forget);
+  else forget();
 }

@@ -55,6 +55,31 @@ describe('user rows cached per process', () => {
     expect(rows).toEqual([{ n: 0 }]);
   });
 
+  it('forgets a row read between a change and its commit once the change commits', async () => {
+    const t = getT();
+    await until('the listener for changes to people is up', () => t.ctx.userChanges!.listening);
+    // withhold the notification, so that only this process's own forgetting can refuse the next request
+    const listener = t.ctx.userChanges as unknown as { cache: object };
+    const cache = listener.cache;
+    listener.cache = { forget: () => undefined, forgetAll: () => undefined };
+    try {
+      const h = t.auth('viewer');
+      const user = await User.findOne({ where: { email: 'viewer@test.example' } });
+      await t.db.sequelize.transaction(async (transaction) => {
+        await user!.update({ disabled: true }, { transaction });
+        // not committed yet: the request still reads (and may keep) the enabled row
+        expect((await request(t.app).get('/api/sites').set(h)).status).toBe(200);
+      });
+      const after = await request(t.app).get('/api/sites').set(h);
+      expect(after.status).toBe(401);
+      expect(after.body.error.code).toBe('unauthenticated');
+      const [rows] = await t.db.sequelize.query(`SELECT disabled FROM users WHERE email = 'viewer@test.example'`);
+      expect(rows).toEqual([{ disabled: true }]);
+    } finally {
+      listener.cache = cache;
+    }
+  });
+
   it('reads the row on every request while the listener is down', async () => {
     const t = getT();
     vi.spyOn(t.ctx.userChanges!, 'listening', 'get').mockReturnValue(false);

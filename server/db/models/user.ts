@@ -3,7 +3,7 @@ import type { Role } from '@/shared/api';
 import { userRowsChanged } from '@/server/auth/userRowCache';
 
 type HookOptions = { transaction?: { afterCommit(fn: () => void): void } | null };
-/** Every write to users through the model: this process's cached rows are forgotten at once (auth/userRowCache.ts). */
+/** Every write to users through the model: this process's cached rows are forgotten once it commits (auth/userRowCache.ts). */
 const forgetOne = (user: User, options: HookOptions) => userRowsChanged(user.id ?? null, options.transaction);
 const forgetAll = (options: HookOptions) => userRowsChanged(null, options.transaction);
 
@@ -54,8 +54,7 @@ export function defineUser(sequelize: Sequelize) {
       tableName: 'users',
       modelName: 'User',
       hooks: {
-        afterCreate: forgetOne,
-        afterUpdate: forgetOne,
+        // save() (create, update) runs afterSave whichever it was: one hook for both
         afterSave: forgetOne,
         afterDestroy: forgetOne,
         afterUpsert: (_created, options) => forgetAll(options),
