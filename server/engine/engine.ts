@@ -60,13 +60,9 @@ export interface EngineTimings extends BuildTimings {
 /** What the engine computes for every carriage and element, on first use. */
 interface Analysis {
   resilience: Resilience;
-  /** per service: element ids that hold every origin of the service (rule 9, unavoidable) */
-  unavoidable: Int32Array[];
   /** carriages with a diversity gap -> their avoidable weak points (element ids) */
   gaps: Map<number, number[]>;
   diversityAnswer: DiversityAnswer;
-  /** every element, ranked; the engine keeps the rows of each kinds mask once asked */
-  exposureAll: ExposureRow[];
 }
 
 /** Each engine's compiled state, for code that times or checks its parts (`engineCore`). */
@@ -82,6 +78,13 @@ export function engineCore(engine: NetworkEngine): EngineCore {
   if (!core) throw new TypeError('engineCore needs an engine made by NetworkEngine.build');
   return core;
 }
+
+/** A list's `limit`: absent (the whole list) or a whole number >= 1. */
+function checkLimit(limit: number | undefined) {
+  if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+}
+
+const firstRows = <R>(rows: readonly R[], limit: number | undefined) => (limit === undefined ? (rows as R[]) : rows.slice(0, limit));
 
 function checkVersion(networkVersion: number) {
   if (!Number.isInteger(networkVersion) || networkVersion < 0) {
@@ -147,34 +150,22 @@ export class NetworkEngine {
     const unavoidable = unavoidableByService(core);
     const gaps = new Map<number, number[]>();
     // Diversity and proposals speak of sites, feeds and groups: a parent transmitter that is a weak point comes with its site.
-    const spofIds = (c: number) => spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]).filter((x) => !isCarriageId(model, x));
-    const spofOf = (c: number) => Array.from(spofIds(c), (x) => model.elements[x]);
     const diversityRows: DiversityAnswer['carriages'] = [];
     for (let c = 0; c < model.carriages.length; c++) {
       if (!fed[c]) continue;
       const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
       if (!hasReserve || spofOffsets[c] === spofOffsets[c + 1]) continue;
-      const avoidable = avoidableOf(unavoidable, model.carriageService[c], spofIds(c));
-      if (avoidable.length > 0) gaps.set(c, avoidable);
-      if (avoidable.length > 0) diversityRows.push({ ...this.placed(c), spof: spofOf(c), avoidable: avoidable.map((x) => model.elements[x]) });
+      const spofIds = spofElements.subarray(spofOffsets[c], spofOffsets[c + 1]).filter((x) => !isCarriageId(model, x));
+      const avoidable = avoidableOf(unavoidable, model.carriageService[c], spofIds);
+      if (avoidable.length === 0) continue;
+      gaps.set(c, avoidable);
+      diversityRows.push({ ...this.placed(c), spof: Array.from(spofIds, (x) => model.elements[x]), avoidable: avoidable.map((x) => model.elements[x]) });
     }
-    const { ranked, exposureHouseholds, exposureCarriages } = resilience;
-    const exposureAll = Array.from(ranked, (x) => ({
-      element: model.elements[x],
-      households: exposureHouseholds[x],
-      carriages: exposureCarriages[x],
-    }));
     const answersMs = performance.now() - t;
     this.timings.resilienceMs = resilienceMs;
     this.timings.answersMs = answersMs;
     this.timings.totalMs += resilienceMs + answersMs;
-    this.analysed = {
-      resilience,
-      unavoidable,
-      gaps,
-      diversityAnswer: { networkVersion, carriages: diversityRows },
-      exposureAll,
-    };
+    this.analysed = { resilience, gaps, diversityAnswer: { networkVersion, carriages: diversityRows } };
     return this.analysed;
   }
 
@@ -310,13 +301,22 @@ export class NetworkEngine {
 
   /** Exposure (rule 7) of every element of the given kinds (default sites, feeds and groups), highest households first. */
   exposure(limit?: number, kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): ExposureAnswer {
-    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) {
-      throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
-    }
+    checkLimit(limit);
     const mask = kindMask(kinds);
     let rows = this.exposureRows.get(mask);
-    if (!rows) this.exposureRows.set(mask, (rows = this.analysis.exposureAll.filter((r) => (KIND_BIT[r.element.kind] & mask) !== 0)));
-    return { networkVersion: this.networkVersion, elements: limit === undefined ? rows : rows.slice(0, limit) };
+    if (!rows) {
+      const { exposureHouseholds, exposureCarriages } = this.analysis.resilience;
+      const { elements } = this.core.model;
+      rows = this.rankedOf(mask).map((x) => ({ element: elements[x], households: exposureHouseholds[x], carriages: exposureCarriages[x] }));
+      this.exposureRows.set(mask, rows);
+    }
+    return { networkVersion: this.networkVersion, elements: firstRows(rows, limit) };
+  }
+
+  /** Element ids of the kinds in `mask`, highest exposure first (rule 7). */
+  private rankedOf(mask: number): number[] {
+    const { elements } = this.core.model;
+    return Array.from(this.analysis.resilience.ranked).filter((x) => (KIND_BIT[elements[x].kind] & mask) !== 0);
   }
 
   /**
@@ -324,18 +324,14 @@ export class NetworkEngine {
    * carriages in one row (exposure-groups.ts), highest households first.
    */
   exposureGroups(limit?: number, kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): ExposureGroupsAnswer {
-    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) {
-      throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
-    }
+    checkLimit(limit);
     const mask = kindMask(kinds);
     let rows = this.exposureGroupRows.get(mask);
     if (!rows) {
-      const { model } = this.core;
-      const { ranked, exposureHouseholds, exposureCarriages } = this.analysis.resilience;
-      const wanted = Array.from(ranked).filter((x) => (KIND_BIT[model.elements[x].kind] & mask) !== 0);
-      this.exposureGroupRows.set(mask, (rows = groupExposure(this.core, wanted, exposureHouseholds, exposureCarriages)));
+      const { exposureHouseholds, exposureCarriages } = this.analysis.resilience;
+      this.exposureGroupRows.set(mask, (rows = groupExposure(this.core, this.rankedOf(mask), exposureHouseholds, exposureCarriages)));
     }
-    return { networkVersion: this.networkVersion, groups: limit === undefined ? rows : rows.slice(0, limit) };
+    return { networkVersion: this.networkVersion, groups: firstRows(rows, limit) };
   }
 
   diversity(): DiversityAnswer {
@@ -353,7 +349,7 @@ export class NetworkEngine {
    */
   proposals(opts: { carriage?: string; limit?: number } = {}): ProposalsAnswer {
     const { limit } = opts;
-    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    checkLimit(limit);
     this.proposalCtx ??= proposalContext(this.core);
     let rows: ProposalRow[];
     if (opts.carriage !== undefined) {
@@ -369,7 +365,7 @@ export class NetworkEngine {
       }
       rows = this.bestProposals!.rows;
     }
-    return { networkVersion: this.networkVersion, proposals: limit === undefined ? rows : rows.slice(0, limit) };
+    return { networkVersion: this.networkVersion, proposals: firstRows(rows, limit) };
   }
 
   /**
@@ -382,11 +378,11 @@ export class NetworkEngine {
   }
 
   pairsAnswer(rows: readonly PairRow[], limit?: number): PairsAnswer {
-    if (limit !== undefined && (!Number.isInteger(limit) || limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(limit)})`);
+    checkLimit(limit);
     const { model } = this.core;
     return {
       networkVersion: this.networkVersion,
-      pairs: (limit === undefined ? rows : rows.slice(0, limit)).map((r) => ({
+      pairs: firstRows(rows, limit).map((r) => ({
         elements: [model.elements[r.a], model.elements[r.b]],
         jointLost: Array.from(r.jointLost, (c) => model.carriageCodes[c]),
         households: r.households,
@@ -396,7 +392,7 @@ export class NetworkEngine {
 
   /** Critical pairs computed in one go (tests, benchmark, small networks). */
   pairs(opts: { kinds?: readonly ElementKind[]; limit?: number } = {}): PairsAnswer {
-    if (opts.limit !== undefined && (!Number.isInteger(opts.limit) || opts.limit < 1)) throw new RangeError(`limit must be a whole number >= 1 (got ${String(opts.limit)})`);
+    checkLimit(opts.limit);
     const job = this.pairsJob(opts.kinds);
     job.step(Number.POSITIVE_INFINITY);
     return this.pairsAnswer(job.result(), opts.limit);

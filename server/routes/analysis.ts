@@ -10,6 +10,7 @@ import {
   proposalsQuerySchema,
   reachRequestSchema,
   spofQuerySchema,
+  type Element,
   type PairsRunning,
   type SiteInfo,
 } from '@/shared/schemas/analysis';
@@ -23,12 +24,12 @@ import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { cachedFeedChecks, currentModel } from './checks';
-import { csvFileName, diversityCsv, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
+import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { searchCarriages } from '../services/carriageSearch';
 
 export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
 export const exposureQuery = exposureQuerySchema.extend({
-  /** with=names: the name of each listed element (site and group names; a feed as "from → to"). */
+  /** with=names: the name of each listed element (services/analysisCsv.ts elementName: a carriage as "site name, service name", a feed as "from → to"). */
   with: z.enum(['names'], { error: 'with is names (or left out)' }).optional(),
 });
 
@@ -44,11 +45,10 @@ function siteInfoOf(m: ServedNetwork, sites: readonly { site: string }[]): Recor
 }
 
 /** "kind:code" -> a name a person reads, for the elements listed (so a screen need not load the whole network). */
-function namesOf(m: ServedNetwork, elements: readonly { kind: string; code: string }[]): Record<string, string> {
+function namesOf(m: ServedNetwork, elements: readonly Element[]): Record<string, string> {
   const out: Record<string, string> = {};
   for (const e of elements) {
-    const f = e.kind === 'feed' ? m.feeds.get(e.code) : undefined;
-    const name = e.kind === 'site' ? m.sites.get(e.code)?.name : e.kind === 'group' ? m.groups.get(e.code)?.name : f ? `${f.from} → ${f.to}` : undefined;
+    const name = elementName(m, e);
     if (name) out[`${e.kind}:${e.code}`] = name;
   }
   return out;

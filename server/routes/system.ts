@@ -2,6 +2,7 @@ import { can } from '@/shared/api';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { checkHealth } from '../services/health';
+import { currentModel } from './checks';
 
 export function registerSystemRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/health', 'public', async (_req, res) => {
@@ -10,11 +11,7 @@ export function registerSystemRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('get', '/network/summary', can.read, async (_req, res) => {
-    const m = ctx.network.model;
-    if (!m) {
-      res.status(503).json({ error: { code: 'starting', message: 'the network is still loading; try again in a moment' } });
-      return;
-    }
+    const m = currentModel(ctx);
     const sitesByRole = { origin: 0, main: 0, relay: 0 };
     for (const s of m.document.sites) sitesByRole[s.role] += 1;
     res.json({

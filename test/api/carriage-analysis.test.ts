@@ -91,6 +91,11 @@ describe('GET /api/analysis/spof and /exposure with kinds=', () => {
     expect(r.status).toBe(200);
     expect(r.body.elements).toEqual(brute.exposure(['carriage']).slice(0, 2));
     expect(r.body.elements[0]).toEqual({ element: carriage('MA.TV'), households: 1000, carriages: 1 });
+    // with=names names a carriage as its site and service, as the CSV files do
+    const named = await get('/api/analysis/exposure?kinds=carriage&limit=2&with=names');
+    expect(named.status).toBe(200);
+    expect(named.body.names['carriage:MA.TV']).toBe('MA test site, Test multiplex');
+    expect(Object.keys(named.body.names)).toHaveLength(2);
   });
 
   it('refuses unknown kinds with a message naming the four', async () => {
