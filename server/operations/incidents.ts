@@ -14,7 +14,7 @@ import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
 import { countOf, formatCount } from '@/shared/format';
 import type { OperationsEvent } from './events';
-import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
+import { audit, iso, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
 import { canonicalElements, reachCacheFor } from './reach';
 import { firmWorkClashes, incidentSpell, liveClashes, spellEvent } from './spells';
 
@@ -61,7 +61,7 @@ const shown = (i: Incident) => ({
   title: i.title,
   elements: i.elements,
   startedAt: i.startedAt.toISOString(),
-  endedAt: i.endedAt ? i.endedAt.toISOString() : null,
+  endedAt: iso(i.endedAt),
   householdMinutes: i.householdMinutes,
   version: i.version,
 });

@@ -9,6 +9,7 @@ import { Incident, PlannedWork } from '../db/models/operations';
 import type { ServedNetwork } from '../services/servedNetwork';
 import type { OperationsEvent } from './events';
 import { clashesWith, type Spell } from './clashes';
+import { iso } from './common';
 import { eventReach, reachCacheFor } from './reach';
 
 export const workSpell = (w: PlannedWork): Spell => ({
@@ -62,7 +63,7 @@ export function spellEvent(
     title: what.title,
     key,
     start: what.start.toISOString(),
-    end: what.end ? what.end.toISOString() : null,
+    end: iso(what.end),
     networkVersion: at.networkVersion,
     reach: eventReach(at.reach),
     summary,
