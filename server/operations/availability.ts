@@ -70,7 +70,11 @@ export async function availability(ctx: AppContext, q: { from: string; to: strin
     ? await IncidentStep.findAll({ where: { incidentId: incidents.map((i) => i.id) }, order: [['incidentId', 'ASC'], ['idx', 'ASC']] })
     : [];
   const stepsBy = new Map<number, IncidentStep[]>();
-  for (const s of steps) stepsBy.set(s.incidentId, [...(stepsBy.get(s.incidentId) ?? []), s]);
+  for (const s of steps) {
+    const list = stepsBy.get(s.incidentId);
+    if (list) list.push(s);
+    else stepsBy.set(s.incidentId, [s]);
+  }
   for (const inc of incidents) {
     const list = stepsBy.get(inc.id) ?? [];
     const until = inc.endedAt ? inc.endedAt.getTime() : openUntil;

@@ -7,17 +7,16 @@
  */
 import type { Transaction } from 'sequelize';
 import { elementKey, type Element } from '@/shared/schemas/analysis';
-import { FIRM_WORK_STATES, type Clash, type FrozenReach, type IncidentAnswer, type IncidentUpdate, type WorkState } from '@/shared/schemas/operations';
+import type { Clash, FrozenReach, IncidentAnswer, IncidentUpdate } from '@/shared/schemas/operations';
 import { Incident, IncidentStep } from '../db/models/operations';
 import { ApiError, badRequest, notFound } from '../http/errors';
 import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
 import { countOf, formatCount } from '@/shared/format';
 import type { OperationsEvent } from './events';
-import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
-import { clashesWith } from './clashes';
-import { canonicalElements, eventReach, reachCacheFor } from './reach';
-import { incidentSpell, spellsOverlapping } from './works';
+import { audit, iso, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
+import { canonicalElements, reachCacheFor } from './reach';
+import { firmWorkClashes, incidentSpell, liveClashes, spellEvent } from './spells';
 
 /** How far ahead of the server's clock a time may be (clocks on phones drift). */
 const SKEW_MS = 5 * 60_000;
@@ -62,7 +61,7 @@ const shown = (i: Incident) => ({
   title: i.title,
   elements: i.elements,
   startedAt: i.startedAt.toISOString(),
-  endedAt: i.endedAt ? i.endedAt.toISOString() : null,
+  endedAt: iso(i.endedAt),
   householdMinutes: i.householdMinutes,
   version: i.version,
 });
@@ -71,11 +70,7 @@ async function stepsOf(i: Incident, t?: Transaction) {
   return IncidentStep.findAll({ where: { incidentId: i.id }, order: [['idx', 'ASC']], transaction: t });
 }
 
-async function clashesOf(m: ServedNetwork, i: Incident, t?: Transaction): Promise<Clash[]> {
-  if (i.endedAt) return [];
-  const others = await spellsOverlapping(i.startedAt, null, t);
-  return clashesWith(reachCacheFor(m), incidentSpell(i), others);
-}
+const clashesOf = async (m: ServedNetwork, i: Incident, t?: Transaction): Promise<Clash[]> => (i.endedAt ? [] : liveClashes(m, incidentSpell(i), t));
 
 function answer(m: ServedNetwork, i: Incident, steps: IncidentStep[], clashes: Clash[]): IncidentAnswer {
   return {
@@ -90,26 +85,14 @@ function answer(m: ServedNetwork, i: Incident, steps: IncidentStep[], clashes: C
   };
 }
 
-function event(i: Incident, kind: OperationsEvent['kind'], key: string, reach: FrozenReach, networkVersion: number, summary: string, extra: Partial<OperationsEvent> = {}): OperationsEvent {
-  return {
-    kind,
-    code: i.code,
-    title: i.title,
-    key,
-    start: i.startedAt.toISOString(),
-    end: i.endedAt ? i.endedAt.toISOString() : null,
-    networkVersion,
-    reach: eventReach(reach),
-    summary,
-    ...extra,
-  };
-}
+const event = (i: Incident, kind: OperationsEvent['kind'], key: string, reach: FrozenReach, networkVersion: number, summary: string, extra: Partial<OperationsEvent> = {}) =>
+  spellEvent({ code: i.code, title: i.title, start: i.startedAt, end: i.endedAt }, kind, key, { networkVersion, reach }, summary, extra);
 
 /** One work-clash event for each clash with an approved or under-way work that did not exist before. */
 async function emitNewClashes(ctx: AppContext, t: Transaction, i: Incident, before: Clash[], after: Clash[], stepIdx: number, reach: FrozenReach, version: number) {
   const had = new Set(before.map((c) => c.work));
-  for (const c of after) {
-    if (had.has(c.work) || c.with !== 'work' || !FIRM_WORK_STATES.includes(c.otherState as WorkState)) continue;
+  for (const c of firmWorkClashes(after)) {
+    if (had.has(c.work)) continue;
     await ctx.events?.emit(
       t,
       event(i, 'work-clash', `work-clash:${i.code}:${c.work}:${stepIdx}`, reach, version, `${i.code} and planned work ${c.work} together put ${countOf(c.jointLost.length, 'carriage')} off air that neither does alone`, {

@@ -2,9 +2,10 @@
  * Reach of a failure set for planned work and incidents, and the joint loss
  * of two sets (rule 10), on top of the engine's reach.
  *
- * One `OperationsReachCache` per network model: a work's reach is computed
- * once per network version and kept (a WeakMap keyed by the model, so an old
- * version's cache goes with its model). Clash detection works from lost sets
+ * One `OperationsReachCache` per network model: a work's reach, and the
+ * joint loss of a pair of works, is computed once per network version and
+ * kept (a WeakMap keyed by the model, so an old version's cache goes with its
+ * model). Clash detection works from lost sets
  * only (the engine's lean `lost`), and walks the union A ∪ B only when some
  * carriage lies downstream of both sets and is lost by neither: a carriage no
  * element of A can reach has, under A ∪ B, exactly what it has under B alone.
@@ -26,6 +27,11 @@ interface LostSet {
   downstream: Set<string>;
 }
 
+export interface JointLoss {
+  jointLost: string[];
+  households: number;
+}
+
 /** Sorted, without duplicates: the canonical form a failure set is stored and keyed in. */
 export function canonicalElements(elements: readonly Element[]): Element[] {
   const seen = new Map<string, Element>();
@@ -34,10 +40,14 @@ export function canonicalElements(elements: readonly Element[]): Element[] {
 }
 
 const setKey = (elements: readonly Element[]) => canonicalElements(elements).map(elementKey).join('|');
+/** Between the two set keys of a pair: a set key never holds it (element keys are never empty). */
+const PAIR = '||';
 
 export class OperationsReachCache {
   private readonly sets = new Map<string, ReachSets>();
   private readonly lostSets = new Map<string, LostSet>();
+  /** Joint loss per pair of sets: the works list asks for the same pairs on every read. */
+  private readonly pairs = new Map<string, JointLoss | null>();
 
   constructor(readonly model: ServedNetwork) {}
 
@@ -64,11 +74,12 @@ export class OperationsReachCache {
     return r;
   }
 
-  /** Drops what is kept for one set (its plan changed); the next use computes it again. */
+  /** Drops what is kept for one set and its pairs (the operations bench times a set computed afresh among warm ones). */
   forget(elements: readonly Element[]) {
     const key = setKey(elements);
     this.sets.delete(key);
     this.lostSets.delete(key);
+    for (const pair of this.pairs.keys()) if (pair.split(PAIR).includes(key)) this.pairs.delete(pair);
   }
 
   /** Lost carriages only (the engine's lean path: no fallback, no answer), for the many sets clash detection combines. */
@@ -100,7 +111,19 @@ export class OperationsReachCache {
    * neither alone, and the households of sites with such a carriage and none
    * lost under A or B alone. Null when empty.
    */
-  joint(a: readonly Element[], b: readonly Element[]): { jointLost: string[]; households: number } | null {
+  joint(a: readonly Element[], b: readonly Element[]): JointLoss | null {
+    const [ka, kb] = [setKey(a), setKey(b)];
+    const key = ka < kb ? `${ka}${PAIR}${kb}` : `${kb}${PAIR}${ka}`;
+    let r = this.pairs.get(key);
+    if (r === undefined) {
+      r = this.jointOnce(a, b);
+      if (this.pairs.size > 50_000) this.pairs.clear();
+      this.pairs.set(key, r);
+    }
+    return r;
+  }
+
+  private jointOnce(a: readonly Element[], b: readonly Element[]): JointLoss | null {
     const ra = this.lostOf(a);
     const rb = this.lostOf(b);
     // A joint-lost carriage is downstream of both sets and lost by neither: without one, skip the union's walk.
@@ -113,7 +136,6 @@ export class OperationsReachCache {
       }
     }
     if (!candidate) return null;
-    // The union's reach is only needed for a pair, and is not kept: pairs rarely repeat.
     const known = canonicalElements([...a, ...b]).filter((e) => this.model.engine.hasElement(e));
     const jointLost = this.model.engine.lost(known).filter((c) => !ra.lost.has(c) && !rb.lost.has(c));
     if (jointLost.length === 0) return null;

@@ -5,7 +5,6 @@
  */
 import { Op, type Transaction } from 'sequelize';
 import {
-  FIRM_WORK_STATES,
   LIVE_WORK_STATES,
   MAX_WINDOW_DAYS,
   WORK_STATE_LABELS,
@@ -14,15 +13,16 @@ import {
   type WorkPatch,
   type WorkState,
 } from '@/shared/schemas/operations';
-import { PlannedWork, Incident } from '../db/models/operations';
+import { PlannedWork } from '../db/models/operations';
 import { ApiError, badRequest, notFound } from '../http/errors';
 import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
 import { countOf } from '@/shared/format';
 import type { OperationsEvent } from './events';
 import { audit, knownElements, model, nextCode, staleVersion, type OpsActor } from './common';
-import { allClashes, clashesWith, type Spell } from './clashes';
-import { eventReach, reachCacheFor } from './reach';
+import { allClashes } from './clashes';
+import { reachCacheFor } from './reach';
+import { firmWorkClashes, liveClashes, spellEvent, spellsOverlapping, workSpell } from './spells';
 
 const DAY = 86_400_000;
 
@@ -41,33 +41,6 @@ export function checkWindow(start: Date, end: Date) {
   if (end.getTime() - start.getTime() > MAX_WINDOW_DAYS * DAY) {
     throw new ApiError(422, 'bad-window', `the window is longer than ${MAX_WINDOW_DAYS} days; split the work into shorter windows`);
   }
-}
-
-export const workSpell = (w: PlannedWork): Spell => ({
-  code: w.code,
-  kind: 'work',
-  state: w.state,
-  start: w.startAt.getTime(),
-  end: w.endAt.getTime(),
-  elements: w.elements,
-});
-export const incidentSpell = (i: Incident): Spell => ({
-  code: i.code,
-  kind: 'incident',
-  state: 'open',
-  start: i.startedAt.getTime(),
-  end: i.endedAt ? i.endedAt.getTime() : Infinity,
-  elements: i.elements,
-});
-
-/** Live works and open incidents whose windows overlap [start, end). */
-export async function spellsOverlapping(start: Date, end: Date | null, t?: Transaction): Promise<Spell[]> {
-  const works = await PlannedWork.findAll({
-    where: { state: LIVE_WORK_STATES as WorkState[], endAt: { [Op.gt]: start }, ...(end ? { startAt: { [Op.lt]: end } } : {}) },
-    transaction: t,
-  });
-  const incidents = await Incident.findAll({ where: { endedAt: null, ...(end ? { startedAt: { [Op.lt]: end } } : {}) }, transaction: t });
-  return [...works.map(workSpell), ...incidents.map(incidentSpell)];
 }
 
 const shown = (w: PlannedWork) => ({
@@ -96,27 +69,17 @@ function answer(m: ServedNetwork, w: PlannedWork, clashes: WorkAnswer['clashes']
   };
 }
 
+const clashesOf = async (m: ServedNetwork, w: PlannedWork, t?: Transaction) => (LIVE_WORK_STATES.includes(w.state) ? liveClashes(m, workSpell(w), t) : []);
 
-async function clashesOf(m: ServedNetwork, w: PlannedWork, t?: Transaction) {
-  if (!LIVE_WORK_STATES.includes(w.state)) return [];
-  const others = await spellsOverlapping(w.startAt, w.endAt, t);
-  return clashesWith(reachCacheFor(m), workSpell(w), others);
-}
-
-function event(m: ServedNetwork, w: PlannedWork, kind: OperationsEvent['kind'], summary: string, extra: Partial<OperationsEvent> = {}): OperationsEvent {
-  return {
+const event = (m: ServedNetwork, w: PlannedWork, kind: OperationsEvent['kind'], summary: string, extra: Partial<OperationsEvent> = {}) =>
+  spellEvent(
+    { code: w.code, title: w.title, start: w.startAt, end: w.endAt },
     kind,
-    code: w.code,
-    title: w.title,
-    key: `${kind}:${w.code}:${w.version}`,
-    start: w.startAt.toISOString(),
-    end: w.endAt.toISOString(),
-    networkVersion: m.networkVersion,
-    reach: eventReach(reachCacheFor(m).of(w.elements).reach),
+    `${kind}:${w.code}:${w.version}`,
+    { networkVersion: m.networkVersion, reach: reachCacheFor(m).of(w.elements).reach },
     summary,
-    ...extra,
-  };
-}
+    extra,
+  );
 
 async function locked(t: Transaction, code: string, version?: number): Promise<PlannedWork> {
   const w = await PlannedWork.findOne({ where: { code }, transaction: t, lock: t.LOCK.UPDATE });
@@ -266,8 +229,7 @@ export async function approveWork(ctx: AppContext, actor: OpsActor, code: string
     await audit(ctx, t, actor, m.networkVersion, { action: 'update', entityKind: 'works', entityCode: code, before, after: shown(w) });
     await ctx.events?.emit(t, event(m, w, 'work-approved', `${w.code} "${w.title}" was approved`));
     const clashes = await clashesOf(m, w, t);
-    for (const c of clashes) {
-      if (c.with !== 'work' || !FIRM_WORK_STATES.includes(c.otherState as WorkState)) continue;
+    for (const c of firmWorkClashes(clashes)) {
       await ctx.events?.emit(
         t,
         event(m, w, 'work-clash', `${w.code} and ${c.work} together put ${countOf(c.jointLost.length, 'carriage')} off air that neither does alone`, {

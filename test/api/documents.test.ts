@@ -5,6 +5,8 @@
  * roles, a failure half-way, and the owner's delete asking what to do.
  */
 import crypto from 'node:crypto';
+import http from 'node:http';
+import zlib from 'node:zlib';
 import request from 'supertest';
 import sharp from 'sharp';
 import { beforeEach, describe, expect, it } from 'vitest';
@@ -141,5 +143,109 @@ describe('documents', () => {
     expect(ok.status).toBe(200);
     expect((await DocumentRow.findAll()).map((r) => r.ownerCode)).toEqual(['R2']);
     expect((await objectKeys()).length).toBe(1);
+  });
+});
+
+/** A PNG whose header claims width x height pixels, with almost no image data: what a decompression bomb looks like to a decoder. */
+function pngClaiming(width: number, height: number): Buffer {
+  const crcTable = Array.from({ length: 256 }, (_, n) => {
+    let c = n;
+    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
+    return c >>> 0;
+  });
+  const crc = (b: Buffer) => {
+    let c = 0xffffffff;
+    for (const x of b) c = crcTable[(c ^ x) & 0xff] ^ (c >>> 8);
+    return (c ^ 0xffffffff) >>> 0;
+  };
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, 'ascii'), data]);
+    const out = Buffer.alloc(8 + data.length + 4);
+    out.writeUInt32BE(data.length, 0);
+    body.copy(out, 4);
+    out.writeUInt32BE(crc(body), 8 + data.length);
+    return out;
+  };
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr.set([8, 2, 0, 0, 0], 8); // 8-bit RGB
+  return Buffer.concat([Buffer.from('89504e470d0a1a0a', 'hex'), chunk('IHDR', ihdr), chunk('IDAT', zlib.deflateSync(Buffer.alloc(64))), chunk('IEND', Buffer.alloc(0))]);
+}
+
+describe('documents refuse uploads that lie', () => {
+  const nothingKept = async () => {
+    expect(await DocumentRow.count()).toBe(0);
+    expect(await objectKeys()).toEqual([]);
+  };
+
+  it('refuses an image whose header claims a billion pixels (415) without decoding it', async () => {
+    const r = await upload('/api/sites/M1/documents', pngClaiming(40_000, 40_000), 'huge.png');
+    expect(r.status).toBe(415);
+    expect(r.body.error.message).toMatch(/image could not be read/);
+    await nothingKept();
+  });
+
+  it('refuses a photo named as a PDF, and a text file named as a photo (415)', async () => {
+    const asPdf = await upload('/api/sites/M1/documents', await photo(), 'survey.pdf');
+    expect(asPdf.status).toBe(415);
+    expect(asPdf.body.error.message).toMatch(/name says \.pdf .* but the bytes are JPEG image/);
+    const asPhoto = await upload('/api/sites/M1/documents', Buffer.from('just words\n'), 'mast.png');
+    expect(asPhoto.status).toBe(415);
+    expect(asPhoto.body.error.message).toMatch(/name says \.png .* but the bytes are plain text/);
+    await nothingKept();
+  });
+
+  it('refuses a body that declares more than the limit (413) before reading it', async () => {
+    const server = t.app.listen(0);
+    try {
+      const { port } = server.address() as import('node:net').AddressInfo;
+      const answer = await new Promise<{ status: number; body: string }>((resolve, reject) => {
+        const req = http.request(
+          { port, method: 'POST', path: '/api/sites/M1/documents', headers: { ...t.auth('operator'), 'content-type': 'multipart/form-data; boundary=x', 'content-length': String(200 * 1024 * 1024) } },
+          (res) => {
+            let body = '';
+            res.on('data', (d) => (body += d));
+            res.on('end', () => resolve({ status: res.statusCode!, body }));
+          },
+        );
+        req.on('error', reject);
+        req.write('--x\r\nContent-Disposition: form-data; name="file"; filename="a.txt"\r\n\r\nabc');
+      });
+      expect(answer.status).toBe(413);
+      expect(JSON.parse(answer.body).error.message).toMatch(/at most 25 MB/);
+    } finally {
+      server.closeAllConnections();
+      server.close();
+    }
+    await nothingKept();
+  });
+
+  it('refuses two files, a cut-off multipart body, and a bad owner or id, each with a 4xx', async () => {
+    const two = await request(t.app).post('/api/sites/M1/documents').set(t.auth('operator')).attach('file', PDF, 'a.pdf').attach('file', PDF, 'b.pdf');
+    expect(two.status).toBe(400);
+    expect(two.body.error.message).toMatch(/one file/);
+    const cut = await request(t.app)
+      .post('/api/sites/M1/documents')
+      .set(t.auth('operator'))
+      .set('content-type', 'multipart/form-data; boundary=x')
+      .send('--x\r\nContent-Disposition: form-data; name="file"; filename="a.txt"\r\n\r\nabc');
+    expect(cut.status).toBe(400);
+    const proto = await upload('/api/sites/__proto__/documents', PDF, 'a.pdf');
+    expect(proto.status).toBe(400);
+    for (const id of ['-1', '1e3', '99999999999999999999', '0x10']) {
+      const r = await request(t.app).get(`/api/sites/M1/documents/${id}`).set(t.auth('viewer'));
+      expect(r.status, id).toBe(404);
+    }
+    await nothingKept();
+  });
+
+  it('keeps only the last part of a file name that climbs folders', async () => {
+    const r = await upload('/api/sites/M1/documents', Buffer.from('levels\n'), '..\\..\\../etc/levels.txt');
+    expect(r.status).toBe(201);
+    expect(r.body.name).toBe('levels.txt');
+    const [row] = await DocumentRow.findAll();
+    expect(row.name).toBe('levels.txt');
+    expect(row.objectKey).not.toContain('..');
   });
 });

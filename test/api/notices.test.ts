@@ -5,10 +5,12 @@
  * nothing; SMTP down then up delivers once; unsubscribe links work without
  * signing in. Also the subscription and contact routes.
  */
+import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { beforeEach, describe, expect, it } from 'vitest';
 import type { OperationsEvent, OperationsEventKind } from '@/server/operations/events';
 import { Contact, Notice, Subscription } from '@/server/db/models/notices';
+import { unsubscribeToken } from '@/server/notices/unsubscribe';
 import { smallNetwork } from '../fixtures/small-network';
 import { emailFor, useTestApp, type TestApp } from '../helpers/testApp';
 
@@ -204,5 +206,52 @@ describe('notices', () => {
     const forged = await request(t.app).post(`/api/unsubscribe?token=${t.tokenFor('viewer')}`);
     expect(forged.status).toBe(400);
     expect(forged.body.error.message).toMatch(/not valid/);
+  });
+});
+
+describe('unsubscribe links that were tampered with', () => {
+  const b64 = (o: object) => Buffer.from(JSON.stringify(o)).toString('base64url');
+
+  it('refuses forged, truncated, re-signed and malformed tokens with 400, GET and POST alike, and changes nothing', async () => {
+    await subscribe('viewer', { everything: true });
+    const { id: contactId } = await contact({ name: 'Programme desk', email: 'tv@broadcaster.example', services: ['TV1'] });
+    const viewerId = (await Subscription.findOne())!.userId;
+    const secret = t.ctx.config.JWT_SECRET;
+    const good = unsubscribeToken({ kind: 'user', id: viewerId, email: emailFor('viewer') }, secret);
+    const [header, payload, signature] = good.split('.');
+    const flipped = signature.slice(0, 5) + (signature[5] === 'A' ? 'B' : 'A') + signature.slice(6);
+    const forContact = b64({ ...JSON.parse(Buffer.from(payload, 'base64url').toString()), sub: `contact:${contactId}`, email: 'tv@broadcaster.example' });
+    const tokens: Record<string, string | string[]> = {
+      truncated: good.slice(0, -12),
+      'signature cut off': `${header}.${payload}.`,
+      'one signature character changed': `${header}.${payload}.${flipped}`,
+      "another subscriber's payload under this signature": `${header}.${forContact}.${signature}`,
+      'alg none': `${b64({ alg: 'none', typ: 'JWT' })}.${payload}.`,
+      'signed with the session key': jwt.sign({ email: emailFor('viewer') }, secret, { subject: `user:${viewerId}`, audience: 'headwater-unsubscribe' }),
+      'a session token': t.tokenFor('viewer'),
+      'not a token at all': 'hello',
+      'ten thousand characters': 'a'.repeat(10_000),
+      'given twice': [good, good],
+    };
+    const before = async () => ({
+      subscriptions: (await Subscription.findAll()).map((s) => [s.userId, s.everything]),
+      contacts: (await Contact.findAll()).map((c) => [c.id, c.services]),
+    });
+    const was = await before();
+    for (const [what, token] of Object.entries(tokens)) {
+      const query = (Array.isArray(token) ? token : [token]).map((v) => `token=${encodeURIComponent(v)}`).join('&');
+      for (const method of ['get', 'post'] as const) {
+        const r = await request(t.app)[method](`/api/unsubscribe?${query}`).set('Accept', 'application/json');
+        expect([r.status, r.body.error?.code], `${method} ${what}`).toEqual([400, 'bad-token']);
+      }
+    }
+    const none = await request(t.app).post('/api/unsubscribe');
+    expect(none.status).toBe(400);
+    expect(await before()).toEqual(was);
+    // the untouched token still works, so the refusals above were about the tampering
+    const ok = await request(t.app).post(`/api/unsubscribe?token=${good}`).set('Accept', 'application/json');
+    expect(ok.status).toBe(200);
+    expect(await Subscription.count()).toBe(0);
+    expect((await Contact.findByPk(contactId))!.services).toEqual(['TV1']);
   });
 });
