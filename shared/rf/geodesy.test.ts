@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { bearingDifferenceDeg, geodesicInverse, geodesicInverseRaw, normaliseDeg } from './geodesy';
+import { bearingDifferenceDeg, chordKm, ecefKm, geodesicInverse, geodesicInverseRaw, normaliseDeg } from './geodesy';
 
 // Expected values and tolerances: GeographicLib test suite, geographiclib-js
 // geodesic/test/geodesictest.js (docs/checks.md, "Distance and bearing").
@@ -86,6 +86,34 @@ describe('geodesicInverse on WGS84', () => {
         },
       ),
       { numRuns: 500 },
+    );
+  });
+
+  // WGS84's defining constants: a = 6378.137 km on the equator; b = a(1 - f) = 6356.752314245 km at the poles.
+  it('ecefKm: the equator at longitude 0 and 90 lies a from the centre, a pole b', () => {
+    const close = (got: number[], want: number[]) => got.forEach((v, i) => expect(v).toBeCloseTo(want[i], 6));
+    close(ecefKm(0, 0), [6378.137, 0, 0]);
+    close(ecefKm(0, 90), [0, 6378.137, 0]);
+    close(ecefKm(90, 0), [0, 0, 6356.752314245]);
+    close(ecefKm(-90, 0), [0, 0, -6356.752314245]);
+  });
+
+  it('property: the chord is never longer than the geodesic, and nearly equal on short paths', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -90, max: 90, noNaN: true }),
+        fc.double({ min: -180, max: 180, noNaN: true }),
+        fc.double({ min: -90, max: 90, noNaN: true }),
+        fc.double({ min: -180, max: 180, noNaN: true }),
+        (lat1, lon1, lat2, lon2) => {
+          const s = geodesicInverse(lat1, lon1, lat2, lon2).distanceKm;
+          const c = chordKm(ecefKm(lat1, lon1), ecefKm(lat2, lon2));
+          expect(c).toBeLessThanOrEqual(s + 1e-9);
+          // On a sphere s - c is about s^3 / (24 R^2): under a metre below 100 km.
+          if (s < 100) expect(s - c).toBeLessThan(0.001);
+        },
+      ),
+      { numRuns: 2000 },
     );
   });
 });

@@ -64,3 +64,29 @@ export function geodesicInverse(lat1: number, lon1: number, lat2: number, lon2: 
 export function geodesicInverseRaw(lat1: number, lon1: number, lat2: number, lon2: number) {
   return WGS84.Inverse(lat1, lon1, lat2, lon2, lib.Geodesic.ALL);
 }
+
+const A_KM = WGS84.a / 1000;
+const E2 = WGS84.f * (2 - WGS84.f);
+
+/** Earth-centred, Earth-fixed position of a point on the WGS84 ellipsoid (height 0), km. */
+export function ecefKm(lat: number, lon: number): [number, number, number] {
+  const phi = (lat * Math.PI) / 180;
+  const lambda = (lon * Math.PI) / 180;
+  const sinPhi = Math.sin(phi);
+  // Prime vertical radius of curvature: the standard geodetic-to-ECEF conversion.
+  const n = A_KM / Math.sqrt(1 - E2 * sinPhi * sinPhi);
+  return [n * Math.cos(phi) * Math.cos(lambda), n * Math.cos(phi) * Math.sin(lambda), n * (1 - E2) * sinPhi];
+}
+
+/**
+ * Straight-line distance between two ECEF points, km. A straight line is never
+ * longer than any path between the same points, the geodesic included, so this
+ * is a cheap lower bound on geodesicInverse's distance (a few multiplications
+ * against its iterative solution).
+ */
+export function chordKm(a: readonly number[], b: readonly number[]): number {
+  const dx = a[0] - b[0];
+  const dy = a[1] - b[1];
+  const dz = a[2] - b[2];
+  return Math.sqrt(dx * dx + dy * dy + dz * dz);
+}

@@ -7,7 +7,7 @@
  */
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import { formatCount } from '@/shared/format';
+import { formatCount, unitText } from '@/shared/format';
 import type { EntityKind } from '@/shared/schemas/network';
 import { useRecordHistory } from '@/src/api/queries/recordTools';
 import { Section } from '@/src/components/layout/Section';
@@ -35,7 +35,7 @@ export function RecordHistory({ kind, code }: { kind: EntityKind; code: string }
   const [page, setPage] = useState(1);
   const history = useRecordHistory(kind, canEdit ? code : null, page);
   if (!canEdit) return null;
-  const labels = new Map(FORM_FIELDS[kind].map((f) => [f.name, f.unit ? `${f.label} (${f.unit === 'deg' ? '°' : f.unit})` : f.label]));
+  const labels = new Map(FORM_FIELDS[kind].map((f) => [f.name, f.unit ? `${f.label} (${unitText(f.unit)})` : f.label]));
   const data = history.data;
   return (
     <Section title="Change history" note={`Each change to this ${WORDS[kind].one}, newest first, from the audit log.`} testID="record-history">
