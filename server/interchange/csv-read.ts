@@ -249,6 +249,8 @@ export async function readCsvStream(source: Readable, reader: CsvKindReader, bud
     }
     const headBuffer = Buffer.concat(head);
     const firstLine = headBuffer.subarray(0, headBuffer.indexOf(0x0a) + 1 || undefined);
+    // UTF-16 text without a byte order mark passes the UTF-8 check: its ASCII is every other byte a NUL.
+    if (firstLine.includes(0)) throw new NotUtf8Error(0, 1, true);
     reader.dialect = detectDialect(firstLine.toString('utf8'));
     const separators = new SeparatorCheck(reader.dialect.delimiter.charCodeAt(0));
     const rest = (async function* () {
