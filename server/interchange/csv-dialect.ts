@@ -42,12 +42,20 @@ export class NotUtf8Error extends Error {
     readonly byte: number,
     /** the row of the file, the header being row 1 */
     readonly row: number,
+    /** the file is UTF-16 (its byte order mark says so, or its header holds NUL bytes) */
+    readonly utf16 = false,
   ) {
     super(`byte 0x${byte.toString(16).toUpperCase().padStart(2, '0')} in row ${row} is not UTF-8`);
   }
 }
 
+/** A UTF-16 byte order mark (FF FE or FE FF) at the start of a file. */
+const isUtf16Mark = (b: Uint8Array) => b.length >= 2 && ((b[0] === 0xff && b[1] === 0xfe) || (b[0] === 0xfe && b[1] === 0xff));
+
 export function notUtf8Message(file: string, err: NotUtf8Error): string {
+  if (err.utf16) {
+    return `${file} is UTF-16 text, not UTF-8 (a spreadsheet's "Unicode text" is saved so). Save it again as CSV with the UTF-8 encoding and upload it again`;
+  }
   const hex = `0x${err.byte.toString(16).toUpperCase().padStart(2, '0')}`;
   return `${file} is not UTF-8 text: row ${err.row.toLocaleString('en')} (the header is row 1) holds the byte ${hex}, which UTF-8 does not allow there; ` +
     'the file was probably saved in an older encoding. Save it again as CSV with the UTF-8 encoding and upload it again';
@@ -96,8 +104,13 @@ function countLines(b: Uint8Array, end = b.length): number {
 export class Utf8Check {
   private carry: Uint8Array = new Uint8Array(0);
   private lines = 0;
+  private started = false;
 
   push(chunk: Uint8Array): void {
+    if (!this.started) {
+      this.started = true;
+      if (isUtf16Mark(chunk)) throw new NotUtf8Error(chunk[0], 1, true);
+    }
     const buf = this.carry.length > 0 ? Buffer.concat([this.carry, chunk]) : chunk;
     const cut = buf.length - openTail(buf);
     const whole = buf.subarray(0, cut);

@@ -10,6 +10,7 @@
  */
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
+import { setImmediate as nextTurn } from 'node:timers/promises';
 import { parse, type Options } from 'csv-parse';
 import type { ImportIssue } from '@/shared/schemas/import';
 import { clip } from '@/shared/clip';
@@ -41,6 +42,99 @@ type Column = { name: string; type: ColumnType } | undefined;
 
 /** Thrown out of the parser to stop reading a file whose problem is already reported. */
 export class StopReading extends Error {}
+
+/** A row wider than any row of a network: its row (the header is row 1) and what is wrong with it. */
+export class RowTooWide extends Error {
+  constructor(
+    readonly row: number,
+    readonly what: string,
+  ) {
+    super(`row ${row} ${what}`);
+  }
+}
+
+/**
+ * Separators one record may hold outside quotes: a row of the widest kind
+ * has ten, and a spreadsheet may add empty columns up to the last one it
+ * formatted (a few hundred at most; common practice, not a measured bound).
+ */
+export const MAX_RECORD_SEPARATORS = 4096;
+
+const QUOTE = 0x22;
+const LF = 0x0a;
+const CR = 0x0d;
+
+// Where SeparatorCheck stands in a record; QUOTE_IN_QUOTED is a quote inside a quoted cell (its end, or the first of a doubled quote).
+const FIELD_START = 0;
+const BARE = 1;
+const QUOTED = 2;
+const QUOTE_IN_QUOTED = 3;
+
+/**
+ * csv-parse bounds a record by the characters of its cells, not by how many
+ * cells it has, and builds every cell before on_record sees them: a record
+ * of a million bare separators is a million empty cells and seconds of
+ * work, even when quoted line breaks split it into short lines. So the
+ * separators of each record are counted outside quotes (RFC 4180 quoting)
+ * before the parser sees its bytes; a record past MAX_RECORD_SEPARATORS
+ * ends the file (throws RowTooWide). A quote inside a bare cell, or text
+ * after a closing quote, is taken as text (the parser refuses such a record
+ * anyway), so the count errs high. The row is the record's, blank lines
+ * left out, as the parser numbers it.
+ */
+export class SeparatorCheck {
+  private at = FIELD_START;
+  private separators = 0;
+  private blank = true;
+  private row = 1;
+
+  constructor(private readonly separator: number) {}
+
+  push(chunk: Uint8Array): void {
+    for (let i = 0; i < chunk.length; i++) {
+      const b = chunk[i];
+      if (this.at === QUOTED) {
+        if (b === QUOTE) this.at = QUOTE_IN_QUOTED;
+        continue;
+      }
+      if (b === QUOTE && this.at !== BARE) {
+        this.at = QUOTED;
+        this.blank = false;
+      } else if (b === LF || b === CR) {
+        if (!this.blank) this.row++;
+        this.separators = 0;
+        this.blank = true;
+        this.at = FIELD_START;
+      } else if (b === this.separator) {
+        this.blank = false;
+        this.at = FIELD_START;
+        if (++this.separators > MAX_RECORD_SEPARATORS) {
+          throw new RowTooWide(this.row, `holds more than ${formatCount(MAX_RECORD_SEPARATORS)} separators; a row of a network has a few dozen at most`);
+        }
+      } else {
+        this.blank = false;
+        this.at = BARE;
+      }
+    }
+  }
+}
+
+/** Bytes handed to the parser in one turn of the event loop. */
+const PIECE_BYTES = 64 * 1024;
+
+/**
+ * The source in pieces of at most PIECE_BYTES, with a turn of the event loop
+ * after each: a plain CSV upload arrives as one buffer of up to the upload
+ * limit, which csv-parse would otherwise parse in one go.
+ */
+async function* inPieces(source: AsyncIterable<Buffer>): AsyncGenerator<Buffer> {
+  for await (const chunk of source) {
+    for (let at = 0; at < chunk.length; at += PIECE_BYTES) {
+      yield chunk.subarray(at, at + PIECE_BYTES);
+      await nextTurn();
+    }
+  }
+}
 
 export class CsvKindReader {
   private position = 0;
@@ -89,14 +183,16 @@ export class CsvKindReader {
     const row = position + 1;
     if (position === 0) this.headerBroken = true;
     if ((err as { code?: string } | undefined)?.code === 'CSV_MAX_RECORD_SIZE') {
-      this.issues.push({
-        kind: this.kind, file: this.file, row, rule: 'csv-syntax',
-        message: `${this.file} row ${row} is longer than any row of a network can be (the limit is ${formatCount(this.maxRecordChars)} characters); the file was not read further`,
-      });
-      this.stopped = true;
+      this.tooWide(new RowTooWide(row, `is longer than any row of a network can be (the limit is ${formatCount(this.maxRecordChars)} characters)`));
       throw new StopReading();
     }
     this.issues.push({ kind: this.kind, file: this.file, row, rule: 'csv-syntax', message: `${this.file} row ${row}: ${clip(err?.message ?? 'the row cannot be read', 200)}` });
+  }
+
+  /** A row no network has (SeparatorCheck, or csv-parse's size limit): said once; the file is not read further. */
+  tooWide(err: RowTooWide): void {
+    this.issues.push({ kind: this.kind, file: this.file, row: err.row, rule: 'csv-syntax', message: `${this.file} row ${err.row} ${err.what}; the file was not read further` });
+    this.stopped = true;
   }
 
   /** A file that is not UTF-8: said once, with the row of its first bad byte; nothing of it is read. */
@@ -133,7 +229,7 @@ export class CsvKindReader {
 export async function readCsvStream(source: Readable, reader: CsvKindReader, budget: UploadBudget): Promise<KindRead> {
   const utf8 = new Utf8Check();
   const checked = (async function* () {
-    for await (const chunk of source as AsyncIterable<Buffer>) {
+    for await (const chunk of inPieces(source as AsyncIterable<Buffer>)) {
       budget.addBytes(chunk.length);
       utf8.push(chunk);
       yield chunk;
@@ -151,11 +247,21 @@ export async function readCsvStream(source: Readable, reader: CsvKindReader, bud
       headBytes += next.value.length;
       if (next.value.includes(0x0a) || headBytes > budget.limits.maxRecordChars) break;
     }
-    const headText = Buffer.concat(head).toString('utf8');
-    reader.dialect = detectDialect(headText.slice(0, headText.indexOf('\n') + 1 || undefined));
+    const headBuffer = Buffer.concat(head);
+    const firstLine = headBuffer.subarray(0, headBuffer.indexOf(0x0a) + 1 || undefined);
+    // UTF-16 text without a byte order mark passes the UTF-8 check: its ASCII is every other byte a NUL.
+    if (firstLine.includes(0)) throw new NotUtf8Error(0, 1, true);
+    reader.dialect = detectDialect(firstLine.toString('utf8'));
+    const separators = new SeparatorCheck(reader.dialect.delimiter.charCodeAt(0));
     const rest = (async function* () {
-      yield* head;
-      yield* checked;
+      for (const chunk of head) {
+        separators.push(chunk);
+        yield chunk;
+      }
+      for await (const chunk of checked) {
+        separators.push(chunk);
+        yield chunk;
+      }
     })();
     // Records go to the reader from inside the parser (on_record), in order with the skipped
     // ones (on_skip); nothing is passed downstream, so nothing queues up between them.
@@ -177,6 +283,10 @@ export async function readCsvStream(source: Readable, reader: CsvKindReader, bud
     await pipeline(Readable.from(rest, { objectMode: false }), parser, drain);
   } catch (err) {
     if (err instanceof StopReading) return reader.finish();
+    if (err instanceof RowTooWide) {
+      reader.tooWide(err);
+      return reader.finish();
+    }
     if (err instanceof NotUtf8Error) {
       reader.notUtf8(err);
       return reader.finish();

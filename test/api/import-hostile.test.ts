@@ -4,9 +4,10 @@
  * body, and nothing is written.
  */
 import request from 'supertest';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { MAX_REPORTED_ISSUES } from '@/shared/schemas/import';
 import { UPLOAD_LIMITS } from '@/server/interchange/limits';
+import { CsvKindReader, MAX_RECORD_SEPARATORS } from '@/server/interchange/csv-read';
 import { smallNetwork } from '../fixtures/small-network';
 import { useTestApp } from '../helpers/testApp';
 import { countOf, uploadFiles } from '../helpers/upload';
@@ -110,6 +111,61 @@ describe('zips and the memory budget', () => {
     expect(r.status).toBe(422);
     expect(r.body.errors, JSON.stringify(r.body.errors)).toEqual([expect.objectContaining({ rule: 'csv-syntax', row: 2 })]);
     expect(r.text.length).toBeLessThan(2_000);
+  });
+});
+
+describe('wide rows and long files', () => {
+  const tooMany = new RegExp(`^sites\\.csv row 2 holds more than ${MAX_RECORD_SEPARATORS.toLocaleString('en')} separators`);
+
+  it('refuses a row of a million bare separators at once, without building a cell for each', async () => {
+    const text = `${SITES_HEADER}S1,One,origin,0,0${','.repeat(1_000_000)}\nS2,Two,origin,0,0\n`;
+    const r = await uploadFiles(app(), [{ name: 'sites.csv', data: text }]);
+    expect(r.status).toBe(422);
+    expect(r.body.errors).toEqual([expect.objectContaining({ file: 'sites.csv', row: 2, rule: 'csv-syntax' })]);
+    expect(r.body.errors[0].message).toMatch(tooMany);
+    expect(await countOf(app(), 'sites')).toBe(0);
+  });
+
+  it('counts the separators of a whole record, when quoted line breaks cut it into short lines', async () => {
+    const piece = `${','.repeat(MAX_RECORD_SEPARATORS / 2)}"a\nb"`;
+    const text = `${SITES_HEADER}S1,One,origin,0,0${piece.repeat(3)}\n`;
+    const r = await uploadFiles(app(), [{ name: 'sites.csv', data: text }]);
+    expect(r.status).toBe(422);
+    expect(r.body.errors).toEqual([expect.objectContaining({ file: 'sites.csv', row: 2, rule: 'csv-syntax' })]);
+    expect(r.body.errors[0].message).toMatch(tooMany);
+    expect(await countOf(app(), 'sites')).toBe(0);
+  });
+
+  it('leaves separators inside quotes out of the count: such a record reaches the field checks', async () => {
+    const text = `code,name,note\nG1,One,"${','.repeat(MAX_RECORD_SEPARATORS + 1)}"\n`;
+    const r = await uploadFiles(app(), [{ name: 'groups.csv', data: text }]);
+    expect(r.status).toBe(422);
+    expect(r.body.errors).toEqual([expect.objectContaining({ file: 'groups.csv', row: 2, field: 'note', rule: 'wrong-length' })]);
+    expect(await countOf(app(), 'risk_groups')).toBe(0);
+  });
+
+  it('reads a large CSV file in pieces, giving other work a turn between them', async () => {
+    const read = CsvKindReader.prototype.record;
+    let first = true;
+    let turned = false;
+    let recordsAfterATurn = 0;
+    const spy = vi.spyOn(CsvKindReader.prototype, 'record').mockImplementation(function (this: CsvKindReader, cells: string[]) {
+      if (first) {
+        first = false;
+        setImmediate(() => (turned = true));
+      } else if (turned) recordsAfterATurn++;
+      read.call(this, cells);
+    });
+    try {
+      const r = await uploadFiles(app(), [{ name: 'sites.csv', data: bigSites(1_000_000) }]);
+      expect(r.status).toBe(422);
+      expect(r.body.errors[0]).toMatchObject({ rule: 'duplicate-code', row: 3 });
+    } finally {
+      spy.mockRestore();
+    }
+    expect(first).toBe(false);
+    expect(recordsAfterATurn).toBeGreaterThan(0);
+    expect(await countOf(app(), 'sites')).toBe(0);
   });
 });
 

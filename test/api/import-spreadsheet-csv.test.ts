@@ -70,4 +70,20 @@ describe('spreadsheet CSV', () => {
     expect(await countOf(t, 'sites')).toBe(0);
     expect(await countOf(t, 'audit_log')).toBe(0);
   });
+
+  it('refuses UTF-16 files (a spreadsheet\'s "Unicode text"), with or without a byte order mark, saying so', async () => {
+    const { 'sites.csv': sites, ...rest } = documentToCsv(smallNetwork());
+    for (const text of [`\ufeff${sites}`, sites]) {
+      const files = [{ name: 'sites.csv', data: Buffer.from(text, 'utf16le') }, ...Object.entries(rest).map(([name, data]) => ({ name, data }))];
+      const r = await uploadFiles(t, files);
+      expect(r.status).toBe(422);
+      const notUtf8 = r.body.errors.filter((e: { rule: string }) => e.rule === 'not-utf8');
+      expect(notUtf8, JSON.stringify(r.body.errors).slice(0, 500)).toHaveLength(1);
+      expect(notUtf8[0]).toMatchObject({ kind: 'sites', file: 'sites.csv' });
+      expect(notUtf8[0].message).toMatch(/^sites\.csv is UTF-16 text, not UTF-8/);
+      expect(r.body.errors.filter((e: { file?: string }) => e.file === 'sites.csv')).toHaveLength(1);
+    }
+    expect(await countOf(t, 'sites')).toBe(0);
+    expect(await countOf(t, 'audit_log')).toBe(0);
+  });
 });
