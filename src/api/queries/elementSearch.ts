@@ -12,18 +12,10 @@ import type { Element } from '@/shared/schemas/analysis';
 import { useSend } from '../ApiProvider';
 import { parseAnswer } from '../client';
 import { freshness } from '../freshness';
-import { carriageSearchSchema, codeNamePageSchema, type CarriageSearchPage, type CodeNamePage } from '../schemas';
+import { carriageSearchSchema, codeNamePageSchema, type CodeNamePage } from '../schemas';
+import { carriageHits, type ElementHit, type ElementSearchResult } from './elementHits';
 
-export interface ElementHit extends Element {
-  /** A site's or group's name; for a feed, "from -> to"; for a carriage, "site name, service name". */
-  label: string;
-}
-
-export interface ElementSearchResult {
-  hits: ElementHit[];
-  /** How many matched per kind, beyond those shown. */
-  totals: Record<Element['kind'], number>;
-}
+export type { ElementHit, ElementSearchResult } from './elementHits';
 
 const KINDS = [
   { kind: 'site', list: 'sites' },
@@ -42,10 +34,6 @@ function hitsOf(kind: Element['kind'], page: CodeNamePage): ElementHit[] {
     code: item.code,
     label: item.name ?? (item.from && item.to ? `${item.from} → ${item.to}` : ''),
   }));
-}
-
-function carriageHits(page: CarriageSearchPage): ElementHit[] {
-  return page.items.map((c) => ({ kind: 'carriage' as const, code: c.code, label: `${c.siteName || c.site}, ${c.serviceName || c.service}` }));
 }
 
 /** Waits for at least one non-blank character; `q` is trimmed. */
