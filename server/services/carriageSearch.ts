@@ -20,9 +20,12 @@ interface Indexed extends CarriageHit {
   text: string;
 }
 
-const indexes = new WeakMap<ServedNetwork, Indexed[]>();
+/** What the search reads: the served network, or the browser's offline copy with the same look-ups (src/offline/localSearch.ts). */
+export type CarriageSource = Pick<ServedNetwork, 'document' | 'sites' | 'services'>;
 
-function indexOf(m: ServedNetwork): Indexed[] {
+const indexes = new WeakMap<CarriageSource, Indexed[]>();
+
+function indexOf(m: CarriageSource): Indexed[] {
   let index = indexes.get(m);
   if (!index) {
     index = m.document.carriages
@@ -41,7 +44,7 @@ function indexOf(m: ServedNetwork): Indexed[] {
 /** Words of the query: white space, commas and "+" separate them. */
 export const queryWords = (q: string) => q.toLowerCase().split(/[\s,+]+/).filter(Boolean);
 
-export function searchCarriages(m: ServedNetwork, q: string, pageSize: number): { items: CarriageHit[]; total: number } {
+export function searchCarriages(m: CarriageSource, q: string, pageSize: number): { items: CarriageHit[]; total: number } {
   const words = queryWords(q);
   if (words.length === 0) return { items: [], total: 0 };
   const exact = q.trim().toLowerCase();

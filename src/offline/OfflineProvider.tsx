@@ -15,6 +15,7 @@ import { useSendRaw } from '@/src/api/ApiProvider';
 import { useSummary } from '@/src/api/queries/summary';
 import { useSession } from '@/src/session/SessionProvider';
 import { clearCopy, offlineCopySupported, readCopy, writeCopy, type OfflineCopy } from './copyStore';
+import { browserOffline } from './online';
 import { networkDocumentSchema } from '@/shared/schemas/network';
 
 /** Our choice (common practice, no source): a fresh copy at most every 5 minutes once one exists. */
@@ -37,11 +38,12 @@ export function useOffline(): OfflineState {
   return useContext(OfflineContext);
 }
 
+/** Follows browserOffline() (online.ts, the one reading of navigator.onLine) as the browser's events change it. */
 function useBrowserOnline(): boolean {
-  const [online, setOnline] = useState(() => (typeof navigator === 'undefined' ? true : navigator.onLine !== false));
+  const [online, setOnline] = useState(() => !browserOffline());
   useEffect(() => {
     if (typeof window === 'undefined' || !window.addEventListener) return;
-    const update = () => setOnline(navigator.onLine !== false);
+    const update = () => setOnline(!browserOffline());
     window.addEventListener('online', update);
     window.addEventListener('offline', update);
     return () => {

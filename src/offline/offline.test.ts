@@ -53,6 +53,27 @@ describe('search on the offline copy', () => {
     expect(r.totals.site).toBe(copy.document.sites.filter((s) => s.code.toLowerCase().includes(site.code.toLowerCase()) || s.name.toLowerCase().includes(site.code.toLowerCase())).length);
     expect(localElementSearch(copy, 'zzz-nothing-like-this', 6)).toEqual({ hits: [], totals: { site: 0, carriage: 0, feed: 0, group: 0 } });
   });
+
+  it("finds a carriage by its site and service names together, as the server's carriage search does", () => {
+    const copy = copyOf(6);
+    const c = copy.document.carriages[0];
+    const siteName = copy.document.sites.find((s) => s.code === c.site)!.name;
+    const serviceName = copy.document.services.find((s) => s.code === c.service)!.name;
+    const r = localElementSearch(copy, `${siteName} ${serviceName}`, 50);
+    expect(r.hits.filter((h) => h.kind === 'carriage').map((h) => h.code)).toContain(c.code);
+    // the whole text is in no single field: only a word-by-word search finds it
+    expect([c.code, siteName, serviceName].some((v) => v.toLowerCase().includes(`${siteName} ${serviceName}`.toLowerCase()))).toBe(false);
+  });
+
+  it('finds a feed by the code of a site at either end, as the feed list does, in code order', () => {
+    const copy = copyOf(7);
+    const f = copy.document.feeds[0];
+    const fromSite = copy.document.carriages.find((c) => c.code === f.from)!.site;
+    const r = localElementSearch(copy, fromSite, 200);
+    const feeds = r.hits.filter((h) => h.kind === 'feed').map((h) => h.code);
+    expect(feeds).toContain(f.code);
+    expect(feeds).toEqual([...feeds].sort());
+  });
 });
 
 describe('the offline line', () => {

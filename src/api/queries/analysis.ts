@@ -4,16 +4,13 @@
  * chain. All are computed by the server from its in-memory graphs and change
  * only with the network version, except reach, which a fault desk watches.
  */
-import { useMemo, useRef } from 'react';
-import useSWR from 'swr';
+import { useMemo } from 'react';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
 import { useSend, useSendRaw } from '../ApiProvider';
-import { isApiError, parseAnswer, type ApiError } from '../client';
-import { browserOffline } from '@/src/offline/online';
-import { useOffline } from '@/src/offline/OfflineProvider';
+import { parseAnswer } from '../client';
 import { localReach } from '@/src/offline/localEngine';
-import type { OfflineCopy } from '@/src/offline/copyStore';
+import { useCopyFallback } from '@/src/offline/useCopyFallback';
 import { freshness } from '../freshness';
 import { chainAnswerSchema, diversityAnswerSchema, exposureAnswerSchema, exposureGroupsAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
 import { attachmentName, type DownloadedFile } from './network';
@@ -44,25 +41,11 @@ export type ReachShown = ReachResult & { offlineCopy?: { fetchedAt: string } };
  */
 export function useReach(failed: readonly Element[], failSet: string) {
   const send = useSend();
-  const { copy, online } = useOffline();
-  const copyRef = useRef(copy);
-  copyRef.current = copy;
-  // Offline, the key names the copy, so the answer is worked out again once the stored copy has been read.
-  const key = failed.length === 0 ? null : online ? analysisKeys.reach(failSet) : [...analysisKeys.reach(failSet), 'offline-copy', copy?.fetchedAt ?? 'none'];
-  return useSWR<ReachShown, ApiError>(
-    key,
-    async () => {
-      const stored = copyRef.current;
-      const fromCopy = async (c: OfflineCopy) => ({ ...(await localReach(c, failed)), offlineCopy: { fetchedAt: c.fetchedAt } });
-      if (stored && browserOffline()) return fromCopy(stored);
-      try {
-        // with=sites: names and households of the sites listed, without loading the whole network.
-        return parseAnswer(reachAnswerSchema, api.reach, await send(`${api.reach}?with=sites`, { method: 'POST', body: { failed } }));
-      } catch (e) {
-        if (stored && isApiError(e) && e.code === 'network') return fromCopy(stored);
-        throw e;
-      }
-    },
+  return useCopyFallback<ReachShown>(
+    failed.length === 0 ? null : analysisKeys.reach(failSet),
+    // with=sites: names and households of the sites listed, without loading the whole network.
+    async () => parseAnswer(reachAnswerSchema, api.reach, await send(`${api.reach}?with=sites`, { method: 'POST', body: { failed } })),
+    async (copy) => ({ ...(await localReach(copy, failed)), offlineCopy: { fetchedAt: copy.fetchedAt } }),
     { ...freshness.incident, keepPreviousData: true },
   );
 }

@@ -5,28 +5,17 @@
  * (GET /api/analysis/carriage-search, by code or by site and service words
  * together) asked at once, answers merged site, carriage, feed, group.
  */
-import { useRef } from 'react';
-import useSWR from 'swr';
-import { browserOffline } from '@/src/offline/online';
 import { localElementSearch } from '@/src/offline/localSearch';
-import { useOffline } from '@/src/offline/OfflineProvider';
+import { useCopyFallback } from '@/src/offline/useCopyFallback';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
 import { useSend } from '../ApiProvider';
-import { parseAnswer, type ApiError } from '../client';
+import { parseAnswer } from '../client';
 import { freshness } from '../freshness';
-import { carriageSearchSchema, codeNamePageSchema, type CarriageSearchPage, type CodeNamePage } from '../schemas';
+import { carriageSearchSchema, codeNamePageSchema, type CodeNamePage } from '../schemas';
+import { carriageHits, type ElementHit, type ElementSearchResult } from './elementHits';
 
-export interface ElementHit extends Element {
-  /** A site's or group's name; for a feed, "from -> to"; for a carriage, "site name, service name". */
-  label: string;
-}
-
-export interface ElementSearchResult {
-  hits: ElementHit[];
-  /** How many matched per kind, beyond those shown. */
-  totals: Record<Element['kind'], number>;
-}
+export type { ElementHit, ElementSearchResult } from './elementHits';
 
 const KINDS = [
   { kind: 'site', list: 'sites' },
@@ -47,23 +36,14 @@ function hitsOf(kind: Element['kind'], page: CodeNamePage): ElementHit[] {
   }));
 }
 
-function carriageHits(page: CarriageSearchPage): ElementHit[] {
-  return page.items.map((c) => ({ kind: 'carriage' as const, code: c.code, label: `${c.siteName || c.site}, ${c.serviceName || c.service}` }));
-}
-
 /** Waits for at least one non-blank character; `q` is trimmed. */
 export function useElementSearch(q: string, pageSize = 6) {
   const send = useSend();
   const text = q.trim();
   // With no connection the stored copy of the network answers instead (src/offline).
-  const { copy, online } = useOffline();
-  const copyRef = useRef(copy);
-  copyRef.current = copy;
-  return useSWR<ElementSearchResult, ApiError>(
-    !text ? null : online ? elementSearchKey(text, pageSize) : [...elementSearchKey(text, pageSize), 'offline-copy', copy?.fetchedAt ?? 'none'],
+  return useCopyFallback<ElementSearchResult>(
+    text ? elementSearchKey(text, pageSize) : null,
     async () => {
-      const stored = copyRef.current;
-      if (stored && browserOffline()) return localElementSearch(stored, text, pageSize);
       const carriagePath = api.carriageSearch(text, pageSize);
       const [pages, carriages] = await Promise.all([
         Promise.all(
@@ -80,6 +60,7 @@ export function useElementSearch(q: string, pageSize = 6) {
         totals: { site: pages[0].total, carriage: carriages.total, feed: pages[1].total, group: pages[2].total },
       };
     },
+    (copy) => localElementSearch(copy, text, pageSize),
     { ...freshness.network, keepPreviousData: true },
   );
 }

@@ -15,8 +15,8 @@ import { Button } from '@/src/components/Button';
 import { Screen } from '@/src/components/layout/Screen';
 import { Section } from '@/src/components/layout/Section';
 import { EmptyState, ErrorState, LoadingState } from '@/src/components/states';
-import { StatusShape } from '@/src/components/StatusShape';
-import { colors, fonts, radius, space, type } from '@/src/theme';
+import { WarningBox } from '@/src/components/WarningBox';
+import { colors, radius, space, type } from '@/src/theme';
 import { CopyLinkButton } from './CopyLinkButton';
 import { ElementSearch } from './ElementSearch';
 import { addToFailSet, formatFailSet, parseFailSet, removeFromFailSet, unknownFromDetails } from './failSet';
@@ -27,19 +27,6 @@ import { ReachSummary } from './ReachSummary';
 import { OpenIncident } from '../operations/OpenIncident';
 import { OfflineNote } from '@/src/offline/OfflineNote';
 import { useOfflineNames } from '@/src/offline/names';
-
-function Notice({ title, children, action, testID }: { title: string; children: string; action?: React.ReactNode; testID: string }) {
-  return (
-    <View style={styles.notice} accessibilityRole="alert" testID={testID}>
-      <View style={styles.noticeHead}>
-        <StatusShape shape="triangle" color={colors.warn} size={18} />
-        <Text style={styles.noticeTitle}>{title}</Text>
-      </View>
-      <Text style={styles.noticeBody}>{children}</Text>
-      {action}
-    </View>
-  );
-}
 
 export function ReachScreen({ failParam }: { failParam: string | string[] | undefined }) {
   const router = useRouter();
@@ -83,13 +70,13 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
   } else if (unknown.length > 0) {
     const list = unknown.map((e) => `${e.kind} ${e.code}`).join(', ');
     results = (
-      <Notice
+      <WarningBox
         title="Some of these are not in the network"
         testID="reach-unknown"
         action={<Button label="Remove them and show the rest" variant="secondary" onPress={() => setElements(elements.filter((e) => !unknown.some((u) => u.kind === e.kind && u.code === e.code)))} />}
       >
         {`Not found: ${list}. They may have been renamed or removed, or the link was mistyped. Nothing is shown until the set names only existing elements.`}
-      </Notice>
+      </WarningBox>
     );
   } else if (reach.error && !reach.data) {
     results = <ErrorState what="the fault reach" error={reach.error} onRetry={() => void reach.mutate()} testID="reach-error" />;
@@ -136,13 +123,13 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
         <ElementSearch chosen={elements} onAdd={(e) => setElements(addToFailSet(elements, e))} />
         <FailChips elements={elements} onRemove={(e) => setElements(removeFromFailSet(elements, e))} onClear={() => setElements([])} />
         {parsed.bad.length > 0 ? (
-          <Notice
+          <WarningBox
             title="Part of the link was not understood"
             testID="reach-bad-tokens"
             action={<Button label="Drop them from the link" variant="secondary" onPress={() => setElements(elements)} />}
           >
             {parsed.bad.map((b) => `"${b.token}": ${b.reason}`).join('\n')}
-          </Notice>
+          </WarningBox>
         ) : null}
       </Section>
       {results}
@@ -151,10 +138,6 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
 }
 
 const styles = StyleSheet.create({
-  notice: { borderWidth: 1, borderLeftWidth: 6, borderColor: colors.warn, backgroundColor: colors.warnSoft, borderRadius: radius.md, padding: space.md, gap: space.sm },
-  noticeHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  noticeTitle: { ...type.label, fontSize: 17, color: colors.ink },
-  noticeBody: { ...type.body, fontSize: 16, fontFamily: fonts.text },
   updating: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
   updatingText: { ...type.small },
   plain: { ...type.body },
