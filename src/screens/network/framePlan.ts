@@ -10,6 +10,7 @@ import { formatCount } from '@/shared/format';
 import type { DiagramModel } from './diagramModel';
 import { placeLabels, type LabelCandidate, type PlacedLabel } from './labelPlacement';
 import { groupMarks, MIXED, type LodIndex } from './lod';
+import { SITE_R } from './markStyle';
 import { showPatterns, visibleWorld, type View } from './viewport';
 
 export type Status = 'off-air' | 'on-reserve';
@@ -48,7 +49,6 @@ export interface FramePlan {
   counts: { groups: number; singles: number; lines: number; sitesInGroups: number; offMarks: number; reserveMarks: number };
 }
 
-export const SITE_R: Record<SiteRole, number> = { origin: 5, main: 5, relay: 3.5 };
 const LABEL_FONT_PX = 12;
 const COUNT_FONT_PX = 11;
 /** Labels drawn at most per frame (our own cap, common practice: a screenful stays readable). */
