@@ -20,6 +20,7 @@ import type { SiteStatus } from './diagramModel';
 import { SvgOff, SvgReserve, SvgRole } from './diagramMarks';
 import { crossShape, halfShape, ringShape, siteShape } from './diagramPaths';
 import { FAIL_MARK, ROLE_PAINT_ORDER } from './markStyle';
+import { recording } from './testHooks';
 import { branchMarks, buildSchematic, layoutSchematic, ROW_PX, ROW_TEXT_PX } from './schematicModel';
 
 const PAD = 16;
@@ -91,7 +92,7 @@ export function SchematicView({ doc, service, statuses, height, onChoose }: { do
   }, [laid, rowOf, statuses, y0, y1]);
 
   useEffect(() => {
-    if (typeof window === 'undefined') return;
+    if (!recording()) return;
     window.__headwaterSchematic = {
       service,
       nodes: laid.nodes.length,
