@@ -43,9 +43,8 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
   }
 
   ctx.lineCap = 'butt';
-  // Main lines under reserve lines, so the double line of a reserve stays readable where both run.
-  const ordered = [...plan.lines].sort((a, b) => (a.role === b.role ? a.weight - b.weight : a.role === 'main' ? -1 : 1));
-  for (const group of ordered) {
+  // In the plan's order: main lines under reserve lines, so the double line of a reserve stays readable where both run.
+  for (const group of plan.lines) {
     const scale = 0.5 + 0.35 * group.weight;
     const layers = plan.patterns && group.medium !== 'mixed' ? feedStrokes(group.medium, group.role, scale) : plainStrokes(group.role).map((l) => ({ ...l, width: l.width * scale, dash: undefined }));
     ctx.beginPath();
