@@ -12,7 +12,7 @@ import type { FeedRole, Medium, SiteRole } from '@/shared/schemas/network';
 import { formatCount } from '@/shared/format';
 import type { DiagramModel } from './diagramModel';
 import { placeLabels, type LabelCandidate, type PlacedLabel } from './labelPlacement';
-import { groupMarks, MIXED, type GroupMarks, type Level, type LodIndex } from './lod';
+import { byImportance, groupMarks, MIXED, type GroupMarks, type Level, type LodIndex } from './lod';
 import { SITE_R } from './markStyle';
 import { showPatterns, visibleWorld, type View } from './viewport';
 
@@ -66,8 +66,6 @@ export function lineWeight(feeds: number): number {
   return feeds <= 1 ? 1 : feeds <= 3 ? 2 : feeds <= 15 ? 3 : 4;
 }
 
-const ROLE_RANK: Record<SiteRole, number> = { origin: 0, main: 1, relay: 2 };
-
 export interface PlanInput {
   model: DiagramModel;
   lod: LodIndex;
@@ -114,8 +112,7 @@ function levelPrep(model: DiagramModel, lv: Level): LevelPrep {
   const lineStyle = rawStyle.map((at) => rank[at]);
   const named: number[] = [];
   for (let g = 0; g < lv.count.length; g++) if (lv.count[g] === 1 || lv.origins[g] + lv.mains[g] > 0) named.push(g);
-  const lead = (g: number) => model.sites[lv.lead[g]];
-  named.sort((p, q) => ROLE_RANK[lead(p).role] - ROLE_RANK[lead(q).role] || (lead(q).households ?? 0) - (lead(p).households ?? 0) || p - q);
+  named.sort((p, q) => byImportance(model, lv.lead[p], lv.lead[q]) || p - q);
   prep = { lineStyle, styles: order.map((at) => raw[at]), nameOrder: Int32Array.from(named), marks: null };
   preps.set(lv, prep);
   return prep;
@@ -204,7 +201,7 @@ function planLabels(model: DiagramModel, lv: Level, prep: LevelPrep, marks: Plan
     room--;
   };
   // Off air first: every group with a site off air may be named, in the order of importance of its lead.
-  const offFirst = marks.filter((m) => m.off > 0).sort((p, q) => rankOf(model, p) - rankOf(model, q) || (model.sites[q.site].households ?? 0) - (model.sites[p.site].households ?? 0));
+  const offFirst = marks.filter((m) => m.off > 0).sort((p, q) => byImportance(model, p.site, q.site));
   for (const m of offFirst) {
     if (room <= 0) break;
     name(m);
@@ -215,10 +212,6 @@ function planLabels(model: DiagramModel, lv: Level, prep: LevelPrep, marks: Plan
     name(marks[at]);
   }
   return placeLabels(candidates, width, height, MAX_LABELS);
-}
-
-function rankOf(model: DiagramModel, m: PlannedMark): number {
-  return ROLE_RANK[model.sites[m.site].role];
 }
 
 /** "Name", "Name and 12 nearby", with the failure count when there is one. */
