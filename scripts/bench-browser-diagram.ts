@@ -23,6 +23,7 @@ import { openDatabase } from '@/server/db';
 import { importNetwork } from '@/server/services/importer';
 import { startServer } from '@/server/server';
 import { ensureUser } from '@/server/services/users';
+import { RECORD_DRAWINGS_SCRIPT } from '@/src/screens/network/testHooks';
 import { launch } from '@/test/e2e/browser';
 import { percentile, round } from './bench-engine';
 import { generateNetwork } from './generator';
@@ -87,6 +88,7 @@ async function benchSize(base: string, user: { email: string; password: string }
   const browser = await launch();
   try {
     const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
+    await context.addInitScript(RECORD_DRAWINGS_SCRIPT);
     const page = await context.newPage();
     await signIn(page, base, user.email, user.password);
 

@@ -36,6 +36,8 @@ describe('theme colours', () => {
     ['button text on accent', 'accentInk', 'accent'],
     ['mark on surface', 'mark', 'surface'],
     ['text on a mark', 'markInk', 'mark'],
+    ['ink on a mark tint', 'ink', 'markSoft'],
+    ['mark on its tint', 'mark', 'markSoft'],
     ['good on its tint', 'good', 'goodSoft'],
     ['warn on its tint', 'warn', 'warnSoft'],
     ['bad on its tint', 'bad', 'badSoft'],

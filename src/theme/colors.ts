@@ -25,6 +25,8 @@ export const colors = {
    */
   mark: '#3F4A8E',
   markInk: '#FFFFFF',
+  /** A light tint of `mark`: the fill of drawn data areas (grouped sites on the map). */
+  markSoft: '#E3E5F3',
   /** Status colours come second to words and shapes (docs/screens.md). */
   good: '#1F6B34',
   goodSoft: '#E1F0E4',

@@ -7,6 +7,7 @@ import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import type { Role } from '@/shared/api';
 import { DEMO_USERS } from '@/scripts/start';
+import { RECORD_DRAWINGS_SCRIPT } from '@/src/screens/network/testHooks';
 
 export const ARTIFACTS = path.resolve(__dirname, '..', '..', 'artifacts', 'e2e');
 export const PHONE = { width: 390, height: 844 };
@@ -39,6 +40,8 @@ export interface WatchedPage {
 
 export async function openPage(browser: Browser, size: { width: number; height: number }): Promise<WatchedPage> {
   const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
+  // The network drawings keep their records for the tests (src/screens/network/testHooks.ts).
+  await context.addInitScript(RECORD_DRAWINGS_SCRIPT);
   const page = await context.newPage();
   const errors: string[] = [];
   const external: string[] = [];

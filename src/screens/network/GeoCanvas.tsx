@@ -1,9 +1,9 @@
 /**
  * The geographic diagram on a <canvas> (web): tens of thousands of SVG nodes
  * would stall a phone, one canvas redrawn from a frame plan does not. Draws
- * at most once per animation frame, at the device's pixel ratio. Each draw's
- * time and what it drew are kept on window.__headwaterDiagram for the
- * browser benchmark and tests (no effect on the screen).
+ * at most once per animation frame, at the device's pixel ratio. When the
+ * page records (./testHooks.ts), each draw's time and what it drew are kept
+ * on window.__headwaterDiagram for the browser benchmark and tests.
  */
 import { useEffect, useMemo, useRef } from 'react';
 import { colors } from '@/src/theme';
@@ -11,6 +11,7 @@ import type { DiagramModel } from './diagramModel';
 import { planFrame, type FramePlan, type Status } from './framePlan';
 import type { LodIndex } from './lod';
 import { canvasMeasure, paintGeo } from './paintGeo';
+import { recording } from './testHooks';
 import type { View } from './viewport';
 
 export interface DrawRecord {
@@ -101,7 +102,11 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
   const canvas = useRef<HTMLCanvasElement | null>(null);
   const frame = useRef<number | null>(null);
   const landPath = useMemo(() => (land ? new Path2D(land) : null), [land]);
-  const landBox = useMemo(() => (land ? pathBox(land) : null), [land]);
+  // The land's box is read only for the records, once per outline.
+  const landBox = useMemo(() => {
+    let box: ReturnType<typeof pathBox> | undefined;
+    return () => (box === undefined ? (box = land ? pathBox(land) : null) : box);
+  }, [land]);
   const dpr = typeof window !== 'undefined' ? Math.min(2, window.devicePixelRatio || 1) : 1;
   const measure = useRef<((t: string, px: number) => number) | null>(null);
 
@@ -118,18 +123,20 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
       const sel = selected !== null && selected < xs.length ? { x: xs[selected] * view.k + view.tx, y: ys[selected] * view.k + view.ty } : null;
       paintGeo(ctx, { plan, view, width, height, dpr, land: landPath, selected: sel });
       planRef.current = plan;
-      const hook = (window.__headwaterDiagram ??= { draws: [], last: null });
-      const rec = record(plan, model, performance.now() - t0, gesture, statuses.size, landBox, view);
-      hook.last = rec;
-      hook.draws.push(rec);
-      if (hook.draws.length > KEEP_DRAWS) hook.draws.splice(0, hook.draws.length - KEEP_DRAWS);
+      if (recording()) {
+        const hook = (window.__headwaterDiagram ??= { draws: [], last: null });
+        const rec = record(plan, model, performance.now() - t0, gesture, statuses.size, landBox(), view);
+        hook.last = rec;
+        hook.draws.push(rec);
+        if (hook.draws.length > KEEP_DRAWS) hook.draws.splice(0, hook.draws.length - KEEP_DRAWS);
+      }
       if (!gesture) onDrawn?.(plan);
     });
     return () => {
       if (frame.current !== null) cancelAnimationFrame(frame.current);
       frame.current = null;
     };
-  }, [model, lod, siteIndex, width, height, view, gesture, statuses, landPath, selected, xs, ys, dpr, planRef, onDrawn, landBox]);
+  }, [model, lod, siteIndex, width, height, view, gesture, statuses, landPath, landBox, selected, xs, ys, dpr, planRef, onDrawn]);
 
   return (
     <canvas

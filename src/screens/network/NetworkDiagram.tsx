@@ -10,12 +10,15 @@
 import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { PanResponder, Platform, StyleSheet, Text, View, type GestureResponderEvent, type ViewStyle } from 'react-native';
 import type { GeoProjection } from 'd3-geo';
+import type { SiteRole } from '@/shared/schemas/network';
 import Svg, { Circle, G, Path, Rect, Text as SvgText } from 'react-native-svg';
 import { feedStrokes, MEDIUM_ORDER, ROLE_ORDER } from '@/src/components/charts/feedStyle';
 import { colors, fonts, space, type } from '@/src/theme';
 import type { DiagramModel, PlacedDiagram, SiteStatus } from './diagramModel';
 import { crossShape, halfShape, linkPaths, ringShape, siteShape } from './diagramPaths';
 import { plainStrokes } from './denseLines';
+import { SvgOff, SvgReserve, SvgRole } from './diagramMarks';
+import { FAIL_MARK, ROLE_PAINT_ORDER, SELECTED_RING, SITE_R } from './markStyle';
 import { scaleBar } from './scaleBar';
 import { cullPoints, cullSegments, gestureTransform, nearestPoint, panBy, showLabels, showPatterns, visibleWorld, zoomAt, type View as ViewT } from './viewport';
 import { GeoCanvas } from './GeoCanvas';
@@ -57,7 +60,6 @@ export interface NetworkDiagramProps {
   summary: string;
 }
 
-const SITE_R = { origin: 5, main: 5, relay: 3.5 } as const;
 const TAP_SLOP = 6;
 const TAP_RADIUS = 22;
 
@@ -74,7 +76,7 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
     const margin = Math.max(width, height) / 3;
     const paths = linkPaths(xs, ys, model.links, linkIdx, view, { x0: -margin, y0: -margin, x1: width + margin, y1: height + margin });
     const grow = Math.min(2, 1 + Math.log2(view.k) / 4);
-    const byRole: Record<string, string[]> = { origin: [], main: [], relay: [] };
+    const byRole: Record<SiteRole, string[]> = { origin: [], main: [], relay: [] };
     const cross: string[] = [];
     const ring: string[] = [];
     const half: string[] = [];
@@ -85,10 +87,11 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
       const r = SITE_R[s.role] * grow;
       byRole[s.role].push(siteShape(s.role, x, y, r));
       const st = statuses.get(s.code);
-      if (st === 'off-air') cross.push(crossShape(x, y, r + 4));
+      const f = r + FAIL_MARK.gap;
+      if (st === 'off-air') cross.push(crossShape(x, y, f));
       else if (st === 'on-reserve') {
-        ring.push(ringShape(x, y, r + 4));
-        half.push(halfShape(x, y, r + 4));
+        ring.push(ringShape(x, y, f));
+        half.push(halfShape(x, y, f));
       }
     }
     const labels = showLabels(inView.length, width, height);
@@ -112,14 +115,13 @@ function Drawing({ model, placed, width, height, view, statuses, selected, land,
           return feedStrokes(medium, role, 0.8).map((l, i) => <Path key={`${medium}|${role}|${i}`} d={d} stroke={l.stroke} strokeWidth={l.width} strokeDasharray={l.dash} fill="none" />);
         }),
       )}
-      {drawn.ring ? <Path d={drawn.ring} fill={colors.surface} stroke={colors.warn} strokeWidth={2} /> : null}
-      {drawn.half ? <Path d={drawn.half} fill={colors.warn} /> : null}
-      <Path d={drawn.byRole.relay} fill={colors.surface} stroke={colors.ink} strokeWidth={1.5} />
-      <Path d={drawn.byRole.main} fill={colors.mark} stroke={colors.ink} strokeWidth={1.2} />
-      <Path d={drawn.byRole.origin} fill={colors.ink} stroke={colors.ink} strokeWidth={1} />
-      {drawn.cross ? <Path d={drawn.cross} stroke={colors.bad} strokeWidth={3} strokeLinecap="round" fill="none" /> : null}
+      <SvgReserve ring={drawn.ring} half={drawn.half} />
+      {ROLE_PAINT_ORDER.map((role) => (
+        <SvgRole key={role} role={role} d={drawn.byRole[role]} />
+      ))}
+      <SvgOff d={drawn.cross} />
       {selected !== null && selected < xs.length ? (
-        <Circle cx={xs[selected] * view.k + view.tx} cy={ys[selected] * view.k + view.ty} r={14} fill="none" stroke={colors.focus} strokeWidth={3} />
+        <Circle cx={xs[selected] * view.k + view.tx} cy={ys[selected] * view.k + view.ty} r={SELECTED_RING.r} fill="none" stroke={SELECTED_RING.stroke} strokeWidth={SELECTED_RING.width} />
       ) : null}
       {drawn.labels ? (
         <G>

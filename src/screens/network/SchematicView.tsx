@@ -17,7 +17,10 @@ import { countOf, formatCount } from '@/shared/format';
 import type { NetworkDrawing } from '@/src/api/schemas';
 import { colors, fonts, space, type } from '@/src/theme';
 import type { SiteStatus } from './diagramModel';
+import { SvgOff, SvgReserve, SvgRole } from './diagramMarks';
 import { crossShape, halfShape, ringShape, siteShape } from './diagramPaths';
+import { FAIL_MARK, ROLE_PAINT_ORDER } from './markStyle';
+import { recording } from './testHooks';
 import { branchMarks, buildSchematic, layoutSchematic, ROW_PX, ROW_TEXT_PX } from './schematicModel';
 
 const PAD = 16;
@@ -78,17 +81,18 @@ export function SchematicView({ doc, service, statuses, height, onChoose }: { do
       if (y < y0 || y > y1) return;
       marks[n.data.role].push(siteShape(n.data.role, x, y, MARK_R));
       const st = statuses.get(n.data.site);
-      if (st === 'off-air') cross.push(crossShape(x, y, MARK_R + 4));
+      const f = MARK_R + FAIL_MARK.gap;
+      if (st === 'off-air') cross.push(crossShape(x, y, f));
       else if (st === 'on-reserve') {
-        ring.push(ringShape(x, y, MARK_R + 4));
-        half.push(halfShape(x, y, MARK_R + 4));
+        ring.push(ringShape(x, y, f));
+        half.push(halfShape(x, y, f));
       }
     });
     return { edges: edges.join(''), leafEdges: leafEdges.join(''), marks, cross: cross.join(''), ring: ring.join(''), half: half.join('') };
   }, [laid, rowOf, statuses, y0, y1]);
 
   useEffect(() => {
-    if (typeof window === 'undefined') return;
+    if (!recording()) return;
     window.__headwaterSchematic = {
       service,
       nodes: laid.nodes.length,
@@ -128,12 +132,11 @@ export function SchematicView({ doc, service, statuses, height, onChoose }: { do
             <Svg width={w} height={h} style={StyleSheet.absoluteFill} aria-hidden accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
               {drawn.leafEdges ? <Path d={drawn.leafEdges} stroke={colors.lineStrong} strokeWidth={1} fill="none" /> : null}
               {drawn.edges ? <Path d={drawn.edges} stroke={colors.ink} strokeWidth={2} fill="none" /> : null}
-              {drawn.ring ? <Path d={drawn.ring} fill={colors.surface} stroke={colors.warn} strokeWidth={2} /> : null}
-              {drawn.half ? <Path d={drawn.half} fill={colors.warn} /> : null}
-              <Path d={drawn.marks.relay.join('')} fill={colors.surface} stroke={colors.ink} strokeWidth={1.5} />
-              <Path d={drawn.marks.main.join('')} fill={colors.accent} stroke={colors.ink} strokeWidth={1.2} />
-              <Path d={drawn.marks.origin.join('')} fill={colors.ink} stroke={colors.ink} strokeWidth={1} />
-              {drawn.cross ? <Path d={drawn.cross} stroke={colors.bad} strokeWidth={3} strokeLinecap="round" fill="none" /> : null}
+              <SvgReserve ring={drawn.ring} half={drawn.half} />
+              {ROLE_PAINT_ORDER.map((role) => (
+                <SvgRole key={role} role={role} d={drawn.marks[role].join('')} />
+              ))}
+              <SvgOff d={drawn.cross} />
             </Svg>
             {visible.map((i) => {
               const n = laid.nodes[i];

@@ -1,7 +1,7 @@
 /**
  * Feed lines for a dense view, where dash patterns are dropped (see
  * showPatterns in ./viewport.ts): main stays a single dark line and reserve
- * a double line (a wide accent stroke with a background core), the role
+ * a double line (a wide `mark` stroke with a background core), the role
  * marks the patterned lines use too (src/components/charts/feedStyle.ts).
  * So main and reserve differ by line shape at every density, not by colour
  * alone; no dashes, so thousands of lines stay cheap to draw.

@@ -4,12 +4,16 @@
  * bundled lines, the failure marks and the labels that find room. Pure
  * arithmetic over the level's typed arrays, so it runs every frame of a
  * gesture; the canvas painter (./paintGeo.ts) only strokes what it lists.
+ * What does not change with the view (each line's style, the order in which
+ * groups ask for a label, the failure marks summed per group) is worked out
+ * once per level and failure set (levelPrep), not per frame.
  */
 import type { FeedRole, Medium, SiteRole } from '@/shared/schemas/network';
 import { formatCount } from '@/shared/format';
 import type { DiagramModel } from './diagramModel';
 import { placeLabels, type LabelCandidate, type PlacedLabel } from './labelPlacement';
-import { groupMarks, MIXED, type LodIndex } from './lod';
+import { byImportance, groupMarks, MIXED, type GroupMarks, type Level, type LodIndex } from './lod';
+import { SITE_R } from './markStyle';
 import { showPatterns, visibleWorld, type View } from './viewport';
 
 export type Status = 'off-air' | 'on-reserve';
@@ -41,6 +45,7 @@ export interface PlannedLines {
 export interface FramePlan {
   level: number;
   marks: PlannedMark[];
+  /** In paint order: main lines under reserve lines, thinner under wider. */
   lines: PlannedLines[];
   labels: PlacedLabel[];
   /** Dash patterns drawn (few enough lines in view). */
@@ -48,7 +53,6 @@ export interface FramePlan {
   counts: { groups: number; singles: number; lines: number; sitesInGroups: number; offMarks: number; reserveMarks: number };
 }
 
-export const SITE_R: Record<SiteRole, number> = { origin: 5, main: 5, relay: 3.5 };
 const LABEL_FONT_PX = 12;
 const COUNT_FONT_PX = 11;
 /** Labels drawn at most per frame (our own cap, common practice: a screenful stays readable). */
@@ -61,8 +65,6 @@ export function groupRadius(count: number): number {
 export function lineWeight(feeds: number): number {
   return feeds <= 1 ? 1 : feeds <= 3 ? 2 : feeds <= 15 ? 3 : 4;
 }
-
-const ROLE_RANK: Record<SiteRole, number> = { origin: 0, main: 1, relay: 2 };
 
 export interface PlanInput {
   model: DiagramModel;
@@ -78,12 +80,57 @@ export interface PlanInput {
   labels?: boolean;
 }
 
+interface LevelPrep {
+  /** Per bundled line: its style's index in `styles` (sorted in paint order). */
+  lineStyle: Int32Array;
+  styles: { role: FeedRole; medium: Medium | typeof MIXED; weight: number }[];
+  /** Groups that may be named, by importance (lead's role, then households): lone sites and groups holding an origin or main station. */
+  nameOrder: Int32Array;
+  /** The failure marks summed per group, for the last failure set (and site index) seen. */
+  marks: { statuses: ReadonlyMap<string, Status>; siteIndex: ReadonlyMap<string, number>; by: GroupMarks } | null;
+}
+
+const preps = new WeakMap<Level, LevelPrep>();
+
+function levelPrep(model: DiagramModel, lv: Level): LevelPrep {
+  let prep = preps.get(lv);
+  if (prep) return prep;
+  const keyed = new Map<string, number>();
+  const raw: LevelPrep['styles'] = [];
+  const rawStyle = new Int32Array(lv.lineA.length);
+  for (let i = 0; i < lv.lineA.length; i++) {
+    const weight = lineWeight(lv.lineFeeds[i]);
+    const key = `${lv.lineRole[i]}|${lv.lineMedium[i]}|${weight}`;
+    let at = keyed.get(key);
+    if (at === undefined) keyed.set(key, (at = raw.push({ role: lv.lineRole[i], medium: lv.lineMedium[i], weight }) - 1));
+    rawStyle[i] = at;
+  }
+  // Main lines under reserve lines, so the double line of a reserve stays readable where both run.
+  const order = raw.map((_, i) => i).sort((a, b) => (raw[a].role === raw[b].role ? raw[a].weight - raw[b].weight : raw[a].role === 'main' ? -1 : 1));
+  const rank = new Int32Array(raw.length);
+  order.forEach((at, i) => (rank[at] = i));
+  const lineStyle = rawStyle.map((at) => rank[at]);
+  const named: number[] = [];
+  for (let g = 0; g < lv.count.length; g++) if (lv.count[g] === 1 || lv.origins[g] + lv.mains[g] > 0) named.push(g);
+  named.sort((p, q) => byImportance(model, lv.lead[p], lv.lead[q]) || p - q);
+  prep = { lineStyle, styles: order.map((at) => raw[at]), nameOrder: Int32Array.from(named), marks: null };
+  preps.set(lv, prep);
+  return prep;
+}
+
+function marksFor(prep: LevelPrep, lv: Level, siteIndex: ReadonlyMap<string, number>, statuses: ReadonlyMap<string, Status>): GroupMarks | null {
+  if (statuses.size === 0) return null;
+  // Failure sets are replaced, never edited in place (the screen derives a new map), so identity tells a new one.
+  if (prep.marks?.statuses !== statuses || prep.marks.siteIndex !== siteIndex) prep.marks = { statuses, siteIndex, by: groupMarks(lv, siteIndex, statuses) };
+  return prep.marks.by;
+}
+
 export function planFrame({ model, lod, view, width, height, statuses, siteIndex, measure, labels = true }: PlanInput): FramePlan {
   const lv = lod.levelFor(view.k);
-  const marksBy = statuses.size > 0 ? groupMarks(lv, siteIndex, statuses) : null;
+  const prep = levelPrep(model, lv);
+  const marksBy = marksFor(prep, lv, siteIndex, statuses);
   const rect = visibleWorld(view, width, height, 24);
   const marks: PlannedMark[] = [];
-  const inView = new Uint8Array(lv.count.length);
   let groups = 0;
   let sitesInGroups = 0;
   let offMarks = 0;
@@ -93,7 +140,6 @@ export function planFrame({ model, lod, view, width, height, statuses, siteIndex
     const wx = lv.x[g];
     const wy = lv.y[g];
     if (wx < rect.x0 || wx > rect.x1 || wy < rect.y0 || wy > rect.y1) continue;
-    inView[g] = 1;
     const count = lv.count[g];
     const site = lv.lead[g];
     const role = count === 1 ? model.sites[site].role : null;
@@ -108,8 +154,8 @@ export function planFrame({ model, lod, view, width, height, statuses, siteIndex
     marks.push({ group: g, x: wx * view.k + view.tx, y: wy * view.k + view.ty, r: role ? SITE_R[role] * grow : groupRadius(count), role, site, count, off, reserve });
   }
 
-  // Lines whose bounding box meets the view; both ends' screen points.
-  const byStyle = new Map<string, PlannedLines>();
+  // Lines whose bounding box meets the view; both ends' screen points, gathered per style.
+  const segs: number[][] = prep.styles.map(() => []);
   let lineCount = 0;
   for (let i = 0; i < lv.lineA.length; i++) {
     const a = lv.lineA[i];
@@ -120,45 +166,52 @@ export function planFrame({ model, lod, view, width, height, statuses, siteIndex
     const by = lv.y[b];
     if (Math.max(ax, bx) < rect.x0 || Math.min(ax, bx) > rect.x1 || Math.max(ay, by) < rect.y0 || Math.min(ay, by) > rect.y1) continue;
     lineCount++;
-    const weight = lineWeight(lv.lineFeeds[i]);
-    const key = `${lv.lineRole[i]}|${lv.lineMedium[i]}|${weight}`;
-    let entry = byStyle.get(key);
-    if (!entry) byStyle.set(key, (entry = { role: lv.lineRole[i], medium: lv.lineMedium[i], weight, segs: [] }));
-    entry.segs.push(ax * view.k + view.tx, ay * view.k + view.ty, bx * view.k + view.tx, by * view.k + view.ty);
+    segs[prep.lineStyle[i]].push(ax * view.k + view.tx, ay * view.k + view.ty, bx * view.k + view.tx, by * view.k + view.ty);
   }
+  const lines: PlannedLines[] = [];
+  prep.styles.forEach((st, i) => {
+    if (segs[i].length > 0) lines.push({ ...st, segs: segs[i] });
+  });
 
-  let placed: PlacedLabel[] = [];
-  if (labels) {
-    const candidates: LabelCandidate[] = [];
-    // Counts inside group circles first (they carry the number), then names by importance.
-    for (const m of marks) {
-      if (m.role !== null) continue;
-      const text = formatCount(m.count);
-      candidates.push({ x: m.x, y: m.y, r: m.r, width: measure(text, COUNT_FONT_PX) + 2, height: COUNT_FONT_PX + 2, text, centred: true });
-    }
-    const named = marks
-      .filter((m) => m.role !== null || lv.origins[m.group] + lv.mains[m.group] > 0 || m.off > 0)
-      .sort((p, q) => rankOf(model, p) - rankOf(model, q) || (model.sites[q.site].households ?? 0) - (model.sites[p.site].households ?? 0));
-    // Only the most important few are measured and tried: the rest could not find room under the cap anyway.
-    for (const m of named.slice(0, 4 * MAX_LABELS)) {
-      const text = labelText(model, m);
-      candidates.push({ x: m.x, y: m.y, r: m.r + 2, width: measure(text, LABEL_FONT_PX) + 4, height: LABEL_FONT_PX + 4, text });
-    }
-    placed = placeLabels(candidates, width, height, MAX_LABELS);
-  }
   return {
     level: lv.level,
     marks,
-    lines: [...byStyle.values()],
-    labels: placed,
+    lines,
+    labels: labels ? planLabels(model, lv, prep, marks, width, height, measure) : [],
     patterns: showPatterns(lineCount),
     counts: { groups, singles: marks.length - groups, lines: lineCount, sitesInGroups, offMarks, reserveMarks },
   };
 }
 
-function rankOf(model: DiagramModel, m: PlannedMark): number {
-  // Off-air marks first: the operations desk looks for them.
-  return (m.off > 0 ? 0 : 3) + ROLE_RANK[model.sites[m.site].role];
+/** Labels per frame: counts inside group circles first (they carry the number), then names by importance, off air first (the operations desk looks for them). */
+function planLabels(model: DiagramModel, lv: Level, prep: LevelPrep, marks: PlannedMark[], width: number, height: number, measure: PlanInput['measure']): PlacedLabel[] {
+  const candidates: LabelCandidate[] = [];
+  const markOf = new Int32Array(lv.count.length).fill(-1);
+  marks.forEach((m, i) => (markOf[m.group] = i));
+  for (const m of marks) {
+    if (m.role !== null) continue;
+    const text = formatCount(m.count);
+    candidates.push({ x: m.x, y: m.y, r: m.r, width: measure(text, COUNT_FONT_PX) + 2, height: COUNT_FONT_PX + 2, text, centred: true });
+  }
+  // Only the most important few are measured and tried: the rest could not find room under the cap anyway.
+  let room = 4 * MAX_LABELS;
+  const name = (m: PlannedMark) => {
+    const text = labelText(model, m);
+    candidates.push({ x: m.x, y: m.y, r: m.r + 2, width: measure(text, LABEL_FONT_PX) + 4, height: LABEL_FONT_PX + 4, text });
+    room--;
+  };
+  // Off air first: every group with a site off air may be named, in the order of importance of its lead.
+  const offFirst = marks.filter((m) => m.off > 0).sort((p, q) => byImportance(model, p.site, q.site));
+  for (const m of offFirst) {
+    if (room <= 0) break;
+    name(m);
+  }
+  for (let i = 0; i < prep.nameOrder.length && room > 0; i++) {
+    const at = markOf[prep.nameOrder[i]];
+    if (at < 0 || marks[at].off > 0) continue;
+    name(marks[at]);
+  }
+  return placeLabels(candidates, width, height, MAX_LABELS);
 }
 
 /** "Name", "Name and 12 nearby", with the failure count when there is one. */

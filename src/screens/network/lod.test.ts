@@ -143,4 +143,38 @@ describe('frame plan', () => {
     expect(plan.counts.offMarks).toBe(1);
     expect(plan.labels[0].text).toBe('Name A: off air');
   });
+
+  it('follows a new failure set on a level it has drawn before', () => {
+    const view = { k: 8, tx: 0, ty: 0 };
+    planFrame({ ...base, view, statuses: new Map([['A', 'off-air']]) });
+    const next = planFrame({ ...base, view, statuses: new Map([['B', 'on-reserve']]) });
+    expect(next.marks.map((m) => [model.sites[m.site].code, m.off, m.reserve])).toEqual([
+      ['A', 0, 0],
+      ['B', 0, 1],
+    ]);
+    expect(next.counts).toMatchObject({ offMarks: 0, reserveMarks: 1 });
+    const cleared = planFrame({ ...base, view, statuses: new Map() });
+    expect(cleared.marks.every((m) => m.off === 0 && m.reserve === 0)).toBe(true);
+  });
+
+  it('lists lines in paint order: main under reserve, thinner under wider', () => {
+    // Three sites far apart; the reserve line comes first in the data and the wide main line before the thin one.
+    const three: DiagramModel = {
+      sites: [site('P', 'origin'), site('Q', 'relay'), site('R', 'relay')],
+      links: [
+        { from: 0, to: 1, medium: 'microwave', role: 'reserve', feeds: 1 },
+        { from: 0, to: 2, medium: 'line', role: 'main', feeds: 20 },
+        { from: 1, to: 2, medium: 'line', role: 'main', feeds: 1 },
+      ],
+      feedCount: 22,
+      skippedFeeds: 0,
+    };
+    const at: PlacedDiagram = { xs: Float64Array.from([10, 200, 10]), ys: Float64Array.from([10, 10, 200]), linkFrom: Int32Array.from([0, 0, 1]), linkTo: Int32Array.from([1, 2, 2]) };
+    const plan = planFrame({ ...base, model: three, lod: buildLodIndex(three, at), siteIndex: new Map(three.sites.map((s, i) => [s.code, i])), view: { k: 1, tx: 0, ty: 0 }, statuses: new Map() });
+    expect(plan.lines.map((l) => [l.role, l.weight, l.segs.length / 4])).toEqual([
+      ['main', 1, 1],
+      ['main', 4, 1],
+      ['reserve', 1, 1],
+    ]);
+  });
 });

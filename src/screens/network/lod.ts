@@ -66,14 +66,16 @@ export function buildLodIndex(model: DiagramModel, placed: PlacedDiagram): LodIn
   return { level, levelFor: (k) => level(levelForZoom(k)), built: () => [...cache.keys()].sort((a, b) => a - b) };
 }
 
-function better(model: DiagramModel, a: number, b: number): boolean {
+/** Sites by importance (below zero when a comes first): origins, then main stations, then relays; more households first. It picks a group's lead, and the diagram names sites in this order. */
+export function byImportance(model: DiagramModel, a: number, b: number): number {
   const sa = model.sites[a];
   const sb = model.sites[b];
-  const r = ROLE_RANK[sa.role] - ROLE_RANK[sb.role];
-  if (r !== 0) return r < 0;
-  const h = (sa.households ?? 0) - (sb.households ?? 0);
-  if (h !== 0) return h > 0;
-  return sa.code < sb.code;
+  return ROLE_RANK[sa.role] - ROLE_RANK[sb.role] || (sb.households ?? 0) - (sa.households ?? 0);
+}
+
+function better(model: DiagramModel, a: number, b: number): boolean {
+  const c = byImportance(model, a, b);
+  return c !== 0 ? c < 0 : model.sites[a].code < model.sites[b].code;
 }
 
 export function buildLevel(model: DiagramModel, placed: PlacedDiagram, l: number): Level {

@@ -5,12 +5,13 @@
  * their number, lone sites by role shape (origin square, main station
  * diamond, relay open circle), the failure marks on top (off air a cross,
  * on reserve a half-filled ring) and the labels with a white halo.
- * Shapes and words carry the meaning; colour only repeats it.
+ * Shapes and words carry the meaning; colour only repeats it (./markStyle.ts).
  */
 import { feedStrokes } from '@/src/components/charts/feedStyle';
 import { colors, fonts } from '@/src/theme';
 import { plainStrokes } from './denseLines';
 import type { FramePlan, PlannedMark } from './framePlan';
+import { FAIL_MARK, GROUP_MARK, ROLE_MARK, ROLE_PAINT_ORDER, SELECTED_RING } from './markStyle';
 import type { View } from './viewport';
 
 const dashOf = (dash: string | undefined) => (dash ? dash.split(' ').map(Number) : []);
@@ -42,9 +43,8 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
   }
 
   ctx.lineCap = 'butt';
-  // Main lines under reserve lines, so the double line of a reserve stays readable where both run.
-  const ordered = [...plan.lines].sort((a, b) => (a.role === b.role ? a.weight - b.weight : a.role === 'main' ? -1 : 1));
-  for (const group of ordered) {
+  // In the plan's order: main lines under reserve lines, so the double line of a reserve stays readable where both run.
+  for (const group of plan.lines) {
     const scale = 0.5 + 0.35 * group.weight;
     const layers = plan.patterns && group.medium !== 'mixed' ? feedStrokes(group.medium, group.role, scale) : plainStrokes(group.role).map((l) => ({ ...l, width: l.width * scale, dash: undefined }));
     ctx.beginPath();
@@ -63,7 +63,7 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
   ctx.setLineDash([]);
 
   // Reserve rings under the marks they surround.
-  const ringR = (m: PlannedMark) => m.r + 4;
+  const ringR = (m: PlannedMark) => m.r + FAIL_MARK.gap;
   ctx.beginPath();
   for (const m of plan.marks) {
     if (m.off > 0 || m.reserve === 0) continue;
@@ -72,8 +72,8 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
   }
   ctx.fillStyle = colors.surface;
   ctx.fill();
-  ctx.strokeStyle = colors.warn;
-  ctx.lineWidth = 2;
+  ctx.strokeStyle = FAIL_MARK.reserveStroke;
+  ctx.lineWidth = FAIL_MARK.reserveWidth;
   ctx.stroke();
   ctx.beginPath();
   for (const m of plan.marks) {
@@ -82,26 +82,26 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
     ctx.arc(m.x, m.y, ringR(m), -Math.PI / 2, Math.PI / 2, true);
     ctx.closePath();
   }
-  ctx.fillStyle = colors.warn;
+  ctx.fillStyle = FAIL_MARK.reserveStroke;
   ctx.fill();
 
-  // Groups: a circle with a double outline (a lone relay has a single thin one).
+  // Groups: a tinted circle with a double outline (a lone relay has a single thin one).
   ctx.beginPath();
   for (const m of plan.marks) {
     if (m.role !== null) continue;
     ctx.moveTo(m.x + m.r, m.y);
     ctx.arc(m.x, m.y, m.r, 0, Math.PI * 2);
   }
-  ctx.fillStyle = colors.accentSoft;
+  ctx.fillStyle = GROUP_MARK.fill;
   ctx.fill();
-  ctx.strokeStyle = colors.accent;
-  ctx.lineWidth = 3;
+  ctx.strokeStyle = GROUP_MARK.outer;
+  ctx.lineWidth = GROUP_MARK.outerWidth;
   ctx.stroke();
-  ctx.strokeStyle = colors.surface;
-  ctx.lineWidth = 1;
+  ctx.strokeStyle = GROUP_MARK.inner;
+  ctx.lineWidth = GROUP_MARK.innerWidth;
   ctx.stroke();
 
-  for (const role of ['relay', 'main', 'origin'] as const) {
+  for (const role of ROLE_PAINT_ORDER) {
     ctx.beginPath();
     for (const m of plan.marks) {
       if (m.role !== role) continue;
@@ -120,10 +120,11 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
         ctx.arc(m.x, m.y, r, 0, Math.PI * 2);
       }
     }
-    ctx.fillStyle = role === 'relay' ? colors.surface : role === 'main' ? colors.accent : colors.ink;
+    const style = ROLE_MARK[role];
+    ctx.fillStyle = style.fill;
     ctx.fill();
-    ctx.strokeStyle = colors.ink;
-    ctx.lineWidth = role === 'relay' ? 1.5 : 1.2;
+    ctx.strokeStyle = style.stroke;
+    ctx.lineWidth = style.width;
     ctx.stroke();
   }
 
@@ -131,22 +132,22 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
   ctx.beginPath();
   for (const m of plan.marks) {
     if (m.off === 0) continue;
-    const r = m.r + 4;
+    const r = m.r + FAIL_MARK.gap;
     ctx.moveTo(m.x - r, m.y - r);
     ctx.lineTo(m.x + r, m.y + r);
     ctx.moveTo(m.x + r, m.y - r);
     ctx.lineTo(m.x - r, m.y + r);
   }
-  ctx.strokeStyle = colors.bad;
-  ctx.lineWidth = 3;
+  ctx.strokeStyle = FAIL_MARK.offStroke;
+  ctx.lineWidth = FAIL_MARK.offWidth;
   ctx.lineCap = 'round';
   ctx.stroke();
 
   if (selected) {
     ctx.beginPath();
-    ctx.arc(selected.x, selected.y, 14, 0, Math.PI * 2);
-    ctx.strokeStyle = colors.focus;
-    ctx.lineWidth = 3;
+    ctx.arc(selected.x, selected.y, SELECTED_RING.r, 0, Math.PI * 2);
+    ctx.strokeStyle = SELECTED_RING.stroke;
+    ctx.lineWidth = SELECTED_RING.width;
     ctx.stroke();
   }
 
