@@ -16,6 +16,22 @@ export function selectList(attributes: Attributes, alias: string, leaveOut: read
     .join(', ');
 }
 
+/**
+ * The sort whitelist of a list: every document field of the model by its
+ * column (`alias.column`), plus the last change. A field added to the model
+ * can be sorted by without touching the list code.
+ */
+export function sortList(attributes: Attributes, alias: string, leaveOut: readonly string[] = []): Record<string, string> {
+  const sorts: Record<string, string> = {};
+  for (const [name, a] of Object.entries(attributes)) {
+    if (BOOKKEEPING.includes(name) || leaveOut.includes(name)) continue;
+    sorts[name] = `${alias}.${'field' in a && a.field ? a.field : name}`;
+  }
+  const stamp = attributes.updatedAt;
+  if (stamp) sorts.updatedAt = `${alias}.${stamp.field ?? 'updatedAt'}`;
+  return sorts;
+}
+
 /** A model's table name and the column of one of its attributes, for set-based SQL that must not name them by hand. */
 export function tableOf(model: { getTableName(): string | { tableName: string } }): string {
   const name = model.getTableName();

@@ -80,6 +80,29 @@ describe('sites', () => {
     expect((await get('/sites?role=tower')).status).toBe(400);
     expect((await get('/sites?colour=red')).status).toBe(400);
   });
+
+  it('sorts by every field the models describe, references by their codes', async () => {
+    const { CARRIAGE_ATTRIBUTES, FEED_ATTRIBUTES, SITE_ATTRIBUTES } = await import('@/server/db/models/inventory');
+    const fields = (attrs: object, refs: string[]) => Object.keys(attrs).filter((k) => !['id', 'createdAt', 'version', ...refs].includes(k));
+    const cases: [string, string[]][] = [
+      ['sites', fields(SITE_ATTRIBUTES, [])],
+      ['carriages', [...fields(CARRIAGE_ATTRIBUTES, ['siteId', 'serviceId']), 'site', 'service']],
+      ['feeds', [...fields(FEED_ATTRIBUTES, ['fromCarriageId', 'toCarriageId']), 'from', 'to', 'service', 'fromSite', 'toSite']],
+    ];
+    for (const [kind, sorts] of cases) {
+      for (const sort of sorts) {
+        const r = await get(`/${kind}?sort=${sort}&order=desc`);
+        expect(r.status, `${kind} sort=${sort}`).toBe(200);
+      }
+    }
+    // a field no hand-written list named before: carriages by ERP, highest first, then by polarisation
+    const byErp = await get('/carriages?sort=erpW&order=desc');
+    const erps = (byErp.body.items as { erpW?: number }[]).map((c) => c.erpW).filter((e): e is number => e !== undefined);
+    expect(erps.length).toBeGreaterThan(1);
+    expect(erps).toEqual([...erps].sort((a, b) => b - a));
+    expect((await get('/carriages?sort=polarisation')).status).toBe(200);
+    expect((await get('/feeds?sort=rxChannel')).status).toBe(200);
+  });
 });
 
 describe('services and groups', () => {

@@ -8,7 +8,7 @@
  */
 import type { EntityKind } from '@/shared/schemas/network';
 import { MEDIA, FEED_ROLES, SITE_ROLES } from '@/shared/schemas/network';
-import { selectList } from '../../db/columns';
+import { selectList, sortList } from '../../db/columns';
 import { CARRIAGE_ATTRIBUTES, FEED_ATTRIBUTES, GROUP_ATTRIBUTES, SERVICE_ATTRIBUTES, SITE_ATTRIBUTES } from '../../db/models/inventory';
 
 export interface Filter {
@@ -38,10 +38,7 @@ export const QUERIES: Record<EntityKind, KindQuery> = {
   sites: {
     columns: `e.id, ${selectList(SITE_ATTRIBUTES, 'e')}, ${siteGroups} AS groups, ${stamp}`,
     from: 'sites e',
-    sorts: {
-      code: 'e.code', name: 'e.name', role: 'e.role', lat: 'e.lat', lon: 'e.lon', groundHeightM: 'e.ground_height_m',
-      mastHeightM: 'e.mast_height_m', households: 'e.households', updatedAt: 'e.updated_at',
-    },
+    sorts: sortList(SITE_ATTRIBUTES, 'e'),
     search: ['e.code', 'e.name'],
     filters: {
       role: { sql: 'e.role = ?', values: SITE_ROLES },
@@ -51,24 +48,22 @@ export const QUERIES: Record<EntityKind, KindQuery> = {
   services: {
     columns: `e.id, ${selectList(SERVICE_ATTRIBUTES, 'e')}, ${stamp}`,
     from: 'services e',
-    sorts: { code: 'e.code', name: 'e.name', kind: 'e.kind', updatedAt: 'e.updated_at' },
+    sorts: sortList(SERVICE_ATTRIBUTES, 'e'),
     search: ['e.code', 'e.name'],
     filters: {},
   },
   groups: {
     columns: `e.id, ${selectList(GROUP_ATTRIBUTES, 'e')}, ${stamp}`,
     from: 'risk_groups e',
-    sorts: { code: 'e.code', name: 'e.name', updatedAt: 'e.updated_at' },
+    sorts: sortList(GROUP_ATTRIBUTES, 'e'),
     search: ['e.code', 'e.name'],
     filters: {},
   },
   carriages: {
     columns: `e.id, e.code, si.code AS site, sv.code AS service, ${selectList(CARRIAGE_ATTRIBUTES, 'e', ['code', 'siteId', 'serviceId'])}, ${stamp}`,
     from: 'carriages e JOIN sites si ON si.id = e.site_id JOIN services sv ON sv.id = e.service_id',
-    sorts: {
-      code: 'e.code', site: 'si.code', service: 'sv.code', frequencyMHz: 'e.frequency_mhz', channel: 'e.channel',
-      erpW: 'e.erp_w', antennaHeightM: 'e.antenna_height_m', updatedAt: 'e.updated_at',
-    },
+    // the references sort by the code they show
+    sorts: { ...sortList(CARRIAGE_ATTRIBUTES, 'e', ['siteId', 'serviceId']), site: 'si.code', service: 'sv.code' },
     search: ['e.code', 'si.code', 'sv.code'],
     filters: {
       service: { sql: 'sv.code = ?' },
@@ -81,8 +76,8 @@ export const QUERIES: Record<EntityKind, KindQuery> = {
     from: `feeds e JOIN carriages a ON a.id = e.from_carriage_id JOIN carriages b ON b.id = e.to_carriage_id
              JOIN sites sa ON sa.id = a.site_id JOIN sites sb ON sb.id = b.site_id JOIN services sv ON sv.id = a.service_id`,
     sorts: {
-      code: 'e.code', from: 'a.code', to: 'b.code', medium: 'e.medium', role: 'e.role', service: 'sv.code',
-      fromSite: 'sa.code', toSite: 'sb.code', bearingDeg: 'e.bearing_deg', updatedAt: 'e.updated_at',
+      ...sortList(FEED_ATTRIBUTES, 'e', ['fromCarriageId', 'toCarriageId']),
+      from: 'a.code', to: 'b.code', service: 'sv.code', fromSite: 'sa.code', toSite: 'sb.code',
     },
     search: ['e.code', 'a.code', 'b.code', 'sa.code', 'sb.code', 'sv.code'],
     filters: {
