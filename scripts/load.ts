@@ -18,6 +18,8 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
+import http from 'node:http';
+import os from 'node:os';
 import path from 'node:path';
 import readline from 'node:readline';
 import autocannon from 'autocannon';
@@ -72,17 +74,22 @@ interface ScenarioResult {
   latencyP50Ms: number;
   latencyP99Ms: number;
   latencyMaxMs: number;
+  /** autocannon's count of failed requests, timeouts included */
   errors: number;
+  /** of which timeouts (no complete answer within 10 s) */
   timeouts: number;
   non2xx: number;
   statusCodes: Record<string, number>;
   megabytesPerSecond: number;
 }
 
-/** The server in a child process on 127.0.0.1 (`workers` processes on one port); resolves with its base URL once all listen. */
-function startChild(databaseUrl: string, workers: number): Promise<{ child: ChildProcess; base: string }> {
+/**
+ * The server in a child process on 127.0.0.1 (`workers` processes on one port); resolves with its base URL once all listen.
+ * `script` and `args`: another server to start the same way (the bare yardstick).
+ */
+function startChild(databaseUrl: string, workers: number, script = path.join(__dirname, 'load', 'server.ts'), args: string[] = []): Promise<{ child: ChildProcess; base: string }> {
   const profile = profileDir ? ['--cpu-prof', '--cpu-prof-dir', path.resolve(profileDir)] : [];
-  const child = spawn(process.execPath, [...profile, '--import', 'tsx', path.join(__dirname, 'load', 'server.ts')], {
+  const child = spawn(process.execPath, [...profile, '--import', 'tsx', script, ...args], {
     cwd: REPO_ROOT,
     env: { ...process.env, DATABASE_URL: databaseUrl, JWT_SECRET: jwtSecret, NODE_ENV: 'production', WORKERS: String(workers) },
     stdio: ['ignore', 'pipe', 'inherit'],
@@ -104,24 +111,38 @@ async function login(base: string, email: string, password: string): Promise<str
   return ((await r.json()) as { token: string }).token;
 }
 
-/** One autocannon run; `next` gives each request's method, path and body in turn. */
+/**
+ * One autocannon run; `next` gives each request's method, path and body in
+ * turn, or is one request sent again and again. For the export (megabytes
+ * per answer) the load generator itself is the limit on a 2-core machine: a
+ * CPU profile of the server during that scenario showed it 79 % idle while
+ * requests timed out in the generator, and a second generator thread only
+ * took more CPU from the server. The bare-server yardstick below shows that limit.
+ */
 type Request = { method: 'GET' | 'POST'; path: string; body?: string };
-async function scenario(name: string, workers: number, base: string, token: string, next: () => Request, extraHeaders: Record<string, string> = {}): Promise<ScenarioResult> {
+async function scenario(name: string, workers: number, base: string, token: string, next: (() => Request) | Request, extraHeaders: Record<string, string> = {}): Promise<ScenarioResult> {
   process.stdout.write(`  ${name} (${workers} worker${workers > 1 ? 's' : ''}): ${connections} connections for ${seconds} s ... `);
+  const what: Partial<autocannon.Options> =
+    typeof next === 'function'
+      ? {
+          url: base,
+          requests: [
+            {
+              setupRequest: (req) => {
+                const r = next();
+                return { ...req, method: r.method, path: r.path, body: r.body };
+              },
+            },
+          ],
+        }
+      : { url: `${base}${next.path}`, method: next.method, body: next.body };
   const result = await autocannon({
-    url: base,
+    ...what,
+    url: what.url ?? base,
     connections,
     duration: seconds,
     timeout: 10,
     headers: { authorization: `Bearer ${token}`, 'content-type': 'application/json', ...extraHeaders },
-    requests: [
-      {
-        setupRequest: (req) => {
-          const r = next();
-          return { ...req, method: r.method, path: r.path, body: r.body };
-        },
-      },
-    ],
   });
   const statusCodes: Record<string, number> = {};
   for (const [code, stat] of Object.entries(result.statusCodeStats ?? {})) statusCodes[code] = (stat as { count: number }).count;
@@ -144,6 +165,33 @@ async function scenario(name: string, workers: number, base: string, token: stri
   console.log(`${r.requestsPerSecond} req/s, p50 ${r.latencyP50Ms} ms, p99 ${r.latencyP99Ms} ms, errors ${r.errors}, non-2xx ${r.non2xx}`);
   return r;
 }
+
+/** The export exactly as sent to a browser (gzip bytes, not unpacked). */
+function gzipExport(base: string, token: string): Promise<Buffer> {
+  return new Promise((resolve, reject) => {
+    http
+      .get(`${base}/api/network/export`, { headers: { authorization: `Bearer ${token}`, 'accept-encoding': 'gzip' } }, (res) => {
+        const parts: Buffer[] = [];
+        res.on('data', (b: Buffer) => parts.push(b));
+        res.on('end', () => (res.statusCode === 200 ? resolve(Buffer.concat(parts)) : reject(new Error(`the export answered ${res.statusCode}`))));
+      })
+      .on('error', reject);
+  });
+}
+
+/** The export scenario against a bare server sending the same bytes: what the generator itself manages here. */
+async function exportYardstick(databaseUrl: string, base: string, token: string): Promise<ScenarioResult> {
+  const file = path.join(os.tmpdir(), `headwater-load-export-${process.pid}.json.gz`);
+  fs.writeFileSync(file, await gzipExport(base, token));
+  const bare = await startChild(databaseUrl, 1, path.join(__dirname, 'load', 'bare-server.ts'), [file]);
+  try {
+    return await scenario(YARDSTICK, 1, bare.base, token, { method: 'GET', path: '/' }, { 'accept-encoding': 'gzip' });
+  } finally {
+    await stopChild(bare.child, 15_000);
+    fs.rmSync(file, { force: true });
+  }
+}
+const YARDSTICK = 'same bytes, bare server';
 
 function rotate<T>(items: T[]): () => T {
   let i = 0;
@@ -175,15 +223,23 @@ function targets(reads: ScenarioResult[], edits: EditRunResult) {
   };
 }
 
-function report(meta: Record<string, unknown>, reads: ScenarioResult[], edits: EditRunResult, met: ReturnType<typeof targets>): string {
+function report(meta: Record<string, unknown>, reads: ScenarioResult[], edits: EditRunResult, met: ReturnType<typeof targets>, yardstick?: ScenarioResult): string {
   const lines = [`Load run ${meta.date} (${meta.sites} sites, seed ${meta.seed}; ${meta.cpus} CPUs; Node ${meta.node}; server and load generator on 127.0.0.1)`];
   // other work on the machine takes CPU from the server: the figures are only comparable at a low load average
   lines.push(`Machine load average (1, 5, 15 min): ${String(meta.loadAverageAtStart)} at the start, ${String(meta.loadAverage)} at the end.`, '');
   lines.push(`${'scenario'.padEnd(22)}${'workers'.padStart(8)}${'req/s'.padStart(9)}${'p50 ms'.padStart(9)}${'p99 ms'.padStart(9)}${'max ms'.padStart(9)}${'errors'.padStart(8)}${'non-2xx'.padStart(9)}${'MB/s'.padStart(8)}`);
   for (const r of reads) {
-    lines.push(`${r.name.padEnd(22)}${String(r.workers).padStart(8)}${String(r.requestsPerSecond).padStart(9)}${String(r.latencyP50Ms).padStart(9)}${String(r.latencyP99Ms).padStart(9)}${String(r.latencyMaxMs).padStart(9)}${String(r.errors + r.timeouts).padStart(8)}${String(r.non2xx).padStart(9)}${String(r.megabytesPerSecond).padStart(8)}`);
+    lines.push(`${r.name.padEnd(22)}${String(r.workers).padStart(8)}${String(r.requestsPerSecond).padStart(9)}${String(r.latencyP50Ms).padStart(9)}${String(r.latencyP99Ms).padStart(9)}${String(r.latencyMaxMs).padStart(9)}${String(r.errors).padStart(8)}${String(r.non2xx).padStart(9)}${String(r.megabytesPerSecond).padStart(8)}`);
   }
-  lines.push('', `${reads[0].connections} connections, ${reads[0].seconds} s per scenario.`, '');
+  lines.push('', `${reads[0].connections} connections, ${reads[0].seconds} s per scenario; a request with no complete answer within 10 s counts as an error.`, '');
+  if (yardstick) {
+    lines.push(
+      `Yardstick: the export's gzip bytes from a bare node:http server (no Headwater code), same generator and settings:`,
+      `  ${yardstick.requestsPerSecond} req/s, p50 ${yardstick.latencyP50Ms} ms, p99 ${yardstick.latencyP99Ms} ms, errors ${yardstick.errors}, ${yardstick.megabytesPerSecond} MB/s.`,
+      `  Errors there are the load generator's own limit on this machine, and bound what the export scenario can show.`,
+      '',
+    );
+  }
   const byStatus = Object.entries(edits.edits.byStatus).map(([s, n]) => `${s}: ${n}`).join(', ');
   lines.push(`Edits during an import: ${EDITORS} editors, import of ${meta.importedSites} changed sites answered ${edits.importStatus} after ${edits.importMs} ms.`);
   lines.push(`  ${edits.edits.total} edits (read + PATCH), answers ${byStatus}; p50 ${edits.edits.p50Ms} ms, p99 ${edits.edits.p99Ms} ms.`);
@@ -212,15 +268,16 @@ async function main() {
     await ensureUser('load-engineer@headwater.example', password, 'engineer', 'Load engineer');
     const s = readScenarios(doc);
     const reads: ScenarioResult[] = [];
-    const plan: [key: string, name: string, next: () => Request, headers?: Record<string, string>][] = [
+    const plan: [key: string, name: string, next: (() => Request) | Request, headers?: Record<string, string>][] = [
       ['reach', 'fault reach', () => ({ method: 'POST', path: '/api/analysis/reach', body: s.reach() })],
       ['chain', 'carriage chain', () => ({ method: 'GET', path: s.chain() })],
       ['search', 'list page with search', () => ({ method: 'GET', path: s.search() })],
       // a browser asks for gzip, and so does this run
-      ['export', 'export (JSON, gzip)', () => ({ method: 'GET', path: '/api/network/export' }), { 'accept-encoding': 'gzip' }],
+      ['export', 'export (JSON, gzip)', { method: 'GET', path: '/api/network/export' }, { 'accept-encoding': 'gzip' }],
     ];
     let base = '';
     let engineer = '';
+    let operator = '';
     // the first worker count last, so that the edits run against it
     for (const workers of [...workerCounts.slice(1), workerCounts[0]]) {
       if (child) await stopChild(child, 15_000);
@@ -228,11 +285,12 @@ async function main() {
       child = started.child;
       base = started.base;
       console.log(`server under load at ${base} (${workers} worker${workers > 1 ? 's' : ''})`);
-      const operator = await login(base, 'load-operator@headwater.example', password);
+      operator = await login(base, 'load-operator@headwater.example', password);
       engineer = await login(base, 'load-engineer@headwater.example', password);
       for (const [key, name, next, headers] of plan) if (only.has(key)) reads.push(await scenario(name, workers, base, operator, next, headers));
     }
     reads.sort((x, y) => x.workers - y.workers);
+    const yardstick = only.has('export') ? await exportYardstick(url, base, operator) : undefined;
     const expected = plan.filter(([key]) => only.has(key)).length * workerCounts.length;
 
     if (!only.has('edits') || expected < plan.length * workerCounts.length) {
@@ -249,12 +307,11 @@ async function main() {
     console.log(`  import ${edits.importStatus} in ${edits.importMs} ms; edits ${JSON.stringify(edits.edits.byStatus)}; lost ${edits.lost.length}`);
 
     const met = targets(reads, edits);
-    const os = await import('node:os');
     // the machine's load average says how far the figures can be trusted on a shared machine
     const meta = { date: new Date().toISOString(), loadAverageAtStart, sites: siteCount, seed, importedSites: imported.length, cpus: os.cpus().length, loadAverage: os.loadavg().map((l) => Math.round(l * 10) / 10), node: process.versions.node };
     fs.mkdirSync(path.dirname(out), { recursive: true });
-    fs.writeFileSync(`${out}.json`, JSON.stringify({ ...meta, reads, edits, targets: met }, null, 2) + '\n');
-    const text = report(meta, reads, edits, met);
+    fs.writeFileSync(`${out}.json`, JSON.stringify({ ...meta, reads, yardstick, edits, targets: met }, null, 2) + '\n');
+    const text = report(meta, reads, edits, met, yardstick);
     fs.writeFileSync(`${out}.txt`, text);
     console.log(`\n${text}\nrecorded in ${out}.json and ${out}.txt`);
   } finally {
