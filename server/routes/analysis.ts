@@ -28,6 +28,9 @@ import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } f
 import { searchCarriages } from '../services/carriageSearch';
 
 export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
+/** A sandbox's exposure takes a limit and the element kinds; the files and the names are the stored network's only, so asking for them is refused rather than ignored. */
+const sandboxExposureQuery = z.strictObject(exposureQuerySchema.pick({ limit: true, kinds: true }).shape);
+
 export const exposureQuery = exposureQuerySchema.extend({
   /** with=names: the name of each listed element (services/analysisCsv.ts elementName: a carriage as "site name, service name", a feed as "from → to"). */
   with: z.enum(['names'], { error: 'with is names (or left out)' }).optional(),
@@ -169,7 +172,10 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     const p = planOr404(String(req.params.id));
     const sandbox = p.plan.sandbox;
     const answer = String(req.params.answer);
-    if (answer === 'exposure') res.json({ sandbox: p.id, ...sandbox.exposure(parseOr400(exposureQuery, req.query, 'query').limit) });
+    if (answer === 'exposure') {
+      const { limit, kinds } = parseOr400(sandboxExposureQuery, req.query, 'query');
+      res.json({ sandbox: p.id, ...sandbox.exposure(limit, kinds) });
+    }
     else if (answer === 'diversity') res.json({ sandbox: p.id, ...sandbox.diversity() });
     else if (answer === 'unfed') res.json({ sandbox: p.id, ...sandbox.unfed() });
     else throw notFound(`a sandbox answers exposure, diversity and unfed, not ${answer}`);

@@ -182,5 +182,15 @@ describe('plans, the sandbox and creating for real', () => {
     const exposure = await get(`/api/analysis/plans/${plan.id}/exposure?limit=3`);
     expect(exposure.status).toBe(200);
     expect(exposure.body.elements).toHaveLength(3);
+    // the kinds apply in the sandbox as on the stored network; files and names are refused, not ignored
+    const groups = await get(`/api/analysis/plans/${plan.id}/exposure?kinds=group`);
+    expect(groups.status).toBe(200);
+    expect(groups.body.elements.length).toBeGreaterThan(0);
+    expect(groups.body.elements.every((e: { element: { kind: string } }) => e.element.kind === 'group')).toBe(true);
+    for (const q of ['format=csv', 'with=names']) {
+      const refused = await get(`/api/analysis/plans/${plan.id}/exposure?${q}`);
+      expect(refused.status, q).toBe(400);
+      expect(refused.body.error.message).toContain(q.split('=')[0]);
+    }
   });
 });
