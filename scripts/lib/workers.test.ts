@@ -63,4 +63,29 @@ describe('WORKERS', () => {
     await new Promise((r) => setTimeout(r, 30));
     expect(forked).toHaveLength(4);
   });
+
+  it('kills a worker that does not end on SIGTERM, so stopping always ends', async () => {
+    class StuckWorker extends FakeWorker {
+      kill(signal = 'SIGTERM') {
+        this.killed.push(signal);
+        if (signal === 'SIGKILL') setImmediate(() => this.emit('exit', null, signal));
+      }
+    }
+    const forked: StuckWorker[] = [];
+    const pool = startWorkerPool({
+      count: 2,
+      killAfterMs: 20,
+      log: () => undefined,
+      fork: () => {
+        const w = new StuckWorker();
+        forked.push(w);
+        w.listen();
+        return w;
+      },
+    });
+    await pool.ready;
+    await pool.stop();
+    expect(pool.running).toBe(0);
+    for (const w of forked) expect(w.killed).toEqual(['SIGTERM', 'SIGKILL']);
+  });
 });

@@ -21,6 +21,8 @@ export interface WorkerLike extends EventEmitter {
 
 export interface WorkerPoolOptions extends RestartTiming {
   count: number;
+  /** how long stop() waits for a worker after SIGTERM before SIGKILL (default 10 s) */
+  killAfterMs?: number;
   /** cluster.fork, or a stand-in in tests */
   fork: () => WorkerLike;
   log?: (message: string) => void;
@@ -89,11 +91,16 @@ export function startWorkerPool(o: WorkerPoolOptions): WorkerPool {
       stopping = true;
       for (const t of timers) clearTimeout(t);
       timers.clear();
+      // a worker that does not end on SIGTERM (stuck in a loop, say) is killed, so stopping always ends
       await Promise.all(
         [...live].map(
           (w) =>
             new Promise<void>((r) => {
-              w.once('exit', () => r());
+              const kill = setTimeout(() => w.kill('SIGKILL'), o.killAfterMs ?? 10_000);
+              w.once('exit', () => {
+                clearTimeout(kill);
+                r();
+              });
               w.kill('SIGTERM');
             }),
         ),
