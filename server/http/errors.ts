@@ -27,17 +27,18 @@ export const conflict = (message: string, details?: unknown) => new ApiError(409
 export const unprocessable = (message: string, details?: unknown) => new ApiError(422, 'invalid', message, details);
 
 /** Each issue's field and message; both cut short, as a field name may be a key someone sent. */
-export function zodDetails(err: ZodError) {
-  return err.issues.slice(0, 100).map((i) => ({ field: clip(i.path.map(String).join('.')) || '(body)', message: clip(i.message, 200) }));
+/** Each issue by field; an issue about the whole of it (an unknown key, say) is named by what was read: "(body)", "(query)". */
+export function zodDetails(err: ZodError, what = 'body') {
+  return err.issues.slice(0, 100).map((i) => ({ field: clip(i.path.map(String).join('.')) || `(${what})`, message: clip(i.message, 200) }));
 }
 
 /** Parse with a zod schema; a failure is a 400 naming each field. */
 export function parseOr400<T>(schema: ZodType<T>, value: unknown, what = 'body'): T {
   const r = schema.safeParse(value);
   if (r.success) return r.data;
-  const details = zodDetails(r.error);
+  const details = zodDetails(r.error, what);
   const first = details[0];
-  throw badRequest(`${what}: ${first.field}: ${first.message}`, details);
+  throw badRequest(first.field === `(${what})` ? `${what}: ${first.message}` : `${what}: ${first.field}: ${first.message}`, details);
 }
 
 export const notFoundHandler: RequestHandler = (req, _res, next) => {
