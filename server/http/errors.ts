@@ -32,6 +32,12 @@ export function zodDetails(err: ZodError, what = 'body') {
   return err.issues.slice(0, 100).map((i) => ({ field: clip(i.path.map(String).join('.')) || `(${what})`, message: clip(i.message, 200) }));
 }
 
+/** A request body that is a JSON object; none, a list or a bare value is a 400 saying what to send (`expected`). */
+export function objectBody(body: unknown, expected = 'a JSON object'): Record<string, unknown> {
+  if (body === undefined || body === null || typeof body !== 'object' || Array.isArray(body)) throw badRequest(`body: send ${expected}`);
+  return body as Record<string, unknown>;
+}
+
 /** Parse with a zod schema; a failure is a 400 naming each field. */
 export function parseOr400<T>(schema: ZodType<T>, value: unknown, what = 'body'): T {
   const r = schema.safeParse(value);

@@ -15,7 +15,7 @@ import {
   type SiteInfo,
 } from '@/shared/schemas/analysis';
 import { pageQuerySchema, pageRows } from '@/shared/schemas/paging';
-import { ApiError, badRequest, conflict, notFound, parseOr400 } from '../http/errors';
+import { ApiError, conflict, notFound, objectBody, parseOr400 } from '../http/errors';
 import { actorOf, settled } from './inventory';
 import { createEntities } from '../services/inventory/write';
 import { findPlan, forgetPlan, makePlan, pairsState } from '../services/planner';
@@ -59,10 +59,7 @@ function namesOf(m: ServedNetwork, elements: readonly Element[]): Record<string,
 
 export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('post', '/analysis/reach', can.analyse, async (req, res) => {
-    if (req.body === undefined || req.body === null || typeof req.body !== 'object' || Array.isArray(req.body)) {
-      throw badRequest('body: send { "failed": [{ "kind": "site"|"carriage"|"feed"|"group", "code": "..." }] }');
-    }
-    const { failed } = parseOr400(reachRequestSchema, req.body);
+    const { failed } = parseOr400(reachRequestSchema, objectBody(req.body, '{ "failed": [{ "kind": "site"|"carriage"|"feed"|"group", "code": "..." }] }'));
     const { with: extra } = parseOr400(reachQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     try {
@@ -151,8 +148,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   });
 
   routes.add('post', '/analysis/plans', can.analyse, async (req, res) => {
-    if (req.body === undefined || req.body === null || typeof req.body !== 'object' || Array.isArray(req.body)) throw badRequest('body: send { "budget": N } (new feeds, 1-10)');
-    const { budget } = parseOr400(planRequestSchema, req.body);
+    const { budget } = parseOr400(planRequestSchema, objectBody(req.body, '{ "budget": N } (new feeds, 1-10)'));
     const stored = await makePlan(currentModel(ctx), budget);
     res.status(201).json(stored.answer);
   });

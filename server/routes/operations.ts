@@ -15,7 +15,7 @@ import {
   worksQuerySchema,
   workTransitionSchema,
 } from '@/shared/schemas/operations';
-import { badRequest, parseOr400 } from '../http/errors';
+import { objectBody, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import type { OpsActor } from '../operations/common';
@@ -25,10 +25,7 @@ import { availability, availabilityCsv } from '../operations/availability';
 
 const actorOf = (req: Request): OpsActor => ({ userId: req.auth?.userId, email: req.auth?.email, role: req.auth?.role });
 const code = (req: Request) => String(req.params.code);
-const body = (req: Request) => {
-  if (req.body === undefined || req.body === null || typeof req.body !== 'object' || Array.isArray(req.body)) throw badRequest('body: send a JSON object');
-  return req.body as unknown;
-};
+const body = (req: Request): unknown => objectBody(req.body);
 
 export function registerOperationsRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/works', can.read, async (req, res) => {
