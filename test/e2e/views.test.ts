@@ -46,6 +46,16 @@ describe.each(Object.entries(SIZES))('views at %s size', (sizeName, size) => {
     expect(digits(await page.getByTestId('reach-households-lost').textContent())).toBe(expected.households.lost);
     expect(digits(await page.getByTestId('reach-fallback-count').textContent())).toBe(expected.fallback.length);
     await shot(page, `reach-origin-${sizeName}`);
+    // every site row shows its name and code whole: no text in the list is cut short (clamped or ellipsed)
+    const bySite = page.getByTestId('reach-by-site');
+    await bySite.locator('a').first().waitFor({ timeout: 10_000 });
+    const texts = await bySite.evaluate((list) => {
+      // every element that holds words of its own (a title may hold a nested code span)
+      const leaves = Array.from(list.querySelectorAll('a div')).filter((el) => Array.from(el.childNodes).some((n) => n.nodeType === 3 && (n.textContent ?? '').trim() !== ''));
+      return { leaves: leaves.length, clipped: leaves.filter((el) => el.scrollWidth > el.clientWidth + 1 || el.scrollHeight > el.clientHeight + 1).map((el) => el.textContent) };
+    });
+    expect(texts.leaves).toBeGreaterThan(0);
+    expect(texts.clipped).toEqual([]);
     expect(await seriousViolations(page)).toEqual([]);
     expect(errors).toEqual([]);
     await page.context().close();

@@ -21,7 +21,7 @@ const STATUS: Record<AirStatus, { shape: ShapeName; color: string }> = {
 export interface LinkRowProps {
   href: Href;
   title: string;
-  /** A code shown in the monospaced face after the title. */
+  /** A code shown in the monospaced face after the title (on its own line when the title fills the row). */
   code?: string;
   detail?: string;
   status?: AirStatus;
@@ -37,10 +37,13 @@ export function LinkRow({ href, title, code, detail, status, figure, testID }: L
       <Pressable accessibilityRole="link" testID={testID} style={styles.row}>
         {status ? <StatusShape shape={STATUS[status].shape} color={STATUS[status].color} size={16} /> : null}
         <View style={styles.texts}>
-          <Text style={styles.title} numberOfLines={2}>
-            {title}
-            {code && code !== title ? <Text style={styles.code}>{`  ${code}`}</Text> : null}
-          </Text>
+          {/* the code beside the name where there is room, else whole on the next line: never cut short */}
+          <View style={styles.heading}>
+            <Text style={styles.title} numberOfLines={2}>
+              {title}
+            </Text>
+            {code && code !== title ? <Text style={styles.code}>{code}</Text> : null}
+          </View>
           {detail ? <Text style={styles.detail}>{detail}</Text> : null}
         </View>
         {figure ? <Text style={styles.figure}>{figure}</Text> : null}
@@ -65,6 +68,7 @@ const styles = StyleSheet.create({
     backgroundColor: colors.surface,
   },
   texts: { flex: 1, gap: space.xxs },
+  heading: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'baseline', columnGap: space.sm },
   title: { ...type.body, fontSize: 16, lineHeight: 22, color: colors.accent, fontFamily: fonts.textBold },
   code: { fontFamily: fonts.mono, fontSize: 14, color: colors.inkMuted },
   detail: { ...type.small },
