@@ -23,8 +23,8 @@ import { openDatabase } from '@/server/db';
 import { importNetwork } from '@/server/services/importer';
 import { startServer } from '@/server/server';
 import { ensureUser } from '@/server/services/users';
-import { RECORD_DRAWINGS_SCRIPT } from '@/src/screens/network/testHooks';
-import { launch } from '@/test/e2e/browser';
+import { RECORD_SCRIPT } from '@/src/testHooks';
+import { launch, signInWith } from '@/test/e2e/browser';
 import { percentile, round } from './bench-engine';
 import { generateNetwork } from './generator';
 import { resolveDatabaseUrl } from './lib/postgres';
@@ -34,14 +34,10 @@ function arg(name: string): string | undefined {
   const i = process.argv.indexOf(`--${name}`);
   return i >= 0 ? process.argv[i + 1] : undefined;
 }
-const sites = Number(arg('sites') ?? 20000);
-const seed = Number(arg('seed') ?? 7);
-const jsonFile = arg('json');
-if (!Number.isInteger(sites) || sites < 10) throw new Error(`--sites: ${String(arg('sites'))} is not a whole number >= 10`);
 
-const SIZES = { wide: { width: 1440, height: 900 }, phone: { width: 390, height: 844 } } as const;
+export const BENCH_SIZES = { wide: { width: 1440, height: 900 }, phone: { width: 390, height: 844 } } as const;
 
-interface SizeResult {
+export interface DiagramBenchResult {
   diagramFirstDrawMs: number;
   diagramFirstDrawWallMs: number;
   diagramFrameP95Ms: number;
@@ -52,14 +48,6 @@ interface SizeResult {
   overlayOffAirSites: number;
   schematicFirstDrawMs: number;
   schematicNodes: number;
-}
-
-async function signIn(page: Page, base: string, email: string, password: string) {
-  await page.goto(`${base}/sign-in`);
-  await page.getByLabel('Email').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 30_000 });
 }
 
 /** Animation-frame intervals recorded in the page while `work` runs. */
@@ -84,13 +72,13 @@ async function frames(page: Page, work: () => Promise<void>): Promise<number[]> 
   });
 }
 
-async function benchSize(base: string, user: { email: string; password: string }, size: { width: number; height: number }): Promise<SizeResult> {
+export async function benchDiagram(base: string, user: { email: string; password: string }, size: { width: number; height: number }): Promise<DiagramBenchResult> {
   const browser = await launch();
   try {
     const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
-    await context.addInitScript(RECORD_DRAWINGS_SCRIPT);
+    await context.addInitScript(RECORD_SCRIPT);
     const page = await context.newPage();
-    await signIn(page, base, user.email, user.password);
+    await signInWith(page, base, user.email, user.password);
 
     const wall0 = Date.now();
     await page.goto(`${base}/network`);
@@ -165,6 +153,10 @@ async function benchSize(base: string, user: { email: string; password: string }
 }
 
 async function main() {
+  const sites = Number(arg('sites') ?? 20000);
+  const seed = Number(arg('seed') ?? 7);
+  const jsonFile = arg('json');
+  if (!Number.isInteger(sites) || sites < 10) throw new Error(`--sites: ${String(arg('sites'))} is not a whole number >= 10`);
   const built = ensureWebBuild();
   if (built.built) console.log(`web app built in ${(built.ms / 1000).toFixed(1)} s`);
   const doc = generateNetwork({ sites, seed });
@@ -181,9 +173,9 @@ async function main() {
     await ensureUser(user.email, user.password, 'engineer', 'Benchmark');
     const base = running.url.replace('localhost', '127.0.0.1');
     const out: Record<string, unknown> = { when: new Date().toISOString(), sites, seed, feeds: doc.feeds.length, chromium: '/usr/bin/chromium --no-sandbox --disable-gpu', targets: { diagramFirstDrawMs: 1500, diagramFrameP95Ms: 33, overlayMs: 300 } };
-    for (const [name, size] of Object.entries(SIZES)) {
+    for (const [name, size] of Object.entries(BENCH_SIZES)) {
       console.log(`${name} ${size.width}x${size.height}...`);
-      out[name] = await benchSize(base, user, size);
+      out[name] = await benchDiagram(base, user, size);
       console.log(JSON.stringify(out[name]));
     }
     const text = JSON.stringify(out, null, 2);
@@ -194,7 +186,10 @@ async function main() {
   }
 }
 
-main().catch((e) => {
-  console.error(e);
-  process.exit(1);
-});
+// Run as a script; scripts/bench.ts --browser imports benchDiagram instead.
+if (process.argv[1]?.endsWith('bench-browser-diagram.ts')) {
+  main().catch((e) => {
+    console.error(e);
+    process.exit(1);
+  });
+}

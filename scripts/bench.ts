@@ -12,12 +12,21 @@
  * with them (scripts/bench-edits.ts, `editVisibleP95Ms`; default 60).
  * --lean: skip networkx, the planner and the operations figures (for the
  * 100,000-site size: `npm run bench -- --sizes 100000 --lean --edits 0`).
+ * --browser: at the largest size up to 20,000 sites, the browser section in
+ * Debian's Chromium on the same database: the network diagram at 1440x900
+ * and 390x844 (scripts/bench-browser-diagram.ts), fault reach offline
+ * (scripts/bench-browser-offline.ts) and the first screen's script.
+ *
+ * The import's event-loop delay (`eventLoopP99Ms`, `eventLoopMaxMs`) is
+ * measured with perf_hooks.monitorEventLoopDelay while it runs: how long a
+ * request to the same process could have waited.
  *
  * Not part of npm test: targets are measured here, never in a timed test.
  */
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { loadConfig } from '@/server/config';
 import { openDatabase } from '@/server/db';
 import { importNetwork } from '@/server/services/importer';
@@ -28,6 +37,9 @@ import { ensureUser } from '@/server/services/users';
 import { benchEngine, percentile, round, type EngineBenchResult } from './bench-engine';
 import { benchOperations, describeOperations, type OperationsBenchResult } from './bench-operations';
 import { benchEdits, type EditsBenchResult } from './bench-edits';
+import { benchDiagram, BENCH_SIZES, type DiagramBenchResult } from './bench-browser-diagram';
+import { benchOfflineReach, type OfflineBenchResult } from './bench-browser-offline';
+import { ensureWebBuild } from './lib/webBuild';
 import { Prng } from './generator/prng';
 import { generateNetwork } from './generator';
 import { resolveDatabaseUrl } from './lib/postgres';
@@ -46,10 +58,14 @@ const seed = Number(arg('seed') ?? 7);
 const jsonFile = arg('json');
 const lean = process.argv.includes('--lean');
 const editsArg = arg('edits');
+const browserAt = process.argv.includes('--browser') ? Math.max(...sizes.filter((n) => n <= 20000)) : null;
+if (browserAt === -Infinity) throw new Error('--browser needs a size of at most 20,000 sites in --sizes');
 const editsFor = (sites: number) => (editsArg !== undefined ? Number(editsArg) : sites <= 20000 ? 60 : 0);
 
 interface SizeResult extends EngineBenchResult {
   importMs: number;
+  eventLoopP99Ms: number;
+  eventLoopMaxMs: number;
   loadFromDbMs: number;
   /** graph build from PostgreSQL: read every row, build graphs and precompute (what a rebuild after a change costs) */
   rebuildFromDbMs: number;
@@ -61,18 +77,64 @@ interface SizeResult extends EngineBenchResult {
   spofExposureFirstMs: number;
   operations: OperationsBenchResult | null;
   edits: EditsBenchResult | null;
+  browser: BrowserResult | null;
+}
+
+interface BrowserResult {
+  sites: number;
+  /** the worse of the two viewports */
+  diagramFirstDrawMs: number;
+  diagramFrameP95Ms: number;
+  overlayMs: number;
+  offlineReachP95Ms: number;
+  offlineEngineBuildMs: number;
+  diagram: Record<keyof typeof BENCH_SIZES, DiagramBenchResult>;
+  offline: OfflineBenchResult;
 }
 
 const peakRssMb = () => Math.round(process.resourceUsage().maxRSS / 1024);
 
-async function httpReach(databaseUrl: string, siteCodes: string[]): Promise<number[]> {
-  const password = crypto.randomBytes(12).toString('hex');
-  const config = loadConfig({ ...process.env, PORT: '0', DEMO: '0', WEB_DIR: '/nonexistent', JWT_SECRET: crypto.randomBytes(32).toString('hex') });
+/** A server on the bench database with one signed-up user; `web` serves the web export too. */
+async function benchServer<T>(databaseUrl: string, web: boolean, work: (base: string, user: { email: string; password: string }) => Promise<T>): Promise<T> {
+  const user = { email: 'bench@headwater.example', password: crypto.randomBytes(12).toString('hex') };
+  const config = loadConfig({ ...process.env, PORT: '0', DEMO: '0', ...(web ? {} : { WEB_DIR: '/nonexistent' }), JWT_SECRET: crypto.randomBytes(32).toString('hex') });
   const running = await startServer(databaseUrl, config);
   try {
-    await ensureUser('bench@headwater.example', password, 'operator', 'Benchmark');
-    const base = running.url.replace('localhost', '127.0.0.1');
-    const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'bench@headwater.example', password }) });
+    await ensureUser(user.email, user.password, 'operator', 'Benchmark');
+    return await work(running.url.replace('localhost', '127.0.0.1'), user);
+  } finally {
+    await running.close();
+  }
+}
+
+async function browserSection(databaseUrl: string, siteCodes: string[]): Promise<BrowserResult> {
+  const built = ensureWebBuild();
+  if (built.built) console.log(`  web app built in ${(built.ms / 1000).toFixed(1)} s`);
+  return benchServer(databaseUrl, true, async (base, user) => {
+    const diagram = {} as Record<keyof typeof BENCH_SIZES, DiagramBenchResult>;
+    for (const [name, size] of Object.entries(BENCH_SIZES) as [keyof typeof BENCH_SIZES, { width: number; height: number }][]) {
+      diagram[name] = await benchDiagram(base, user, size);
+      console.log(`  diagram ${name}: first draw ${diagram[name].diagramFirstDrawMs} ms, frames p95 ${diagram[name].diagramFrameP95Ms} ms, overlay ${diagram[name].overlayMs} ms`);
+    }
+    const offline = await benchOfflineReach(base, user, siteCodes, { seed });
+    console.log(`  offline: engine built ${offline.offlineEngineBuildMs} ms, reach p95 ${offline.offlineReachP95Ms} ms, first answer ${offline.offlineFirstAnswerMs} ms`);
+    const worst = (k: 'diagramFirstDrawMs' | 'diagramFrameP95Ms' | 'overlayMs') => Math.max(diagram.wide[k], diagram.phone[k]);
+    return {
+      sites: siteCodes.length,
+      diagramFirstDrawMs: worst('diagramFirstDrawMs'),
+      diagramFrameP95Ms: worst('diagramFrameP95Ms'),
+      overlayMs: worst('overlayMs'),
+      offlineReachP95Ms: offline.offlineReachP95Ms,
+      offlineEngineBuildMs: offline.offlineEngineBuildMs,
+      diagram,
+      offline,
+    };
+  });
+}
+
+async function httpReach(databaseUrl: string, siteCodes: string[]): Promise<number[]> {
+  return benchServer(databaseUrl, false, async (base, user) => {
+    const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(user) });
     const { token } = (await login.json()) as { token: string };
     const headers = { 'content-type': 'application/json', authorization: `Bearer ${token}` };
     const times: number[] = [];
@@ -85,9 +147,7 @@ async function httpReach(databaseUrl: string, siteCodes: string[]): Promise<numb
       if (i >= 10) times.push(performance.now() - t0); // the first ten warm up the connection and the JIT
     }
     return times;
-  } finally {
-    await running.close();
-  }
+  });
 }
 
 async function benchSize(sites: number): Promise<SizeResult> {
@@ -97,11 +157,16 @@ async function benchSize(sites: number): Promise<SizeResult> {
   const db = openDatabase(url);
   try {
     await db.migrate();
+    const loop = monitorEventLoopDelay({ resolution: 10 });
+    loop.enable();
     let t = performance.now();
     const report = await importNetwork(db, doc, { actor: { email: 'bench' } });
     const importMs = performance.now() - t;
+    loop.disable();
+    const eventLoopP99Ms = round(loop.percentile(99) / 1e6);
+    const eventLoopMaxMs = round(loop.max / 1e6);
     if (!report.ok) throw new Error(`generated network did not import: ${report.errors.slice(0, 3).map((e) => e.message).join('; ')}`);
-    console.log(`  import ${(importMs / 1000).toFixed(2)} s`);
+    console.log(`  import ${(importMs / 1000).toFixed(2)} s (event loop delay p99 ${eventLoopP99Ms} ms, longest ${eventLoopMaxMs} ms)`);
 
     t = performance.now();
     const { document, version } = await loadNetworkDocument(db.sequelize);
@@ -126,12 +191,15 @@ async function benchSize(sites: number): Promise<SizeResult> {
     const http = await httpReach(url, codes);
     const editCount = editsFor(sites);
     const edits = editCount > 0 ? await benchEdits(url, document, { edits: editCount, seed }) : null;
+    const browser = sites === browserAt ? await browserSection(url, document.sites.map((s) => s.code)) : null;
     if (edits) console.log(`  edit visible in a second process: p50 ${edits.editVisibleP50Ms} ms, p95 ${edits.editVisibleP95Ms} ms (edit answered p95 ${edits.editAckP95Ms} ms)`);
     const result: SizeResult = {
       ...engine,
       engineBuildMs: engine.buildMs,
       buildMs: round(rebuildFromDbMs),
       importMs: round(importMs),
+      eventLoopP99Ms,
+      eventLoopMaxMs,
       loadFromDbMs: round(loadFromDbMs),
       rebuildFromDbMs: round(rebuildFromDbMs),
       httpReachP50Ms: round(percentile(http, 50)),
@@ -140,6 +208,7 @@ async function benchSize(sites: number): Promise<SizeResult> {
       spofExposureFirstMs: round(spofExposureFirstMs),
       operations,
       edits,
+      browser,
     };
     console.log(`  HTTP reach p95 ${result.httpReachP95Ms} ms; peak RSS so far ${result.rssMb} MB`);
     return result;
@@ -153,6 +222,7 @@ function table(results: SizeResult[]) {
     ['sites', (r) => r.sites.toLocaleString('en')],
     ['graph nodes / edges', (r) => `${r.nodes.toLocaleString('en')} / ${r.edges.toLocaleString('en')}`],
     ['import (s)', (r) => (r.importMs / 1000).toFixed(2)],
+    ['  event loop delay during it p99 / max (ms)', (r) => `${r.eventLoopP99Ms.toFixed(0)} / ${r.eventLoopMaxMs.toFixed(0)}`],
     ['rebuild from PostgreSQL (ms)', (r) => r.buildMs.toFixed(0)],
     ['engine build alone, from the document (ms)', (r) => r.engineBuildMs.toFixed(0)],
     ['reach one site p50 / p95 (ms)', (r) => `${r.reachOneP50Ms.toFixed(3)} / ${r.reachOneP95Ms.toFixed(3)}`],
@@ -171,6 +241,11 @@ function table(results: SizeResult[]) {
     ['clashes, 500 works: whole set (ms)', (r) => (r.operations ? r.operations.wholeSetMs.toFixed(0) : 'n/a')],
     ['clashes of one work p95, cold (ms)', (r) => (r.operations ? r.operations.oneWorkColdP95Ms.toFixed(2) : 'n/a')],
     ['peak RSS (MB)', (r) => String(r.rssMb)],
+    ['browser: diagram first draw (ms)', (r) => (r.browser ? r.browser.diagramFirstDrawMs.toFixed(0) : 'n/a')],
+    ['browser: diagram frames p95 (ms)', (r) => (r.browser ? r.browser.diagramFrameP95Ms.toFixed(1) : 'n/a')],
+    ['browser: failure overlay (ms)', (r) => (r.browser ? r.browser.overlayMs.toFixed(0) : 'n/a')],
+    ['browser: offline engine build (ms)', (r) => (r.browser ? r.browser.offlineEngineBuildMs.toFixed(0) : 'n/a')],
+    ['browser: offline reach p95 (ms)', (r) => (r.browser ? r.browser.offlineReachP95Ms.toFixed(2) : 'n/a')],
   ];
   const w0 = Math.max(...rows.map(([k]) => k.length));
   const cols = results.map((r) => rows.map(([, f]) => f(r)));
@@ -197,6 +272,8 @@ function table(results: SizeResult[]) {
         buildMs: r.buildMs,
         engineBuildMs: r.engineBuildMs,
         importMs: r.importMs,
+        eventLoopP99Ms: r.eventLoopP99Ms,
+        eventLoopMaxMs: r.eventLoopMaxMs,
         reachOneP50Ms: r.reachOneP50Ms,
         reachOneP95Ms: r.reachOneP95Ms,
         reachMultiP95Ms: r.reachMultiP95Ms,
@@ -214,6 +291,7 @@ function table(results: SizeResult[]) {
         ...(r.edits ? { editVisibleP95Ms: r.edits.editVisibleP95Ms, edits: r.edits } : {}),
         operations: r.operations,
       })),
+      browser: results.find((r) => r.browser)?.browser ?? null,
     };
     fs.writeFileSync(jsonFile, JSON.stringify(out, null, 2) + '\n');
     console.log(`\nwrote ${jsonFile}`);

@@ -7,7 +7,8 @@ import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import type { Role } from '@/shared/api';
 import { DEMO_USERS } from '@/scripts/start';
-import { RECORD_DRAWINGS_SCRIPT } from '@/src/screens/network/testHooks';
+import { COPY_LOCATION } from '@/src/offline/location';
+import { RECORD_SCRIPT } from '@/src/testHooks';
 
 export const ARTIFACTS = path.resolve(__dirname, '..', '..', 'artifacts', 'e2e');
 export const PHONE = { width: 390, height: 844 };
@@ -40,8 +41,8 @@ export interface WatchedPage {
 
 export async function openPage(browser: Browser, size: { width: number; height: number }): Promise<WatchedPage> {
   const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
-  // The network drawings keep their records for the tests (src/screens/network/testHooks.ts).
-  await context.addInitScript(RECORD_DRAWINGS_SCRIPT);
+  // The network drawings keep their records for the tests (src/testHooks.ts).
+  await context.addInitScript(RECORD_SCRIPT);
   const page = await context.newPage();
   const errors: string[] = [];
   const external: string[] = [];
@@ -67,11 +68,49 @@ export const demoUser = (role: Role) => {
 
 export async function signIn(page: Page, role: Role) {
   const u = demoUser(role);
-  await page.goto(`${baseUrl()}/sign-in`);
-  await page.getByLabel('Email').fill(u.email);
-  await page.getByLabel('Password').fill(u.password);
+  await signInWith(page, baseUrl(), u.email, u.password);
+}
+
+/** Signs in through the form (also used by the browser benchmarks, which run their own server). */
+export async function signInWith(page: Page, base: string, email: string, password: string) {
+  await page.goto(`${base}/sign-in`);
+  await page.getByLabel('Email').fill(email);
+  await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 20_000 });
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+}
+
+/** The offline copy as the page's IndexedDB holds it: its version and site count (null when there is none). */
+export function storedCopy(page: Page): Promise<{ networkVersion: number; sites: number } | null> {
+  return page.evaluate(
+    ({ database, store, key }) =>
+      new Promise((resolve, reject) => {
+        const open = indexedDB.open(database);
+        // Never create the database here: one made before the app's own would lack its store.
+        open.onupgradeneeded = () => open.transaction?.abort();
+        open.onerror = () => resolve(null);
+        open.onsuccess = () => {
+          const db = open.result;
+          if (!db.objectStoreNames.contains(store)) {
+            db.close();
+            return resolve(null);
+          }
+          const get = db.transaction(store).objectStore(store).get(key);
+          get.onsuccess = () => {
+            const v = get.result as { networkVersion: number; document: { sites: unknown[] } } | undefined;
+            db.close();
+            resolve(v ? { networkVersion: v.networkVersion, sites: v.document?.sites?.length ?? -1 } : null);
+          };
+          get.onerror = () => reject(get.error);
+        };
+      }),
+    COPY_LOCATION,
+  );
+}
+
+/** Waits until the page's service worker controls it (the app shell is cached). */
+export async function waitForWorker(page: Page) {
+  await page.waitForFunction(() => navigator.serviceWorker?.controller != null, undefined, { timeout: 60_000 });
 }
 
 export async function shot(page: Page, name: string) {

@@ -11,7 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import type { ReachAnswer } from '@/shared/schemas/analysis';
 import { COPY_LOCATION } from '@/src/offline/location';
-import { apiGet, apiToken, baseUrl, digits, launch, openPage, shot, signIn, SIZES } from './browser';
+import { apiGet, apiToken, baseUrl, digits, launch, openPage, shot, signIn, SIZES, storedCopy, waitForWorker } from './browser';
 
 let browser: Browser;
 let demo: NetworkDocument;
@@ -32,40 +32,8 @@ async function apiReach(failed: { kind: string; code: string }[]): Promise<Reach
   return (await r.json()) as ReachAnswer;
 }
 
-/** The stored copy as the page's IndexedDB holds it (null when there is none). */
-function storedCopy(page: Page): Promise<{ networkVersion: number; sites: number } | null> {
-  return page.evaluate(
-    ({ database, store, key }) =>
-      new Promise((resolve, reject) => {
-        const open = indexedDB.open(database);
-        // Never create the database here: one made before the app's own would lack its store.
-        open.onupgradeneeded = () => open.transaction?.abort();
-        open.onerror = () => resolve(null);
-        open.onsuccess = () => {
-          const db = open.result;
-          if (!db.objectStoreNames.contains(store)) {
-            db.close();
-            return resolve(null);
-          }
-          const get = db.transaction(store).objectStore(store).get(key);
-          get.onsuccess = () => {
-            const v = get.result as { networkVersion: number; document: { sites: unknown[] } } | undefined;
-            db.close();
-            resolve(v ? { networkVersion: v.networkVersion, sites: v.document?.sites?.length ?? -1 } : null);
-          };
-          get.onerror = () => reject(get.error);
-        };
-      }),
-    COPY_LOCATION,
-  );
-}
-
 async function waitForCopy(page: Page) {
   await expect.poll(() => storedCopy(page), { timeout: 60_000, interval: 500 }).toEqual({ networkVersion: version, sites: demo.sites.length });
-}
-
-async function waitForWorker(page: Page) {
-  await page.waitForFunction(() => navigator.serviceWorker?.controller != null, undefined, { timeout: 60_000 });
 }
 
 describe.each(Object.entries(SIZES))('offline fault reach at %s size', (sizeName, size) => {

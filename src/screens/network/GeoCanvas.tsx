@@ -2,7 +2,7 @@
  * The geographic diagram on a <canvas> (web): tens of thousands of SVG nodes
  * would stall a phone, one canvas redrawn from a frame plan does not. Draws
  * at most once per animation frame, at the device's pixel ratio. When the
- * page records (./testHooks.ts), each draw's time and what it drew are kept
+ * page records (src/testHooks.ts), each draw's time and what it drew are kept
  * on window.__headwaterDiagram for the browser benchmark and tests.
  */
 import { useEffect, useMemo, useRef } from 'react';
@@ -11,7 +11,7 @@ import type { DiagramModel } from './diagramModel';
 import { planFrame, type FramePlan, type Status } from './framePlan';
 import type { LodIndex } from './lod';
 import { canvasMeasure, paintGeo } from './paintGeo';
-import { recording } from './testHooks';
+import { recording } from '@/src/testHooks';
 import type { View } from './viewport';
 
 export interface DrawRecord {

@@ -20,7 +20,7 @@ import type { SiteStatus } from './diagramModel';
 import { SvgOff, SvgReserve, SvgRole } from './diagramMarks';
 import { crossShape, halfShape, ringShape, siteShape } from './diagramPaths';
 import { FAIL_MARK, ROLE_PAINT_ORDER } from './markStyle';
-import { recording } from './testHooks';
+import { recording } from '@/src/testHooks';
 import { branchMarks, buildSchematic, layoutSchematic, ROW_PX, ROW_TEXT_PX } from './schematicModel';
 
 const PAD = 16;
