@@ -54,6 +54,14 @@ describe.each(Object.entries(SIZES))('offline fault reach at %s size', (sizeName
     expect(digits(await page.getByTestId('reach-lost-count').textContent())).toBe(expected.lost.length);
     expect(digits(await page.getByTestId('reach-households-lost').textContent())).toBe(expected.households.lost);
     expect(digits(await page.getByTestId('reach-fallback-count').textContent())).toBe(expected.fallback.length);
+    // the benchmark's record of the engine built from the copy (src/offline/localEngine.ts)
+    const record = await page.evaluate((code) => {
+      const h = window.__headwaterOffline;
+      return h && { sites: h.sites, networkVersion: h.networkVersion, buildMs: h.buildMs, reachMs: h.timeReach([{ kind: 'site', code }]) };
+    }, origin.code);
+    expect(record).toMatchObject({ sites: demo.sites.length, networkVersion: version });
+    expect(record!.buildMs).toBeGreaterThan(0);
+    expect(record!.reachMs).toBeGreaterThanOrEqual(0);
     await shot(page, `offline-reach-${sizeName}`);
 
     await page.context().close();
