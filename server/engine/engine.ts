@@ -58,8 +58,7 @@ export interface EngineTimings extends BuildTimings {
 }
 
 /** What the engine computes for every carriage and element, on first use. */
-interface Analysis {
-  resilience: Resilience;
+interface Diversity {
   /** carriages with a diversity gap -> their avoidable weak points (element ids) */
   gaps: Map<number, number[]>;
   diversityAnswer: DiversityAnswer;
@@ -100,7 +99,8 @@ export class NetworkEngine {
   private readonly staticFallback: Int32Array;
   private readonly scratch: ReachScratch;
   private readonly unfedAnswer: UnfedAnswer;
-  private analysed: Analysis | null = null;
+  private resilienceHeld: Resilience | null = null;
+  private diversityHeld: Diversity | null = null;
   /** per kinds mask (kindMask): single points of failure of every fed carriage, kept once asked */
   private readonly spofAnswers = new Map<number, SpofAnswer>();
   private readonly exposureRows = new Map<number, ExposureRow[]>();
@@ -133,20 +133,27 @@ export class NetworkEngine {
   }
 
   /**
-   * Single points of failure, exposure and diversity of every carriage and
-   * element: computed on first use rather than in `build`, so an edit's
-   * update (`NetworkEngine.update`) puts reach and chains on the new network
-   * at once and the network-wide answers follow when first asked for.
+   * Single points of failure and exposure of every carriage and element, and
+   * apart from them the diversity gaps: each computed on first use rather
+   * than in `build`, so an edit's update (`NetworkEngine.update`) puts reach
+   * and chains on the new network at once and the network-wide answers follow
+   * when first asked for; asking for weak points does not pay for diversity.
    */
-  private get analysis(): Analysis {
-    if (this.analysed) return this.analysed;
+  private get resilience(): Resilience {
+    if (this.resilienceHeld) return this.resilienceHeld;
+    const t = performance.now();
+    this.resilienceHeld = computeResilience(this.core);
+    this.timings.resilienceMs = performance.now() - t;
+    this.timings.totalMs += this.timings.resilienceMs;
+    return this.resilienceHeld;
+  }
+
+  private get diversityState(): Diversity {
+    if (this.diversityHeld) return this.diversityHeld;
+    const { spofOffsets, spofElements } = this.resilience;
+    const t = performance.now();
     const { core, networkVersion } = this;
     const { model, fed } = core;
-    let t = performance.now();
-    const resilience = computeResilience(core);
-    const resilienceMs = performance.now() - t;
-    t = performance.now();
-    const { spofOffsets, spofElements } = resilience;
     const unavoidable = unavoidableByService(core);
     const gaps = new Map<number, number[]>();
     // Diversity and proposals speak of sites, feeds and groups: a parent transmitter that is a weak point comes with its site.
@@ -161,12 +168,10 @@ export class NetworkEngine {
       gaps.set(c, avoidable);
       diversityRows.push({ ...this.placed(c), spof: Array.from(spofIds, (x) => model.elements[x]), avoidable: avoidable.map((x) => model.elements[x]) });
     }
-    const answersMs = performance.now() - t;
-    this.timings.resilienceMs = resilienceMs;
-    this.timings.answersMs = answersMs;
-    this.timings.totalMs += resilienceMs + answersMs;
-    this.analysed = { resilience, gaps, diversityAnswer: { networkVersion, carriages: diversityRows } };
-    return this.analysed;
+    this.timings.answersMs = performance.now() - t;
+    this.timings.totalMs += this.timings.answersMs;
+    this.diversityHeld = { gaps, diversityAnswer: { networkVersion, carriages: diversityRows } };
+    return this.diversityHeld;
   }
 
   static build(doc: NetworkDocument, networkVersion: number): NetworkEngine {
@@ -287,7 +292,7 @@ export class NetworkEngine {
 
   private spofFor(mask: number): SpofAnswer {
     const { model, fed } = this.core;
-    const { spofOffsets, spofElements } = this.analysis.resilience;
+    const { spofOffsets, spofElements } = this.resilience;
     const wanted = (x: number) => (KIND_BIT[model.elements[x].kind] & mask) !== 0;
     const carriages: SpofAnswer['carriages'] = [];
     for (let c = 0; c < model.carriages.length; c++) {
@@ -305,7 +310,7 @@ export class NetworkEngine {
     const mask = kindMask(kinds);
     let rows = this.exposureRows.get(mask);
     if (!rows) {
-      const { exposureHouseholds, exposureCarriages } = this.analysis.resilience;
+      const { exposureHouseholds, exposureCarriages } = this.resilience;
       const { elements } = this.core.model;
       rows = this.rankedOf(mask).map((x) => ({ element: elements[x], households: exposureHouseholds[x], carriages: exposureCarriages[x] }));
       this.exposureRows.set(mask, rows);
@@ -316,7 +321,7 @@ export class NetworkEngine {
   /** Element ids of the kinds in `mask`, highest exposure first (rule 7). */
   private rankedOf(mask: number): number[] {
     const { elements } = this.core.model;
-    return Array.from(this.analysis.resilience.ranked).filter((x) => (KIND_BIT[elements[x].kind] & mask) !== 0);
+    return Array.from(this.resilience.ranked).filter((x) => (KIND_BIT[elements[x].kind] & mask) !== 0);
   }
 
   /**
@@ -328,14 +333,14 @@ export class NetworkEngine {
     const mask = kindMask(kinds);
     let rows = this.exposureGroupRows.get(mask);
     if (!rows) {
-      const { exposureHouseholds, exposureCarriages } = this.analysis.resilience;
+      const { exposureHouseholds, exposureCarriages } = this.resilience;
       this.exposureGroupRows.set(mask, (rows = groupExposure(this.core, this.rankedOf(mask), exposureHouseholds, exposureCarriages)));
     }
     return { networkVersion: this.networkVersion, groups: firstRows(rows, limit) };
   }
 
   diversity(): DiversityAnswer {
-    return this.analysis.diversityAnswer;
+    return this.diversityState.diversityAnswer;
   }
 
   unfed(): UnfedAnswer {
@@ -355,12 +360,12 @@ export class NetworkEngine {
     if (opts.carriage !== undefined) {
       const c = this.core.model.carriageIndex.get(normaliseCode(opts.carriage));
       if (c === undefined) throw new UnknownCarriageError(normaliseCode(opts.carriage));
-      const avoidable = this.analysis.gaps.get(c);
+      const avoidable = this.diversityState.gaps.get(c);
       rows = avoidable ? proposalsFor(this.proposalCtx, c, avoidable) : [];
     } else {
       const held = this.bestProposals;
       if (!held || (!held.complete && (limit === undefined || held.rows.length < limit))) {
-        const ranked = bestOverNetwork(this.proposalCtx, this.analysis.gaps, limit);
+        const ranked = bestOverNetwork(this.proposalCtx, this.diversityState.gaps, limit);
         this.bestProposals = { rows: ranked, complete: limit === undefined || ranked.length < limit };
       }
       rows = this.bestProposals!.rows;
