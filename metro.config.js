@@ -14,4 +14,18 @@ const own = (dir) => new RegExp('^' + escapeRegExp(path.join(__dirname, dir)) + 
 // whole); of its files only carriageSearch.ts is let through.
 const serverExceptShared = new RegExp('^' + escapeRegExp(path.join(__dirname, 'server')) + '\\/(?!(?:engine|checks)(?:\\/|$)|services(?:\\/carriageSearch\\.ts)?$).*');
 config.resolver.blockList = [serverExceptShared, ...['scripts', 'test', '.data', 'artifacts', 'dist'].map(own)];
+
+// Parts of packages that no screen uses, swapped inside those packages for the
+// small stand-ins in src/bundle/ (its README says why each one can go).
+const zodDir = path.join(__dirname, 'node_modules', 'zod') + path.sep;
+const standIns = [
+  { from: zodDir, request: /(^|\/)locales\/index(\.js)?$/, file: 'src/bundle/zodLocales.js' },
+  { from: zodDir, request: /(^|\/)from-json-schema(\.js)?$/, file: 'src/bundle/zodFromJsonSchema.js' },
+];
+config.resolver.resolveRequest = (context, moduleName, platform) => {
+  const origin = context.originModulePath;
+  const standIn = standIns.find((s) => origin.startsWith(s.from) && s.request.test(moduleName));
+  if (standIn) return { type: 'sourceFile', filePath: path.join(__dirname, standIn.file) };
+  return context.resolveRequest(context, moduleName, platform);
+};
 module.exports = config;

@@ -1,4 +1,6 @@
-import { AvailabilityScreen } from '@/src/screens/operations/AvailabilityScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const AvailabilityScreen = deferredScreen((s) => s.AvailabilityScreen);
 
 export default function AvailabilityRoute() {
   return <AvailabilityScreen />;

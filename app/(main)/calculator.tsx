@@ -1,4 +1,6 @@
-import { CalculatorScreen } from '@/src/screens/checks/calculator/CalculatorScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const CalculatorScreen = deferredScreen((s) => s.CalculatorScreen);
 
 export default function CalculatorRoute() {
   return <CalculatorScreen />;

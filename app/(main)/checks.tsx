@@ -1,8 +1,9 @@
-import { router, useLocalSearchParams } from 'expo-router';
-import { filterParams, readFilter } from '@/src/screens/checks/failureList';
-import { ChecksScreen } from '@/src/screens/checks/ChecksScreen';
+import { useLocalSearchParams } from 'expo-router';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const ChecksScreen = deferredScreen((s) => s.ChecksRouteScreen);
 
 export default function ChecksRoute() {
   const params = useLocalSearchParams<{ severity?: string; check?: string }>();
-  return <ChecksScreen filter={readFilter(params)} onFilter={(next) => router.setParams(filterParams(next))} />;
+  return <ChecksScreen params={params} />;
 }

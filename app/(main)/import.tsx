@@ -1,4 +1,6 @@
-import { ImportScreen } from '@/src/screens/importer/ImportScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const ImportScreen = deferredScreen((s) => s.ImportScreen);
 
 export default function ImportRoute() {
   return <ImportScreen />;

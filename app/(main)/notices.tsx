@@ -1,4 +1,6 @@
-import { MyNoticesScreen } from '@/src/screens/notices/MyNoticesScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const MyNoticesScreen = deferredScreen((s) => s.MyNoticesScreen);
 
 export default function MyNoticesRoute() {
   return <MyNoticesScreen />;

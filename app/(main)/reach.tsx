@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { ReachScreen } from '@/src/screens/reach/ReachScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const ReachScreen = deferredScreen((s) => s.ReachScreen);
 
 export default function ReachRoute() {
   const { fail } = useLocalSearchParams<{ fail?: string | string[] }>();

@@ -1,4 +1,6 @@
-import { ResilienceScreen } from '@/src/screens/resilience/ResilienceScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const ResilienceScreen = deferredScreen((s) => s.ResilienceScreen);
 
 export default function ResilienceRoute() {
   return <ResilienceScreen />;

@@ -1,4 +1,6 @@
-import { AuditScreen } from '@/src/screens/audit/AuditScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const AuditScreen = deferredScreen((s) => s.AuditScreen);
 
 export default function AuditRoute() {
   return <AuditScreen />;

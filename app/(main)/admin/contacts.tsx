@@ -1,4 +1,6 @@
-import { ContactsScreen } from '@/src/screens/notices/ContactsScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const ContactsScreen = deferredScreen((s) => s.ContactsScreen);
 
 export default function ContactsRoute() {
   return <ContactsScreen />;

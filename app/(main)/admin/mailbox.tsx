@@ -1,4 +1,6 @@
-import { MailboxScreen } from '@/src/screens/notices/MailboxScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const MailboxScreen = deferredScreen((s) => s.MailboxScreen);
 
 export default function MailboxRoute() {
   return <MailboxScreen />;

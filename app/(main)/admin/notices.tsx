@@ -1,4 +1,6 @@
-import { NoticesAdminScreen } from '@/src/screens/notices/NoticesAdminScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const NoticesAdminScreen = deferredScreen((s) => s.NoticesAdminScreen);
 
 export default function NoticesAdminRoute() {
   return <NoticesAdminScreen />;

@@ -1,4 +1,6 @@
-import { PeopleScreen } from '@/src/screens/people/PeopleScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const PeopleScreen = deferredScreen((s) => s.PeopleScreen);
 
 export default function PeopleRoute() {
   return <PeopleScreen />;

@@ -1,9 +1,9 @@
 import { useLocalSearchParams } from 'expo-router';
-import { CarriageChainScreen } from '@/src/screens/chain/CarriageChainScreen';
-import { CarriageEditScreen, useCarriageEditing } from '@/src/screens/inventory/details/CarriageRecord';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const CarriageScreen = deferredScreen((s) => s.CarriageScreen);
 
 export default function CarriageRoute() {
   const { code, direction } = useLocalSearchParams<{ code: string; direction?: string }>();
-  if (useCarriageEditing()) return <CarriageEditScreen code={String(code)} />;
-  return <CarriageChainScreen code={String(code)} direction={direction === 'down' ? 'down' : 'up'} />;
+  return <CarriageScreen code={String(code)} direction={direction === 'down' ? 'down' : 'up'} />;
 }

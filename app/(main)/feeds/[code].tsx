@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { FeedDetailScreen } from '@/src/screens/inventory/details/FeedDetailScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const FeedDetailScreen = deferredScreen((s) => s.FeedDetailScreen);
 
 export default function FeedRoute() {
   const { code } = useLocalSearchParams<{ code: string }>();

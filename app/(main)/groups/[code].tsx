@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { GroupDetailScreen } from '@/src/screens/inventory/details/GroupDetailScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const GroupDetailScreen = deferredScreen((s) => s.GroupDetailScreen);
 
 export default function GroupRoute() {
   const { code } = useLocalSearchParams<{ code: string }>();

@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { IncidentDetailScreen } from '@/src/screens/operations/IncidentDetailScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const IncidentDetailScreen = deferredScreen((s) => s.IncidentDetailScreen);
 
 export default function IncidentRoute() {
   const { code } = useLocalSearchParams<{ code: string }>();

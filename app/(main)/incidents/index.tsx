@@ -1,4 +1,6 @@
-import { IncidentsScreen } from '@/src/screens/operations/IncidentsScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const IncidentsScreen = deferredScreen((s) => s.IncidentsScreen);
 
 export default function IncidentsRoute() {
   return <IncidentsScreen />;

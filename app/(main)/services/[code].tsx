@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { ServiceDetailScreen } from '@/src/screens/inventory/details/ServiceDetailScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const ServiceDetailScreen = deferredScreen((s) => s.ServiceDetailScreen);
 
 export default function ServiceRoute() {
   const { code } = useLocalSearchParams<{ code: string }>();

@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { SiteDetailScreen } from '@/src/screens/inventory/details/SiteDetailScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const SiteDetailScreen = deferredScreen((s) => s.SiteDetailScreen);
 
 export default function SiteRoute() {
   const { code } = useLocalSearchParams<{ code: string }>();

@@ -1,4 +1,6 @@
-import { InventoryListScreen } from '@/src/screens/inventory/InventoryListScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const InventoryListScreen = deferredScreen((s) => s.InventoryListScreen);
 
 export default function SitesListRoute() {
   return <InventoryListScreen kind="sites" />;

@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { WorkDetailScreen } from '@/src/screens/operations/WorkDetailScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const WorkDetailScreen = deferredScreen((s) => s.WorkDetailScreen);
 
 export default function WorkRoute() {
   const { code } = useLocalSearchParams<{ code: string }>();

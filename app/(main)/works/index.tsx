@@ -1,4 +1,6 @@
-import { WorksScreen } from '@/src/screens/operations/WorksScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const WorksScreen = deferredScreen((s) => s.WorksScreen);
 
 export default function WorksRoute() {
   return <WorksScreen />;

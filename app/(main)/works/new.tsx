@@ -1,4 +1,6 @@
-import { WorkFormScreen } from '@/src/screens/operations/WorkFormScreen';
+import { deferredScreen } from '@/src/screens/deferredRoute';
+
+const WorkFormScreen = deferredScreen((s) => s.WorkFormScreen);
 
 export default function NewWorkRoute() {
   return <WorkFormScreen />;

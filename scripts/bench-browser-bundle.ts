@@ -1,0 +1,151 @@
+/**
+ * Browser benchmark of the first screen's script: the JavaScript a visitor's
+ * browser fetches to show the sign-in screen and then, once signed in, the
+ * home screen (target <= 350 kB compressed). Counted per script both as the
+ * bytes the server sent (its compression middleware, from the browser's
+ * transfer sizes) and as gzip level 6 of the script (the same whatever the
+ * server does); `firstScreenScriptKb` is the larger of the two totals, in kB
+ * of 1,000 bytes. Service workers are blocked so every script comes over the
+ * network, as on a first visit. A benchmark, not a test.
+ *
+ *   npx tsx scripts/bench-browser-bundle.ts [--out FILE]          # own server on the demo network
+ *   npx tsx scripts/bench-browser-bundle.ts --as-built [--out FILE]  # the export in dist/web as it is
+ *   npx tsx scripts/bench-browser-bundle.ts --base http://127.0.0.1:P [--out FILE]
+ *
+ * scripts/bench.ts calls measureFirstScreenScript(baseUrl) on its own server.
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import zlib from 'node:zlib';
+import { chromium, type Page, type Response } from 'playwright-core';
+import { loadConfig } from '@/server/config';
+import { startServer } from '@/server/server';
+import { resolveDatabaseUrl, REPO_ROOT } from './lib/postgres';
+import { ensureWebBuild } from './lib/webBuild';
+import { DEMO_USERS, loadDemo } from './start';
+
+export const FIRST_SCREEN_TARGET_KB = 350;
+const PHONE = { width: 390, height: 844 };
+
+export interface ScriptLoad {
+  /** path of the script on the server */
+  path: string;
+  /** the screen whose loading fetched it first */
+  screen: 'sign-in' | 'home';
+  rawBytes: number;
+  /** body bytes as sent (Content-Encoding of the server) */
+  sentBytes: number;
+  encoding: string;
+  gzip6Bytes: number;
+}
+
+export interface FirstScreenScript {
+  firstScreenScriptKb: number;
+  signInScriptKb: number;
+  targetKb: number;
+  ok: boolean;
+  scripts: ScriptLoad[];
+}
+
+const kb = (bytes: number) => Math.round(bytes / 100) / 10;
+
+/** Signs in as `user` at `baseUrl` in a fresh browser and sums the scripts fetched on the way to the home screen. */
+export async function measureFirstScreenScript(baseUrl: string, user = DEMO_USERS.find((u) => u.role === 'engineer')!): Promise<FirstScreenScript> {
+  const browser = await chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'],
+  });
+  const scripts: ScriptLoad[] = [];
+  const pending: Promise<void>[] = [];
+  let screen: ScriptLoad['screen'] = 'sign-in';
+  try {
+    const context = await browser.newContext({ viewport: PHONE, deviceScaleFactor: 1, serviceWorkers: 'block' });
+    const page = await context.newPage();
+    page.on('response', (r) => {
+      if (new URL(r.url()).pathname.endsWith('.js')) pending.push(record(r, screen).then((s) => void scripts.push(s)));
+    });
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByLabel('Email').waitFor({ timeout: 30_000 });
+    await settle(page);
+    screen = 'home';
+    await page.getByLabel('Email').fill(user.email);
+    await page.getByLabel('Password').fill(user.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((u) => u.pathname === '/', { timeout: 30_000 });
+    await page.getByRole('heading').first().waitFor({ timeout: 30_000 });
+    await settle(page);
+    await Promise.all(pending);
+  } finally {
+    await browser.close();
+  }
+  const total = (which: ScriptLoad[]) => Math.max(sum(which.map((s) => s.sentBytes)), sum(which.map((s) => s.gzip6Bytes)));
+  const firstScreenScriptKb = kb(total(scripts));
+  return {
+    firstScreenScriptKb,
+    signInScriptKb: kb(total(scripts.filter((s) => s.screen === 'sign-in'))),
+    targetKb: FIRST_SCREEN_TARGET_KB,
+    ok: firstScreenScriptKb <= FIRST_SCREEN_TARGET_KB,
+    scripts: scripts.sort((a, b) => b.gzip6Bytes - a.gzip6Bytes),
+  };
+}
+
+const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
+
+async function record(r: Response, screen: ScriptLoad['screen']): Promise<ScriptLoad> {
+  const body = await r.body();
+  const sizes = await r.request().sizes();
+  return {
+    path: new URL(r.url()).pathname,
+    screen,
+    rawBytes: body.length,
+    sentBytes: sizes.responseBodySize,
+    encoding: (await r.headerValue('content-encoding')) ?? 'identity',
+    gzip6Bytes: zlib.gzipSync(body, { level: 6 }).length,
+  };
+}
+
+/** Waits until no request has been made for half a second (route chunks load after the first paint). */
+async function settle(page: Page): Promise<void> {
+  await page.waitForLoadState('networkidle', { timeout: 30_000 }).catch(() => undefined);
+  await page.waitForTimeout(500);
+}
+
+function arg(name: string): string | undefined {
+  const i = process.argv.indexOf(`--${name}`);
+  return i >= 0 ? process.argv[i + 1] : undefined;
+}
+
+async function main() {
+  const given = arg('base');
+  let close = async () => undefined as void;
+  let base = given;
+  if (!base) {
+    if (!process.argv.includes('--as-built')) ensureWebBuild();
+    const { url } = await resolveDatabaseUrl('headwater_bench_bundle', { fresh: true });
+    await loadDemo(url, () => undefined);
+    const running = await startServer(url, loadConfig({ ...process.env, PORT: '0', DEMO: '1', SMTP_URL: undefined, S3_ENDPOINT: undefined, DATA_DIR: path.join(os.tmpdir(), `headwater-bench-bundle-${process.pid}`) }));
+    base = running.url.replace('localhost', '127.0.0.1');
+    close = () => running.close();
+  }
+  try {
+    const result = await measureFirstScreenScript(base);
+    for (const s of result.scripts) console.log(`${s.screen.padEnd(8)} ${String(s.sentBytes).padStart(8)} B sent (${s.encoding}), ${String(s.gzip6Bytes).padStart(8)} B gzip -6  ${s.path}`);
+    console.log(`first screen: ${result.firstScreenScriptKb} kB of script (sign-in alone ${result.signInScriptKb} kB; target <= ${result.targetKb} kB)`);
+    const out = arg('out');
+    if (out) {
+      fs.writeFileSync(out, JSON.stringify({ when: new Date().toISOString(), ...result }, null, 2) + '\n');
+      console.log(`Written ${path.relative(REPO_ROOT, path.resolve(out))}`);
+    }
+  } finally {
+    await close();
+  }
+}
+
+if (require.main === module) {
+  main().catch((e) => {
+    console.error(e);
+    process.exit(1);
+  });
+}

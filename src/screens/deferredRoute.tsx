@@ -1,0 +1,28 @@
+/**
+ * A route's screen taken from the deferred chunk (deferred.tsx): the route
+ * file stays a few lines, and its script is fetched the first time any of
+ * those screens opens (the service worker keeps it for offline use).
+ */
+import { lazy, Suspense, type ComponentType } from 'react';
+import { LoadingState } from '@/src/components/states';
+
+type Deferred = typeof import('./deferred');
+
+// One promise for the chunk, so every route waits on the same download.
+let chunk: Promise<Deferred> | null = null;
+const loadDeferred = () => (chunk ??= import('./deferred').catch((e: unknown) => {
+  chunk = null; // a failed download (connection lost) is tried again next time
+  throw e;
+}));
+
+export function deferredScreen<P extends object>(pick: (screens: Deferred) => ComponentType<P>): ComponentType<P> {
+  const Screen = lazy(() => loadDeferred().then((screens) => ({ default: pick(screens) })));
+  function DeferredScreen(props: P) {
+    return (
+      <Suspense fallback={<LoadingState what="this page" testID="page-loading" />}>
+        <Screen {...props} />
+      </Suspense>
+    );
+  }
+  return DeferredScreen;
+}
