@@ -18,7 +18,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import zlib from 'node:zlib';
-import { chromium, type Page, type Response } from 'playwright-core';
+import type { Page, Response } from 'playwright-core';
+import { launch } from '@/test/e2e/browser';
 import { loadConfig } from '@/server/config';
 import { startServer } from '@/server/server';
 import { resolveDatabaseUrl, REPO_ROOT } from './lib/postgres';
@@ -51,12 +52,8 @@ export interface FirstScreenScript {
 const kb = (bytes: number) => Math.round(bytes / 100) / 10;
 
 /** Signs in as `user` at `baseUrl` in a fresh browser and sums the scripts fetched on the way to the home screen. */
-export async function measureFirstScreenScript(baseUrl: string, user = DEMO_USERS.find((u) => u.role === 'engineer')!): Promise<FirstScreenScript> {
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'],
-  });
+export async function measureFirstScreenScript(baseUrl: string, user: { email: string; password: string } = DEMO_USERS.find((u) => u.role === 'engineer')!): Promise<FirstScreenScript> {
+  const browser = await launch();
   const scripts: ScriptLoad[] = [];
   const pending: Promise<void>[] = [];
   let screen: ScriptLoad['screen'] = 'sign-in';

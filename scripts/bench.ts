@@ -15,7 +15,8 @@
  * --browser: at the largest size up to 20,000 sites, the browser section in
  * Debian's Chromium on the same database: the network diagram at 1440x900
  * and 390x844 (scripts/bench-browser-diagram.ts), fault reach offline
- * (scripts/bench-browser-offline.ts) and the first screen's script.
+ * (scripts/bench-browser-offline.ts) and the first screen's script
+ * (scripts/bench-browser-bundle.ts).
  *
  * The import's event-loop delay (`eventLoopP99Ms`, `eventLoopMaxMs`) is
  * measured with perf_hooks.monitorEventLoopDelay while it runs: how long a
@@ -39,6 +40,7 @@ import { benchOperations, describeOperations, type OperationsBenchResult } from 
 import { benchEdits, type EditsBenchResult } from './bench-edits';
 import { benchDiagram, BENCH_SIZES, type DiagramBenchResult } from './bench-browser-diagram';
 import { benchOfflineReach, type OfflineBenchResult } from './bench-browser-offline';
+import { measureFirstScreenScript, type FirstScreenScript } from './bench-browser-bundle';
 import { ensureWebBuild } from './lib/webBuild';
 import { Prng } from './generator/prng';
 import { generateNetwork } from './generator';
@@ -88,8 +90,11 @@ interface BrowserResult {
   overlayMs: number;
   offlineReachP95Ms: number;
   offlineEngineBuildMs: number;
+  /** compressed script the sign-in and home screens load (target <= 350 kB) */
+  firstScreenScriptKb: number;
   diagram: Record<keyof typeof BENCH_SIZES, DiagramBenchResult>;
   offline: OfflineBenchResult;
+  script: FirstScreenScript;
 }
 
 const peakRssMb = () => Math.round(process.resourceUsage().maxRSS / 1024);
@@ -118,6 +123,8 @@ async function browserSection(databaseUrl: string, siteCodes: string[]): Promise
     }
     const offline = await benchOfflineReach(base, user, siteCodes, { seed });
     console.log(`  offline: engine built ${offline.offlineEngineBuildMs} ms, reach p95 ${offline.offlineReachP95Ms} ms, first answer ${offline.offlineFirstAnswerMs} ms`);
+    const script = await measureFirstScreenScript(base, user);
+    console.log(`  first screen script ${script.firstScreenScriptKb} kB compressed`);
     const worst = (k: 'diagramFirstDrawMs' | 'diagramFrameP95Ms' | 'overlayMs') => Math.max(diagram.wide[k], diagram.phone[k]);
     return {
       sites: siteCodes.length,
@@ -126,8 +133,10 @@ async function browserSection(databaseUrl: string, siteCodes: string[]): Promise
       overlayMs: worst('overlayMs'),
       offlineReachP95Ms: offline.offlineReachP95Ms,
       offlineEngineBuildMs: offline.offlineEngineBuildMs,
+      firstScreenScriptKb: script.firstScreenScriptKb,
       diagram,
       offline,
+      script,
     };
   });
 }
@@ -246,6 +255,7 @@ function table(results: SizeResult[]) {
     ['browser: failure overlay (ms)', (r) => (r.browser ? r.browser.overlayMs.toFixed(0) : 'n/a')],
     ['browser: offline engine build (ms)', (r) => (r.browser ? r.browser.offlineEngineBuildMs.toFixed(0) : 'n/a')],
     ['browser: offline reach p95 (ms)', (r) => (r.browser ? r.browser.offlineReachP95Ms.toFixed(2) : 'n/a')],
+    ['browser: first screen script (kB compressed)', (r) => (r.browser ? r.browser.firstScreenScriptKb.toFixed(1) : 'n/a')],
   ];
   const w0 = Math.max(...rows.map(([k]) => k.length));
   const cols = results.map((r) => rows.map(([, f]) => f(r)));
