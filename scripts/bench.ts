@@ -10,8 +10,10 @@
  * --edits N: at each size up to 20,000 sites (or every size when given),
  * N edits through one server timed until a second server process answers
  * with them (scripts/bench-edits.ts, `editVisibleP95Ms`; default 60).
- * --lean: skip networkx, the planner and the operations figures (for the
- * 100,000-site size: `npm run bench -- --sizes 100000 --lean --edits 0`).
+ * --lean: skip networkx, the planner and the operations figures at every
+ * size; above 20,000 sites they are skipped anyway, as the edits are, so
+ * `npm run bench -- --sizes 20000,100000 --browser --json FILE` makes the
+ * whole record in one run.
  * --browser: at the largest size up to 20,000 sites, the browser section in
  * Debian's Chromium on the same database: the network diagram at 1440x900
  * and 390x844 (scripts/bench-browser-diagram.ts), fault reach offline
@@ -58,7 +60,7 @@ const sizes = (arg('sizes') ?? '1000,5000,20000').split(',').map((s) => {
 });
 const seed = Number(arg('seed') ?? 7);
 const jsonFile = arg('json');
-const lean = process.argv.includes('--lean');
+const leanFor = (sites: number) => process.argv.includes('--lean') || sites > 20000;
 const editsArg = arg('edits');
 const browserAt = process.argv.includes('--browser') ? Math.max(...sizes.filter((n) => n <= 20000)) : null;
 if (browserAt === -Infinity) throw new Error('--browser needs a size of at most 20,000 sites in --sizes');
@@ -189,6 +191,7 @@ async function benchSize(sites: number): Promise<SizeResult> {
     const spofExposureFirstMs = performance.now() - t;
     console.log(`  first spof + exposure on it ${spofExposureFirstMs.toFixed(0)} ms`);
 
+    const lean = leanFor(sites);
     const engine = benchEngine(document, { seed, networkx: !lean, planner: !lean });
     console.log(`  engine: reach one p95 ${engine.reachOneP95Ms} ms, multi p95 ${engine.reachMultiP95Ms} ms, spof+exposure ${engine.spofAllMs} ms`);
 
