@@ -10,6 +10,7 @@ import { defineInventory } from './models/inventory';
 import { defineAudit } from './models/audit';
 import { defineOperations } from './models/operations';
 import { defineNotices } from './models/notices';
+import { defineImportProgress } from './models/importProgress';
 import { defineDocuments } from './models/documents';
 import { migrations } from './migrations';
 import { encodeChange, type CodesByKind } from './networkChange';
@@ -87,6 +88,7 @@ export function openDatabase(url: string, limits: Partial<DatabaseLimits> = {}):
   defineOperations(sequelize);
   defineNotices(sequelize);
   defineDocuments(sequelize);
+  defineImportProgress(sequelize);
 
   return {
     sequelize,

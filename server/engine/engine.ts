@@ -30,7 +30,7 @@ import { chainTree, type ChainDirection, type ChainOptions } from './chain';
 import { IntList } from './removal-walk';
 import { PairsJob, type PairRow } from './pairs';
 import { proposalContext, proposalsFor, type ProposalContext, type ProposalRow } from './proposals';
-import { bestOverNetwork } from './proposals-ranking';
+import { BestProposalsJob } from './proposals-ranking';
 import { DEFAULT_WEAK_POINT_KINDS, type ElementKind } from '@/shared/schemas/network';
 import { UnknownCarriageError, UnknownElementsError } from './errors';
 import { toGraphology, type ServiceGraph } from './graphs';
@@ -363,14 +363,31 @@ export class NetworkEngine {
       const avoidable = this.diversityState.gaps.get(c);
       rows = avoidable ? proposalsFor(this.proposalCtx, c, avoidable) : [];
     } else {
-      const held = this.bestProposals;
-      if (!held || (!held.complete && (limit === undefined || held.rows.length < limit))) {
-        const ranked = bestOverNetwork(this.proposalCtx, this.diversityState.gaps, limit);
-        this.bestProposals = { rows: ranked, complete: limit === undefined || ranked.length < limit };
-      }
+      if (!this.holdsProposals(limit)) this.proposalsJob(limit).step(Number.POSITIVE_INFINITY);
       rows = this.bestProposals!.rows;
     }
     return { networkVersion: this.networkVersion, proposals: firstRows(rows, limit) };
+  }
+
+  /** True when `proposals({ limit })` over the network answers from the ranking already held (no work). */
+  holdsProposals(limit?: number): boolean {
+    const held = this.bestProposals;
+    return held !== null && (held.complete || (limit !== undefined && held.rows.length >= limit));
+  }
+
+  /**
+   * The network ranking of proposals as a job that works in steps
+   * (proposals-ranking.ts), so a server can yield between them; once it
+   * finishes, the engine keeps its rows and `proposals({ limit })` answers
+   * from them. The first call on an engine also works out the diversity
+   * gaps (one piece, shared with `diversity()`).
+   */
+  proposalsJob(limit?: number): BestProposalsJob {
+    checkLimit(limit);
+    this.proposalCtx ??= proposalContext(this.core);
+    return new BestProposalsJob(this.proposalCtx, this.diversityState.gaps, limit, (ranked) => {
+      if (!this.holdsProposals(limit)) this.bestProposals = { rows: ranked, complete: limit === undefined || ranked.length < limit };
+    });
   }
 
   /**

@@ -257,7 +257,8 @@ function fieldRadiusKm(ctx: ProposalContext, p: number): number {
   return radius;
 }
 
-function gridOf(ctx: ProposalContext, s: number) {
+/** The candidate grid of service s, built on first use. */
+export function gridOf(ctx: ProposalContext, s: number) {
   let entry = ctx.grids[s];
   if (!entry) {
     const { core } = ctx;

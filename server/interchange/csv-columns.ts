@@ -5,6 +5,7 @@
  * holds what, so cells are read as the type the JSON field has.
  */
 import { decimalPoint } from './csv-dialect';
+import { isDecimal } from './decimal';
 import type { EntityKind } from '@/shared/schemas/network';
 
 export type ColumnType = 'string' | 'number' | 'boolean' | 'list';
@@ -39,12 +40,6 @@ export const REQUIRED_COLUMNS: Record<EntityKind, readonly string[]> = {
 
 export const LIST_SEPARATOR = ';';
 
-// A plain decimal number; Number() alone would also take "", "0x1F" and "Infinity".
-// Written so that no two parts can match the same digits (the fraction needs its
-// point), so a long digit run that fails at its end is given up in one pass:
-// the earlier form \d+\.?\d* tried every split of the run (quadratic; a 100 KB
-// cell held the event loop for half a minute).
-const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /**
  * Spreadsheet formula guard. A spreadsheet takes a cell starting with "=",
@@ -82,7 +77,8 @@ export function cellValue(cell: string, type: ColumnType, decimalComma = false):
     case 'number': {
       // a `;`-separated file may write 12,5 for 12.5 (csv-dialect.ts)
       const number = decimalComma ? decimalPoint(text) : text;
-      return DECIMAL.test(number) ? Number(number) : cell;
+      // a plain decimal number, read in one pass (decimal.ts: no pattern a long cell could make backtrack)
+      return isDecimal(number) ? Number(number) : cell;
     }
     case 'boolean':
       if (/^true$/i.test(text)) return true;

@@ -1,4 +1,5 @@
 /** The analysis API over the in-memory graphs (docs/api.md). */
+import type { Response } from 'express';
 import { z } from 'zod';
 import { can } from '@/shared/api';
 import {
@@ -12,13 +13,14 @@ import {
   spofQuerySchema,
   type Element,
   type PairsRunning,
+  type ProposalsRunning,
   type SiteInfo,
 } from '@/shared/schemas/analysis';
 import { pageQuerySchema, pageRows } from '@/shared/schemas/paging';
 import { ApiError, conflict, notFound, objectBody, parseOr400 } from '../http/errors';
 import { actorOf, settled } from './inventory';
 import { createEntities } from '../services/inventory/write';
-import { findPlan, forgetPlan, makePlan, pairsState } from '../services/planner';
+import { findPlan, forgetPlan, makePlan, pairsState, proposalsState } from '../services/planner';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
@@ -122,10 +124,26 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     res.json({ networkVersion: m.networkVersion, ...searchCarriages(m, q, pageSize) });
   });
 
+  /** 202 with the progress of a background job (critical pairs, the proposals ranking). */
+  const running = (res: Response, networkVersion: number, state: { done: number; total: number }) => {
+    const progress = { done: state.done, total: state.total, percent: state.total === 0 ? 0 : Math.floor((100 * state.done) / state.total) };
+    const body: PairsRunning | ProposalsRunning = { state: 'running', networkVersion, progress };
+    res.status(202).json(body);
+  };
+
+  // One carriage's proposals at once; over the network the ranking runs in the background like the pairs (below).
   routes.add('get', '/analysis/proposals', can.analyse, async (req, res) => {
     const { carriage, limit } = parseOr400(proposalsQuerySchema, req.query, 'query');
+    const { engine } = currentModel(ctx);
+    if (carriage === undefined) {
+      const state = proposalsState(engine, limit ?? 100);
+      if (state.state === 'failed') throw new ApiError(500, 'proposals-failed', 'the proposals could not be ranked; the server log has the cause');
+      if (state.state === 'running') running(res, engine.networkVersion, state);
+      else res.json({ state: 'done', ...state.answer });
+      return;
+    }
     try {
-      res.json(currentModel(ctx).engine.proposals({ carriage, limit: limit ?? 100 }));
+      res.json(engine.proposals({ carriage, limit: limit ?? 100 }));
     } catch (e) {
       if (e instanceof UnknownCarriageError) throw notFound(`carriage ${e.carriage} does not exist`, { kind: 'carriage', code: e.carriage });
       throw e;
@@ -139,9 +157,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     const state = pairsState(engine, kinds);
     if (state.state === 'failed') throw new ApiError(500, 'pairs-failed', 'the critical pairs could not be computed; the server log has the cause');
     if (state.state === 'running') {
-      const progress = { done: state.done, total: state.total, percent: state.total === 0 ? 0 : Math.floor((100 * state.done) / state.total) };
-      const body: PairsRunning = { state: 'running', networkVersion: engine.networkVersion, progress };
-      res.status(202).json(body);
+      running(res, engine.networkVersion, state);
       return;
     }
     res.json({ state: 'done', ...engine.pairsAnswer(state.rows, limit) });

@@ -132,7 +132,7 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
   const queue = new ImportQueue();
   const board = new ImportProgressBoard();
   const reading: RequestHandler = (req, _res, next) => {
-    board.set(progressIdOf(req.query), { stage: 'reading', done: 0, total: 0 });
+    void board.set(progressIdOf(req.query), { stage: 'reading', done: 0, total: 0 });
     next();
   };
   routes.add('post', '/network/import', { roles: can.editNetwork, body: 'large' }, reading, importTurn(queue), multipartFiles(ctx.config.UPLOAD_LIMIT_MB), async (req, res) => {
@@ -140,7 +140,7 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
     try {
       await runImport(req, res, progressId);
     } catch (err) {
-      board.set(progressId, { stage: 'failed', done: 0, total: 0 });
+      await board.set(progressId, { stage: 'failed', done: 0, total: 0 });
       // nobody is left to answer: the transaction has rolled back, the database is as it was
       if (res.destroyed || err instanceof ClientGoneError) return;
       throw err;
@@ -168,21 +168,22 @@ export function registerNetworkRoutes(routes: RouteTable, ctx: AppContext) {
     signal.throwIfAborted();
     const report = await importNetwork(ctx.db, input.raw, {
       dryRun, replace, undoNewer, confirmReplace, actor: actorOf(req), rowsOf: input.rowsOf, sourceErrors: input.sourceErrors, moreSourceErrors: input.moreSourceErrors,
-      signal, onProgress: (p) => board.set(progressId, p),
+      signal, onProgress: (p) => void board.set(progressId, p),
     });
     if (report.ok && !report.dryRun && report.networkVersion !== undefined) {
-      board.set(progressId, { stage: 'rebuilding', done: 0, total: 1 });
+      void board.set(progressId, { stage: 'rebuilding', done: 0, total: 1 });
       await ctx.network.refresh(report.networkVersion);
     }
-    board.set(progressId, { stage: 'done', done: 1, total: 1 });
+    // stored before the answer, so that a poll after the answer hears done
+    await board.set(progressId, { stage: 'done', done: 1, total: 1 });
     res.status(report.errors.length > 0 ? 422 : 200).json(report);
   }
 
-  routes.add('get', '/network/import/progress/:id', can.editNetwork, (req, res) => {
+  routes.add('get', '/network/import/progress/:id', can.editNetwork, async (req, res) => {
     const { id } = parseOr400(progressParamsSchema, req.params, 'path');
     // An id not heard of is "pending", not a 404: the screen polls from the moment it sends, so its
     // first polls usually arrive before the upload does (and a refused poll would be logged as an error).
-    res.json(board.get(id) ?? { stage: 'pending', done: 0, total: 0 });
+    res.json((await board.get(id)) ?? { stage: 'pending', done: 0, total: 0 });
   });
 
   routes.add('get', '/network/export', can.read, async (req, res) => {

@@ -158,6 +158,9 @@ export interface PairsRunning {
   progress: { done: number; total: number; percent: number };
 }
 
+/** `GET` proposals over the network (no carriage) while the ranking runs (HTTP 202): the same shape. */
+export type ProposalsRunning = PairsRunning;
+
 /** `POST /api/analysis/plans` */
 export const MAX_BUDGET = 10;
 export const planRequestSchema = z.strictObject({

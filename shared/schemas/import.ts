@@ -67,8 +67,7 @@ export interface ImportReport {
 
 /**
  * Where a running import is (GET /api/network/import/progress/:id): not
- * heard of here yet (pending: its upload is still on the way, or went to
- * another server process), the upload being read, the document checked, the rows written, the served
+ * heard of yet (pending: its upload is still on the way), the upload being read, the document checked, the rows written, the served
  * network rebuilt, then done or failed. `done` of `total` counts entities
  * (reading: files; rebuilding: 0 of 1 until it is built).
  */

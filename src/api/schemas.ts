@@ -340,8 +340,12 @@ export const proposalSchema = z.object({
   warnings: z.array(z.string()),
 }) satisfies z.ZodType<analysisTypes.Proposal>;
 export const proposalsAnswerSchema = z.object({ networkVersion: z.number(), proposals: z.array(proposalSchema) }) satisfies z.ZodType<analysisTypes.ProposalsAnswer>;
+const jobRunningSchema = z.object({ state: z.literal('running'), networkVersion: z.number(), progress: z.object({ done: z.number(), total: z.number(), percent: z.number() }) });
+/** Proposals over the network: 202 with progress while the server ranks them, then the answer. */
+export const networkProposalsStateSchema = z.discriminatedUnion('state', [jobRunningSchema, proposalsAnswerSchema.extend({ state: z.literal('done') })]);
+export type NetworkProposalsState = z.infer<typeof networkProposalsStateSchema>;
 export const pairsStateSchema = z.discriminatedUnion('state', [
-  z.object({ state: z.literal('running'), networkVersion: z.number(), progress: z.object({ done: z.number(), total: z.number(), percent: z.number() }) }),
+  jobRunningSchema,
   z.object({
     state: z.literal('done'),
     networkVersion: z.number(),

@@ -10,14 +10,20 @@ import request from 'supertest';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { generateNetwork } from '@/scripts/generator';
 import type { ImportProgress } from '@/shared/schemas/import';
+import { ImportProgressBoard } from '@/server/services/import/progress';
+import { signToken } from '@/server/auth/tokens';
+import { User } from '@/server/db/models/user';
 import { smallNetwork } from '../fixtures/small-network';
-import { makeTestApp, type TestApp } from '../helpers/testApp';
+import { emailFor, makeTestApp, type TestApp } from '../helpers/testApp';
 
 let t: TestApp;
 let server: http.Server;
 let port: number;
+/** A second server process on the same database, as with WORKERS=2: it must answer the poll of an import the first one runs. */
+let other: TestApp;
 beforeAll(async () => {
   t = await makeTestApp();
+  other = await makeTestApp();
   server = http.createServer(t.app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   port = (server.address() as AddressInfo).port;
@@ -25,6 +31,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await new Promise((resolve) => server?.close(resolve));
   await t?.close();
+  await other?.close();
 });
 beforeEach(async () => t.reset());
 
@@ -42,6 +49,18 @@ async function snapshot(): Promise<string> {
 }
 
 const progressOf = async (id: string) => request(t.app).get(`/api/network/import/progress/${id}`).set(t.auth('engineer'));
+
+/** The poll sent to the other process (its own signing secret; the account is the one the first made). */
+async function progressOnOther(id: string) {
+  const u = (await User.findOne({ where: { email: emailFor('engineer') } }))!;
+  const token = signToken({ sub: String(u.id), email: u.email, role: 'engineer' }, other.config.JWT_SECRET, '10m');
+  return request(other.app).get(`/api/network/import/progress/${id}`).set({ Authorization: `Bearer ${token}` });
+}
+
+async function storedProgress(id: string) {
+  const [rows] = await t.db.sequelize.query('SELECT stage, done, total FROM import_progress WHERE id = $1', { bind: [id] });
+  return rows[0];
+}
 
 /** Starts a JSON import over a real socket; returns the request, to be aborted. */
 function startImport(body: string, query: string): http.ClientRequest {
@@ -78,6 +97,7 @@ describe('import progress', () => {
     const last = await progressOf('test-progress-1');
     expect(last.status).toBe(200);
     expect(last.body).toEqual({ stage: 'done', done: 1, total: 1 });
+    expect(await storedProgress('test-progress-1')).toEqual({ stage: 'done', done: 1, total: 1 });
     // an id not heard of (yet) is pending, so a screen polling from the moment it sends hears no error
     const unknown = await progressOf('never-sent-1');
     expect(unknown.status).toBe(200);
@@ -87,8 +107,53 @@ describe('import progress', () => {
   });
 });
 
+const big = JSON.stringify(generateNetwork({ sites: 3000, seed: 5 }));
+
+describe('import progress with two server processes', () => {
+  it('is heard by the other process while the transaction of the import is still open, and to the end', async () => {
+    expect((await progressOnOther('two-procs-1')).body).toEqual({ stage: 'pending', done: 0, total: 0 });
+    const req = startImport(big, '?progressId=two-procs-1');
+    const answered = new Promise<number>((resolve) => req.on('response', (res) => { res.resume(); resolve(res.statusCode ?? 0); }));
+    let seen: ImportProgress | undefined;
+    for (let i = 0; i < 6000 && !(seen && seen.stage === 'writing' && seen.done > 0); i++) {
+      const r = await progressOnOther('two-procs-1');
+      expect(r.status).toBe(200);
+      seen = r.body;
+      expect(seen!.stage).not.toBe('failed');
+      if (seen!.stage === 'done') break;
+      await new Promise((resolve) => setTimeout(resolve, 10));
+    }
+    // rows part written and not yet committed: the progress row is not held by the import's transaction
+    expect(seen).toMatchObject({ stage: 'writing' });
+    expect(seen!.done).toBeGreaterThan(0);
+    expect(seen!.done).toBeLessThan(seen!.total);
+    const [sites] = await other.db.sequelize.query('SELECT count(*)::int AS n FROM sites');
+    expect(sites).toEqual([{ n: 0 }]);
+    expect(await answered).toBe(200);
+    const last = await progressOnOther('two-procs-1');
+    expect(last.status).toBe(200);
+    expect(last.body).toEqual({ stage: 'done', done: 1, total: 1 });
+  });
+
+  it('writes the progress of one import at most once per interval within a stage, the latest value last', async () => {
+    const board = new ImportProgressBoard({ everyMs: 400 });
+    const id = 'throttled-1';
+    await board.set(id, { stage: 'writing', done: 0, total: 100 });
+    for (let done = 1; done <= 50; done++) void board.set(id, { stage: 'writing', done, total: 100 });
+    await board.settle();
+    // the first value of the stage went at once; the next fifty wait for the interval
+    expect(await storedProgress(id)).toEqual({ stage: 'writing', done: 0, total: 100 });
+    await new Promise((resolve) => setTimeout(resolve, 600));
+    await board.settle();
+    expect(await storedProgress(id)).toEqual({ stage: 'writing', done: 50, total: 100 });
+    // a new stage is written at once
+    await board.set(id, { stage: 'done', done: 1, total: 1 });
+    expect(await storedProgress(id)).toEqual({ stage: 'done', done: 1, total: 1 });
+    expect(await board.get(id)).toEqual({ stage: 'done', done: 1, total: 1 });
+  });
+});
+
 describe('an import whose client goes away', () => {
-  const big = JSON.stringify(generateNetwork({ sites: 3000, seed: 5 }));
 
   it('leaves the database as it was when the client closes mid-write', async () => {
     expect((await request(t.app).post('/api/network/import').set(t.auth('engineer')).send(smallNetwork())).status).toBe(200);

@@ -19,7 +19,13 @@ afterAll(async () => browser?.close());
 describe.each(Object.entries(SIZES))('resilience planner at %s size', (sizeName, size) => {
   it('shows avoidable weak points, a proposal, the pairs, and the sandbox banner after "Try it"', async () => {
     const diversity = await apiGet<DiversityAnswer>('/api/analysis/diversity');
-    const proposals = await apiGet<ProposalsAnswer>('/api/analysis/proposals?limit=20');
+    // the ranking over the network runs in the background: 202 with progress until it is done
+    let proposals = await apiGet<ProposalsAnswer & { state: 'running' | 'done' }>('/api/analysis/proposals?limit=20');
+    for (let i = 0; i < 600 && proposals.state === 'running'; i++) {
+      await new Promise((resolve) => setTimeout(resolve, 100));
+      proposals = await apiGet('/api/analysis/proposals?limit=20');
+    }
+    expect(proposals.state).toBe('done');
     expect(diversity.carriages.length).toBeGreaterThan(0);
     expect(proposals.proposals.length).toBeGreaterThan(0);
     const { page, errors } = await openPage(browser, size);

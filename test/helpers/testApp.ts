@@ -50,7 +50,7 @@ export async function makeTestApp(opts: { build?: typeof buildServedNetwork; sto
   /** Empty the network, the audit log and the people; make one account per role. */
   async function reset() {
     await db.sequelize.query(
-      'TRUNCATE feed_via_sites, feed_groups, site_groups, feeds, carriages, sites, services, risk_groups, audit_log, incident_steps, incidents, planned_works, users, subscriptions, contacts, notices, documents RESTART IDENTITY CASCADE',
+      'TRUNCATE feed_via_sites, feed_groups, site_groups, feeds, carriages, sites, services, risk_groups, audit_log, incident_steps, incidents, planned_works, users, subscriptions, contacts, notices, documents, import_progress RESTART IDENTITY CASCADE',
     );
     passwordHash ??= await hashPassword(TEST_PASSWORD);
     for (const role of ROLES) {

@@ -1,15 +1,16 @@
 /**
- * The resilience planner's answers: proposals (new reserve feeds), critical
- * pairs (computed in the background by the server: asked again every second
- * while it reports progress), plans and their sandbox, and creating a plan's
- * feeds for real.
+ * The resilience planner's answers: proposals (new reserve feeds) and critical
+ * pairs (both computed in the background by the server: asked again every
+ * second while it reports progress), plans and their sandbox, and creating a
+ * plan's feeds for real.
  */
 import useSWR from 'swr';
+import type { z } from 'zod';
 import { api } from '@/shared/api';
 import { useSend, type Send } from '../ApiProvider';
 import { parseAnswer, type ApiError } from '../client';
 import { freshness } from '../freshness';
-import { applyPlanAnswerSchema, pairsStateSchema, planAnswerSchema, proposalsAnswerSchema, sandboxDiversitySchema, type PairsState } from '../schemas';
+import { applyPlanAnswerSchema, networkProposalsStateSchema, pairsStateSchema, planAnswerSchema, sandboxDiversitySchema, type NetworkProposalsState, type PairsState } from '../schemas';
 import { useApiQuery } from '../useApiQuery';
 
 export const plannerKeys = {
@@ -18,16 +19,22 @@ export const plannerKeys = {
   sandboxDiversity: (id: string) => api.planAnswer(id, 'diversity'),
 };
 
-export function useProposals(q: { carriage?: string; limit?: number }) {
-  return useApiQuery(plannerKeys.proposals(q), proposalsAnswerSchema, 'network');
-}
-
-export function usePairs(limit: number, kinds = 'site,group') {
+/** A server job's answer, asked again every second while it reports progress. */
+function useBackgroundWork<S extends { state: string }>(path: string, schema: z.ZodType<S>) {
   const send = useSend();
-  return useSWR<PairsState, ApiError>(plannerKeys.pairs(limit, kinds), async (path: string) => parseAnswer(pairsStateSchema, path, await send(path)), {
+  return useSWR<S, ApiError>(path, async (p: string) => parseAnswer(schema, p, await send(p)), {
     ...freshness.network,
     refreshInterval: (latest) => (latest?.state === 'running' ? 1000 : 0),
   });
+}
+
+/** Each gap carriage's best proposal, ranked over the network: the first `limit`. */
+export function useNetworkProposals(limit: number) {
+  return useBackgroundWork<NetworkProposalsState>(plannerKeys.proposals({ limit }), networkProposalsStateSchema);
+}
+
+export function usePairs(limit: number, kinds = 'site,group') {
+  return useBackgroundWork<PairsState>(plannerKeys.pairs(limit, kinds), pairsStateSchema);
 }
 
 export function useSandboxDiversity(id: string | null) {

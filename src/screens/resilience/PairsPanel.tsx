@@ -4,16 +4,16 @@
  * background; until then this shows its progress and the rest of the screen
  * stays usable.
  */
-import { formatCount } from '@/shared/format';
-import { StyleSheet, Text, View } from 'react-native';
+import { StyleSheet, Text } from 'react-native';
 import { usePairs } from '@/src/api/queries/planner';
 import { Capped } from '@/src/screens/reach/Capped';
 import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { formatFailSet } from '@/src/screens/reach/failSet';
 import { ErrorState, LoadingState } from '@/src/components/states';
-import { colors, space, type } from '@/src/theme';
+import { type } from '@/src/theme';
 import type { ElementNamer } from './elementNames';
 import { pairSentence } from './plannerWords';
+import { WorkProgress } from './WorkProgress';
 
 export const PAIRS_SHOWN = 20;
 
@@ -22,15 +22,7 @@ export function PairsPanel({ name }: { name: ElementNamer }) {
   if (pairs.error && !pairs.data) return <ErrorState what="the critical pairs" error={pairs.error} onRetry={() => void pairs.mutate()} />;
   if (!pairs.data) return <LoadingState what="the critical pairs" />;
   if (pairs.data.state === 'running') {
-    const { percent, done, total } = pairs.data.progress;
-    return (
-      <View style={styles.wrap} testID="pairs-running" accessibilityRole="progressbar" accessibilityLabel="Critical pairs worked out so far" accessibilityValue={{ min: 0, max: 100, now: percent }}>
-        <Text style={styles.body}>{`Working out every pair of sites and groups: ${percent} % done (${formatCount(done)} of ${formatCount(total)} steps). The rest of this screen works meanwhile.`}</Text>
-        <View style={styles.track}>
-          <View style={[styles.bar, { width: `${Math.max(2, percent)}%` }]} />
-        </View>
-      </View>
-    );
+    return <WorkProgress what="Working out every pair of sites and groups" label="Critical pairs worked out so far" progress={pairs.data.progress} testID="pairs-running" />;
   }
   const list = pairs.data.pairs;
   if (list.length === 0) return <Text style={styles.body}>No two sites or groups take anything off air together that neither takes alone.</Text>;
@@ -55,8 +47,5 @@ export function PairsPanel({ name }: { name: ElementNamer }) {
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: space.sm },
   body: { ...type.body, fontSize: 16 },
-  track: { height: 12, borderRadius: 6, backgroundColor: colors.accentSoft, overflow: 'hidden' },
-  bar: { height: 12, backgroundColor: colors.accent },
 });

@@ -9,7 +9,7 @@ import { useSWRConfig } from 'swr';
 import type { ExposureRow } from '@/shared/schemas/analysis';
 import { useSend } from '@/src/api/ApiProvider';
 import { useMe } from '@/src/api/queries/me';
-import { applyPlan, makePlan, useProposals, useSandboxDiversity } from '@/src/api/queries/planner';
+import { applyPlan, makePlan, useNetworkProposals, useSandboxDiversity } from '@/src/api/queries/planner';
 import type { PlanResult } from '@/src/api/schemas';
 import { Button } from '@/src/components/Button';
 import { Caution } from '@/src/components/Caution';
@@ -22,15 +22,19 @@ import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { colors, radius, space, type } from '@/src/theme';
 import { elementWords } from './elementNames';
 import { proposalDetail, proposalTitle } from './plannerWords';
+import { WorkProgress } from './WorkProgress';
 
 export const PROPOSALS_SHOWN = 20;
 const RULE_OF_THUMB =
   'Rule of thumb (common practice, not a costing): an off-air reserve from a nearby site needs only a receiver on the mast, so it is listed before a satellite or line feed from an origin that protects as much.';
 
 export function ProposalsList() {
-  const proposals = useProposals({ limit: PROPOSALS_SHOWN });
+  const proposals = useNetworkProposals(PROPOSALS_SHOWN);
   if (proposals.error && !proposals.data) return <ErrorState what="the proposals" error={proposals.error} onRetry={() => void proposals.mutate()} />;
   if (!proposals.data) return <LoadingState what="the proposals" />;
+  if (proposals.data.state === 'running') {
+    return <WorkProgress what="Ranking the new feeds over the network" label="Proposals ranked so far" progress={proposals.data.progress} testID="proposals-running" />;
+  }
   const list = proposals.data.proposals;
   return (
     <View style={styles.wrap} testID="proposals">

@@ -49,7 +49,7 @@ describe('fast proposals agree with the straightforward path', () => {
     spreadDeg: fc.constantFrom(0.5, 2, 6),
   });
 
-  it('every carriage\'s proposals and the network ranking at several limits (200 networks)', () => {
+  it('every carriage\'s proposals and the network ranking at several limits, in one go and in steps (200 networks)', () => {
     let compared = 0;
     let offAir = 0;
     fc.assert(
@@ -68,6 +68,21 @@ describe('fast proposals agree with the straightforward path', () => {
         for (const limit of [1, 3, 10]) expect(engine.proposals({ limit }).proposals).toEqual(ranking.slice(0, limit));
         expect(engine.proposals({}).proposals).toEqual(ranking);
         expect(NetworkEngine.build(doc, 1).proposals({ limit: 2 }).proposals).toEqual(ranking.slice(0, 2));
+        // In steps as the server runs it (a deadline already passed: one carriage per step), the same ranking.
+        for (const limit of [2, undefined]) {
+          const stepped = NetworkEngine.build(doc, 1);
+          const job = stepped.proposalsJob(limit);
+          let steps = 1;
+          while (!job.step(Number.NEGATIVE_INFINITY)) {
+            expect(job.done).toBeLessThan(job.total);
+            steps++;
+          }
+          expect(job.done).toBe(job.total);
+          expect(job.result()).toEqual(limit === undefined ? ranking : ranking.slice(0, limit));
+          if (reference.gapCarriages().length > 1) expect(steps).toBeGreaterThan(1);
+          expect(stepped.holdsProposals(limit)).toBe(true);
+          expect(stepped.proposals({ limit }).proposals).toEqual(job.result());
+        }
       }),
       { numRuns: 200 },
     );
