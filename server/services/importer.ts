@@ -93,7 +93,7 @@ async function storedOutside(stored: NetworkDocument, raw: unknown): Promise<Net
   const out = { ...stored };
   for (const kind of ENTITY_KINDS) {
     const list = top[kind];
-    if (!Array.isArray(list) || list.length === 0) continue;
+    if (!Array.isArray(list) || list.length === 0 || stored[kind].length === 0) continue;
     const inDocument = new Set<unknown>();
     for (const item of list) {
       if (item !== null && typeof item === 'object') inDocument.add((item as { code?: unknown }).code);

@@ -144,6 +144,8 @@ export async function copyCreated(tx: Tx, kind: EntityKind, entities: readonly F
   await client.query(`CREATE TEMP TABLE ${stage} (n int4, ${columns.map((c) => `${c.column} ${c.type}`).join(', ')}) ON COMMIT DROP`);
   const copied = await copyRows(client, stage, ['n', ...columns.map((c) => c.column)], entityRows(entities, columns), { signal: opts.signal, turns });
   if (copied !== entities.length) throw new Error(`${kind}: copied ${copied} of ${entities.length} rows`);
+  // each slice below picks its rows by n
+  await client.query(`CREATE INDEX ON ${stage} (n)`);
   await client.query(`ANALYZE ${stage}`);
 
   const select = columns.map((c, i) => (c.ref ? `r${i}.id` : `s.${c.column}`)).join(', ');
