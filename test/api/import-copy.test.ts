@@ -24,6 +24,9 @@ const version = async () => {
   return Number((rows as { version: number }[])[0].version);
 };
 
+/** Waits until the app's model has caught up with a write made here, so its rebuild does not run into the next test's reset. */
+const settle = async () => app().ctx.network.refresh(await version());
+
 /** Sites S0..S(n-1), valid, with a group each. */
 const sites = (n: number): Fields[] =>
   Array.from({ length: n }, (_, i) => ({ code: `S${i}`, name: `Site ${i}`, role: 'relay', lat: -38 + i / 1e5, lon: -29, households: i, groups: ['G1'] }));
@@ -65,6 +68,18 @@ describe('import through COPY', () => {
     expect(await count('sites')).toBe(3000);
     expect(await count('site_groups')).toBe(3000);
     expect(await version()).toBe(v0 + 1);
+    await settle();
+  });
+
+  it('copies one kind twice in one transaction, each time only what it was given', async () => {
+    await withNetworkWrite(app().db.sequelize, {}, async (w) => {
+      await copyCreated(w, 'groups', [{ code: 'G1', name: 'Group one' }], { step: () => {} });
+      await copyCreated(w, 'groups', [{ code: 'G2', name: 'Group two' }], { step: () => {} });
+      w.markChanged();
+    });
+    const [rows] = await app().db.sequelize.query('SELECT code FROM risk_groups ORDER BY code');
+    expect(rows).toEqual([{ code: 'G1' }, { code: 'G2' }]);
+    await settle();
   });
 
   it('a COPY that fails midway (a value its column cannot hold) leaves no row', async () => {

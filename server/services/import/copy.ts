@@ -142,6 +142,8 @@ export async function copyCreated(tx: Tx, kind: EntityKind, entities: readonly F
   const columns = columnsOf(kind);
   const table = tableOf(MODEL[kind]);
   const stage = `import_stage_${kind}`;
+  // a second call for the same kind in one transaction starts from an empty stage
+  await client.query(`DROP TABLE IF EXISTS ${stage}`);
   await client.query(`CREATE TEMP TABLE ${stage} (n int4, ${columns.map((c) => `${c.column} ${c.type}`).join(', ')}) ON COMMIT DROP`);
   const copied = await copyRows(client, stage, ['n', ...columns.map((c) => c.column)], entityRows(entities, columns), { signal: opts.signal, turns });
   if (copied !== entities.length) throw new Error(`${kind}: copied ${copied} of ${entities.length} rows`);
@@ -176,6 +178,7 @@ async function copyLinks(client: Client, kind: 'sites' | 'feeds', entities: read
         ? [SiteGroupRow, SiteRow, 'siteId', RiskGroupRow, 'groupId']
         : [FeedGroupRow, FeedRow, 'feedId', RiskGroupRow, 'groupId'];
   const stage = `import_stage_${kind}_${field}`;
+  await client.query(`DROP TABLE IF EXISTS ${stage}`);
   await client.query(`CREATE TEMP TABLE ${stage} (owner text, position int4, target text) ON COMMIT DROP`);
   const copied = await copyRows(client, stage, ['owner', 'position', 'target'], listRows(entities, field), opts);
   if (copied === 0) return;
