@@ -10,28 +10,27 @@
 import { ENTITY_KINDS, type EntityKind } from '@/shared/schemas/network';
 import { duplicateCarriage, feedRules, REFERENCE_LABEL, unknownReference, type CarriageEnd } from './crossRules';
 import { KIND_NOUN, type IssueSink } from './issues';
+import type { Turns } from './turns';
 import { forEachRef, refAt, type Entry, type NetworkView } from './view';
 
-/** How many feeds are checked between two pauses. */
-const STEP_FEEDS = 4096;
-
-/** A generator so the caller may pause between chunks (validate.ts); yields `progress` unchanged. */
-export function* checkReferences(view: NetworkView, sink: IssueSink, progress = 0): Generator<number, void> {
-  checkDuplicateCodes(view, sink);
-  for (const entry of view.doc.sites) checkGroupList(view, sink, 'sites', entry);
-  yield progress;
-  checkCarriages(view, sink);
-  yield progress;
-  let n = 0;
+/** A generator so the caller may pause when a turn is due (validate.ts, turns.ts); yields `progress` unchanged. */
+export function* checkReferences(view: NetworkView, sink: IssueSink, turns: Turns, progress = 0): Generator<number, void> {
+  yield* checkDuplicateCodes(view, sink, turns, progress);
+  for (const entry of view.doc.sites) {
+    checkGroupList(view, sink, 'sites', entry);
+    if (turns.due()) yield progress;
+  }
+  yield* checkCarriages(view, sink, turns, progress);
   for (const entry of view.doc.feeds) {
     checkFeed(view, sink, entry);
-    if (++n % STEP_FEEDS === 0) yield progress;
+    if (turns.due()) yield progress;
   }
 }
 
-function checkDuplicateCodes(view: NetworkView, sink: IssueSink): void {
+function* checkDuplicateCodes(view: NetworkView, sink: IssueSink, turns: Turns, progress: number): Generator<number, void> {
   for (const kind of ENTITY_KINDS) {
     for (const entry of view.doc[kind]) {
+      if (turns.due()) yield progress;
       const code = refAt(entry.raw, 'code');
       if (code === undefined) continue;
       const first = view.byCode[kind].get(code);
@@ -58,8 +57,9 @@ function checkGroupList(view: NetworkView, sink: IssueSink, kind: 'sites' | 'fee
   });
 }
 
-function checkCarriages(view: NetworkView, sink: IssueSink): void {
+function* checkCarriages(view: NetworkView, sink: IssueSink, turns: Turns, progress: number): Generator<number, void> {
   for (const entry of view.doc.carriages) {
+    if (turns.due()) yield progress;
     const site = refAt(entry.raw, 'site');
     const service = refAt(entry.raw, 'service');
     if (site !== undefined) resolve(view, sink, 'carriages', entry, 'site', 'sites', site, REFERENCE_LABEL.site);
@@ -68,8 +68,12 @@ function checkCarriages(view: NetworkView, sink: IssueSink): void {
   // Stored carriages come first in the map, so a clash with a stored carriage is reported on the document's one.
   // service -> site -> first carriage: a few services, so no string keys are built per carriage.
   const atSite = new Map<string, Map<string, Entry>>();
-  for (const entry of view.byCode.carriages.values()) markSiteService(atSite, entry, sink);
+  for (const entry of view.byCode.carriages.values()) {
+    markSiteService(atSite, entry, sink);
+    if (turns.due()) yield progress;
+  }
   for (const entry of view.doc.carriages) {
+    if (turns.due()) yield progress;
     const code = refAt(entry.raw, 'code');
     if (code === undefined || view.byCode.carriages.get(code) !== entry) markSiteService(atSite, entry, sink);
   }

@@ -17,6 +17,7 @@ import {
 import { checkEntity } from './entities';
 import { IssueSink, shown, type RowsOf } from './issues';
 import { checkReferences } from './references';
+import { Turns, nextTurn } from './turns';
 import { buildView } from './view';
 import { findWarnings } from './warnings';
 
@@ -37,9 +38,6 @@ export interface ValidationResult {
   moreErrors?: number;
   moreWarnings?: number;
 }
-
-/** How many entities are checked between two pauses of validationSteps. */
-const STEP_ENTITIES = 2048;
 
 export function validateDocument(raw: unknown, opts: ValidateOptions = {}): ValidationResult {
   const steps = validationSteps(raw, opts);
@@ -65,7 +63,7 @@ export async function validateDocumentInTurns(
     const next = steps.next();
     if (next.done) return next.value;
     opts.onStep?.(Math.min(next.value, total), total);
-    await new Promise<void>((resolve) => setImmediate(resolve));
+    await nextTurn();
     opts.signal?.throwIfAborted();
   }
 }
@@ -82,11 +80,13 @@ function entityCount(raw: unknown): number {
 
 /**
  * The validation as a generator that pauses (yields the entities checked so
- * far) between chunks of work; the entity checks count once, the rules
- * between entities pass over them again (references.ts, warnings.ts).
+ * far) whenever its turn has lasted long enough (turns.ts), in every pass:
+ * the entity checks count once, the rules between entities pass over them
+ * again (view.ts, references.ts, warnings.ts).
  */
 export function* validationSteps(raw: unknown, opts: ValidateOptions = {}): Generator<number, ValidationResult> {
   const sink = new IssueSink(opts.rowsOf);
+  const turns = new Turns();
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
     sink.documentError('not-an-object', `the network document must be a JSON object with "format": "${NETWORK_FORMAT}" (got ${shown(Array.isArray(raw) ? 'a list' : raw)})`);
     return { document: null, ...sink.sorted() };
@@ -104,16 +104,16 @@ export function* validationSteps(raw: unknown, opts: ValidateOptions = {}): Gene
     for (let index = 0; index < list.length; index++) {
       const entity = checkEntity(kind, list[index], index, sink);
       if (entity !== undefined) out.push(entity);
-      if (++checked % STEP_ENTITIES === 0) yield checked;
+      checked++;
+      if (turns.due()) yield checked;
     }
     parsed[kind] = out as never;
   }
 
   yield checked;
-  const view = buildView(lists, unreadable, opts.context);
-  yield checked;
-  yield* checkReferences(view, sink, checked);
-  findWarnings(view, sink);
+  const view = yield* buildView(lists, unreadable, opts.context, turns, checked);
+  yield* checkReferences(view, sink, turns, checked);
+  yield* findWarnings(view, sink, turns, checked);
   yield checked;
 
   const { errors, warnings, moreErrors, moreWarnings } = sink.sorted();

@@ -5,6 +5,7 @@
  * answers every reference (no quadratic scans at 400k entities).
  */
 import { CODE_PATTERN, ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
+import { Turns } from './turns';
 
 export interface Entry {
   /** position in the document's array, or -1 for an entity of the stored network */
@@ -28,7 +29,17 @@ export interface NetworkView {
   unreadable: Set<EntityKind>;
 }
 
-export function buildView(lists: Partial<Record<EntityKind, unknown[]>>, unreadable: Set<EntityKind>, context?: NetworkDocument): NetworkView {
+/**
+ * A generator that pauses (yields `progress` unchanged) when its turn is due:
+ * a national network and its stored counterpart are a million map entries.
+ */
+export function* buildView(
+  lists: Partial<Record<EntityKind, unknown[]>>,
+  unreadable: Set<EntityKind>,
+  context: NetworkDocument | undefined,
+  turns: Turns,
+  progress = 0,
+): Generator<number, NetworkView> {
   const doc = {} as Record<EntityKind, Entry[]>;
   const byCode = {} as Record<EntityKind, Map<string, Entry>>;
   for (const kind of ENTITY_KINDS) {
@@ -36,11 +47,13 @@ export function buildView(lists: Partial<Record<EntityKind, unknown[]>>, unreada
     const map = new Map<string, Entry>();
     for (const stored of context?.[kind] ?? []) {
       map.set(stored.code, { index: -1, raw: stored as unknown as Record<string, unknown> });
+      if (turns.due()) yield progress;
     }
     const list = lists[kind] ?? [];
     for (let index = 0; index < list.length; index++) {
       const item = list[index];
       if (item === null || typeof item !== 'object' || Array.isArray(item)) continue;
+      if (turns.due()) yield progress;
       const entry: Entry = { index, raw: item as Record<string, unknown> };
       entries.push(entry);
       const code = refAt(entry.raw, 'code');

@@ -7,20 +7,27 @@
  * - a relay with no reserve feed into any of its carriages.
  * Linear in carriages + feeds: one breadth-first walk from the origins, then
  * strongly connected components (Tarjan 1972, iterative) among the carriages
- * the walk did not reach.
+ * the walk did not reach. A generator that pauses (yields `progress`
+ * unchanged) when its turn is due (turns.ts): at 100,000 sites the passes
+ * cover a million entries.
  */
 import type { IssueSink } from './issues';
+import type { Turns } from './turns';
 import { refAt, type Entry, type NetworkView } from './view';
 
-export function findWarnings(view: NetworkView, sink: IssueSink): void {
+export function* findWarnings(view: NetworkView, sink: IssueSink, turns: Turns, progress = 0): Generator<number, void> {
   const carriages = [...view.byCode.carriages.values()];
   const n = carriages.length;
-  carriages.forEach((c, i) => (c.slot = i));
-  const siteOf = carriages.map((c) => {
+  const siteOf: (Entry | undefined)[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    const c = carriages[i];
+    c.slot = i;
     const code = refAt(c.raw, 'site');
-    return code === undefined ? undefined : view.byCode.sites.get(code);
-  });
-  for (const site of siteOf) if (site) site.carriages = (site.carriages ?? 0) + 1;
+    const site = code === undefined ? undefined : view.byCode.sites.get(code);
+    siteOf[i] = site;
+    if (site) site.carriages = (site.carriages ?? 0) + 1;
+    if (turns.due()) yield progress;
+  }
   const slotOf = (code: string | undefined) => (code === undefined ? undefined : view.byCode.carriages.get(code)?.slot);
 
   const from: number[] = [];
@@ -33,6 +40,7 @@ export function findWarnings(view: NetworkView, sink: IssueSink): void {
     to.push(t);
     const site = siteOf[t];
     if (feed.raw.role === 'reserve' && site) site.hasReserve = true;
+    if (turns.due()) yield progress;
   }
   const graph = compressedSparseRows(n, from, to);
 
@@ -54,11 +62,13 @@ export function findWarnings(view: NetworkView, sink: IssueSink): void {
         queue[tail++] = v;
       }
     }
+    if (turns.due()) yield progress;
   }
 
-  reportLoops(carriages, graph, reached, sink);
+  yield* reportLoops(carriages, graph, reached, sink, turns, progress);
 
   for (let i = 0; i < n; i++) {
+    if (turns.due()) yield progress;
     const entry = carriages[i];
     const site = siteOf[i];
     const role = site?.raw.role;
@@ -68,6 +78,7 @@ export function findWarnings(view: NetworkView, sink: IssueSink): void {
   }
 
   for (const site of view.byCode.sites.values()) {
+    if (turns.due()) yield progress;
     const count = site.carriages ?? 0;
     if (site.index < 0 || site.raw.role !== 'relay' || count === 0 || site.hasReserve) continue;
     sink.warn('sites', site.index, refAt(site.raw, 'code'), undefined, 'no-reserve',
@@ -96,7 +107,7 @@ function compressedSparseRows(n: number, from: number[], to: number[]): Csr {
 }
 
 /** One warning per loop (a strongly connected component of two or more unreached carriages). */
-function reportLoops(carriages: Entry[], graph: Csr, reached: Uint8Array, sink: IssueSink): void {
+function* reportLoops(carriages: Entry[], graph: Csr, reached: Uint8Array, sink: IssueSink, turns: Turns, progress: number): Generator<number, void> {
   const n = carriages.length;
   const order = new Int32Array(n).fill(-1);
   const low = new Int32Array(n);
@@ -111,6 +122,7 @@ function reportLoops(carriages: Entry[], graph: Csr, reached: Uint8Array, sink: 
   const loops: number[][] = [];
 
   for (let root = 0; root < n; root++) {
+    if (turns.due()) yield progress;
     if (reached[root] || order[root] !== -1) continue;
     callNode[0] = root;
     callEdge[0] = graph.start[root];

@@ -13,6 +13,7 @@ import type { ImportIssue, ImportProgress, ImportReport } from '@/shared/schemas
 import type { Database } from '../db';
 import { validateDocumentInTurns } from '../interchange/validate';
 import { capIssues, type RowsOf } from '../interchange/issues';
+import { Turns, nextTurn } from '../interchange/turns';
 import { loadNetworkDocument } from './networkLoader';
 import type { Actor } from './audit';
 import { countsOf, emptyCounts, planImport, type ImportPlan } from './import/plan';
@@ -20,6 +21,7 @@ import { checkKeptFeeds } from './import/storedConflicts';
 import { RollBack, withNetworkWrite, type NetworkWrite } from './inventory/networkWrite';
 import { analyze, deleteByCodes, writeEntities } from './inventory/tables';
 import { databaseRefusal } from './inventory/dbErrors';
+import { copyCreated } from './import/copy';
 import { staleBase, staleRefusal } from './import/staleBase';
 import { deletionsOf, replaceToken, requireConfirmation } from './import/confirmReplace';
 
@@ -67,7 +69,7 @@ async function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions,
   if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [], moreErrors: opts.moreSourceErrors };
   const result = await validateDocumentInTurns(raw, {
     rowsOf: opts.rowsOf,
-    context: replace ? undefined : storedOutside(stored, raw),
+    context: replace ? undefined : await storedOutside(stored, raw),
     signal: opts.signal,
     onStep: (done, total) => opts.onProgress?.({ stage: 'validating', done, total }),
   });
@@ -82,17 +84,27 @@ async function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions,
  * The stored entities the document does not carry. The validator overlays the
  * document on its context by code, so leaving out what the document replaces
  * gives the same view, and re-importing a whole network costs no more than
- * importing it into an empty one.
+ * importing it into an empty one. Gives the event loop a turn when one is due:
+ * both sides may hold a national network.
  */
-function storedOutside(stored: NetworkDocument, raw: unknown): NetworkDocument {
+async function storedOutside(stored: NetworkDocument, raw: unknown): Promise<NetworkDocument> {
+  const turns = new Turns();
   const top = raw !== null && typeof raw === 'object' ? (raw as Record<string, unknown>) : {};
   const out = { ...stored };
   for (const kind of ENTITY_KINDS) {
     const list = top[kind];
-    if (!Array.isArray(list) || list.length === 0) continue;
+    if (!Array.isArray(list) || list.length === 0 || stored[kind].length === 0) continue;
     const inDocument = new Set<unknown>();
-    for (const item of list) if (item !== null && typeof item === 'object') inDocument.add((item as { code?: unknown }).code);
-    (out as Record<EntityKind, unknown[]>)[kind] = (stored[kind] as Array<{ code: string }>).filter((e) => !inDocument.has(e.code));
+    for (const item of list) {
+      if (item !== null && typeof item === 'object') inDocument.add((item as { code?: unknown }).code);
+      if (turns.due()) await nextTurn();
+    }
+    const kept: unknown[] = [];
+    for (const e of stored[kind] as Array<{ code: string }>) {
+      if (!inDocument.has(e.code)) kept.push(e);
+      if (turns.due()) await nextTurn();
+    }
+    (out as Record<EntityKind, unknown[]>)[kind] = kept;
   }
   return out;
 }
@@ -179,13 +191,14 @@ async function carryOut(w: NetworkWrite, plan: ImportPlan, opts: Pick<ImportOpti
   };
   step(0);
   // In slices, so progress moves and a client that is gone stops the write within a slice.
+  // New entities through COPY (import/copy.ts); changed ones through the multi-row upsert, which COPY cannot do.
   const write = async (kind: EntityKind) => {
-    for (const [list, created] of [[k[kind].create, true], [k[kind].update, false]] as const) {
-      for (let i = 0; i < list.length; i += WRITE_SLICE) {
-        const slice = list.slice(i, i + WRITE_SLICE);
-        await writeEntities(w, kind, slice, { created });
-        step(slice.length);
-      }
+    await copyCreated(w, kind, k[kind].create, { signal: opts.signal, step });
+    const list = k[kind].update;
+    for (let i = 0; i < list.length; i += WRITE_SLICE) {
+      const slice = list.slice(i, i + WRITE_SLICE);
+      await writeEntities(w, kind, slice);
+      step(slice.length);
     }
   };
   const remove = async (kind: EntityKind, codes: readonly string[]) => {

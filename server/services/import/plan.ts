@@ -7,7 +7,7 @@
 import { ENTITY_KINDS, type EntityKind, type NetworkDocument } from '@/shared/schemas/network';
 import type { KindCounts } from '@/shared/schemas/import';
 import { canonical, sameEntity, type Fields } from '../inventory/shape';
-import { yieldToEventLoop } from '../inventory/tables';
+import { Turns, nextTurn } from '../../interchange/turns';
 
 export interface KindPlan {
   create: Fields[];
@@ -28,16 +28,17 @@ export interface ImportPlan {
   changed: boolean;
 }
 
-const YIELD_EVERY = 10_000;
-
-/** Compares entity by entity without copying the unchanged ones; yields now and then, as it runs inside a request. */
+/** Compares entity by entity without copying the unchanged ones; gives the event loop a turn when one is due (turns.ts), as it runs inside a request. */
 export async function planImport(stored: NetworkDocument, document: NetworkDocument, replace: boolean): Promise<ImportPlan> {
   const kinds = {} as Record<EntityKind, KindPlan>;
   let changed = false;
-  let steps = 0;
+  const turns = new Turns();
   for (const kind of ENTITY_KINDS) {
     const before = new Map<string, Fields>();
-    for (const e of stored[kind] as unknown as Fields[]) before.set(e.code as string, e);
+    for (const e of stored[kind] as unknown as Fields[]) {
+      before.set(e.code as string, e);
+      if (turns.due()) await nextTurn();
+    }
     const plan: KindPlan = { create: [], update: [], unchanged: 0, remove: [] };
     const seen = new Set<string>();
     for (const e of document[kind] as unknown as Fields[]) {
@@ -47,22 +48,34 @@ export async function planImport(stored: NetworkDocument, document: NetworkDocum
       if (!old) plan.create.push(canonical(kind, e));
       else if (!sameEntity(kind, old, e)) plan.update.push(canonical(kind, e));
       else plan.unchanged += 1;
-      if (++steps % YIELD_EVERY === 0) await yieldToEventLoop();
+      if (turns.due()) await nextTurn();
     }
-    if (replace) for (const code of before.keys()) if (!seen.has(code)) plan.remove.push(code);
+    if (replace) {
+      for (const code of before.keys()) {
+        if (!seen.has(code)) plan.remove.push(code);
+        if (turns.due()) await nextTurn();
+      }
+    }
     if (plan.create.length || plan.update.length || plan.remove.length) changed = true;
     kinds[kind] = plan;
   }
-  return { kinds, park: carriagesToPark(stored, kinds.carriages), changed };
+  return { kinds, park: await carriagesToPark(stored, kinds.carriages, turns), changed };
 }
 
-function carriagesToPark(stored: NetworkDocument, carriages: KindPlan): string[] {
+async function carriagesToPark(stored: NetworkDocument, carriages: KindPlan, turns: Turns): Promise<string[]> {
+  if (stored.carriages.length === 0) return [];
   const holder = new Map<string, string>();
-  for (const c of stored.carriages) holder.set(`${c.site}\u0000${c.service}`, c.code);
+  for (const c of stored.carriages) {
+    holder.set(`${c.site}\u0000${c.service}`, c.code);
+    if (turns.due()) await nextTurn();
+  }
   const park = new Set<string>();
-  for (const c of [...carriages.create, ...carriages.update]) {
-    const current = holder.get(`${c.site as string}\u0000${c.service as string}`);
-    if (current !== undefined && current !== c.code) park.add(current);
+  for (const list of [carriages.create, carriages.update]) {
+    for (const c of list) {
+      const current = holder.get(`${c.site as string}\u0000${c.service as string}`);
+      if (current !== undefined && current !== c.code) park.add(current);
+      if (turns.due()) await nextTurn();
+    }
   }
   return [...park];
 }
