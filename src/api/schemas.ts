@@ -304,11 +304,17 @@ export const checkFailureSchema = z.object({
   margin: z.number().optional(),
 });
 
+const kindCountSchema = z.object({ name: z.enum(CHECK_NAMES), count: z.number() });
+export const failureCountsSchema = z.object({ total: z.number(), errors: z.number(), warnings: z.number(), feeds: z.number(), byCheck: z.array(kindCountSchema) });
+
 export const checksListAnswerSchema = z.object({
   networkVersion: z.union([z.number(), z.string()]).optional(),
   failures: z.array(checkFailureSchema),
   total: z.number().optional(),
   offset: z.number().optional(),
+  counts: failureCountsSchema.optional(),
+  kinds: z.array(kindCountSchema).optional(),
+  unfiltered: z.number().optional(),
 });
 export type ChecksListReply = z.infer<typeof checksListAnswerSchema>;
 
