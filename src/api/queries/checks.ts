@@ -27,8 +27,8 @@ export function useFeedChecks(code: string | null) {
   return useApiQuery(code ? checksKeys.feed(code) : null, feedChecksAnswerSchema, 'network');
 }
 
-/** Failures per page: a phone shows four or five cards at once; one page covers a long fling. */
-export const FAILURE_PAGE = 200;
+/** Failures per page: a phone shows three or four cards at once, so one page covers a long fling. */
+export const FAILURE_PAGE = 100;
 
 const failuresOf = (a: ChecksListReply) => a.failures;
 
