@@ -25,11 +25,12 @@ import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import type { ServedNetwork } from '../services/servedNetwork';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
-import { cachedFeedChecks, currentModel } from './checks';
+import { currentModel } from './checks';
+import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { searchCarriages } from '../services/carriageSearch';
 
-export const chainQuery = z.object({ direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up') });
+export { chainQuery } from './chain';
 /** A sandbox's exposure takes a limit and the element kinds; the files and the names are the stored network's only, so asking for them is refused rather than ignored. */
 const sandboxExposureQuery = z.strictObject(exposureQuerySchema.pick({ limit: true, kinds: true }).shape);
 
@@ -209,15 +210,5 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     res.status(201).json({ networkVersion: out.networkVersion, created: out.result.map((f) => f.code) });
   });
 
-  routes.add('get', '/carriages/:code/chain', can.analyse, async (req, res) => {
-    const { direction } = parseOr400(chainQuery, req.query, 'query');
-    const m = currentModel(ctx);
-    const warningsFor = (feedCode: string) => cachedFeedChecks(m, feedCode).warnings;
-    try {
-      res.json(m.engine.chain(String(req.params.code), direction, { warningsFor }));
-    } catch (e) {
-      if (e instanceof UnknownCarriageError) throw notFound(`carriage ${e.carriage} does not exist`, { kind: 'carriage', code: e.carriage });
-      throw e;
-    }
-  });
+  registerChainRoutes(routes, ctx);
 }

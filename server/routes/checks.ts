@@ -2,6 +2,7 @@
 import { can } from '@/shared/api';
 import { checksQuerySchema, type ChecksListAnswer, type FeedChecksAnswer } from '@/shared/schemas/checks';
 import { checksForFeed, CheckInputError, networkCheckFailures } from '../checks/networkChecks';
+import { failureMemo } from '../checks/failurePages';
 import { pageRows } from '@/shared/schemas/paging';
 import { ApiError, notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
@@ -20,7 +21,7 @@ export function currentModel(ctx: AppContext): ServedNetwork {
  * own: one feed's checks (also read by every chain hop) and the whole list,
  * computed once at the lowest severity and filtered for the higher one.
  */
-const cache = new WeakMap<ServedNetwork, { feeds: Map<string, FeedChecksAnswer>; failures?: ChecksListAnswer }>();
+const cache = new WeakMap<ServedNetwork, { feeds: Map<string, FeedChecksAnswer>; failures?: ChecksListAnswer; filtered?: ReturnType<typeof failureMemo> }>();
 function cacheOf(m: ServedNetwork) {
   let c = cache.get(m);
   if (!c) cache.set(m, (c = { feeds: new Map() }));
@@ -46,18 +47,19 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
     }
   });
 
+  // Paged with ?limit&offset; every answer counts the whole filtered list (for the summary) and each kind at the severity asked (for the chips). CSV is the whole filtered list.
   routes.add('get', '/checks', can.read, async (req, res) => {
     const { severity = 'warning', check, format, ...page } = parseOr400(checksQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     const c = cacheOf(m);
     c.failures ??= networkCheckFailures(m.document, { severity: 'warning', networkVersion: m.networkVersion });
-    const all = c.failures.failures;
-    const wanted = severity === 'warning' && !check ? all : all.filter((f) => (severity === 'warning' || f.severity === 'error') && (!check || check.includes(f.check.name)));
+    c.filtered ??= failureMemo(c.failures.failures);
+    const wanted = c.filtered({ severity, checks: check });
     if (format === 'csv') {
-      res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv({ ...c.failures, failures: wanted }));
+      res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv({ ...c.failures, failures: [...wanted.rows] }));
       return;
     }
-    const { rows, total, offset } = pageRows(wanted, page);
-    res.json({ ...c.failures, failures: rows, total, offset });
+    const { rows, total, offset } = pageRows(wanted.rows, page);
+    res.json({ networkVersion: c.failures.networkVersion, failures: rows, total, offset, counts: wanted.counts, kinds: wanted.kinds, unfiltered: c.failures.failures.length });
   });
 }

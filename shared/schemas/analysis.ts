@@ -223,6 +223,41 @@ export interface ChainAnswer {
   root: ChainNode;
 }
 
+/** One carriage of a chain as a row of a level or branch page: the node without its subtree, placed in the tree. */
+export interface ChainRow extends Omit<ChainNode, 'children'> {
+  /** hops from the chain's own carriage (1 = fed by it directly, downstream) */
+  depth: number;
+  /** the carriage it hangs from in the tree (absent at the root) */
+  parent?: string;
+  /** carriages hanging directly from it in the tree */
+  childCount: number;
+  /** carriages anywhere below it in the tree */
+  below: number;
+}
+
+/**
+ * `?view=levels`: the chain folded by level. `levels[k]` carriages sit k hops
+ * away (levels[0] = 1, the carriage itself; they sum to `size`). When the tree
+ * is small (`complete`), `root` holds all of it; otherwise `root` comes
+ * without children and the levels or branches are read in pages.
+ */
+export interface ChainLevelsAnswer extends ChainAnswer {
+  size: number;
+  levels: number[];
+  complete: boolean;
+}
+
+/** `?level=K` or `?under=CODE`, paged by `limit` and `offset`: the rows of one level, or the carriages hanging directly from one, in tree order. */
+export interface ChainPageAnswer {
+  networkVersion: number;
+  direction: 'up' | 'down';
+  level?: number;
+  under?: string;
+  rows: ChainRow[];
+  total: number;
+  offset: number;
+}
+
 export const elementKey = (e: Element) => `${e.kind}:${e.code}`;
 export const KIND_ORDER: Record<ElementKind, number> = { site: 0, carriage: 1, feed: 2, group: 3 };
 export const compareElements = (a: Element, b: Element) =>

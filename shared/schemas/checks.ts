@@ -118,4 +118,20 @@ export interface ChecksListAnswer {
   /** failures in the whole filtered list (this page may hold fewer) */
   total?: number;
   offset?: number;
+  /** the whole filtered list counted (severity and check), whatever the page */
+  counts?: FailureCounts;
+  /** failures per kind of check at the severity asked, whichever kinds are chosen: what filter chips show */
+  kinds?: { name: CheckName; count: number }[];
+  /** failures in the network, no filter */
+  unfiltered?: number;
+}
+
+export interface FailureCounts {
+  total: number;
+  errors: number;
+  warnings: number;
+  /** distinct feeds with at least one failure in the list */
+  feeds: number;
+  /** failures per kind of check, in CHECK_NAMES order, kinds with none left out */
+  byCheck: { name: CheckName; count: number }[];
 }

@@ -195,32 +195,43 @@ export const unfedAnswerSchema = z.object({
   offset: z.number().optional(),
 }) satisfies z.ZodType<analysisTypes.UnfedAnswer>;
 
-export const chainNodeSchema: z.ZodType<analysisTypes.ChainNode> = z.lazy(() =>
-  z.object({
-    carriage: z.string(),
-    site: z.string(),
-    siteName: z.string(),
-    service: z.string(),
-    origin: z.boolean(),
-    via: z
-      .object({
-        feed: z.string(),
-        medium: mediumSchema,
-        role: feedRoleSchema,
-        up: z.boolean(),
-        distanceKm: z.number().nullable(),
-        hops: z.array(z.string()),
-        warnings: z.array(z.string()),
-      })
-      .optional(),
-    onAir: z.boolean(),
-    loop: z.boolean().optional(),
-    deadEnd: z.boolean().optional(),
-    repeated: z.boolean().optional(),
-    children: z.array(chainNodeSchema),
-  }),
-);
+/** A chain node's own fields, shared by the tree (with children) and the rows of a folded chain's pages. */
+const chainNodeShape = {
+  carriage: z.string(),
+  site: z.string(),
+  siteName: z.string(),
+  service: z.string(),
+  origin: z.boolean(),
+  via: z
+    .object({
+      feed: z.string(),
+      medium: mediumSchema,
+      role: feedRoleSchema,
+      up: z.boolean(),
+      distanceKm: z.number().nullable(),
+      hops: z.array(z.string()),
+      warnings: z.array(z.string()),
+    })
+    .optional(),
+  onAir: z.boolean(),
+  loop: z.boolean().optional(),
+  deadEnd: z.boolean().optional(),
+  repeated: z.boolean().optional(),
+};
+export const chainNodeSchema: z.ZodType<analysisTypes.ChainNode> = z.lazy(() => z.object({ ...chainNodeShape, children: z.array(chainNodeSchema) }));
 export const chainAnswerSchema = z.object({ networkVersion: z.number(), direction: z.enum(['up', 'down']), root: chainNodeSchema }) satisfies z.ZodType<analysisTypes.ChainAnswer>;
+export const chainLevelsAnswerSchema = chainAnswerSchema.extend({ size: z.number(), levels: z.array(z.number()), complete: z.boolean() }) satisfies z.ZodType<analysisTypes.ChainLevelsAnswer>;
+export const chainRowSchema = z.object({ ...chainNodeShape, depth: z.number(), parent: z.string().optional(), childCount: z.number(), below: z.number() }) satisfies z.ZodType<analysisTypes.ChainRow>;
+export const chainPageAnswerSchema = z.object({
+  networkVersion: z.number(),
+  direction: z.enum(['up', 'down']),
+  level: z.number().optional(),
+  under: z.string().optional(),
+  rows: z.array(chainRowSchema),
+  total: z.number(),
+  offset: z.number(),
+}) satisfies z.ZodType<analysisTypes.ChainPageAnswer>;
+export type ChainPageReply = z.infer<typeof chainPageAnswerSchema>;
 
 /** The whole network (GET /api/network/export) as the diagram reads it: optional fields it does not draw are left unchecked. */
 export const networkDrawingSchema = z.object({
@@ -304,11 +315,17 @@ export const checkFailureSchema = z.object({
   margin: z.number().optional(),
 });
 
+const kindCountSchema = z.object({ name: z.enum(CHECK_NAMES), count: z.number() });
+export const failureCountsSchema = z.object({ total: z.number(), errors: z.number(), warnings: z.number(), feeds: z.number(), byCheck: z.array(kindCountSchema) });
+
 export const checksListAnswerSchema = z.object({
   networkVersion: z.union([z.number(), z.string()]).optional(),
   failures: z.array(checkFailureSchema),
   total: z.number().optional(),
   offset: z.number().optional(),
+  counts: failureCountsSchema.optional(),
+  kinds: z.array(kindCountSchema).optional(),
+  unfiltered: z.number().optional(),
 });
 export type ChecksListReply = z.infer<typeof checksListAnswerSchema>;
 

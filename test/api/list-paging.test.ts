@@ -110,6 +110,81 @@ describe('paged failing checks', () => {
   });
 });
 
+describe('failing checks counted on the server', () => {
+  type Row = { feed: string; severity: 'error' | 'warning'; check: { name: string } };
+  /** Counted here from the unpaged list, independently of the server's counting. */
+  function countHere(rows: Row[]) {
+    const names = ['free-space-loss', 'field-strength', 'horizon', 'earth-bulge', 'fresnel-f1', 'clearance', 'channel-clash', 'bearing-record'];
+    const errors = rows.filter((f) => f.severity === 'error').length;
+    return {
+      total: rows.length,
+      errors,
+      warnings: rows.length - errors,
+      feeds: new Set(rows.map((f) => f.feed)).size,
+      byCheck: names.map((name) => ({ name, count: rows.filter((f) => f.check.name === name).length })).filter((b) => b.count > 0),
+    };
+  }
+
+  it('every page carries the counts of the whole filtered list, the chips per kind and the unfiltered total', async () => {
+    const whole = await get('/api/checks');
+    const all = whole.body.failures as Row[];
+    expect(new Set(all.map((f) => f.severity))).toEqual(new Set(['error', 'warning']));
+    const kinds = [...new Set(all.map((f) => f.check.name))];
+    expect(kinds.length).toBeGreaterThan(1);
+    expect(whole.body.counts).toEqual(countHere(all));
+    expect(whole.body.unfiltered).toBe(all.length);
+
+    const errorsOnly = all.filter((f) => f.severity === 'error');
+    const one = kinds[0];
+    const cases: [string, Row[], Row[]][] = [
+      ['', all, all],
+      ['severity=error', errorsOnly, errorsOnly],
+      [`check=${one}`, all.filter((f) => f.check.name === one), all],
+      [`severity=error&check=${kinds.join(',')}`, errorsOnly, errorsOnly],
+    ];
+    for (const [q, rows, chipBase] of cases) {
+      for (const offset of [0, 1, rows.length - 1, rows.length, rows.length + 3]) {
+        const r = await get(`/api/checks?${q}${q ? '&' : ''}limit=1&offset=${offset}`);
+        expect(r.status, q).toBe(200);
+        expect(r.body.failures, `${q} at ${offset}`).toEqual(rows.slice(offset, offset + 1));
+        expect(r.body.total).toBe(rows.length);
+        expect(r.body.offset).toBe(offset);
+        expect(r.body.counts, q).toEqual(countHere(rows));
+        expect(r.body.kinds, q).toEqual(countHere(chipBase).byCheck);
+        expect(r.body.unfiltered).toBe(all.length);
+      }
+    }
+  });
+
+  it('pages of 2 join into the filtered list, the last page short when the total is odd', async () => {
+    const all = (await get('/api/checks?severity=error')).body.failures as Row[];
+    const paged = await allPages('/api/checks?severity=error', 'failures', 2);
+    expect(paged.rows).toEqual(all);
+    expect(paged.totals).toEqual([all.length]);
+  });
+
+  it.each([
+    ['limit=0&severity=error', 'limit is at least 1'],
+    ['limit=10&offset=1.5', 'offset is a whole number'],
+    ['offset=-3&check=horizon', 'offset is at least 0'],
+    ['limit=99999', 'limit is at most 5000'],
+    ['limit=1&limit=2', 'limit must be a number'],
+    ['severity=fatal&limit=5', 'severity is one of warning, error'],
+  ])('refuses ?%s with a 400 naming the fault', async (q, words) => {
+    const r = await get(`/api/checks?${q}`);
+    expect(r.status).toBe(400);
+    expect(r.body.error.message).toContain(words);
+    expect(JSON.stringify(r.body)).not.toMatch(/select|constraint/i);
+  });
+
+  it('the CSV download stays the whole filtered list, whatever the page asked', async () => {
+    const all = (await get('/api/checks?severity=error')).body.failures as Row[];
+    const r = await get('/api/checks?severity=error&format=csv&limit=1&offset=1');
+    expect(r.status).toBe(200);
+    expect(r.text.trim().split('\n')).toHaveLength(all.length + 1);
+  });
+});
+
 describe('POST /api/analysis/reach?with=sites', () => {
   it('adds the name and households of each listed site, and nothing without it', async () => {
     const main = demo.sites.find((s) => s.role === 'main')!;

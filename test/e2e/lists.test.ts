@@ -3,8 +3,10 @@
  * - the resilience exposure ranking as cards on a phone (390 px), each
  *   leading with its households, and as a table on a wide screen (1440 px);
  * - on a generated 2,000-site network, lists of thousands of rows render
- *   only a bounded number of row elements (virtualised), and an origin's
- *   downstream tree opens folded by level with a count per hop.
+ *   only a bounded number of row elements (virtualised), an origin's
+ *   downstream tree opens folded by hop with a count per hop and lists a
+ *   hop's carriages page by page, and the checks screen pages its failures
+ *   with the counts from the server.
  * Structural checks only: the timings are scripts/bench-browser-lists.ts.
  */
 import type { Browser, Page } from 'playwright-core';
@@ -125,30 +127,92 @@ describe('lists of thousands of rows (2,000 generated sites)', () => {
     await page.context().close();
   });
 
-  it('an origin\'s downstream tree opens folded by level, with counts, and the hop list stays bounded', async () => {
+  it('an origin\'s downstream tree opens folded by hop with counts, and a hop lists its carriages a page at a time', async () => {
     const { page, errors } = await openPage(browser, PHONE);
     await signInHere(page);
     const token = await loginToken(base);
     const api = async <T,>(p: string) => (await (await fetch(`${base}${p}`, { headers: { authorization: `Bearer ${token}` } })).json()) as T;
     const origin = (await api<{ items: { code: string }[] }>('/api/sites?role=origin&pageSize=1')).items[0].code;
     const carriage = (await api<{ items: { code: string }[] }>(`/api/carriages?site=${origin}&pageSize=1`)).items[0].code;
+    const folded = await api<{ levels: number[]; size: number; complete: boolean }>(`/api/carriages/${encodeURIComponent(carriage)}/chain?direction=down&view=levels`);
+    expect(folded.complete).toBe(false);
+    const requests: string[] = [];
+    page.on('request', (r) => {
+      if (r.url().includes('/chain')) requests.push(r.url());
+    });
     await page.goto(`${base}/carriages/${encodeURIComponent(carriage)}?direction=down`);
     const levels = page.getByTestId('chain-levels');
     await levels.waitFor({ timeout: 60_000 });
     const summary = (await page.getByTestId('chain-summary').innerText()).replace(/,/g, '');
     const total = Number(/: (\d+) carriages/.exec(summary)?.[1]);
+    expect(total).toBe(folded.size);
     expect(total).toBeGreaterThan(300);
-    expect(await levels.innerText()).toMatch(/carriages? at hop 2/);
+    // one line per hop with its count, adding up to the whole tree with the carriage itself
+    const text = (await levels.innerText()).replace(/,/g, '');
+    const counts = [...text.matchAll(/(\d+) carriages? at hop (\d+)/g)].map((m) => Number(m[1]));
+    expect(counts).toEqual(folded.levels.slice(1));
+    expect(1 + counts.reduce((a, b) => a + b, 0)).toBe(total);
+    // the whole tree was never asked for: only the counts and pages of hop 1
+    await page.getByTestId('chain-list').first().waitFor({ timeout: 30_000 });
+    expect(requests.every((u) => /view=levels|level=\d+&limit=\d+&offset=\d+/.test(u))).toBe(true);
+    // the deepest big hop: its first page, a bounded number of rows, and more as the list scrolls
+    const deep = folded.levels.reduce((best, n, k) => (k > 0 && n > folded.levels[best] ? k : best), 1);
+    expect(folded.levels[deep]).toBeGreaterThan(100);
+    // hop 1 opens by itself; another is shown with a press, and hop 1 then hidden so the list in view is the deep one
+    if (deep !== 1) await page.getByTestId(`chain-hop-toggle-${deep}`).click();
+    const footer = page.getByTestId(`chain-hop-footer-${deep}`);
+    await footer.waitFor({ timeout: 30_000 });
+    expect((await footer.innerText()).replace(/,/g, '')).toContain(`of ${folded.levels[deep]} at hop ${deep}`);
     expect(await rowsIn(page, 'chain-list')).toBeLessThan(120);
-    // Open everything to the deepest hop: thousands of carriages, still a bounded number of rows.
-    const buttons = levels.getByRole('button');
-    await buttons.last().click();
-    await page.getByTestId('chain-not-drawn').waitFor({ timeout: 30_000 });
+    if (deep !== 1) await page.getByTestId('chain-hop-toggle-1').click();
+    // scrolled by the wheel, the list keeps a bounded number of rows; the next page comes by the scroll or the footer's button
+    const list = page.getByTestId('chain-list').first();
+    const box = (await list.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + Math.min(box.height / 2, 200));
+    for (let i = 0; i < 20; i++) await page.mouse.wheel(0, 600);
     await page.waitForTimeout(500);
-    const after = (await page.getByTestId('chain-summary').innerText()).replace(/,/g, '');
-    expect(after).not.toContain('folded away');
-    expect(await rowsIn(page, 'chain-list')).toBeLessThan(120);
+    expect(await rowsIn(page, 'chain-list')).toBeLessThan(160);
+    // (the scroll may have asked for it already; else the button does)
+    if ((await footer.innerText()).startsWith('Showing 100 ')) await footer.getByRole('button', { name: /Show more|Loading more/ }).click();
+    await page.waitForFunction((hop) => !document.querySelector(`[data-testid="chain-hop-footer-${hop}"]`)?.textContent?.startsWith('Showing 100 '), deep, { timeout: 30_000 });
+    expect(requests.some((u) => new RegExp(`level=${deep}&limit=100&offset=100`).test(u))).toBe(true);
+    expect(await rowsIn(page, 'chain-list')).toBeLessThan(160);
     await shot(page, 'lists-chain-levels-phone');
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
+  it('the checks screen counts the whole list on the server and reads its failures a page at a time', async () => {
+    const { page, errors } = await openPage(browser, PHONE);
+    await signInHere(page);
+    const token = await loginToken(base);
+    const whole = (await (await fetch(`${base}/api/checks`, { headers: { authorization: `Bearer ${token}` } })).json()) as { failures: { feed: string; severity: string }[] };
+    expect(whole.failures.length).toBeGreaterThan(100);
+    const pages: string[] = [];
+    page.on('request', (r) => {
+      if (r.url().includes('/api/checks')) pages.push(r.url());
+    });
+    await page.goto(`${base}/checks`);
+    const counts = page.getByTestId('failing-checks-counts');
+    await counts.waitFor({ timeout: 30_000 });
+    const errorsCount = whole.failures.filter((f) => f.severity === 'error').length;
+    expect(await counts.innerText()).toContain(`Errors: ${formatCount(errorsCount)}`);
+    expect(await counts.innerText()).toContain(`Feeds: ${formatCount(new Set(whole.failures.map((f) => f.feed)).size)}`);
+    expect(pages.every((u) => /limit=100&offset=\d+/.test(u))).toBe(true);
+    const footer = page.getByTestId('failing-checks-footer');
+    await footer.waitFor({ timeout: 30_000 });
+    expect(await footer.innerText()).toContain(`Showing 100 of ${formatCount(whole.failures.length)}`);
+    expect(await rowsIn(page, 'failing-checks-list')).toBeLessThan(60);
+    await page.getByTestId('failing-checks-more').click();
+    await page.waitForFunction(() => !document.querySelector('[data-testid="failing-checks-footer"]')?.textContent?.startsWith('Showing 100 '), undefined, { timeout: 30_000 });
+    expect(pages.some((u) => u.includes('limit=100&offset=100'))).toBe(true);
+    // a chip filters on the server: its count becomes the list's total
+    const chip = page.getByRole('checkbox').first();
+    const chipCount = Number(/\(([\d,]+)\)/.exec((await chip.getAttribute('aria-label')) ?? '')?.[1].replace(/,/g, ''));
+    await chip.click();
+    await page.waitForFunction((n) => (document.querySelector('[data-testid="failing-checks"]')?.textContent ?? '').replace(/,/g, '').includes(`${n} failing check`), chipCount, { timeout: 30_000 });
+    expect(pages.some((u) => u.includes('check='))).toBe(true);
+    await shot(page, 'lists-checks-paged-phone');
     expect(errors).toEqual([]);
     await page.context().close();
   });

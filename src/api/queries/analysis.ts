@@ -12,9 +12,10 @@ import { parseAnswer } from '../client';
 import { localReach } from '@/src/offline/localEngine';
 import { useCopyFallback } from '@/src/offline/useCopyFallback';
 import { freshness } from '../freshness';
-import { chainAnswerSchema, diversityAnswerSchema, exposureAnswerSchema, exposureGroupsAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
+import { chainAnswerSchema, chainLevelsAnswerSchema, chainPageAnswerSchema, type ChainPageReply, diversityAnswerSchema, exposureAnswerSchema, exposureGroupsAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
 import { attachmentName, type DownloadedFile } from './network';
 import type { z } from 'zod';
+import { useApiPages } from '../useApiPages';
 import { useApiQuery } from '../useApiQuery';
 
 export type ReachResult = z.infer<typeof reachAnswerSchema>;
@@ -28,6 +29,9 @@ export const analysisKeys = {
   diversity: () => api.diversity,
   unfed: () => api.unfed,
   chain: (code: string, direction: 'up' | 'down') => api.chain(code, direction),
+  chainLevels: (code: string, direction: 'up' | 'down') => `${api.chain(code, direction)}&view=levels`,
+  /** without its page: useApiPages adds limit and offset */
+  chainLevel: (code: string, direction: 'up' | 'down', depth: number) => `${api.chain(code, direction)}&level=${depth}`,
 };
 
 /** A reach answer; `offlineCopy` is set when it was computed in the browser from the offline copy (src/offline). */
@@ -91,4 +95,18 @@ export function useUnfed() {
 
 export function useChain(code: string | null, direction: 'up' | 'down') {
   return useApiQuery(code ? analysisKeys.chain(code, direction) : null, chainAnswerSchema, 'network');
+}
+
+/** The chain folded by hop: the count at each hop, and the whole tree only when it is small (null code waits). */
+export function useChainLevels(code: string | null, direction: 'up' | 'down') {
+  return useApiQuery(code ? analysisKeys.chainLevels(code, direction) : null, chainLevelsAnswerSchema, 'network');
+}
+
+/** Carriages per page of one hop; a phone shows six or seven at once. */
+export const CHAIN_PAGE = 100;
+const chainRowsOf = (a: ChainPageReply) => a.rows;
+
+/** The carriages `depth` hops away, a page at a time as their list scrolls (null depth waits). */
+export function useChainLevelRows(code: string, direction: 'up' | 'down', depth: number | null) {
+  return useApiPages(depth === null ? null : analysisKeys.chainLevel(code, direction, depth), chainPageAnswerSchema, chainRowsOf, CHAIN_PAGE, 'network');
 }

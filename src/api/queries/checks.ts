@@ -4,8 +4,9 @@
  * plus the small site search the calculator uses to pick two ends of a path.
  */
 import { api } from '@/shared/api';
-import type { CheckSeverity } from '@/shared/schemas/checks';
-import { checksListAnswerSchema, feedChecksAnswerSchema, sitePositionsPageSchema } from '../schemas';
+import type { CheckName, CheckSeverity } from '@/shared/schemas/checks';
+import { checksListAnswerSchema, feedChecksAnswerSchema, sitePositionsPageSchema, type ChecksListReply } from '../schemas';
+import { useApiPages } from '../useApiPages';
 import { useApiQuery } from '../useApiQuery';
 
 /** Sites offered per search; enough to pick from on a phone without scrolling far. */
@@ -13,8 +14,11 @@ export const SITE_SEARCH_PAGE = 8;
 
 export const checksKeys = {
   feed: (code: string) => api.feedChecks(code),
-  /** The server lists failures at or above `severity` (default warning: all of them). */
-  list: (severity?: CheckSeverity) => api.checks(severity),
+  /** The filtered list without its page; `checks` in CHECK_NAMES order (failureList.ts keeps it so), so equal filters share a cache entry. */
+  filtered: (severity: CheckSeverity, checks: readonly CheckName[]) => {
+    const q = [severity === 'warning' ? '' : `severity=${severity}`, checks.length ? `check=${checks.join(',')}` : ''].filter(Boolean).join('&');
+    return `${api.checks()}${q ? `?${q}` : ''}`;
+  },
   sites: (q: string) => `${api.list('sites')}?q=${encodeURIComponent(q)}&pageSize=${SITE_SEARCH_PAGE}`,
 };
 
@@ -23,9 +27,17 @@ export function useFeedChecks(code: string | null) {
   return useApiQuery(code ? checksKeys.feed(code) : null, feedChecksAnswerSchema, 'network');
 }
 
-/** Every failing check, worst first, as the server orders them. */
-export function useCheckFailures(severity?: CheckSeverity) {
-  return useApiQuery(checksKeys.list(severity), checksListAnswerSchema, 'network');
+/** Failures per page: a phone shows three or four cards at once, so one page covers a long fling. */
+export const FAILURE_PAGE = 100;
+
+const failuresOf = (a: ChecksListReply) => a.failures;
+
+/**
+ * The failing checks for one filter, page after page as the list scrolls; the
+ * first page carries the counts of the whole filtered list and of each kind.
+ */
+export function useCheckFailurePages(severity: CheckSeverity, checks: readonly CheckName[]) {
+  return useApiPages(checksKeys.filtered(severity, checks), checksListAnswerSchema, failuresOf, FAILURE_PAGE, 'network');
 }
 
 /** Sites whose code or name holds `q`; an empty search asks nothing. */

@@ -15,7 +15,7 @@
  *     initialSort={{ column: 'km', direction: 'desc' }}
  *   />
  */
-import { useMemo, useState, type ReactNode } from 'react';
+import { useMemo, useState, type ReactElement, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
 import Svg, { Path } from 'react-native-svg';
 import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';
@@ -62,6 +62,10 @@ export interface DataTableProps<Row> {
    * (for tables of hundreds of rows and more). Its rows get `<testID>-body-row`.
    */
   virtual?: boolean;
+  /** With `virtual`: called when the last rows come into view (to fetch the next page of a server-paged list). */
+  onEndReached?: () => void;
+  /** With `virtual`: shown after the last row (e.g. how many rows of how many have arrived). */
+  footer?: ReactElement | null;
   /**
    * On a phone, one card per row instead of columns that would sit off-screen:
    * the `lead` column's figure first and large, then every other column as
@@ -89,7 +93,7 @@ function Caret({ direction }: { direction: 'asc' | 'desc' | null }) {
 }
 
 export function DataTable<Row>(props: DataTableProps<Row>) {
-  const { caption, columns, rows, rowKey, initialSort, onRowPress, rowLabel, emptyText = 'Nothing to list.', testID, virtual, cardsOnPhone } = props;
+  const { caption, columns, rows, rowKey, initialSort, onRowPress, rowLabel, emptyText = 'Nothing to list.', testID, virtual, onEndReached, footer, cardsOnPhone } = props;
   const { wide } = useBreakpoints();
   const [sort, setSort] = useState<SortState | null>(initialSort ?? null);
   const sorted = useMemo(() => {
@@ -169,7 +173,7 @@ export function DataTable<Row>(props: DataTableProps<Row>) {
           <Text style={styles.empty}>{emptyText}</Text>
         ) : (
           virtual ? (
-            <VirtualList data={sorted} keyOf={rowKey} renderRow={bodyRow} framed={false} as="rows" label={caption} testID={testID ? `${testID}-body` : undefined} />
+            <VirtualList data={sorted} keyOf={rowKey} renderRow={bodyRow} framed={false} as="rows" label={caption} testID={testID ? `${testID}-body` : undefined} onEndReached={onEndReached} footer={footer} />
           ) : (
             sorted.map(bodyRow)
           )

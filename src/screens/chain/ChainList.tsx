@@ -18,7 +18,8 @@ import { nodeNotes, type ChainItem } from './chainLayout';
 const INDENT = 14;
 const MAX_INDENT_LEVELS = 8;
 
-function Hop({ item, direction, onFold, isRoot }: { item: ChainItem; direction: 'up' | 'down'; onFold: (id: string) => void; isRoot: boolean }) {
+/** One carriage and the feed that reaches it; `extra` adds a line of words under it (where it hangs in a folded chain). */
+export function Hop({ item, direction, onFold, isRoot, extra }: { item: ChainItem; direction: 'up' | 'down'; onFold?: (id: string) => void; isRoot: boolean; extra?: string }) {
   const n = item.node;
   const via = n.via;
   const notes = nodeNotes(n, direction);
@@ -62,8 +63,9 @@ function Hop({ item, direction, onFold, isRoot }: { item: ChainItem; direction: 
             </Link>
           )}
           <Text style={[styles.notes, !n.onAir && styles.bad]}>{[n.onAir ? 'on air' : null, ...notes].filter(Boolean).join('; ')}</Text>
+          {extra ? <Text style={styles.notes}>{extra}</Text> : null}
         </View>
-        {item.childCount > 0 ? (
+        {item.childCount > 0 && onFold ? (
           <Pressable
             accessibilityRole="button"
             accessibilityLabel={item.folded ? `Unfold ${n.carriage}: show ${item.hiddenCount} more` : `Fold ${n.carriage}: hide what hangs from it`}

@@ -2,6 +2,8 @@
  * The chain of one carriage, upstream to its origins or downstream to all it
  * feeds: the tree drawing (scrolls sideways on a phone, can be shrunk), a
  * legend one tap away, and the hop-by-hop list. Big trees open folded.
+ * Downstream, the server sends the tree whole only when it is small; a big
+ * one comes as counts per hop, each hop listed on request (ChainFolded).
  */
 import { useRouter } from 'expo-router';
 import { useCallback, useEffect, useMemo, useState } from 'react';
@@ -9,7 +11,7 @@ import { countOf, formatCount } from '@/shared/format';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 import Svg, { Path, Rect } from 'react-native-svg';
 import type { ChainNode } from '@/shared/schemas/analysis';
-import { useChain } from '@/src/api/queries/analysis';
+import { useChain, useChainLevels } from '@/src/api/queries/analysis';
 import { Button } from '@/src/components/Button';
 import { FeedLegend, type LegendMark } from '@/src/components/charts/FeedLegend';
 import { Choice } from '@/src/components/Choice';
@@ -17,6 +19,7 @@ import { Section } from '@/src/components/layout/Section';
 import { ErrorState, LoadingState } from '@/src/components/states';
 import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { colors, radius, space, type } from '@/src/theme';
+import { ChainFolded } from './ChainFolded';
 import { ChainList } from './ChainList';
 import { DEFAULT_SIZES, flattenChain, foldsToLevel, initialFolds, layoutChain, levelCounts, toggleFold, type LayoutSizes } from './chainLayout';
 import { ChainLevels } from './ChainLevels';
@@ -49,11 +52,15 @@ function countNodes(n: ChainNode): number {
 export function ChainSection({ code, direction }: { code: string; direction: 'up' | 'down' }) {
   const router = useRouter();
   const { wide } = useBreakpoints();
-  const chain = useChain(code, direction);
+  // Upstream chains are short and come whole; downstream ones come folded by hop unless small.
+  const whole = useChain(direction === 'up' ? code : null, direction);
+  const byLevel = useChainLevels(direction === 'down' ? code : null, direction);
+  const chain = direction === 'up' ? whole : byLevel;
+  const folds = direction === 'down' && byLevel.data && !byLevel.data.complete ? byLevel.data : null;
   const [folded, setFolded] = useState<Set<string>>(new Set());
   const [zoom, setZoom] = useState(wide ? 2 : 1);
   const [legend, setLegend] = useState(false);
-  const root = chain.data?.root;
+  const root = folds ? undefined : chain.data?.root;
 
   // A new tree (another carriage or direction, or a new network version) opens with fresh folds.
   useEffect(() => {
@@ -73,6 +80,7 @@ export function ChainSection({ code, direction }: { code: string; direction: 'up
 
   let body: React.ReactNode;
   if (chain.error && !chain.data) body = <ErrorState what={`the ${direction === 'up' ? 'upstream' : 'downstream'} chain`} error={chain.error} onRetry={() => void chain.mutate()} testID="chain-error" />;
+  else if (folds) body = <ChainFolded key={`${code} ${direction}`} code={code} direction={direction} levels={folds.levels} size={folds.size} />;
   else if (!root) body = <LoadingState what="the chain" testID="chain-loading" />;
   else {
     const total = countNodes(root);

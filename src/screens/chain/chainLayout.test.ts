@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import type { ChainNode } from '@/shared/schemas/analysis';
-import { DEFAULT_SIZES, flattenChain, foldsToLevel, initialFolds, layoutChain, levelCounts, nodeNotes, ROOT_ID, toggleFold } from './chainLayout';
+import type { ChainNode, ChainRow } from '@/shared/schemas/analysis';
+import { DEFAULT_SIZES, flattenChain, foldedSummary, foldsToLevel, initialFolds, layoutChain, levelCounts, levelItem, levelRowWords, nodeNotes, ROOT_ID, toggleFold } from './chainLayout';
 
 const node = (carriage: string, children: ChainNode[] = [], extra: Partial<ChainNode> = {}): ChainNode => ({
   carriage,
@@ -142,5 +142,28 @@ describe('levels', () => {
     // Past the deepest level nothing is folded: every node shows.
     expect(foldsToLevel(tree, 3).size).toBe(0);
     expect(flattenChain(tree, foldsToLevel(tree, 9))).toHaveLength(16);
+  });
+});
+
+describe('a folded chain\'s hop list', () => {
+  const row: ChainRow = { carriage: 'R7.TV', site: 'R7', siteName: 'Relay seven', service: 'TV', origin: false, onAir: true, depth: 2, parent: 'M1.TV', childCount: 3, below: 1234, via: { feed: 'F9', medium: 'off-air', role: 'main', up: true, distanceKm: 12, hops: [], warnings: [] } };
+
+  it('says where a row hangs and how much lies beyond it, with thousands separators', () => {
+    expect(levelRowWords(row, 'down')).toBe('fed from M1.TV; 1,234 carriages further down');
+    expect(levelRowWords({ ...row, below: 1 }, 'up')).toBe('feeds M1.TV; 1 carriage further up');
+    expect(levelRowWords({ ...row, below: 0, parent: undefined }, 'down')).toBe('');
+  });
+
+  it('keys rows by their feed (unique in a tree) and draws them without a fold button', () => {
+    const item = levelItem(row);
+    expect(item.id).toBe('2:F9');
+    expect(levelItem({ ...row, via: { ...row.via!, feed: 'F10' } }).id).not.toBe(item.id);
+    expect(item.childCount).toBe(0);
+    expect(item.node.children).toEqual([]);
+    expect(item.node.carriage).toBe('R7.TV');
+  });
+
+  it('sums up the folded chain in words', () => {
+    expect(foldedSummary('O1.TV', 'down', [1, 40, 900, 3871], 4812)).toBe('The downstream chain of O1.TV: 4,812 carriages over 3 hops, folded by hop; show a hop to list its carriages.');
   });
 });

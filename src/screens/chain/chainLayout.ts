@@ -7,7 +7,8 @@
  * a flat list in reading order for screen readers and narrow screens.
  */
 import { hierarchy, tree } from 'd3-hierarchy';
-import type { ChainNode } from '@/shared/schemas/analysis';
+import { countOf } from '@/shared/format';
+import type { ChainNode, ChainRow } from '@/shared/schemas/analysis';
 
 /** A node's id is its path of child indices from the root: "0", "0.1", "0.1.0". */
 export const ROOT_ID = '0';
@@ -192,4 +193,22 @@ export function foldsToLevel(root: ChainNode, depth: number): Set<string> {
   };
   walk(root, ROOT_ID, 0);
   return folded;
+}
+
+/** Where a carriage of a folded chain's hop list hangs: "fed from X; 42 carriages further down" (downstream), "feeds X" (upstream). */
+export function levelRowWords(row: ChainRow, direction: 'up' | 'down'): string {
+  const parts: string[] = [];
+  if (row.parent) parts.push(direction === 'down' ? `fed from ${row.parent}` : `feeds ${row.parent}`);
+  if (row.below > 0) parts.push(`${countOf(row.below, 'carriage')} further ${direction === 'down' ? 'down' : 'up'}`);
+  return parts.join('; ');
+}
+
+/** A folded chain's hop list row as the hop-by-hop list draws it (no fold button: the row's link opens its own chain). */
+export function levelItem(row: ChainRow): ChainItem {
+  return { id: `${row.depth}:${row.via?.feed ?? row.carriage}`, node: { ...row, children: [] }, depth: 0, childCount: 0, hiddenCount: 0, folded: false };
+}
+
+/** The words over a folded chain: "The downstream chain of X: 4,812 carriages over 6 hops, folded by hop; ..." (levels[0] is X itself). */
+export function foldedSummary(code: string, direction: 'up' | 'down', levels: readonly number[], size: number): string {
+  return `The ${direction === 'up' ? 'upstream' : 'downstream'} chain of ${code}: ${countOf(size, 'carriage')} over ${countOf(levels.length - 1, 'hop')}, folded by hop; show a hop to list its carriages.`;
 }

@@ -1,12 +1,15 @@
 /**
  * Every failing feed check in the network, worst first (GET /api/checks), with filters by
  * kind of check and severity kept in the URL. Cards on a phone, a table on a wide window.
+ * The server filters, counts and pages: the list loads a page at a time as it scrolls, and
+ * the summary and chips count the whole filtered list.
  */
 import { Link } from 'expo-router';
-import { useMemo } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { CheckSeverity } from '@/shared/schemas/checks';
-import { useCheckFailures } from '@/src/api/queries/checks';
+import { formatCount } from '@/shared/format';
+import { useCheckFailurePages } from '@/src/api/queries/checks';
+import { Button } from '@/src/components/Button';
 import { Choice } from '@/src/components/Choice';
 import { Screen } from '@/src/components/layout/Screen';
 import { Section } from '@/src/components/layout/Section';
@@ -15,7 +18,7 @@ import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { colors, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { CheckChips } from './CheckChips';
 import { CHECK_SHORT } from './checkWords';
-import { applyFilter, chipLabel, countFailures, summaryWords, toggleCheck, type FailureFilter } from './failureList';
+import { chipCounts, chipLabel, summaryWords, toggleCheck, type FailureFilter } from './failureList';
 import { FailureCards, FailureTable } from './FailureViews';
 import { MastCautions } from './MastCautions';
 import { ScreeningCaution } from './ScreeningCaution';
@@ -42,20 +45,15 @@ function CalculatorLink() {
 
 export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
   const { wide } = useBreakpoints();
-  // One request for every failure: switching severity then filters at once, without a round trip.
-  const query = useCheckFailures('warning');
-  const all = useMemo(() => query.data?.failures ?? [], [query.data]);
-  const shown = useMemo(() => applyFilter(all, filter), [all, filter]);
-  const allCounts = useMemo(() => countFailures(all), [all]);
-  const shownCounts = useMemo(() => countFailures(shown), [shown]);
+  const pages = useCheckFailurePages(filter.severity, filter.checks);
+  const first = pages.first;
+  const counts = first?.counts;
+  const unfiltered = first?.unfiltered ?? counts?.total ?? 0;
+  const chipOptions = chipCounts(first?.kinds ?? [], filter.checks).map(({ name, count }) => ({ value: name, label: chipLabel(name, count) }));
 
-  // Chips for every kind that fails somewhere, plus any already chosen (so it can be turned off).
-  const chipKinds = allCounts.byCheck.map((b) => b.name);
-  for (const name of filter.checks) if (!chipKinds.includes(name)) chipKinds.push(name);
-  const chipOptions = chipKinds.map((name) => ({ value: name, label: chipLabel(name, allCounts.byCheck.find((b) => b.name === name)?.count ?? 0) }));
-
-  const filtered = shown.length !== all.length;
-  const note = query.data ? `${summaryWords(shownCounts)}${filtered ? ` (of ${allCounts.total} in all)` : ''}` : undefined;
+  const filtered = counts !== undefined && counts.total !== unfiltered;
+  const note = counts ? `${summaryWords(counts)}${filtered ? ` (of ${formatCount(unfiltered)} in all)` : ''}` : undefined;
+  const footer = pages.rows.length > 0 ? <ListFooter shown={pages.rows.length} total={pages.total} loading={pages.loadingMore} onMore={pages.loadMore} /> : null;
 
   return (
     <Screen title="Checks" subtitle="Feed checks that fail anywhere in the network, worst first" actions={<CalculatorLink />} testID="checks-screen">
@@ -67,33 +65,33 @@ export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
       </Section>
 
       <Section title="Failing checks" note={note} testID="failing-checks">
-        {query.data ? (
+        {first && counts ? (
           <>
             <View style={styles.counts} testID="failing-checks-counts">
-              <Text style={styles.count}>{`Errors: ${shownCounts.errors}`}</Text>
-              <Text style={styles.count}>{`Warnings: ${shownCounts.warnings}`}</Text>
-              <Text style={styles.count}>{`Feeds: ${shownCounts.feeds}`}</Text>
-              {query.data.networkVersion !== undefined ? <Text style={styles.version}>{`Network version ${query.data.networkVersion}`}</Text> : null}
+              <Text style={styles.count}>{`Errors: ${formatCount(counts.errors)}`}</Text>
+              <Text style={styles.count}>{`Warnings: ${formatCount(counts.warnings)}`}</Text>
+              <Text style={styles.count}>{`Feeds: ${formatCount(counts.feeds)}`}</Text>
+              {first.networkVersion !== undefined ? <Text style={styles.version}>{`Network version ${first.networkVersion}`}</Text> : null}
             </View>
-            {shown.length === 0 ? (
-              all.length === 0 ? (
+            {counts.total === 0 ? (
+              unfiltered === 0 ? (
                 <EmptyState title="No check fails" message="Every feed passes the checks that could be computed. Checks that could not be computed are listed on each feed's page." testID="failing-checks-none" />
               ) : (
                 <EmptyState
                   title="Nothing matches these filters"
-                  message={`${allCounts.total} failing checks are hidden by the filters${filter.checks.length ? ` (${filter.checks.map((c) => CHECK_SHORT[c]).join(', ')})` : ''}.`}
+                  message={`${formatCount(unfiltered)} failing checks are hidden by the filters${filter.checks.length ? ` (${filter.checks.map((c) => CHECK_SHORT[c]).join(', ')})` : ''}.`}
                   testID="failing-checks-filtered-out"
                 />
               )
             ) : wide ? (
-              <FailureTable failures={shown} />
+              <FailureTable failures={pages.rows} onEndReached={pages.loadMore} footer={footer} />
             ) : (
-              <FailureCards failures={shown} />
+              <FailureCards failures={pages.rows} onEndReached={pages.loadMore} footer={footer} />
             )}
-            {query.error ? <Text style={styles.stale}>Showing the last list received; refreshing failed.</Text> : null}
+            {pages.error ? <Text style={styles.stale}>Showing the last list received; refreshing failed.</Text> : null}
           </>
-        ) : query.error ? (
-          <ErrorState what="the failing checks" error={query.error} onRetry={() => void query.mutate()} />
+        ) : pages.error ? (
+          <ErrorState what="the failing checks" error={pages.error} onRetry={pages.retry} />
         ) : (
           <LoadingState what="the failing checks" />
         )}
@@ -105,11 +103,22 @@ export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
   );
 }
 
+/** Under the list: how much of it has arrived, and a button for the next page (scrolling to the end asks for it too). */
+function ListFooter({ shown, total, loading, onMore }: { shown: number; total: number; loading: boolean; onMore: () => void }) {
+  return (
+    <View style={styles.footer} testID="failing-checks-footer">
+      <Text style={styles.version}>{shown < total ? `Showing ${formatCount(shown)} of ${formatCount(total)}, worst first` : `All ${formatCount(total)} shown`}</Text>
+      {shown < total ? <Button label={loading ? 'Loading more…' : 'Show more'} variant="quiet" disabled={loading} onPress={onMore} testID="failing-checks-more" /> : null}
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
   counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
   count: { ...type.figure, backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, paddingHorizontal: space.md, paddingVertical: space.xs },
   version: { ...type.small },
   stale: { ...type.small },
+  footer: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm, paddingVertical: space.sm },
   calcLink: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingHorizontal: space.lg, borderWidth: 2, borderColor: colors.accent, borderRadius: radius.md, backgroundColor: colors.surface, alignSelf: 'flex-start' },
   calcLinkText: { ...type.label, fontSize: 17, color: colors.accent },
 });

@@ -1,6 +1,6 @@
 /**
  * The failing checks as cards (phone) or a table (wide). Both keep the server's worst-first
- * order and name the feed (a link to its page), the carriages from -> to, the check, the
+ * order (pages are appended as the list scrolls) and name the feed (a link to its page), the carriages from -> to, the check, the
  * value against its limit and the margin.
  */
 import { Link, type Href } from 'expo-router';
@@ -68,7 +68,8 @@ export function FailureCards({ failures, onEndReached, footer }: { failures: rea
   return <VirtualList data={failures} keyOf={failureKey} renderRow={renderCard} estimatedRowHeight={230} label="Failing checks, worst first" testID="failing-checks-list" framed={false} onEndReached={onEndReached} footer={footer} />;
 }
 
-export function FailureTable({ failures }: { failures: readonly CheckFailure[] }) {
+/** Rows arrive page by page in the server's worst-first order, so the columns do not re-sort what has arrived so far. */
+export function FailureTable({ failures, onEndReached, footer }: { failures: readonly CheckFailure[]; onEndReached?: () => void; footer?: React.ReactElement | null }) {
   return (
     <DataTable
       caption="Failing checks, worst first"
@@ -76,13 +77,15 @@ export function FailureTable({ failures }: { failures: readonly CheckFailure[] }
       rowKey={failureKey}
       testID="failures-table"
       virtual
+      onEndReached={onEndReached}
+      footer={footer}
       columns={[
-        { key: 'severity', label: 'Severity', width: 130, value: (f) => (f.severity === 'error' ? 0 : 1), render: (f) => <Severity f={f} /> },
-        { key: 'feed', label: 'Feed', width: 170, value: (f) => f.feed, render: (f) => <FeedLink code={f.feed} /> },
-        { key: 'route', label: 'From → to', mono: true, width: 220, value: (f) => `${f.from} → ${f.to}` },
-        { key: 'check', label: 'Check', width: 150, value: (f) => CHECK_SHORT[f.check.name] },
+        { key: 'severity', label: 'Severity', width: 130, sortable: false, value: (f) => (f.severity === 'error' ? 0 : 1), render: (f) => <Severity f={f} /> },
+        { key: 'feed', label: 'Feed', width: 170, sortable: false, value: (f) => f.feed, render: (f) => <FeedLink code={f.feed} /> },
+        { key: 'route', label: 'From → to', mono: true, width: 220, sortable: false, value: (f) => `${f.from} → ${f.to}` },
+        { key: 'check', label: 'Check', width: 150, sortable: false, value: (f) => CHECK_SHORT[f.check.name] },
         { key: 'value', label: 'Value against limit', width: 250, sortable: false, value: (f) => valueAgainstLimit(f) },
-        { key: 'margin', label: 'Margin', numeric: true, width: 130, value: (f) => f.margin ?? null, format: (_v, f) => (f.margin === undefined ? 'yes/no check' : marginWords(f)) },
+        { key: 'margin', label: 'Margin', numeric: true, width: 130, sortable: false, value: (f) => f.margin ?? null, format: (_v, f) => (f.margin === undefined ? 'yes/no check' : marginWords(f)) },
       ]}
     />
   );

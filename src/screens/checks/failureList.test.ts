@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { CheckFailure, FeedCheck } from '@/shared/schemas/checks';
-import { applyFilter, countFailures, DEFAULT_FILTER, filterParams, marginWords, readFilter, summaryWords, toggleCheck, valueAgainstLimit } from './failureList';
+import { chipCounts, chipLabel, DEFAULT_FILTER, filterParams, marginWords, readFilter, summaryWords, toggleCheck, valueAgainstLimit } from './failureList';
 
 const check = (name: FeedCheck['name'], value: number | null, limit: number | null | undefined, unit: string): FeedCheck => ({ name, value, limit, unit, ok: false, note: '' });
 const failure = (feed: string, c: FeedCheck, severity: 'error' | 'warning', margin?: number): CheckFailure => ({ feed, from: `${feed}-S`, to: `${feed}-T`, medium: 'off-air', check: c, severity, margin });
@@ -33,38 +33,28 @@ describe('readFilter and filterParams', () => {
   });
 });
 
-describe('applyFilter', () => {
-  it('keeps the server order and drops warnings when asked for errors only', () => {
-    expect(applyFilter(list, { severity: 'error', checks: [] }).map((f) => f.check.name)).toEqual(['channel-clash', 'field-strength', 'horizon']);
-    expect(applyFilter(list, DEFAULT_FILTER)).toHaveLength(4);
+describe('summaryWords and chipCounts', () => {
+  it('words the server\'s counts with thousands separators', () => {
+    expect(summaryWords({ total: 17_512, errors: 17_000, warnings: 512, feeds: 9_001, byCheck: [] })).toBe('17,512 failing checks on 9,001 feeds: 17,000 errors, 512 warnings');
+    expect(summaryWords({ total: 1, errors: 1, warnings: 0, feeds: 1, byCheck: [] })).toBe('1 failing check on 1 feed: 1 error, 0 warnings');
+    expect(summaryWords({ total: 0, errors: 0, warnings: 0, feeds: 0, byCheck: [] })).toBe('No failing checks');
   });
 
-  it('keeps only the chosen kinds of check', () => {
-    expect(applyFilter(list, { severity: 'warning', checks: ['bearing-record', 'horizon'] }).map((f) => f.feed)).toEqual(['F2', 'F3']);
-  });
-});
-
-describe('countFailures and summaryWords', () => {
-  it('counts errors, warnings, distinct feeds and failures per check', () => {
-    const c = countFailures(list);
-    expect(c).toEqual({
-      total: 4,
-      errors: 3,
-      warnings: 1,
-      feeds: 3,
-      byCheck: [
-        { name: 'field-strength', count: 1 },
-        { name: 'horizon', count: 1 },
-        { name: 'channel-clash', count: 1 },
-        { name: 'bearing-record', count: 1 },
-      ],
-    });
-    expect(summaryWords(c)).toBe('4 failing checks on 3 feeds: 3 errors, 1 warning');
-  });
-
-  it('says so when nothing fails', () => {
-    expect(summaryWords(countFailures([]))).toBe('No failing checks');
-    expect(summaryWords(countFailures(list.slice(0, 1)))).toBe('1 failing check on 1 feed: 1 error, 0 warnings');
+  it('offers every kind that fails, in the fixed order, and keeps a chosen kind with none at 0', () => {
+    const kinds = [
+      { name: 'horizon' as const, count: 1200 },
+      { name: 'channel-clash' as const, count: 3 },
+    ];
+    expect(chipCounts(kinds, [])).toEqual([
+      { name: 'horizon', count: 1200 },
+      { name: 'channel-clash', count: 3 },
+    ]);
+    expect(chipCounts(kinds, ['bearing-record']).map((k) => [k.name, k.count])).toEqual([
+      ['horizon', 1200],
+      ['channel-clash', 3],
+      ['bearing-record', 0],
+    ]);
+    expect(chipLabel('horizon', 1200)).toMatch(/\(1,200\)$/);
   });
 });
 

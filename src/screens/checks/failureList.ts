@@ -1,11 +1,11 @@
 /**
  * The network's failing checks as the Checks screen shows them: filters kept in the URL
  * (`/checks?severity=error&check=field-strength,horizon`) so a filtered list can be shared,
- * the filter itself, and the count summary.
+ * the filter itself, the chips and the count summary (the counts come from the server).
  */
-import { CHECK_NAMES, CHECK_SEVERITIES, type CheckFailure, type CheckName, type CheckSeverity } from '@/shared/schemas/checks';
+import { CHECK_NAMES, CHECK_SEVERITIES, type CheckFailure, type CheckName, type CheckSeverity, type FailureCounts } from '@/shared/schemas/checks';
 import { CHECK_SHORT } from './checkWords';
-import { formatFigure, formatMargin } from '@/shared/format';
+import { countOf, formatCount, formatFigure, formatMargin } from '@/shared/format';
 
 export interface FailureFilter {
   /** The lowest severity listed: 'warning' lists errors and warnings, 'error' only errors. */
@@ -43,47 +43,24 @@ export function toggleCheck(filter: FailureFilter, name: CheckName): FailureFilt
   return { ...filter, checks };
 }
 
-/** Keeps the server's worst-first order. */
-export function applyFilter(failures: readonly CheckFailure[], filter: FailureFilter): CheckFailure[] {
-  return failures.filter((f) => (filter.severity === 'error' ? f.severity === 'error' : true) && (filter.checks.length === 0 || filter.checks.includes(f.check.name)));
-}
-
-export interface FailureCounts {
-  total: number;
-  errors: number;
-  warnings: number;
-  feeds: number;
-  /** Failures per kind of check, in CHECK_NAMES order, kinds with none left out. */
-  byCheck: { name: CheckName; count: number }[];
-}
-
-export function countFailures(failures: readonly CheckFailure[]): FailureCounts {
-  const byName = new Map<CheckName, number>();
-  let errors = 0;
-  for (const f of failures) {
-    if (f.severity === 'error') errors += 1;
-    byName.set(f.check.name, (byName.get(f.check.name) ?? 0) + 1);
-  }
-  return {
-    total: failures.length,
-    errors,
-    warnings: failures.length - errors,
-    feeds: new Set(failures.map((f) => f.feed)).size,
-    byCheck: CHECK_NAMES.filter((n) => byName.has(n)).map((name) => ({ name, count: byName.get(name)! })),
-  };
-}
-
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
-
-/** "12 failing checks on 9 feeds: 10 errors, 2 warnings". */
+/** "12 failing checks on 9 feeds: 10 errors, 2 warnings" (counts from the server: the whole filtered list). */
 export function summaryWords(counts: FailureCounts): string {
   if (counts.total === 0) return 'No failing checks';
-  return `${plural(counts.total, 'failing check')} on ${plural(counts.feeds, 'feed')}: ${plural(counts.errors, 'error')}, ${plural(counts.warnings, 'warning')}`;
+  return `${countOf(counts.total, 'failing check')} on ${countOf(counts.feeds, 'feed')}: ${countOf(counts.errors, 'error')}, ${countOf(counts.warnings, 'warning')}`;
+}
+
+/**
+ * The filter chips: every kind that fails at the severity shown, with its
+ * count, plus any kind already chosen (at 0), so it can be turned off.
+ */
+export function chipCounts(kinds: readonly { name: CheckName; count: number }[], chosen: readonly CheckName[]): { name: CheckName; count: number }[] {
+  const named = new Map(kinds.map((k) => [k.name, k.count]));
+  return CHECK_NAMES.filter((n) => named.has(n) || chosen.includes(n)).map((name) => ({ name, count: named.get(name) ?? 0 }));
 }
 
 /** "Field strength: 3, Radio horizon: 1" for the screen reader text of the chips. */
 export function chipLabel(name: CheckName, count: number): string {
-  return `${CHECK_SHORT[name]} (${count})`;
+  return `${CHECK_SHORT[name]} (${formatCount(count)})`;
 }
 
 /** "48.2 dBµV/m against 56.0 dBµV/m", or the value alone when there is no limit. */
