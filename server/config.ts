@@ -23,7 +23,7 @@ const envSchema = z.object({
   JWT_TTL: z.string().regex(/^\d+[smhd]$/, 'JWT_TTL is like 30m, 8h or 2d').default('12h'),
   WEB_DIR: z.string().default(path.join(REPO_ROOT, 'dist', 'web')),
   BODY_LIMIT: z.string().default('2mb'),
-  IMPORT_BODY_LIMIT: z.string().default('100mb'),
+  IMPORT_BODY_LIMIT: z.string().default('160mb'),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
   /** Express 'trust proxy': unset = trust no proxy; see parseTrustProxy */
   TRUST_PROXY: z.string().trim().max(500).optional(),

@@ -56,7 +56,7 @@ export class RouteTable {
   constructor(
     private readonly router: Router,
     private readonly auth: RequestHandler,
-    limits: BodyLimits = { small: '2mb', large: '100mb', public: '16kb' },
+    limits: BodyLimits = { small: '2mb', large: '160mb', public: '16kb' },
     private readonly prefix = '/api',
   ) {
     // body-parser counts the limit on the inflated bytes as they stream, so a gzip bomb stops at the limit.

@@ -17,10 +17,13 @@ export interface UploadLimits {
   maxZipEntries: number;
 }
 
-/** A 20,000-site network is about 200,000 records and 30 MB of CSV; leave room, refuse the absurd. */
+/**
+ * A 100,000-site network (national scale) is about 880,000 records, 52 MB of
+ * CSV and 132 MB of JSON; leave room, refuse the absurd.
+ */
 export const UPLOAD_LIMITS: UploadLimits = {
-  maxBytes: 64 * 1024 * 1024,
-  maxRecords: 500_000,
+  maxBytes: 160 * 1024 * 1024,
+  maxRecords: 2_000_000,
   maxRecordChars: 256 * 1024,
   maxZipEntries: 100,
 };
