@@ -14,14 +14,15 @@ import { api } from '@/shared/api';
 import { useSendRaw } from '@/src/api/ApiProvider';
 import { useSummary } from '@/src/api/queries/summary';
 import { useSession } from '@/src/session/SessionProvider';
-import { clearCopy, offlineCopySupported, readCopy, writeCopy, type OfflineCopy } from './copyStore';
+import { clearCopy, makeCopy, offlineCopySupported, readCopy, writeCopy, type OfflineCopy } from './copyStore';
 import { browserOffline } from './online';
-import { networkDocumentSchema } from '@/shared/schemas/network';
 
 /** Our choice (common practice, no source): a fresh copy at most every 5 minutes once one exists. */
 const MIN_REFRESH_MS = 5 * 60_000;
 /** After a failed fetch (our choice): soon enough to have a copy before the signal goes, rare enough not to hammer a weak link. */
 const RETRY_MS = 15_000;
+/** Our choice: a screen's own requests go first; the copy (megabytes on a national network) follows a few seconds later. */
+const FETCH_DELAY_MS = 3_000;
 
 export interface OfflineState {
   supported: boolean;
@@ -96,8 +97,10 @@ export function OfflineProvider({ children }: { children: ReactNode }) {
     try {
       const res = await sendRaw(api.exportNetwork);
       const version = Number(res.headers.get('X-Network-Version'));
-      const document = networkDocumentSchema.parse(await res.json());
-      const next: OfflineCopy = { networkVersion: Number.isInteger(version) ? version : (document.baseVersion ?? 0), fetchedAt: new Date().toISOString(), document };
+      // Kept as text, parsed only when used offline (copyStore.ts): parsing it here would hold the page for seconds.
+      const text = await res.text();
+      if (!Number.isInteger(version) || version < 0 || !text.startsWith('{')) throw new Error('the export answer is not a network document');
+      const next = makeCopy({ networkVersion: version, fetchedAt: new Date().toISOString(), text });
       await writeCopy(next);
       setCopy(next);
       setDiscarded(false);
@@ -115,7 +118,8 @@ export function OfflineProvider({ children }: { children: ReactNode }) {
     if (!supported || !read || !online || serverVersion === null) return;
     if (copy && copy.networkVersion === serverVersion) return;
     if (copy && Date.now() - lastFetch.current < MIN_REFRESH_MS) return;
-    void refresh();
+    const timer = setTimeout(() => void refresh(), FETCH_DELAY_MS);
+    return () => clearTimeout(timer);
   }, [supported, read, online, serverVersion, copy, refresh, attempt]);
 
   const value = useMemo(() => ({ supported, online, copy, discarded }), [supported, online, copy, discarded]);

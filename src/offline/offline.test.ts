@@ -8,13 +8,13 @@ import { describe, expect, it } from 'vitest';
 import { ApiError } from '@/src/api/client';
 import { BruteForce } from '@/test/helpers/bruteforce';
 import { smallRandomNetwork } from '@/test/helpers/random-network';
-import type { OfflineCopy } from './copyStore';
+import { copyOfDocument, copyOverText, UnreadableCopyError, type OfflineCopy } from './copy';
 import { engineFor, localReach } from './localEngine';
 import { localElementSearch } from './localSearch';
 import { offlineLine } from './offlineLine';
 
 function copyOf(seed: number): OfflineCopy {
-  return { networkVersion: 7, fetchedAt: '2026-12-04T08:05:00.000Z', document: smallRandomNetwork({ seed, sites: 12, services: 2, groups: 2, feeds: 20, originChance: 0.25, carriageChance: 0.8 }) };
+  return copyOfDocument(smallRandomNetwork({ seed, sites: 12, services: 2, groups: 2, feeds: 20, originChance: 0.25, carriageChance: 0.8 }), 7, '2026-12-04T08:05:00.000Z');
 }
 
 describe('fault reach from the offline copy', () => {
@@ -81,5 +81,25 @@ describe('the offline line', () => {
     const fetched = new Date();
     fetched.setHours(8, 5, 0, 0);
     expect(offlineLine(12, fetched.toISOString())).toBe('Offline — network version 12, fetched at 08:05');
+  });
+});
+
+describe('the stored copy', () => {
+  it('is kept as text and read into a document only when first used', () => {
+    const document = smallRandomNetwork({ seed: 3, sites: 8, services: 2, groups: 1, feeds: 10, originChance: 0.3, carriageChance: 0.8 });
+    const copy = copyOverText({ networkVersion: 4, fetchedAt: '2026-12-04T08:05:00.000Z', text: JSON.stringify(document) });
+    expect(copy.text).toBe(JSON.stringify(document));
+    expect(copy.document).toEqual(document);
+    expect(copy.document).toBe(copy.document); // read once
+  });
+
+  it('says a text that is not a network document is unreadable, only when it is used', () => {
+    const broken = copyOverText({ networkVersion: 4, fetchedAt: '2026-12-04T08:05:00.000Z', text: '{"format":"network/1","sites":[{"code":' });
+    expect(broken.networkVersion).toBe(4);
+    expect(() => broken.document).toThrow(UnreadableCopyError);
+    let deleted = 0;
+    const wrong = copyOverText({ networkVersion: 4, fetchedAt: '2026-12-04T08:05:00.000Z', text: '{"format":"something else"}' }, () => deleted++);
+    expect(() => wrong.document).toThrow(/could not be read/);
+    expect(deleted).toBe(1);
   });
 });

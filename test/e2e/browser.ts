@@ -97,9 +97,10 @@ export function storedCopy(page: Page): Promise<{ networkVersion: number; sites:
           }
           const get = db.transaction(store).objectStore(store).get(key);
           get.onsuccess = () => {
-            const v = get.result as { networkVersion: number; document: { sites: unknown[] } } | undefined;
+            // the copy is kept as the export's text (src/offline/copyStore.ts)
+            const v = get.result as { networkVersion: number; text?: unknown } | undefined;
             db.close();
-            resolve(v ? { networkVersion: v.networkVersion, sites: v.document?.sites?.length ?? -1 } : null);
+            resolve(v ? { networkVersion: v.networkVersion, sites: typeof v.text === 'string' ? (JSON.parse(v.text) as { sites: unknown[] }).sites.length : -1 } : null);
           };
           get.onerror = () => reject(get.error);
         };
