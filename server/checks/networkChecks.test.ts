@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { Carriage, Feed, Service, Site } from '@/shared/schemas/network';
-import { checksForFeed, CheckInputError, indexNetwork, networkCheckFailures, type NetworkRecords } from './networkChecks';
+import { checksForFeed, CheckInputError, indexNetwork, networkCheckFailures, networkCheckFailuresInTurns, type NetworkRecords } from './networkChecks';
+import { generateNetwork } from '@/scripts/generator';
+import { Turns } from '../interchange/turns';
 import { carriage, place, PARENT_POS, site } from './testFixtures';
 
 /** Invented network: one FM service, a main station and three relays with deliberate faults. */
@@ -78,5 +80,24 @@ describe('checksForFeed', () => {
     const index = indexNetwork(network());
     expect(checksForFeed(index, 'F-NEAR').feed).toBe('F-NEAR');
     expect(() => checksForFeed(index, 'F-NONE')).toThrow('feed F-NONE does not exist');
+  });
+});
+
+describe('networkCheckFailuresInTurns', () => {
+  it('gives the same list as the one-piece pass, and lets other work run while it goes', async () => {
+    const net = generateNetwork({ sites: 1500, seed: 11 });
+    let ticks = 0;
+    const timer = setInterval(() => ticks++, 0);
+    const inTurns = await networkCheckFailuresInTurns(net, { networkVersion: 3 }, new Turns(0)); // a turn every 64 steps
+    clearInterval(timer);
+    expect(inTurns).toEqual(networkCheckFailures(net, { networkVersion: 3 }));
+    expect(inTurns.failures.length).toBeGreaterThan(0);
+    expect(ticks).toBeGreaterThan(0);
+  });
+
+  it('rejects as the one-piece pass throws', async () => {
+    const net = network();
+    net.feeds.push({ code: 'F-BAD', from: 'C-NOPE', to: 'C-NEAR', medium: 'off-air', role: 'reserve' } as Feed);
+    await expect(networkCheckFailuresInTurns(net)).rejects.toThrow(CheckInputError);
   });
 });

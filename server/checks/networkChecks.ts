@@ -5,6 +5,7 @@
 import type { Carriage, Feed, Service, Site } from '@/shared/schemas/network';
 import type { CheckFailure, CheckName, ChecksListAnswer, CheckSeverity, FeedCheck } from '@/shared/schemas/checks';
 import { computeFeedChecks, type FeedCheckInput } from './feedChecks';
+import { nextTurn, Turns } from '../interchange/turns';
 
 export interface NetworkRecords {
   sites: readonly Site[];
@@ -111,11 +112,41 @@ export function checksForFeed(index: NetworkIndex, feedCode: string) {
  * Failed checks (ok === false) of every feed at or above `severity`: 'warning' (default)
  * lists warnings and errors, 'error' only errors. Checks not computed are not failures.
  */
-export function networkCheckFailures(net: NetworkRecords, options: { severity?: CheckSeverity; networkVersion?: number } = {}): ChecksListAnswer {
+export function networkCheckFailures(net: NetworkRecords, options: FailureOptions = {}): ChecksListAnswer {
+  const pass = failurePass(net, options);
+  for (;;) {
+    const step = pass.next();
+    if (step.done) return step.value;
+  }
+}
+
+/**
+ * The same list, giving the event loop a turn whenever one is due
+ * (server/interchange/turns.ts): screening every feed of a national network
+ * takes seconds, which other requests must not wait for.
+ */
+export async function networkCheckFailuresInTurns(net: NetworkRecords, options: FailureOptions = {}, turns = new Turns()): Promise<ChecksListAnswer> {
+  const pass = failurePass(net, options);
+  for (;;) {
+    const step = pass.next();
+    if (step.done) return step.value;
+    if (turns.due()) await nextTurn();
+  }
+}
+
+interface FailureOptions {
+  severity?: CheckSeverity;
+  networkVersion?: number;
+}
+
+/** The list's one pass, pausable after each feed. */
+function* failurePass(net: NetworkRecords, options: FailureOptions): Generator<void, ChecksListAnswer> {
   const floor = SEVERITY_RANK[options.severity ?? 'warning'];
   const index = indexNetwork(net);
+  yield;
   const failures: CheckFailure[] = [];
   for (const feed of net.feeds) {
+    yield;
     const answer = computeFeedChecks(feedCheckInput(index, feed));
     for (const check of answer.checks) {
       if (check.ok !== false) continue;

@@ -1,7 +1,7 @@
 /** Feed engineering screening over the in-memory network (docs/checks.md). */
 import { can } from '@/shared/api';
 import { checksQuerySchema, type ChecksListAnswer, type FeedChecksAnswer } from '@/shared/schemas/checks';
-import { checksForFeed, CheckInputError, networkCheckFailures } from '../checks/networkChecks';
+import { checksForFeed, CheckInputError, networkCheckFailuresInTurns } from '../checks/networkChecks';
 import { failureMemo } from '../checks/failurePages';
 import { pageRows } from '@/shared/schemas/paging';
 import { ApiError, notFound, parseOr400 } from '../http/errors';
@@ -21,7 +21,7 @@ export function currentModel(ctx: AppContext): ServedNetwork {
  * own: one feed's checks (also read by every chain hop) and the whole list,
  * computed once at the lowest severity and filtered for the higher one.
  */
-const cache = new WeakMap<ServedNetwork, { feeds: Map<string, FeedChecksAnswer>; failures?: ChecksListAnswer; filtered?: ReturnType<typeof failureMemo> }>();
+const cache = new WeakMap<ServedNetwork, { feeds: Map<string, FeedChecksAnswer>; failures?: Promise<ChecksListAnswer>; filtered?: ReturnType<typeof failureMemo> }>();
 function cacheOf(m: ServedNetwork) {
   let c = cache.get(m);
   if (!c) cache.set(m, (c = { feeds: new Map() }));
@@ -52,14 +52,22 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
     const { severity = 'warning', check, format, ...page } = parseOr400(checksQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     const c = cacheOf(m);
-    c.failures ??= networkCheckFailures(m.document, { severity: 'warning', networkVersion: m.networkVersion });
-    c.filtered ??= failureMemo(c.failures.failures);
+    // computed in turns, once per network version, shared by the requests that arrive meanwhile
+    if (!c.failures) {
+      const made = networkCheckFailuresInTurns(m.document, { severity: 'warning', networkVersion: m.networkVersion });
+      c.failures = made;
+      made.catch(() => {
+        if (c.failures === made) c.failures = undefined;
+      });
+    }
+    const all = await c.failures;
+    c.filtered ??= failureMemo(all.failures);
     const wanted = c.filtered({ severity, checks: check });
     if (format === 'csv') {
-      res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv({ ...c.failures, failures: [...wanted.rows] }));
+      res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv({ ...all, failures: [...wanted.rows] }));
       return;
     }
     const { rows, total, offset } = pageRows(wanted.rows, page);
-    res.json({ networkVersion: c.failures.networkVersion, failures: rows, total, offset, counts: wanted.counts, kinds: wanted.kinds, unfiltered: c.failures.failures.length });
+    res.json({ networkVersion: all.networkVersion, failures: rows, total, offset, counts: wanted.counts, kinds: wanted.kinds, unfiltered: all.failures.length });
   });
 }
