@@ -18,6 +18,8 @@ const id = { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true };
 const common = {
   createdAt: { type: DataTypes.DATE, field: 'created_at' },
   updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
+  // as the migration has it: a new row starts at 1 (Sequelize's own default would be 0)
+  version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
 };
 const num = (field: string) => ({ type: DataTypes.DOUBLE, allowNull: true, field });
 const opts = (sequelize: Sequelize, tableName: string) => ({ sequelize, tableName, version: true });
