@@ -102,6 +102,8 @@ export function defineInventory(sequelize: Sequelize) {
   FeedRow.belongsTo(CarriageRow, { as: 'to', foreignKey: 'toCarriageId' });
   FeedRow.hasMany(FeedViaSiteRow, { as: 'viaSites', foreignKey: 'feedId' });
   FeedViaSiteRow.belongsTo(SiteRow, { as: 'site', foreignKey: 'siteId' });
+  FeedGroupRow.belongsTo(RiskGroupRow, { as: 'group', foreignKey: 'groupId' });
+  SiteGroupRow.belongsTo(RiskGroupRow, { as: 'group', foreignKey: 'groupId' });
   FeedRow.belongsToMany(RiskGroupRow, { as: 'groups', through: FeedGroupRow, foreignKey: 'feedId', otherKey: 'groupId' });
   SiteRow.belongsToMany(RiskGroupRow, { as: 'groups', through: SiteGroupRow, foreignKey: 'siteId', otherKey: 'groupId' });
   RiskGroupRow.belongsToMany(SiteRow, { as: 'sites', through: SiteGroupRow, foreignKey: 'groupId', otherKey: 'siteId' });

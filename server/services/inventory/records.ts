@@ -44,7 +44,8 @@ export const REFERENCES: Partial<Record<EntityKind, Reference[]>> = {
 export interface Found {
   id: number;
   entity: Fields;
-  row: Row;
+  /** the row's own columns as read (attribute names) */
+  columns: Record<string, unknown>;
 }
 
 /** Which records: conditions on their own attributes, and on the records a reference names (a carriage's site, a feed's from and to). */
@@ -54,40 +55,66 @@ export interface Scope {
 }
 
 const codeOnly = ['code'];
-
-function includes(kind: EntityKind, scope: Scope): Includeable[] {
-  const out: Includeable[] = (REFERENCES[kind] ?? []).map((r) => {
-    const where = scope.referred?.[r.field];
-    return { model: r.model, as: r.field, attributes: codeOnly, required: true, ...(where ? { where } : {}) };
-  });
-  if (kind === 'sites' || kind === 'feeds') out.push({ model: RiskGroupRow, as: 'groups', attributes: codeOnly, through: { attributes: [] } });
-  if (kind === 'feeds') {
-    // a query of its own, in path order, rather than one more join multiplying the rows
-    out.push({ model: FeedViaSiteRow, as: 'viaSites', attributes: ['feedId', 'position'], separate: true, order: [['position', 'ASC']], include: [{ model: SiteRow, as: 'site', attributes: codeOnly }] });
-  }
-  return out;
-}
-
 type Coded = { code: string };
 
-/** A row with its associations, in the document's words (codes for ids). */
-function documentOf(kind: EntityKind, row: Model): Fields {
-  const plain = row.get({ plain: true }) as Record<string, unknown>;
-  const out: Fields = { ...plain };
-  for (const r of REFERENCES[kind] ?? []) out[r.field] = (plain[r.field] as Coded | null)?.code;
-  if (plain.groups) out.groups = (plain.groups as Coded[]).map((g) => g.code);
-  if (plain.viaSites) out.via = (plain.viaSites as Array<{ site: Coded }>).map((v) => v.site.code);
-  return out;
+/**
+ * A site's or feed's groups and a feed's via-sites, from the link models for
+ * all the records at once: joined into the records' own query they would
+ * multiply its rows, and building nested instances of them costs more than
+ * the reading (a site's page lists hundreds of feeds).
+ */
+async function linkLists(tx: Partial<Tx>, kind: EntityKind, ids: number[]): Promise<{ groups: Map<number, string[]>; via: Map<number, string[]> }> {
+  const groups = new Map<number, string[]>();
+  const via = new Map<number, string[]>();
+  const add = (map: Map<number, string[]>, id: number, code: string) => {
+    const list = map.get(id);
+    if (list) list.push(code);
+    else map.set(id, [code]);
+  };
+  if (ids.length === 0 || (kind !== 'sites' && kind !== 'feeds')) return { groups, via };
+  const [link, owner] = kind === 'sites' ? [SiteGroupRow, 'siteId'] : [FeedGroupRow, 'feedId'];
+  const memberships = await link.findAll({ where: { [owner]: ids }, attributes: [owner], include: [{ model: RiskGroupRow, as: 'group', attributes: codeOnly }], raw: true, transaction: tx.transaction });
+  for (const m of memberships as unknown as Array<Record<string, number & string>>) add(groups, m[owner], m['group.code']);
+  if (kind === 'feeds') {
+    const hops = await FeedViaSiteRow.findAll({
+      where: { feedId: ids },
+      attributes: ['feedId'],
+      include: [{ model: SiteRow, as: 'site', attributes: codeOnly }],
+      order: [['feedId', 'ASC'], ['position', 'ASC']],
+      raw: true,
+      transaction: tx.transaction,
+    });
+    for (const h of hops as unknown as Array<{ feedId: number; 'site.code': string }>) add(via, h.feedId, h['site.code']);
+  }
+  return { groups, via };
 }
 
 /** The records of one kind in scope, ordered by code, in the API's shape. */
 export async function readRecords(tx: Partial<Tx>, kind: EntityKind, scope: Scope): Promise<Found[]> {
-  const rows = await MODELS[kind].findAll({ where: scope.where, include: includes(kind, scope), order: [['code', 'ASC']], transaction: tx.transaction });
-  return rows.map((row) => ({ id: (row as Row).id, row: row as Row, entity: storedEntity(kind, documentOf(kind, row)) }));
+  const references = REFERENCES[kind] ?? [];
+  const include: Includeable[] = references.map((r) => {
+    const where = scope.referred?.[r.field];
+    return { model: r.model, as: r.field, attributes: codeOnly, required: true, ...(where ? { where } : {}) };
+  });
+  const rows = (await MODELS[kind].findAll({ where: scope.where, include, order: [['code', 'ASC']], raw: true, nest: true, transaction: tx.transaction })) as unknown as Array<Record<string, unknown>>;
+  const links = await linkLists(tx, kind, rows.map((r) => r.id as number));
+  return rows.map((columns) => {
+    const id = columns.id as number;
+    const document: Fields = { ...columns, groups: links.groups.get(id), via: links.via.get(id) };
+    for (const r of references) document[r.field] = (columns[r.field] as Coded).code;
+    return { id, columns, entity: storedEntity(kind, document) };
+  });
 }
 
 export async function readRecord(tx: Partial<Tx>, kind: EntityKind, code: string): Promise<Found | undefined> {
   return (await readRecords(tx, kind, { where: { code } }))[0];
+}
+
+/** The model instance of a record read, to change or delete it. */
+function instanceOf(kind: EntityKind, found: Found): Row {
+  const own: Record<string, unknown> = {};
+  for (const name of Object.keys(MODELS[kind].getAttributes())) own[name] = found.columns[name];
+  return MODELS[kind].build(own, { isNewRecord: false, raw: true }) as Row;
 }
 
 /** The id of the record of `model` with this code (the cross-entity rules have made sure it exists). */
@@ -154,7 +181,7 @@ const changedMeanwhile = async (tx: Tx, kind: EntityKind, found: Found) => {
  * lock already serialises writers, so a miss means a writer went around it.
  */
 export async function updateRecord(tx: Tx, kind: EntityKind, found: Found, next: Fields, before: Fields): Promise<Fields> {
-  const { row } = found;
+  const row = instanceOf(kind, found);
   row.set(await columnValues(tx, kind, next));
   // a change to the link lists only is a change of the record too: its version and last change move on
   row.changed('updatedAt', true);
@@ -170,7 +197,7 @@ export async function updateRecord(tx: Tx, kind: EntityKind, found: Found, next:
 
 /** Deletes one record at the version it was read; its link rows go with it (ON DELETE CASCADE). */
 export async function deleteRecord(tx: Tx, kind: EntityKind, found: Found): Promise<void> {
-  const gone = await found.row.destroy({ transaction: tx.transaction });
+  const gone = await instanceOf(kind, found).destroy({ transaction: tx.transaction });
   if (typeof gone === 'number' && gone < 1) throw await changedMeanwhile(tx, kind, found);
 }
 
@@ -189,7 +216,7 @@ export async function leaveGroupRecords(tx: Tx, kind: 'sites' | 'feeds', groupId
   await link.destroy({ where: { groupId, [owner]: ids }, transaction: tx.transaction });
   // increment() moves the optimistic-lock version on by itself, and stamps the last change
   await MODELS[kind].increment({}, { where: { id: ids }, transaction: tx.transaction });
-  return new Map(members.map((m) => [m.id, m.row.version + 1]));
+  return new Map(members.map((m) => [m.id, (m.entity.version as number) + 1]));
 }
 
 /** The ids of the sites or feeds in one group, from the link models. */
