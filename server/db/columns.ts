@@ -7,7 +7,8 @@
  */
 type Attributes = Record<string, { type: unknown; field?: string }>;
 
-const BOOKKEEPING = ['id', 'createdAt', 'updatedAt', 'version'];
+/** Kept by the database and Sequelize, not fields of the document. */
+export const BOOKKEEPING: readonly string[] = ['id', 'createdAt', 'updatedAt', 'version'];
 
 export function selectList(attributes: Attributes, alias: string, leaveOut: readonly string[] = []): string {
   return Object.entries(attributes)

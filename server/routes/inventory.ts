@@ -78,7 +78,7 @@ export function registerInventoryRoutes(routes: RouteTable, ctx: AppContext) {
     });
 
     routes.add('get', `/${kind}/:code`, can.read, async (req, res) => {
-      res.json(await entityDetail(sequelize, kind, String(req.params.code)));
+      res.json(await entityDetail(kind, String(req.params.code)));
     });
 
     routes.add('post', `/${kind}`, can.editNetwork, async (req, res) => {

@@ -19,7 +19,7 @@ import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
 import { recordHistory } from '../services/inventory/history';
 import { deleteImpact } from '../services/inventory/impact';
-import { findByCode } from '../services/inventory/read';
+import { MODELS } from '../services/inventory/records';
 import { NOUN } from '../services/inventory/shape';
 import { sourceCarriages } from '../services/inventory/sources';
 import { currentModel } from './checks';
@@ -36,7 +36,7 @@ export function registerRecordToolRoutes(routes: RouteTable, ctx: AppContext) {
       const code = String(req.params.code);
       const answer = await recordHistory(sequelize, kind, code, q);
       // A deleted record keeps its history; a code never used has none and is not found.
-      if (answer.total === 0 && !(await findByCode(sequelize, kind, code))) throw notFound(`no ${NOUN[kind]} with code ${code}`, { code });
+      if (answer.total === 0 && !(await MODELS[kind].findOne({ where: { code }, attributes: ['id'] }))) throw notFound(`no ${NOUN[kind]} with code ${code}`, { code });
       res.json(answer);
     });
   }

@@ -6,6 +6,8 @@
  */
 import type { Sequelize, Transaction } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
+import { columnOf, tableOf } from '../db/columns';
+import { AuditRow } from '../db/models/audit';
 import { inBatches } from './inventory/tables';
 
 export interface Actor {
@@ -42,6 +44,10 @@ export interface AuditEntry {
 
 const json = (value: unknown) => (value === undefined || value === null ? null : JSON.stringify(value));
 
+/** The columns recordAudit writes, in its SELECT's order; names from the model. */
+const WRITTEN = ['userId', 'userEmail', 'action', 'entityKind', 'entityCode', 'before', 'after', 'networkVersion'];
+
+/** Many entries at once (an import's or a cascade's), set-based; one person's event goes through the model (recordPeopleAudit). */
 export async function recordAudit(
   sequelize: Sequelize,
   transaction: Transaction,
@@ -51,7 +57,7 @@ export async function recordAudit(
 ): Promise<void> {
   await inBatches(entries, async (batch) => {
     await sequelize.query(
-      `INSERT INTO audit_log (user_id, user_email, action, entity_kind, entity_code, before, after, network_version)
+      `INSERT INTO ${tableOf(AuditRow)} (${WRITTEN.map((a) => columnOf(AuditRow, a)).join(', ')})
        SELECT $1::int4, $2::text, u.action, u.kind, u.code, u.before::jsonb, u.after::jsonb, $3::int8
        FROM unnest($4::text[], $5::text[], $6::text[], $7::text[], $8::text[]) AS u(action, kind, code, before, after)`,
       {
@@ -92,26 +98,21 @@ export interface AuditItem {
 }
 
 /** Newest first. */
-export async function listAudit(sequelize: Sequelize, q: AuditQuery): Promise<{ items: AuditItem[]; total: number; page: number; pageSize: number }> {
-  const where: string[] = [];
-  const bind: unknown[] = [];
-  const add = (sql: string, value: unknown) => {
-    bind.push(value);
-    where.push(sql.replace('?', `$${bind.length}`));
-  };
-  if (q.kind) add('entity_kind = ?', q.kind);
-  if (q.code) add('entity_code = ?', q.code);
-  if (q.action) add('action = ?', q.action);
-  const filter = where.length ? `WHERE ${where.join(' AND ')}` : '';
-  const [countRows] = await sequelize.query(`SELECT count(*)::int AS n FROM audit_log ${filter}`, { bind });
-  const [rows] = await sequelize.query(
-    `SELECT id, at, user_email AS "userEmail", action, entity_kind AS "entityKind", entity_code AS "entityCode",
-            before, after, network_version AS "networkVersion"
-     FROM audit_log ${filter} ORDER BY id DESC LIMIT $${bind.length + 1} OFFSET $${bind.length + 2}`,
-    { bind: [...bind, q.pageSize, (q.page - 1) * q.pageSize] },
-  );
-  const items = (rows as Array<AuditItem & { at: Date }>).map((r) => ({ ...r, at: new Date(r.at).toISOString() }));
-  return { items, total: (countRows as { n: number }[])[0].n, page: q.page, pageSize: q.pageSize };
+export async function listAudit(_sequelize: Sequelize, q: AuditQuery): Promise<{ items: AuditItem[]; total: number; page: number; pageSize: number }> {
+  const where: Record<string, string> = {};
+  if (q.kind) where.entityKind = q.kind;
+  if (q.code) where.entityCode = q.code;
+  if (q.action) where.action = q.action;
+  const { rows, count } = await AuditRow.findAndCountAll({
+    where,
+    attributes: ['id', 'at', 'userEmail', 'action', 'entityKind', 'entityCode', 'before', 'after', 'networkVersion'],
+    order: [['id', 'DESC']],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+    raw: true,
+  });
+  const items = (rows as unknown as Array<AuditItem & { at: Date }>).map((r) => ({ ...r, id: Number(r.id), at: new Date(r.at).toISOString() }));
+  return { items, total: count, page: q.page, pageSize: q.pageSize };
 }
 
 export interface PeopleEntry {
@@ -128,13 +129,18 @@ export interface PeopleEntry {
  * With a transaction it commits with the change; without one (sign-ins) it
  * stands alone. No network version: people are not part of the network.
  */
-export async function recordPeopleAudit(sequelize: Sequelize, actor: Actor, entry: PeopleEntry, transaction?: Transaction): Promise<void> {
-  await sequelize.query(
-    `INSERT INTO audit_log (user_id, user_email, action, entity_kind, entity_code, before, after, network_version)
-     VALUES ($1::int4, $2::text, $3::text, 'people', $4::text, $5::jsonb, $6::jsonb, NULL)`,
+export async function recordPeopleAudit(_sequelize: Sequelize, actor: Actor, entry: PeopleEntry, transaction?: Transaction): Promise<void> {
+  await AuditRow.create(
     {
-      bind: [actor.userId ?? null, actor.email ?? null, entry.action, entry.email.slice(0, 320), json(entry.before), json(entry.after)],
-      ...(transaction ? { transaction } : {}),
+      userId: actor.userId ?? null,
+      userEmail: actor.email ?? null,
+      action: entry.action,
+      entityKind: 'people',
+      entityCode: entry.email.slice(0, 320),
+      before: entry.before ?? null,
+      after: entry.after ?? null,
+      networkVersion: null,
     },
+    transaction ? { transaction } : {},
   );
 }

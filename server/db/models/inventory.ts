@@ -18,6 +18,8 @@ const id = { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true };
 const common = {
   createdAt: { type: DataTypes.DATE, field: 'created_at' },
   updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
+  // as the migration has it: a new row starts at 1 (Sequelize's own default would be 0)
+  version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
 };
 const num = (field: string) => ({ type: DataTypes.DOUBLE, allowNull: true, field });
 const opts = (sequelize: Sequelize, tableName: string) => ({ sequelize, tableName, version: true });
@@ -69,28 +71,42 @@ export const FEED_ATTRIBUTES = {
   ...common,
 };
 
+/** The link tables: a feed's hops in order, and the groups of feeds and of sites. */
+export const FEED_VIA_ATTRIBUTES = {
+  feedId: { type: DataTypes.INTEGER, primaryKey: true, field: 'feed_id' },
+  position: { type: DataTypes.INTEGER, primaryKey: true },
+  siteId: { type: DataTypes.INTEGER, allowNull: false, field: 'site_id' },
+};
+export const FEED_GROUP_ATTRIBUTES = {
+  feedId: { type: DataTypes.INTEGER, primaryKey: true, field: 'feed_id' },
+  groupId: { type: DataTypes.INTEGER, primaryKey: true, field: 'group_id' },
+};
+export const SITE_GROUP_ATTRIBUTES = {
+  siteId: { type: DataTypes.INTEGER, primaryKey: true, field: 'site_id' },
+  groupId: { type: DataTypes.INTEGER, primaryKey: true, field: 'group_id' },
+};
+
+/** Each model's table, for the set-based SQL that reads before the models are defined (server/services/inventory/queries.ts). */
+export const TABLES = {
+  sites: 'sites',
+  services: 'services',
+  groups: 'risk_groups',
+  carriages: 'carriages',
+  feeds: 'feeds',
+  feedVia: 'feed_via_sites',
+  feedGroups: 'feed_groups',
+  siteGroups: 'site_groups',
+} as const;
+
 export function defineInventory(sequelize: Sequelize) {
-  SiteRow.init(SITE_ATTRIBUTES as ModelAttributes, opts(sequelize, 'sites'));
-  ServiceRow.init(SERVICE_ATTRIBUTES as ModelAttributes, opts(sequelize, 'services'));
-  RiskGroupRow.init(GROUP_ATTRIBUTES as ModelAttributes, opts(sequelize, 'risk_groups'));
-  CarriageRow.init(CARRIAGE_ATTRIBUTES as ModelAttributes, opts(sequelize, 'carriages'));
-  FeedRow.init(FEED_ATTRIBUTES as ModelAttributes, opts(sequelize, 'feeds'));
-  FeedViaSiteRow.init(
-    {
-      feedId: { type: DataTypes.INTEGER, primaryKey: true, field: 'feed_id' },
-      position: { type: DataTypes.INTEGER, primaryKey: true },
-      siteId: { type: DataTypes.INTEGER, allowNull: false, field: 'site_id' },
-    },
-    { sequelize, tableName: 'feed_via_sites', timestamps: false },
-  );
-  FeedGroupRow.init(
-    { feedId: { type: DataTypes.INTEGER, primaryKey: true, field: 'feed_id' }, groupId: { type: DataTypes.INTEGER, primaryKey: true, field: 'group_id' } },
-    { sequelize, tableName: 'feed_groups', timestamps: false },
-  );
-  SiteGroupRow.init(
-    { siteId: { type: DataTypes.INTEGER, primaryKey: true, field: 'site_id' }, groupId: { type: DataTypes.INTEGER, primaryKey: true, field: 'group_id' } },
-    { sequelize, tableName: 'site_groups', timestamps: false },
-  );
+  SiteRow.init(SITE_ATTRIBUTES as ModelAttributes, opts(sequelize, TABLES.sites));
+  ServiceRow.init(SERVICE_ATTRIBUTES as ModelAttributes, opts(sequelize, TABLES.services));
+  RiskGroupRow.init(GROUP_ATTRIBUTES as ModelAttributes, opts(sequelize, TABLES.groups));
+  CarriageRow.init(CARRIAGE_ATTRIBUTES as ModelAttributes, opts(sequelize, TABLES.carriages));
+  FeedRow.init(FEED_ATTRIBUTES as ModelAttributes, opts(sequelize, TABLES.feeds));
+  FeedViaSiteRow.init(FEED_VIA_ATTRIBUTES as ModelAttributes, { sequelize, tableName: TABLES.feedVia, timestamps: false });
+  FeedGroupRow.init(FEED_GROUP_ATTRIBUTES as ModelAttributes, { sequelize, tableName: TABLES.feedGroups, timestamps: false });
+  SiteGroupRow.init(SITE_GROUP_ATTRIBUTES as ModelAttributes, { sequelize, tableName: TABLES.siteGroups, timestamps: false });
 
   CarriageRow.belongsTo(SiteRow, { as: 'site', foreignKey: 'siteId' });
   CarriageRow.belongsTo(ServiceRow, { as: 'service', foreignKey: 'serviceId' });
@@ -100,6 +116,8 @@ export function defineInventory(sequelize: Sequelize) {
   FeedRow.belongsTo(CarriageRow, { as: 'to', foreignKey: 'toCarriageId' });
   FeedRow.hasMany(FeedViaSiteRow, { as: 'viaSites', foreignKey: 'feedId' });
   FeedViaSiteRow.belongsTo(SiteRow, { as: 'site', foreignKey: 'siteId' });
+  FeedGroupRow.belongsTo(RiskGroupRow, { as: 'group', foreignKey: 'groupId' });
+  SiteGroupRow.belongsTo(RiskGroupRow, { as: 'group', foreignKey: 'groupId' });
   FeedRow.belongsToMany(RiskGroupRow, { as: 'groups', through: FeedGroupRow, foreignKey: 'feedId', otherKey: 'groupId' });
   SiteRow.belongsToMany(RiskGroupRow, { as: 'groups', through: SiteGroupRow, foreignKey: 'siteId', otherKey: 'groupId' });
   RiskGroupRow.belongsToMany(SiteRow, { as: 'sites', through: SiteGroupRow, foreignKey: 'groupId', otherKey: 'siteId' });

@@ -9,15 +9,15 @@
  *   feed     -> { feed, source: { carriage, site }, target: { carriage, site }, via: [site] }
  * Every entity is in the list shape (document fields, version, updatedAt).
  */
-import type { Sequelize } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
-import { FeedRow, RiskGroupRow, SiteRow } from '../../db/models/inventory';
+import { CarriageRow, FeedRow, RiskGroupRow, SiteRow } from '../../db/models/inventory';
 import { notFound } from '../../http/errors';
-import { countWhere, findByCode, findWhere } from './read';
+import { feedsViaSite, readRecord, readRecords, type Scope } from './records';
 import { NOUN, type Fields } from './shape';
 
-const entities = async (sequelize: Sequelize, kind: EntityKind, condition: string, bind: unknown[]) =>
-  (await findWhere(sequelize, kind, condition, bind)).map((f) => f.entity);
+const none = {};
+const entities = async (kind: EntityKind, scope: Scope) => (await readRecords(none, kind, scope)).map((f) => f.entity);
+const one = async (kind: EntityKind, code: string) => (await readRecord(none, kind, code))?.entity;
 
 /** The codes of the sites or feeds in one shared-risk group, read through the membership models. */
 async function memberCodes(members: typeof SiteRow | typeof FeedRow, group: string): Promise<string[]> {
@@ -30,23 +30,27 @@ async function memberCodes(members: typeof SiteRow | typeof FeedRow, group: stri
   return rows.map((r) => (r as unknown as { code: string }).code);
 }
 
-export async function entityDetail(sequelize: Sequelize, kind: EntityKind, code: string): Promise<Record<string, unknown>> {
-  const found = await findByCode(sequelize, kind, code);
+export async function entityDetail(kind: EntityKind, code: string): Promise<Record<string, unknown>> {
+  const found = await readRecord(none, kind, code);
   if (!found) throw notFound(`no ${NOUN[kind]} with code ${code}`, { code });
-  const entity = found.entity;
+  const { entity, id } = found;
   switch (kind) {
     case 'sites':
       return {
         site: entity,
-        carriages: await entities(sequelize, 'carriages', 'si.code = $1', [code]),
-        feedsIn: await entities(sequelize, 'feeds', 'sb.code = $1', [code]),
-        feedsOut: await entities(sequelize, 'feeds', 'sa.code = $1', [code]),
-        feedsVia: await entities(sequelize, 'feeds', 'EXISTS (SELECT 1 FROM feed_via_sites v JOIN sites s ON s.id = v.site_id WHERE v.feed_id = e.id AND s.code = $1)', [code]),
+        carriages: await entities('carriages', { where: { siteId: id } }),
+        feedsIn: await entities('feeds', { referred: { to: { siteId: id } } }),
+        feedsOut: await entities('feeds', { referred: { from: { siteId: id } } }),
+        feedsVia: await entities('feeds', { where: { id: await feedsViaSite(none, id) } }),
       };
     case 'services':
       return {
         service: entity,
-        counts: { carriages: await countWhere(sequelize, 'carriages', 'sv.code = $1', [code]), feeds: await countWhere(sequelize, 'feeds', 'sv.code = $1', [code]) },
+        counts: {
+          carriages: await CarriageRow.count({ where: { serviceId: id } }),
+          // a feed joins two carriages of one service: its source's service is the feed's
+          feeds: await FeedRow.count({ include: [{ model: CarriageRow, as: 'from', where: { serviceId: id }, attributes: [] }] }),
+        },
       };
     case 'groups':
       return {
@@ -56,24 +60,24 @@ export async function entityDetail(sequelize: Sequelize, kind: EntityKind, code:
     case 'carriages':
       return {
         carriage: entity,
-        site: (await findByCode(sequelize, 'sites', entity.site as string))?.entity,
-        service: (await findByCode(sequelize, 'services', entity.service as string))?.entity,
-        feedsIn: await entities(sequelize, 'feeds', 'b.code = $1', [code]),
-        feedsOut: await entities(sequelize, 'feeds', 'a.code = $1', [code]),
+        site: await one('sites', entity.site as string),
+        service: await one('services', entity.service as string),
+        feedsIn: await entities('feeds', { where: { toCarriageId: id } }),
+        feedsOut: await entities('feeds', { where: { fromCarriageId: id } }),
       };
     case 'feeds':
-      return { feed: entity, source: await end(sequelize, entity.from as string), target: await end(sequelize, entity.to as string), via: await viaSites(sequelize, entity) };
+      return { feed: entity, source: await end(entity.from as string), target: await end(entity.to as string), via: await viaSites(entity) };
   }
 }
 
-async function end(sequelize: Sequelize, carriage: string) {
-  const c = (await findByCode(sequelize, 'carriages', carriage))?.entity;
-  return { carriage: c, site: c ? (await findByCode(sequelize, 'sites', c.site as string))?.entity : undefined };
+async function end(carriage: string) {
+  const c = await one('carriages', carriage);
+  return { carriage: c, site: c ? await one('sites', c.site as string) : undefined };
 }
 
-async function viaSites(sequelize: Sequelize, feed: Fields) {
+async function viaSites(feed: Fields) {
   const via = (feed.via as string[] | undefined) ?? [];
   if (via.length === 0) return [];
-  const byCode = new Map((await entities(sequelize, 'sites', 'e.code = ANY($1::text[])', [via])).map((s) => [s.code, s]));
+  const byCode = new Map((await entities('sites', { where: { code: via } })).map((s) => [s.code, s]));
   return via.map((code) => byCode.get(code)).filter((s) => s !== undefined);
 }

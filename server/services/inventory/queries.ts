@@ -9,7 +9,9 @@
 import type { EntityKind } from '@/shared/schemas/network';
 import { MEDIA, FEED_ROLES, SITE_ROLES } from '@/shared/schemas/network';
 import { selectList, sortList } from '../../db/columns';
-import { CARRIAGE_ATTRIBUTES, FEED_ATTRIBUTES, GROUP_ATTRIBUTES, SERVICE_ATTRIBUTES, SITE_ATTRIBUTES } from '../../db/models/inventory';
+import {
+  CARRIAGE_ATTRIBUTES, FEED_ATTRIBUTES, FEED_GROUP_ATTRIBUTES, FEED_VIA_ATTRIBUTES, GROUP_ATTRIBUTES, SERVICE_ATTRIBUTES, SITE_ATTRIBUTES, SITE_GROUP_ATTRIBUTES, TABLES,
+} from '../../db/models/inventory';
 
 export interface Filter {
   /** SQL with `?` where the bound value goes */
@@ -29,39 +31,49 @@ export interface KindQuery {
   filters: Record<string, Filter>;
 }
 
-const siteGroups = `ARRAY(SELECT g.code FROM site_groups sg JOIN risk_groups g ON g.id = sg.group_id WHERE sg.site_id = e.id ORDER BY g.code)`;
-const feedGroups = `ARRAY(SELECT g.code FROM feed_groups fg JOIN risk_groups g ON g.id = fg.group_id WHERE fg.feed_id = e.id ORDER BY g.code)`;
-const feedVia = `ARRAY(SELECT s.code FROM feed_via_sites v JOIN sites s ON s.id = v.site_id WHERE v.feed_id = e.id ORDER BY v.position)`;
-const stamp = `e.version, e.updated_at AS "updatedAt"`;
+/** An attribute's column, by the model's description. */
+const col = <A extends object>(attributes: A, name: keyof A & string) => (attributes[name] as { field?: string }).field ?? name;
+const T = TABLES;
+const [sgSite, sgGroup] = [col(SITE_GROUP_ATTRIBUTES, 'siteId'), col(SITE_GROUP_ATTRIBUTES, 'groupId')];
+const [fgFeed, fgGroup] = [col(FEED_GROUP_ATTRIBUTES, 'feedId'), col(FEED_GROUP_ATTRIBUTES, 'groupId')];
+const [vFeed, vSite, vPosition] = [col(FEED_VIA_ATTRIBUTES, 'feedId'), col(FEED_VIA_ATTRIBUTES, 'siteId'), col(FEED_VIA_ATTRIBUTES, 'position')];
+const inSiteGroups = `FROM ${T.siteGroups} sg JOIN ${T.groups} g ON g.id = sg.${sgGroup} WHERE sg.${sgSite} = e.id`;
+const inFeedGroups = `FROM ${T.feedGroups} fg JOIN ${T.groups} g ON g.id = fg.${fgGroup} WHERE fg.${fgFeed} = e.id`;
+const siteGroups = `ARRAY(SELECT g.code ${inSiteGroups} ORDER BY g.code)`;
+const feedGroups = `ARRAY(SELECT g.code ${inFeedGroups} ORDER BY g.code)`;
+const feedVia = `ARRAY(SELECT s.code FROM ${T.feedVia} v JOIN ${T.sites} s ON s.id = v.${vSite} WHERE v.${vFeed} = e.id ORDER BY v.${vPosition})`;
+const [cSite, cService] = [col(CARRIAGE_ATTRIBUTES, 'siteId'), col(CARRIAGE_ATTRIBUTES, 'serviceId')];
+const [fFrom, fTo] = [col(FEED_ATTRIBUTES, 'fromCarriageId'), col(FEED_ATTRIBUTES, 'toCarriageId')];
+const stamp = `e.version, e.${col(SITE_ATTRIBUTES, 'updatedAt')} AS "updatedAt"`;
 
 export const QUERIES: Record<EntityKind, KindQuery> = {
   sites: {
     columns: `e.id, ${selectList(SITE_ATTRIBUTES, 'e')}, ${siteGroups} AS groups, ${stamp}`,
-    from: 'sites e',
+    from: `${T.sites} e`,
     sorts: sortList(SITE_ATTRIBUTES, 'e'),
     search: ['e.code', 'e.name'],
     filters: {
-      role: { sql: 'e.role = ?', values: SITE_ROLES },
-      group: { sql: 'EXISTS (SELECT 1 FROM site_groups sg JOIN risk_groups g ON g.id = sg.group_id WHERE sg.site_id = e.id AND g.code = ?)' },
+      role: { sql: `e.${col(SITE_ATTRIBUTES, 'role')} = ?`, values: SITE_ROLES },
+      group: { sql: `EXISTS (SELECT 1 ${inSiteGroups} AND g.code = ?)` },
     },
   },
   services: {
     columns: `e.id, ${selectList(SERVICE_ATTRIBUTES, 'e')}, ${stamp}`,
-    from: 'services e',
+    from: `${T.services} e`,
     sorts: sortList(SERVICE_ATTRIBUTES, 'e'),
     search: ['e.code', 'e.name'],
     filters: {},
   },
   groups: {
     columns: `e.id, ${selectList(GROUP_ATTRIBUTES, 'e')}, ${stamp}`,
-    from: 'risk_groups e',
+    from: `${T.groups} e`,
     sorts: sortList(GROUP_ATTRIBUTES, 'e'),
     search: ['e.code', 'e.name'],
     filters: {},
   },
   carriages: {
     columns: `e.id, e.code, si.code AS site, sv.code AS service, ${selectList(CARRIAGE_ATTRIBUTES, 'e', ['code', 'siteId', 'serviceId'])}, ${stamp}`,
-    from: 'carriages e JOIN sites si ON si.id = e.site_id JOIN services sv ON sv.id = e.service_id',
+    from: `${T.carriages} e JOIN ${T.sites} si ON si.id = e.${cSite} JOIN ${T.services} sv ON sv.id = e.${cService}`,
     // the references sort by the code they show
     sorts: { ...sortList(CARRIAGE_ATTRIBUTES, 'e', ['siteId', 'serviceId']), site: 'si.code', service: 'sv.code' },
     search: ['e.code', 'si.code', 'sv.code'],
@@ -73,20 +85,20 @@ export const QUERIES: Record<EntityKind, KindQuery> = {
   feeds: {
     columns: `e.id, e.code, a.code AS "from", b.code AS "to", ${selectList(FEED_ATTRIBUTES, 'e', ['code', 'fromCarriageId', 'toCarriageId'])},
               ${feedVia} AS via, ${feedGroups} AS groups, ${stamp}`,
-    from: `feeds e JOIN carriages a ON a.id = e.from_carriage_id JOIN carriages b ON b.id = e.to_carriage_id
-             JOIN sites sa ON sa.id = a.site_id JOIN sites sb ON sb.id = b.site_id JOIN services sv ON sv.id = a.service_id`,
+    from: `${T.feeds} e JOIN ${T.carriages} a ON a.id = e.${fFrom} JOIN ${T.carriages} b ON b.id = e.${fTo}
+             JOIN ${T.sites} sa ON sa.id = a.${cSite} JOIN ${T.sites} sb ON sb.id = b.${cSite} JOIN ${T.services} sv ON sv.id = a.${cService}`,
     sorts: {
       ...sortList(FEED_ATTRIBUTES, 'e', ['fromCarriageId', 'toCarriageId']),
       from: 'a.code', to: 'b.code', service: 'sv.code', fromSite: 'sa.code', toSite: 'sb.code',
     },
     search: ['e.code', 'a.code', 'b.code', 'sa.code', 'sb.code', 'sv.code'],
     filters: {
-      medium: { sql: 'e.medium = ?', values: MEDIA },
-      role: { sql: 'e.role = ?', values: FEED_ROLES },
+      medium: { sql: `e.${col(FEED_ATTRIBUTES, 'medium')} = ?`, values: MEDIA },
+      role: { sql: `e.${col(FEED_ATTRIBUTES, 'role')} = ?`, values: FEED_ROLES },
       service: { sql: 'sv.code = ?' },
       fromSite: { sql: 'sa.code = ?' },
       toSite: { sql: 'sb.code = ?' },
-      group: { sql: 'EXISTS (SELECT 1 FROM feed_groups fg JOIN risk_groups g ON g.id = fg.group_id WHERE fg.feed_id = e.id AND g.code = ?)' },
+      group: { sql: `EXISTS (SELECT 1 ${inFeedGroups} AND g.code = ?)` },
     },
   },
 };

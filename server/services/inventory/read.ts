@@ -1,10 +1,10 @@
 /**
- * Reading the inventory: paged, sorted, searched and filtered lists, and
- * entities by code. Answers are in the document shape plus version and last
+ * Reading the inventory: paged, sorted, searched and filtered lists, set-based
+ * for speed (one record at a time is read through the models: records.ts). Answers are in the document shape plus version and last
  * change (shape.ts).
  */
 import { z } from 'zod';
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
 import { QUERIES } from './queries';
 import { storedEntity, type Fields } from './shape';
@@ -85,31 +85,4 @@ export async function listEntities(sequelize: Sequelize, kind: EntityKind, query
     page: query.page,
     pageSize: query.pageSize,
   };
-}
-
-export interface Found {
-  id: number;
-  entity: Fields;
-}
-
-/** Entities matching a condition on the kind's SELECT (aliases as in queries.ts), ordered by code. */
-export async function findWhere(
-  sequelize: Sequelize,
-  kind: EntityKind,
-  condition: string,
-  bind: unknown[],
-  opts: { transaction?: Transaction } = {},
-): Promise<Found[]> {
-  const spec = QUERIES[kind];
-  const [rows] = await sequelize.query(`SELECT ${spec.columns} FROM ${spec.from} WHERE ${condition} ORDER BY e.code`, { bind, transaction: opts.transaction });
-  return (rows as Fields[]).map((r) => ({ id: Number(r.id), entity: storedEntity(kind, r) }));
-}
-
-export async function findByCode(sequelize: Sequelize, kind: EntityKind, code: string, transaction?: Transaction): Promise<Found | undefined> {
-  return (await findWhere(sequelize, kind, 'e.code = $1', [code], { transaction }))[0];
-}
-
-export async function countWhere(sequelize: Sequelize, kind: EntityKind, condition: string, bind: unknown[], transaction?: Transaction): Promise<number> {
-  const [rows] = await sequelize.query(`SELECT count(*)::int AS n FROM ${QUERIES[kind].from} WHERE ${condition}`, { bind, transaction });
-  return (rows as { n: number }[])[0].n;
 }

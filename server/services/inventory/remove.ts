@@ -10,32 +10,18 @@
  * service -> its carriages and their feeds; carriage -> its feeds in and
  * out; group -> the sites and feeds in it (their membership).
  */
-import type { Sequelize, Transaction } from 'sequelize';
+import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
 import { conflict, notFound } from '../../http/errors';
 import type { Actor } from '../audit';
 import { withNetworkWrite, type NetworkWrite, type WriteResult } from './networkWrite';
-import { findByCode, findWhere, type Found } from './read';
+import { deleteRecord, deleteRecords, feedsViaSite, groupMemberIds, leaveGroupRecords, readRecord, readRecords, type Found } from './records';
 import { canonical, NOUN, type Fields } from './shape';
-import { deleteByCodes, writeEntities } from './tables';
 import { auditShape, refusalsAsApiErrors } from './write';
 
 const SHOWN = 20;
 
 type DependentKind = 'carriages' | 'feeds' | 'sites';
-/** SQL conditions (on the dependent kind's query, queries.ts) selecting the dependents of the entity with code $1. */
-const DEPENDENTS: Partial<Record<EntityKind, Partial<Record<DependentKind, string>>>> = {
-  sites: {
-    carriages: 'si.code = $1',
-    feeds: `sa.code = $1 OR sb.code = $1 OR EXISTS (SELECT 1 FROM feed_via_sites v JOIN sites s ON s.id = v.site_id WHERE v.feed_id = e.id AND s.code = $1)`,
-  },
-  services: { carriages: 'sv.code = $1', feeds: 'sv.code = $1' },
-  carriages: { feeds: 'a.code = $1 OR b.code = $1' },
-  groups: {
-    sites: 'EXISTS (SELECT 1 FROM site_groups sg JOIN risk_groups g ON g.id = sg.group_id WHERE sg.site_id = e.id AND g.code = $1)',
-    feeds: 'EXISTS (SELECT 1 FROM feed_groups fg JOIN risk_groups g ON g.id = fg.group_id WHERE fg.feed_id = e.id AND g.code = $1)',
-  },
-};
 
 export interface DeleteOutcome {
   deleted: Partial<Record<EntityKind, string[]>>;
@@ -55,7 +41,7 @@ export async function deleteEntity(
 ): Promise<WriteResult<DeleteOutcome>> {
   return refusalsAsApiErrors(() =>
     withNetworkWrite(sequelize, actor, async (w) => {
-      const current = await findByCode(sequelize, kind, code, w.transaction);
+      const current = await readRecord(w, kind, code);
       if (!current) throw notFound(`no ${NOUN[kind]} with code ${code}`, { code });
       const currentVersion = current.entity.version as number;
       if (currentVersion !== opts.version) {
@@ -64,14 +50,14 @@ export async function deleteEntity(
           current: current.entity,
         });
       }
-      const dependents = await findDependents(w, kind, code);
+      const dependents = await findDependents(w, kind, current.id);
       const outcome: DeleteOutcome = { deleted: {}, updated: {} };
       if (dependents.some(([, found]) => found.length > 0)) {
         if (!opts.cascade) refuse(kind, code, dependents);
-        if (kind === 'groups') await leaveGroup(w, code, dependents, outcome);
+        if (kind === 'groups') await leaveGroup(w, current, dependents, outcome);
         else await deleteDependents(w, dependents, outcome);
       }
-      await deleteByCodes(w, kind, [code]);
+      await deleteRecord(w, kind, current);
       w.audit({ action: 'delete', entityKind: kind, entityCode: code, before: auditShape(current.entity) });
       outcome.deleted[kind] = [...(outcome.deleted[kind] ?? []), code];
       // what hangs off the deleted rows outside the network (documents) may refuse or follow, in this transaction
@@ -81,12 +67,31 @@ export async function deleteEntity(
   );
 }
 
-async function findDependents(w: NetworkWrite, kind: EntityKind, code: string): Promise<Array<[DependentKind, Found[]]>> {
-  const out: Array<[DependentKind, Found[]]> = [];
-  for (const [dependent, condition] of Object.entries(DEPENDENTS[kind] ?? {}) as Array<[DependentKind, string]>) {
-    out.push([dependent, await findWhere(w.sequelize, dependent, condition, [code], { transaction: w.transaction })]);
+/** What depends on the record with this id, in the order a refusal names them. */
+async function findDependents(w: NetworkWrite, kind: EntityKind, id: number): Promise<Array<[DependentKind, Found[]]>> {
+  switch (kind) {
+    case 'sites': {
+      const carriages = await readRecords(w, 'carriages', { where: { siteId: id } });
+      const ends = carriages.map((c) => c.id);
+      const via = await feedsViaSite(w, id);
+      return [['carriages', carriages], ['feeds', await readRecords(w, 'feeds', { where: { [Op.or]: [{ fromCarriageId: ends }, { toCarriageId: ends }, { id: via }] } })]];
+    }
+    case 'services':
+      return [
+        ['carriages', await readRecords(w, 'carriages', { where: { serviceId: id } })],
+        // a feed joins two carriages of one service: its source's service is the feed's
+        ['feeds', await readRecords(w, 'feeds', { referred: { from: { serviceId: id } } })],
+      ];
+    case 'carriages':
+      return [['feeds', await readRecords(w, 'feeds', { where: { [Op.or]: [{ fromCarriageId: id }, { toCarriageId: id }] } })]];
+    case 'groups':
+      return [
+        ['sites', await readRecords(w, 'sites', { where: { id: await groupMemberIds(w, 'sites', id) } })],
+        ['feeds', await readRecords(w, 'feeds', { where: { id: await groupMemberIds(w, 'feeds', id) } })],
+      ];
+    case 'feeds':
+      return [];
   }
-  return out;
 }
 
 function refuse(kind: EntityKind, code: string, dependents: Array<[DependentKind, Found[]]>): never {
@@ -109,25 +114,23 @@ async function deleteDependents(w: NetworkWrite, dependents: Array<[DependentKin
     const found = dependents.find(([k]) => k === kind)?.[1] ?? [];
     if (found.length === 0) continue;
     const codes = found.map((f) => f.entity.code as string);
-    await deleteByCodes(w, kind, codes);
+    await deleteRecords(w, kind, found);
     for (const f of found) w.audit({ action: 'delete', entityKind: kind, entityCode: f.entity.code as string, before: auditShape(f.entity) });
     outcome.deleted[kind] = codes;
   }
 }
 
-async function leaveGroup(w: NetworkWrite, group: string, dependents: Array<[DependentKind, Found[]]>, outcome: DeleteOutcome): Promise<void> {
+async function leaveGroup(w: NetworkWrite, group: Found, dependents: Array<[DependentKind, Found[]]>, outcome: DeleteOutcome): Promise<void> {
+  const code = group.entity.code as string;
   for (const [kind, found] of dependents) {
     if (found.length === 0 || (kind !== 'sites' && kind !== 'feeds')) continue;
-    const next = found.map((f) => {
+    const versions = await leaveGroupRecords(w, kind, group.id, found);
+    for (const f of found) {
       const entity: Fields = canonical(kind, f.entity);
-      entity.groups = ((entity.groups as string[] | undefined) ?? []).filter((g) => g !== group);
-      return entity;
-    });
-    const written = new Map((await writeEntities(w, kind, next)).map((r) => [r.code, r.version]));
-    found.forEach((f, i) => {
-      const after = { ...canonical(kind, next[i]), version: written.get(f.entity.code as string) };
+      entity.groups = ((entity.groups as string[] | undefined) ?? []).filter((g) => g !== code);
+      const after = { ...canonical(kind, entity), version: versions.get(f.id) };
       w.audit({ action: 'update', entityKind: kind, entityCode: f.entity.code as string, before: auditShape(f.entity), after });
-    });
+    }
     outcome.updated[kind] = found.map((f) => f.entity.code as string);
   }
 }

@@ -1,6 +1,7 @@
 /**
- * Set-based writers for the inventory tables, shared by the importer and the
- * single-entity edits. Raw SQL rather than Sequelize model instances: an
+ * Set-based writers for the inventory tables, for the importer (one record
+ * at a time goes through the models: records.ts). Raw SQL rather than
+ * Sequelize model instances, with the column lists taken from the models: an
  * import of a 20,000-site network is a few hundred thousand rows, and one
  * INSERT ... SELECT FROM unnest(array per column) per few thousand rows
  * costs milliseconds where an instance per row costs minutes. Arrays bind as
@@ -12,8 +13,9 @@
  */
 import type { Sequelize, Transaction } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
-import { columnOf, tableOf } from '../../db/columns';
+import { BOOKKEEPING, columnOf, tableOf } from '../../db/columns';
 import { FeedGroupRow, FeedRow, FeedViaSiteRow, RiskGroupRow, SiteGroupRow, SiteRow } from '../../db/models/inventory';
+import { MODELS, REFERENCES } from './records';
 import type { Fields } from './shape';
 
 export interface Tx {
@@ -38,7 +40,7 @@ interface Column {
   field: string;
   type: PgType;
   /** the column holds the id of the row of this table whose code is the field's value */
-  ref?: 'sites' | 'services' | 'carriages';
+  ref?: string;
 }
 
 export const TABLE: Record<EntityKind, string> = {
@@ -49,31 +51,30 @@ export const TABLE: Record<EntityKind, string> = {
   feeds: 'feeds',
 };
 
-const text = (column: string, field = column): Column => ({ column, field, type: 'text' });
-const float = (column: string, field: string): Column => ({ column, field, type: 'float8' });
+/** The PostgreSQL array element type the writers bind each kind of model attribute as. */
+const PG_TYPES: Record<string, PgType> = { TEXT: 'text', 'DOUBLE PRECISION': 'float8', INTEGER: 'int4', BOOLEAN: 'bool' };
 
-const COLUMNS: Record<EntityKind, Column[]> = {
-  sites: [
-    text('code'), text('name'), text('role'), float('lat', 'lat'), float('lon', 'lon'),
-    float('ground_height_m', 'groundHeightM'), float('mast_height_m', 'mastHeightM'), { column: 'households', field: 'households', type: 'int4' },
-  ],
-  services: [text('code'), text('name'), text('kind')],
-  groups: [text('code'), text('name'), text('note')],
-  carriages: [
-    text('code'), { column: 'site_id', field: 'site', type: 'text', ref: 'sites' }, { column: 'service_id', field: 'service', type: 'text', ref: 'services' },
-    float('frequency_mhz', 'frequencyMHz'), text('channel'), float('erp_w', 'erpW'), text('polarisation'),
-    float('antenna_height_m', 'antennaHeightM'), { column: 'on_channel_repeater', field: 'onChannelRepeater', type: 'bool' },
-  ],
-  feeds: [
-    text('code'), { column: 'from_carriage_id', field: 'from', type: 'text', ref: 'carriages' }, { column: 'to_carriage_id', field: 'to', type: 'text', ref: 'carriages' },
-    text('medium'), text('role'), float('rx_frequency_mhz', 'rxFrequencyMHz'), text('rx_channel', 'rxChannel'),
-    text('rx_antenna', 'rxAntenna'), float('bearing_deg', 'bearingDeg'),
-  ],
-};
+/**
+ * A kind's columns, from its model (server/db/models/inventory.ts): every
+ * document attribute, references by the code the document carries.
+ */
+export function writtenColumns(kind: EntityKind): Column[] {
+  const references = REFERENCES[kind] ?? [];
+  return Object.entries(MODELS[kind].getAttributes())
+    .filter(([name]) => !BOOKKEEPING.includes(name))
+    .map(([name, a]) => {
+      const ref = references.find((r) => r.attribute === name);
+      const column = a.field ?? name;
+      if (ref) return { column, field: ref.field, type: 'text', ref: tableOf(ref.model) };
+      const type = PG_TYPES[(a.type as { key: string }).key];
+      if (!type) throw new Error(`${kind}.${name}: no array type for ${(a.type as { key: string }).key}`);
+      return { column, field: name, type };
+    });
+}
 
 function writeSql(kind: EntityKind, mode: 'insert' | 'upsert'): string {
   const table = TABLE[kind];
-  const cols = COLUMNS[kind];
+  const cols = writtenColumns(kind);
   const input = cols.map((c, i) => `$${i + 1}::${c.type}[]`).join(', ');
   const names = cols.map((c) => c.column);
   const select = cols.map((c, i) => (c.ref ? `r${i}.id` : `u.${c.column}`)).join(', ');
@@ -89,9 +90,13 @@ function writeSql(kind: EntityKind, mode: 'insert' | 'upsert'): string {
     RETURNING id, code, version`;
 }
 
-const SQL = Object.fromEntries(
-  (Object.keys(COLUMNS) as EntityKind[]).map((k) => [k, { insert: writeSql(k, 'insert'), upsert: writeSql(k, 'upsert') }]),
-) as Record<EntityKind, { insert: string; upsert: string }>;
+/** Each kind's statements and columns, built once the models are defined (on first use). */
+const written = new Map<EntityKind, { insert: string; upsert: string; columns: Column[] }>();
+function statements(kind: EntityKind) {
+  let found = written.get(kind);
+  if (!found) written.set(kind, (found = { insert: writeSql(kind, 'insert'), upsert: writeSql(kind, 'upsert'), columns: writtenColumns(kind) }));
+  return found;
+}
 
 export interface WrittenRow {
   id: number;
@@ -101,11 +106,11 @@ export interface WrittenRow {
 
 /** Insert new entities and overwrite changed ones, by code (`created`: all are new). Returns id, code and new version of each. */
 export async function upsertEntities(tx: Tx, kind: EntityKind, entities: readonly Fields[], created = false): Promise<WrittenRow[]> {
-  const sql = SQL[kind][created ? 'insert' : 'upsert'];
+  const { columns, ...sql } = statements(kind);
   const written: WrittenRow[] = [];
   await inBatches(entities, async (batch) => {
-    const bind = COLUMNS[kind].map((c) => batch.map((e) => (e[c.field] === undefined ? null : e[c.field])));
-    const [rows] = await tx.sequelize.query(sql, { bind, transaction: tx.transaction });
+    const bind = columns.map((c) => batch.map((e) => (e[c.field] === undefined ? null : e[c.field])));
+    const [rows] = await tx.sequelize.query(sql[created ? 'insert' : 'upsert'], { bind, transaction: tx.transaction });
     const got = rows as WrittenRow[];
     // The joins drop a row whose reference does not resolve; validation should have made that impossible.
     if (got.length !== batch.length) throw new Error(`${kind}: wrote ${got.length} of ${batch.length} rows; a reference did not resolve`);

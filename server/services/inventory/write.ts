@@ -2,7 +2,7 @@
  * Creating and changing one entity. Fields are whitelisted by the shared zod
  * schema (a strict object: an unknown field is a 400 naming it), the
  * cross-entity rules run against the stored network (rules.ts), and the
- * write goes through the same table writers as an import. Changes use
+ * record is written through its model (records.ts). Changes use
  * optimistic locking: the request carries the version it read, and a stale
  * one is a 409 with the current version, so no edit silently overwrites
  * another.
@@ -13,11 +13,10 @@ import { ApiError, badRequest, conflict, notFound, parseOr400, unprocessable } f
 import type { Actor } from '../audit';
 import { databaseRefusal, refusalError } from './dbErrors';
 import { withNetworkWrite, type NetworkWrite, type WriteResult } from './networkWrite';
-import { findByCode } from './read';
 import { checkBands, checkSecondMain } from './editRules';
 import { checkRules, type RuleFindings } from './rules';
 import { canonical, NOUN, sameEntity, type Fields } from './shape';
-import { writeEntities } from './tables';
+import { createRecord, MODELS, readRecord, updateRecord } from './records';
 
 /** The entity as the audit log keeps it: document fields and version. */
 export const auditShape = (entity: Fields) => {
@@ -59,20 +58,19 @@ async function typedRules(w: NetworkWrite, kind: EntityKind, entity: Fields, typ
 }
 
 /** One create inside a network write: validated entity in, stored entity out, audited. */
-async function createWithin(sequelize: Sequelize, w: NetworkWrite, kind: EntityKind, entity: Fields, typed?: TypedEdit): Promise<Fields> {
+async function createWithin(w: NetworkWrite, kind: EntityKind, entity: Fields, typed?: TypedEdit): Promise<Fields> {
   const code = entity.code as string;
-  if (await findByCode(sequelize, kind, code, w.transaction)) throw conflict(`${NOUN[kind]} ${code} already exists; codes are unique within a kind`, { code });
+  if (await MODELS[kind].findOne({ where: { code }, attributes: ['id'], transaction: w.transaction })) throw conflict(`${NOUN[kind]} ${code} already exists; codes are unique within a kind`, { code });
   throwFindings(await checkRules(w, kind, entity));
   await typedRules(w, kind, entity, typed);
-  await writeEntities(w, kind, [entity], { created: true });
-  const created = (await findByCode(sequelize, kind, code, w.transaction))!.entity;
+  const created = await createRecord(w, kind, entity);
   w.audit({ action: 'create', entityKind: kind, entityCode: code, after: auditShape(created) });
   return created;
 }
 
 export async function createEntity(sequelize: Sequelize, kind: EntityKind, body: unknown, actor: Actor, typed: TypedEdit = { confirm: [] }): Promise<WriteResult<Fields>> {
   const entity = canonical(kind, parseOr400(entitySchemas[kind] as never, body, NOUN[kind]) as Fields);
-  return refusalsAsApiErrors(() => withNetworkWrite(sequelize, actor, (w) => createWithin(sequelize, w, kind, entity, typed)));
+  return refusalsAsApiErrors(() => withNetworkWrite(sequelize, actor, (w) => createWithin(w, kind, entity, typed)));
 }
 
 /**
@@ -84,7 +82,7 @@ export async function createEntities(sequelize: Sequelize, items: readonly { kin
   return refusalsAsApiErrors(() =>
     withNetworkWrite(sequelize, actor, async (w) => {
       const out: Fields[] = [];
-      for (const { kind, entity } of entities) out.push(await createWithin(sequelize, w, kind, entity));
+      for (const { kind, entity } of entities) out.push(await createWithin(w, kind, entity));
       return out;
     }),
   );
@@ -107,7 +105,7 @@ export async function updateEntity(sequelize: Sequelize, kind: EntityKind, code:
   }
   return refusalsAsApiErrors(() =>
     withNetworkWrite(sequelize, actor, async (w) => {
-      const current = await findByCode(sequelize, kind, code, w.transaction);
+      const current = await readRecord(w, kind, code);
       if (!current) throw notFound(`no ${NOUN[kind]} with code ${code}`, { code });
       const currentVersion = current.entity.version as number;
       if (currentVersion !== version) {
@@ -123,10 +121,7 @@ export async function updateEntity(sequelize: Sequelize, kind: EntityKind, code:
       if (sameEntity(kind, before, next)) return current.entity;
       throwFindings(await checkRules(w, kind, next, before));
       await typedRules(w, kind, next, typed, before);
-      const [written] = await writeEntities(w, kind, [next]);
-      // The network lock already serialises writers; this also catches a writer that went around it.
-      if (written.version !== currentVersion + 1) throw conflict(`${NOUN[kind]} ${code} was changed by someone else meanwhile; reload and try again`, { currentVersion: written.version - 1 });
-      const updated = (await findByCode(sequelize, kind, code, w.transaction))!.entity;
+      const updated = await updateRecord(w, kind, current, next, before);
       w.audit({ action: 'update', entityKind: kind, entityCode: code, before: auditShape(current.entity), after: auditShape(updated) });
       return updated;
     }),
