@@ -19,6 +19,7 @@ import { timeNetworkxDominators } from '@/test/helpers/networkx';
 import { baselineExposure, flowGraphs, recomputeResilience, walkFloor } from '@/test/helpers/engine-yardsticks';
 import { nationalNetwork, prng } from '@/test/helpers/random-network';
 import { benchPlanner, type PlannerBenchResult } from './bench-planner';
+import { wholeArgument } from './lib/args';
 
 export interface EngineBenchOptions {
   /** seed of the random choices of failed elements */
@@ -191,13 +192,7 @@ async function generate(sites: number, seed: number): Promise<{ doc: NetworkDocu
   return { doc: nationalNetwork({ sites, seed }), generator: 'test/helpers/random-network' };
 }
 
-function argument(name: string, fallback: number): number {
-  const i = process.argv.indexOf(`--${name}`);
-  if (i < 0) return fallback;
-  const v = Number(process.argv[i + 1]);
-  if (!Number.isInteger(v) || v < 1) throw new Error(`--${name} needs a whole number >= 1 (got ${String(process.argv[i + 1])})`);
-  return v;
-}
+const argument = wholeArgument;
 
 async function main() {
   const sites = argument('sites', 20000);

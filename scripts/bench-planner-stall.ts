@@ -14,14 +14,9 @@ import { isDeepStrictEqual } from 'node:util';
 import { generateNetwork } from './generator';
 import { NetworkEngine } from '@/server/engine/engine';
 import { proposalsWhenDone } from '@/server/services/planner';
+import { wholeArgument } from './lib/args';
 
-function argument(name: string, fallback: number): number {
-  const i = process.argv.indexOf(`--${name}`);
-  if (i < 0) return fallback;
-  const v = Number(process.argv[i + 1]);
-  if (!Number.isInteger(v) || v < 1) throw new Error(`--${name} needs a whole number >= 1 (got ${String(process.argv[i + 1])})`);
-  return v;
-}
+const argument = wholeArgument;
 
 const tick = () => new Promise<void>((resolve) => setImmediate(resolve));
 const ms = (ns: number) => Math.round(ns / 1e4) / 100;
