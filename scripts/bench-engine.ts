@@ -192,11 +192,10 @@ async function generate(sites: number, seed: number): Promise<{ doc: NetworkDocu
   return { doc: nationalNetwork({ sites, seed }), generator: 'test/helpers/random-network' };
 }
 
-const argument = wholeArgument;
 
 async function main() {
-  const sites = argument('sites', 20000);
-  const seed = argument('seed', 1);
+  const sites = wholeArgument('sites', 20000);
+  const seed = wholeArgument('seed', 1);
   const helper = process.argv.includes('--helper-generator');
   const generated = helper ? { doc: nationalNetwork({ sites, seed }), generator: 'test/helpers/random-network' } : await generate(sites, seed);
   const generator = generated.generator;

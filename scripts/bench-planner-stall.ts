@@ -16,7 +16,6 @@ import { NetworkEngine } from '@/server/engine/engine';
 import { proposalsWhenDone } from '@/server/services/planner';
 import { wholeArgument } from './lib/args';
 
-const argument = wholeArgument;
 
 const tick = () => new Promise<void>((resolve) => setImmediate(resolve));
 const ms = (ns: number) => Math.round(ns / 1e4) / 100;
@@ -35,9 +34,9 @@ async function stallOf<T>(work: () => Promise<T> | T): Promise<{ value: T; maxSt
 }
 
 async function main() {
-  const sites = argument('sites', 20000);
-  const seed = argument('seed', 1);
-  const limit = argument('limit', 100);
+  const sites = wholeArgument('sites', 20000);
+  const seed = wholeArgument('seed', 1);
+  const limit = wholeArgument('limit', 100);
   const doc = generateNetwork({ sites, seed });
   const fresh = () => NetworkEngine.build(doc, 1);
 
