@@ -1,42 +1,42 @@
 /**
  * The CSV form of the network document (docs/format.md):
  * one file per kind, a header row with the JSON field names, lists separated
- * by ";", an empty cell for an absent field. This table says which column
- * holds what, so cells are read as the type the JSON field has.
+ * by ";", an empty cell for an absent field. The columns and their types
+ * come from the entities' schemas, so cells are read as the type the JSON
+ * field has.
  */
 import { decimalPoint } from './csv-dialect';
 import { isDecimal } from './decimal';
-import type { EntityKind } from '@/shared/schemas/network';
+import type { z } from 'zod';
+import { entitySchemas, ENTITY_KINDS, type EntityKind } from '@/shared/schemas/network';
 
 export type ColumnType = 'string' | 'number' | 'boolean' | 'list';
 
-/** Columns in the order docs/format.md lists the fields; export writes them in this order. */
-export const CSV_COLUMNS: Record<EntityKind, ReadonlyArray<readonly [string, ColumnType]>> = {
-  sites: [
-    ['code', 'string'], ['name', 'string'], ['role', 'string'], ['lat', 'number'], ['lon', 'number'],
-    ['groundHeightM', 'number'], ['mastHeightM', 'number'], ['households', 'number'], ['groups', 'list'],
-  ],
-  services: [['code', 'string'], ['name', 'string'], ['kind', 'string']],
-  groups: [['code', 'string'], ['name', 'string'], ['note', 'string']],
-  carriages: [
-    ['code', 'string'], ['site', 'string'], ['service', 'string'], ['frequencyMHz', 'number'], ['channel', 'string'],
-    ['erpW', 'number'], ['polarisation', 'string'], ['antennaHeightM', 'number'], ['onChannelRepeater', 'boolean'],
-  ],
-  feeds: [
-    ['code', 'string'], ['from', 'string'], ['to', 'string'], ['medium', 'string'], ['role', 'string'],
-    ['via', 'list'], ['groups', 'list'], ['rxFrequencyMHz', 'number'], ['rxChannel', 'string'],
-    ['rxAntenna', 'string'], ['bearingDeg', 'number'],
-  ],
-};
+type FieldDef = { type: string; in?: z.ZodType; innerType?: z.ZodType };
 
-/** Columns a row cannot do without: a file lacking one is reported once, by name. */
-export const REQUIRED_COLUMNS: Record<EntityKind, readonly string[]> = {
-  sites: ['code', 'name', 'role', 'lat', 'lon'],
-  services: ['code', 'name', 'kind'],
-  groups: ['code', 'name'],
-  carriages: ['code', 'site', 'service'],
-  feeds: ['code', 'from', 'to', 'medium', 'role'],
-};
+/** The JSON type a field's schema takes, under its optional, nullable and transform wrappers. */
+function columnType(field: z.ZodType): ColumnType {
+  const def = field._zod.def as FieldDef;
+  if (def.type === 'pipe' && def.in) return columnType(def.in);
+  if ((def.type === 'optional' || def.type === 'nullable' || def.type === 'default') && def.innerType) return columnType(def.innerType);
+  if (def.type === 'number') return 'number';
+  if (def.type === 'boolean') return 'boolean';
+  if (def.type === 'array') return 'list';
+  return 'string';
+}
+
+const fieldsOf = (kind: EntityKind) => Object.entries(entitySchemas[kind].shape as Record<string, z.ZodType>);
+const byKind = <T>(of: (kind: EntityKind) => T) => Object.fromEntries(ENTITY_KINDS.map((k) => [k, of(k)])) as Record<EntityKind, T>;
+
+/**
+ * Columns in the order of the entity's schema (shared/schemas/network.ts,
+ * the order docs/format.md lists the fields); export writes them in this
+ * order. Taken from the schema, so a field added there is a column here.
+ */
+export const CSV_COLUMNS: Record<EntityKind, ReadonlyArray<readonly [string, ColumnType]>> = byKind((kind) => fieldsOf(kind).map(([name, field]) => [name, columnType(field)] as const));
+
+/** Columns a row cannot do without (the schema's required fields): a file lacking one is reported once, by name. */
+export const REQUIRED_COLUMNS: Record<EntityKind, readonly string[]> = byKind((kind) => fieldsOf(kind).filter(([, field]) => !field.safeParse(undefined).success).map(([name]) => name));
 
 export const LIST_SEPARATOR = ';';
 

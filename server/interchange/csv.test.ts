@@ -2,7 +2,7 @@ import JSZip from 'jszip';
 import { describe, expect, it } from 'vitest';
 import { entitySchemas, ENTITY_KINDS } from '@/shared/schemas/network';
 import fc from 'fast-check';
-import { CSV_COLUMNS, cellText, cellValue, guardCell, unguardCell } from './csv-columns';
+import { CSV_COLUMNS, REQUIRED_COLUMNS, cellText, cellValue, guardCell, unguardCell } from './csv-columns';
 import { CSV_FILE_NAMES, documentToCsv, documentToZip, kindOfFile, readCsvFiles } from './csv';
 import { UPLOAD_LIMITS, UploadLimitError } from './limits';
 import { readNetworkUpload, validateCsvFiles } from './upload';
@@ -276,5 +276,34 @@ describe('spreadsheet formula guard', () => {
     expect(result.document?.services[0].name).toBe("'=already quoted");
     expect(result.document?.groups[2].note).toBe('-40 dB pad, @ the top');
     expect(result.document?.sites[1].lon).toBe(-12.5);
+  });
+});
+
+describe('the CSV columns taken from the schemas', () => {
+  it('are the fields docs/format.md lists, in its order, with their types and the required ones', () => {
+    expect(CSV_COLUMNS).toEqual({
+      sites: [
+        ['code', 'string'], ['name', 'string'], ['role', 'string'], ['lat', 'number'], ['lon', 'number'],
+        ['groundHeightM', 'number'], ['mastHeightM', 'number'], ['households', 'number'], ['groups', 'list'],
+      ],
+      services: [['code', 'string'], ['name', 'string'], ['kind', 'string']],
+      groups: [['code', 'string'], ['name', 'string'], ['note', 'string']],
+      carriages: [
+        ['code', 'string'], ['site', 'string'], ['service', 'string'], ['frequencyMHz', 'number'], ['channel', 'string'],
+        ['erpW', 'number'], ['polarisation', 'string'], ['antennaHeightM', 'number'], ['onChannelRepeater', 'boolean'],
+      ],
+      feeds: [
+        ['code', 'string'], ['from', 'string'], ['to', 'string'], ['medium', 'string'], ['role', 'string'],
+        ['via', 'list'], ['groups', 'list'], ['rxFrequencyMHz', 'number'], ['rxChannel', 'string'],
+        ['rxAntenna', 'string'], ['bearingDeg', 'number'],
+      ],
+    });
+    expect(REQUIRED_COLUMNS).toEqual({
+      sites: ['code', 'name', 'role', 'lat', 'lon'],
+      services: ['code', 'name', 'kind'],
+      groups: ['code', 'name'],
+      carriages: ['code', 'site', 'service'],
+      feeds: ['code', 'from', 'to', 'medium', 'role'],
+    });
   });
 });
