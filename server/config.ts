@@ -13,7 +13,7 @@ export const SECRETS_DIR = process.env.HEADWATER_SECRETS_DIR ?? path.join(REPO_R
 
 const bool01 = z.enum(['0', '1']).transform((v) => v === '1');
 
-const envSchema = z.object({
+export const envSchema = z.object({
   PORT: z.coerce.number().int().min(0).max(65535).default(8080),
   DATABASE_URL: z.string().url('DATABASE_URL must be a postgres:// URL').optional(),
   ADMIN_EMAIL: z.string().email('ADMIN_EMAIL must be an e-mail address').optional(),

@@ -6,6 +6,7 @@
 import zlib from 'node:zlib';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
+import { envSchema } from '@/server/config';
 import { useTestApp } from '../helpers/testApp';
 
 const getT = useTestApp();
@@ -60,7 +61,10 @@ describe('body parsing after authentication', () => {
 
   it('counts the import limit on the inflated bytes: a gzip inflating past it is 413 for a signed-in engineer', async () => {
     const t = getT();
-    const bomb = gzipBomb(101, '[]');
+    // one megabyte past the configured import limit (server/config.ts, "160mb")
+    const limitMb = Number.parseInt(envSchema.shape.IMPORT_BODY_LIMIT.parse(undefined), 10);
+    expect(limitMb).toBeGreaterThan(0);
+    const bomb = gzipBomb(limitMb + 1, '[]');
     const r = await request(t.app).post('/api/network/import').set(t.auth('engineer')).set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').serialize(raw).send(bomb);
     expect(r.status).toBe(413);
     expect(r.body.error.code).toBe('too-large');
