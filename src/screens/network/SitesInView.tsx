@@ -3,6 +3,7 @@
  * households): the keyboard and screen-reader way to pick a site, and a
  * readable roll-call when the diagram is too dense for names.
  */
+import { memo, useMemo } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { formatCount } from '@/shared/format';
 import { StatusShape } from '@/src/components/StatusShape';
@@ -10,8 +11,9 @@ import { Capped } from '@/src/screens/reach/Capped';
 import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';
 import { orderSitesInView, type DiagramSite, type SiteStatus } from './diagramModel';
 
-export function SitesInView({ sites, inView, statuses, onChoose }: { sites: DiagramSite[]; inView: number[]; statuses: Map<string, SiteStatus>; onChoose: (i: number) => void }) {
-  const ordered = orderSitesInView(sites, inView, statuses);
+/** Memoised: the screen re-renders on every pan and zoom step, and the list only changes with what was drawn. */
+export const SitesInView = memo(function SitesInView({ sites, inView, statuses, onChoose }: { sites: DiagramSite[]; inView: number[]; statuses: Map<string, SiteStatus>; onChoose: (i: number) => void }) {
+  const ordered = useMemo(() => orderSitesInView(sites, inView, statuses), [sites, inView, statuses]);
   return (
     <View style={styles.wrap} testID="network-sites-in-view">
       <Text style={styles.title}>{`Sites in view (${formatCount(inView.length)})`}</Text>
@@ -40,7 +42,7 @@ export function SitesInView({ sites, inView, statuses, onChoose }: { sites: Diag
       )}
     </View>
   );
-}
+});
 
 const styles = StyleSheet.create({
   wrap: { gap: space.sm },

@@ -158,5 +158,6 @@ export function orderSitesInView(sites: readonly DiagramSite[], inView: readonly
   };
   return inView
     .filter((i) => i >= 0 && i < sites.length)
-    .sort((a, b) => rank(a) - rank(b) || (sites[b].households ?? 0) - (sites[a].households ?? 0) || sites[a].code.localeCompare(sites[b].code));
+    // codes compared by code unit, not localeCompare: this runs after every zoom step over up to every site
+    .sort((a, b) => rank(a) - rank(b) || (sites[b].households ?? 0) - (sites[a].households ?? 0) || (sites[a].code < sites[b].code ? -1 : sites[a].code > sites[b].code ? 1 : 0));
 }
