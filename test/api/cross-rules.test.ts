@@ -57,4 +57,37 @@ describe('one set of cross-entity rules', () => {
     const [rows] = await app().db.sequelize.query(`SELECT sv.code FROM carriages c JOIN services sv ON sv.id = c.service_id WHERE c.code = 'R1.TV1'`);
     expect(rows).toEqual([{ code: 'TV1' }]);
   });
+
+  it('refuses a carriage moved to another service once per feed it has, either way round, in feed order, writing nothing', async () => {
+    const r = await as(eng().patch('/api/carriages/R2.TV1')).send({ version: 1, service: 'FM1', channel: null, frequencyMHz: null });
+    expect(r.status).toBe(422);
+    const tail = 'change or delete the feed first, or import it too';
+    expect(issuesOf(r.body.error.details)).toEqual([
+      { rule: 'service-mismatch', field: 'service', message: `carriage R2.TV1: feed R1.TV1.R joins it to carriage R1.TV1, which carries TV1, not FM1; ${tail}` },
+      { rule: 'service-mismatch', field: 'service', message: `carriage R2.TV1: feed R2.TV1.M joins it to carriage M1.TV1, which carries TV1, not FM1; ${tail}` },
+      { rule: 'service-mismatch', field: 'service', message: `carriage R2.TV1: feed R2.TV1.R joins it to carriage O1.TV1, which carries TV1, not FM1; ${tail}` },
+    ]);
+    const [rows] = await app().db.sequelize.query(`SELECT sv.code AS service, c.channel, c.version FROM carriages c JOIN services sv ON sv.id = c.service_id WHERE c.code = 'R2.TV1'`);
+    expect(rows).toEqual([{ service: 'TV1', channel: '37', version: 1 }]);
+  });
+
+  it('refuses a carriage moved onto a via-site of its feed, from either end, writing nothing', async () => {
+    for (const [carriage, site] of [['M1.FM1', 'M1'], ['O1.FM1', 'O1']]) {
+      const r = await as(eng().patch(`/api/carriages/${carriage}`)).send({ version: 1, site: 'H1' });
+      expect(r.status).toBe(422);
+      expect(issuesOf(r.body.error.details)).toEqual([
+        { rule: 'via-endpoint', field: 'site', message: `carriage ${carriage}: feed M1.FM1.M into or out of it passes via site H1, which would become one of its ends; change the feed first, or import it too` },
+      ]);
+      const [rows] = await app().db.sequelize.query(`SELECT s.code FROM carriages c JOIN sites s ON s.id = c.site_id WHERE c.code = '${carriage}'`);
+      expect(rows).toEqual([{ code: site }]);
+    }
+  });
+
+  it('lets a carriage move when its feeds still hold', async () => {
+    const r = await as(eng().patch('/api/carriages/M1.FM1')).send({ version: 1, site: 'R1' });
+    expect(r.status).toBe(200);
+    expect(r.body).toMatchObject({ code: 'M1.FM1', site: 'R1', version: 2 });
+    const [rows] = await app().db.sequelize.query(`SELECT s.code FROM carriages c JOIN sites s ON s.id = c.site_id WHERE c.code = 'M1.FM1'`);
+    expect(rows).toEqual([{ code: 'R1' }]);
+  });
 });

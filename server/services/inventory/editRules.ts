@@ -10,18 +10,35 @@
  *   `second-main-feed`, naming the feed already there. Two main feeds are
  *   legal in the model (either keeps the carriage on air), but a typed one
  *   is far more often a reserve entered with the wrong role.
+ *
+ * The stored records are read through the Sequelize models (records.ts).
  */
+import { Op } from 'sequelize';
 import { checkChannel, frequencyProblem } from '@/shared/rf/channelRules';
 import type { EntityKind, ServiceKind } from '@/shared/schemas/network';
+import { CarriageRow, FeedRow, ServiceRow } from '../../db/models/inventory';
 import { ApiError, badRequest } from '../../http/errors';
 import { NOUN, type Fields } from './shape';
 import type { Tx } from './tables';
 
 export const CONFIRM_SECOND_MAIN = 'second-main-feed';
 
-async function serviceKindOf(tx: Tx, sql: string, code: string): Promise<ServiceKind | undefined> {
-  const [rows] = await tx.sequelize.query(sql, { bind: [code], transaction: tx.transaction });
-  return (rows as { kind: ServiceKind }[])[0]?.kind;
+/** The kind of the service with this code. */
+async function kindOfService(tx: Tx, code: string): Promise<ServiceKind | undefined> {
+  const row = (await ServiceRow.findOne({ where: { code }, attributes: ['kind'], raw: true, transaction: tx.transaction })) as unknown as { kind: ServiceKind } | null;
+  return row?.kind;
+}
+
+/** The kind of the service the carriage with this code carries. */
+async function kindOfCarriedService(tx: Tx, code: string): Promise<ServiceKind | undefined> {
+  const row = (await CarriageRow.findOne({
+    where: { code },
+    attributes: [],
+    include: [{ model: ServiceRow, as: 'service', attributes: ['kind'], required: true }],
+    raw: true,
+    transaction: tx.transaction,
+  })) as unknown as { 'service.kind': ServiceKind } | null;
+  return row?.['service.kind'];
 }
 
 /**
@@ -34,7 +51,7 @@ export async function checkBands(tx: Tx, kind: EntityKind, entity: Fields, previ
   const anchor = kind === 'carriages' ? 'service' : 'to';
   const kept = (field: string) => !!previous && previous[field] === entity[field] && previous[anchor] === entity[anchor] && previous.medium === entity.medium;
   if (kind === 'carriages') {
-    const serviceKind = await serviceKindOf(tx, 'SELECT kind FROM services WHERE code = $1', entity.service as string);
+    const serviceKind = await kindOfService(tx, entity.service as string);
     if (!serviceKind) return; // an unknown service is the cross-entity rules' 422
     const channel = checkChannel(serviceKind, entity.channel as string | undefined);
     if (!channel.ok) found.push({ field: 'channel', message: channel.message });
@@ -42,7 +59,7 @@ export async function checkBands(tx: Tx, kind: EntityKind, entity: Fields, previ
     if (frequency) found.push({ field: 'frequencyMHz', message: frequency });
   }
   if (kind === 'feeds' && entity.medium === 'off-air') {
-    const serviceKind = await serviceKindOf(tx, 'SELECT sv.kind FROM carriages c JOIN services sv ON sv.id = c.service_id WHERE c.code = $1', entity.to as string);
+    const serviceKind = await kindOfCarriedService(tx, entity.to as string);
     if (!serviceKind) return;
     const channel = checkChannel(serviceKind, entity.rxChannel as string | undefined);
     if (!channel.ok) found.push({ field: 'rxChannel', message: `receive ${channel.message}` });
@@ -56,12 +73,15 @@ export async function checkBands(tx: Tx, kind: EntityKind, entity: Fields, previ
 /** The other main feeds into the feed's target carriage (none when the feed is a reserve). */
 export async function otherMainFeeds(tx: Tx, feed: Fields): Promise<string[]> {
   if (feed.role !== 'main') return [];
-  const [rows] = await tx.sequelize.query(
-    `SELECT f.code FROM feeds f JOIN carriages b ON b.id = f.to_carriage_id
-     WHERE b.code = $1 AND f.role = 'main' AND f.code <> $2 ORDER BY f.code`,
-    { bind: [feed.to, feed.code], transaction: tx.transaction },
-  );
-  return (rows as { code: string }[]).map((r) => r.code);
+  const rows = (await FeedRow.findAll({
+    where: { role: 'main', code: { [Op.ne]: feed.code as string } },
+    attributes: ['code'],
+    include: [{ model: CarriageRow, as: 'to', attributes: [], required: true, where: { code: feed.to as string } }],
+    order: [['code', 'ASC']],
+    raw: true,
+    transaction: tx.transaction,
+  })) as unknown as { code: string }[];
+  return rows.map((r) => r.code);
 }
 
 /**

@@ -5,12 +5,17 @@
  * service and no via-site is one of its ends, a site radiates each service
  * once; and a carriage that moves must not break the feeds it has. The
  * messages read like the import's ("feed F12: source carriage C99 does not
- * exist").
+ * exist"). The stored network is read through the Sequelize models and
+ * their associations (server/db/models/inventory.ts), as records.ts reads
+ * one record: one query per question, never one per row.
  */
+import { Op, type Includeable } from 'sequelize';
 import type { EntityKind } from '@/shared/schemas/network';
+import { CarriageRow, FeedRow, FeedViaSiteRow, ServiceRow, SiteRow } from '../../db/models/inventory';
 import { duplicateCarriage, feedRules, movedCarriageRules, REFERENCE_LABEL, unknownReference, type CrossIssue } from '../../interchange/crossRules';
+import { MODELS } from './records';
 import { NOUN, type Fields } from './shape';
-import { TABLE, type Tx } from './tables';
+import type { Tx } from './tables';
 
 export interface RuleIssue {
   field: string;
@@ -31,19 +36,42 @@ interface CarriageEnds {
   service: string;
 }
 
+type Coded = { code: string };
+/** A carriage as read with its site and service (raw, nested by association name). */
+type CarriageRead = Coded & { site: Coded; service: Coded };
+
+const codeOnly = ['code'];
+
+/** A carriage's site and service codes, joined in through the carriage model's associations. */
+const siteAndService = (where: { site?: string; service?: string } = {}, attributes: string[] = codeOnly): Includeable[] => [
+  { model: SiteRow, as: 'site', attributes, required: true, ...(where.site !== undefined ? { where: { code: where.site } } : {}) },
+  { model: ServiceRow, as: 'service', attributes, required: true, ...(where.service !== undefined ? { where: { code: where.service } } : {}) },
+];
+
+const endsOf = (c: CarriageRead): CarriageEnds => ({ code: c.code, site: c.site.code, service: c.service.code });
+
 async function existing(tx: Tx, kind: EntityKind, codes: string[]): Promise<Set<string>> {
   if (codes.length === 0) return new Set();
-  const [rows] = await tx.sequelize.query(`SELECT code FROM ${TABLE[kind]} WHERE code = ANY($1::text[])`, { bind: [codes], transaction: tx.transaction });
-  return new Set((rows as { code: string }[]).map((r) => r.code));
+  const rows = (await MODELS[kind].findAll({ where: { code: codes }, attributes: codeOnly, raw: true, transaction: tx.transaction })) as unknown as Coded[];
+  return new Set(rows.map((r) => r.code));
 }
 
 async function carriageEnds(tx: Tx, codes: string[]): Promise<Map<string, CarriageEnds>> {
-  const [rows] = await tx.sequelize.query(
-    `SELECT c.code, si.code AS site, sv.code AS service FROM carriages c
-     JOIN sites si ON si.id = c.site_id JOIN services sv ON sv.id = c.service_id WHERE c.code = ANY($1::text[])`,
-    { bind: [codes], transaction: tx.transaction },
-  );
-  return new Map((rows as CarriageEnds[]).map((r) => [r.code, r]));
+  const rows = (await CarriageRow.findAll({ where: { code: codes }, attributes: codeOnly, include: siteAndService(), raw: true, nest: true, transaction: tx.transaction })) as unknown as CarriageRead[];
+  return new Map(rows.map((r) => [r.code, endsOf(r)]));
+}
+
+/** Another carriage of the same service on the same site, if one is stored. */
+async function sameServiceOnSite(tx: Tx, code: string, site: string, service: string): Promise<string | undefined> {
+  const other = (await CarriageRow.findOne({
+    where: { code: { [Op.ne]: code } },
+    attributes: codeOnly,
+    include: siteAndService({ site, service }, []),
+    order: [['code', 'ASC']],
+    raw: true,
+    transaction: tx.transaction,
+  })) as unknown as Coded | null;
+  return other?.code;
 }
 
 export async function checkRules(tx: Tx, kind: EntityKind, entity: Fields, previous?: Fields): Promise<RuleFindings> {
@@ -67,14 +95,9 @@ export async function checkRules(tx: Tx, kind: EntityKind, entity: Fields, previ
     const service = entity.service as string;
     if (!(await existing(tx, 'sites', [site])).has(site)) refuse(unknownReference('site', REFERENCE_LABEL.site, site));
     if (!(await existing(tx, 'services', [service])).has(service)) refuse(unknownReference('service', REFERENCE_LABEL.service, service));
-    const [rows] = await tx.sequelize.query(
-      `SELECT c.code FROM carriages c JOIN sites si ON si.id = c.site_id JOIN services sv ON sv.id = c.service_id
-       WHERE si.code = $1 AND sv.code = $2 AND c.code <> $3`,
-      { bind: [site, service, code], transaction: tx.transaction },
-    );
-    const other = (rows as { code: string }[])[0];
+    const other = await sameServiceOnSite(tx, code, site, service);
     if (other) {
-      const issue = duplicateCarriage(site, service, other.code);
+      const issue = duplicateCarriage(site, service, other);
       found.conflicts.push({ field: issue.field, rule: issue.rule, message: `${subject}: ${issue.detail}` });
     }
     if (previous && (previous.site !== site || previous.service !== service)) await checkFeedsOfMovedCarriage(tx, code, site, service, refuse);
@@ -95,18 +118,32 @@ export async function checkRules(tx: Tx, kind: EntityKind, entity: Fields, previ
   return found;
 }
 
-/** A carriage moving to another site or service takes its feeds along: each must still hold. */
+/**
+ * A carriage moving to another site or service takes its feeds along: each
+ * must still hold. One read: the carriage's feeds with both ends' sites and
+ * services and the via-sites in path order, one row per hop, folded by feed.
+ */
 async function checkFeedsOfMovedCarriage(tx: Tx, code: string, site: string, service: string, refuse: (issue: CrossIssue) => void): Promise<void> {
-  const [rows] = await tx.sequelize.query(
-    `SELECT f.code, o.code AS other, sv.code AS "otherService", os.code AS "otherSite",
-            ARRAY(SELECT s.code FROM feed_via_sites v JOIN sites s ON s.id = v.site_id WHERE v.feed_id = f.id) AS via
-     FROM feeds f JOIN carriages a ON a.id = f.from_carriage_id JOIN carriages b ON b.id = f.to_carriage_id
-     JOIN carriages o ON o.id = CASE WHEN a.code = $1 THEN b.id ELSE a.id END
-     JOIN services sv ON sv.id = o.service_id JOIN sites os ON os.id = o.site_id
-     WHERE a.code = $1 OR b.code = $1 ORDER BY f.code`,
-    { bind: [code], transaction: tx.transaction },
-  );
-  for (const r of rows as Array<{ code: string; other: string; otherService: string; otherSite: string; via: string[] }>) {
-    for (const issue of movedCarriageRules({ code, site, service }, { code: r.code, via: r.via }, { code: r.other, service: r.otherService, site: r.otherSite })) refuse(issue);
+  const end = (as: 'from' | 'to'): Includeable => ({ model: CarriageRow, as, attributes: codeOnly, required: true, include: siteAndService() });
+  const rows = (await FeedRow.findAll({
+    where: { [Op.or]: [{ '$from.code$': code }, { '$to.code$': code }] },
+    attributes: ['id', 'code'],
+    include: [end('from'), end('to'), { model: FeedViaSiteRow, as: 'viaSites', attributes: ['position'], required: false, include: [{ model: SiteRow, as: 'site', attributes: codeOnly }] }],
+    order: [['code', 'ASC'], [{ model: FeedViaSiteRow, as: 'viaSites' }, 'position', 'ASC']],
+    raw: true,
+    nest: true,
+    transaction: tx.transaction,
+  })) as unknown as Array<Coded & { id: number; from: CarriageRead; to: CarriageRead; viaSites: { site: { code: string | null } } }>;
+  const feeds = new Map<number, { code: string; other: CarriageEnds; via: string[] }>();
+  for (const r of rows) {
+    let feed = feeds.get(r.id);
+    if (!feed) {
+      feed = { code: r.code, other: endsOf(r.from.code === code ? r.to : r.from), via: [] };
+      feeds.set(r.id, feed);
+    }
+    if (r.viaSites.site.code !== null) feed.via.push(r.viaSites.site.code);
+  }
+  for (const feed of feeds.values()) {
+    for (const issue of movedCarriageRules({ code, site, service }, { code: feed.code, via: feed.via }, feed.other)) refuse(issue);
   }
 }
