@@ -88,7 +88,7 @@ describe('import through COPY', () => {
     list[4000].households = 'many';
     const err = await copyInWrite(list);
     expect(err).toBeDefined();
-    expect(databaseRefusal(err)?.sqlState).toBe('22P02');
+    expect(databaseRefusal(err)?.sqlState, String(err)).toBe('22P02');
     expect(await count('sites')).toBe(0);
     expect(await count('risk_groups')).toBe(0);
     expect(await count('site_groups')).toBe(0);

@@ -98,7 +98,8 @@ async function copyRows(client: Client, table: string, columns: readonly string[
     for (const row of rows) {
       chunk += row;
       if (chunk.length < CHUNK_CHARS && !opts.turns.due()) continue;
-      if (!stream.write(chunk)) await new Promise<void>((resolve) => stream.once('drain', resolve));
+      // a server that refuses a row ends the stream with an error and never drains: stop waiting then
+      if (!stream.write(chunk)) await Promise.race([new Promise<void>((resolve) => stream.once('drain', resolve)), done]);
       chunk = '';
       await nextTurn();
       opts.signal?.throwIfAborted();
@@ -106,8 +107,12 @@ async function copyRows(client: Client, table: string, columns: readonly string[
     stream.end(chunk);
   } catch (err) {
     stream.destroy(err instanceof Error ? err : new Error(String(err)));
-    await done.catch(() => {});
-    throw err;
+    // The server's own refusal (a value its column cannot hold), when it came first, is the cause to report,
+    // not the write that then ran into the ended stream.
+    throw await done.then(
+      () => err,
+      (first: unknown) => first,
+    );
   }
   await done;
   return stream.rowCount;
