@@ -11,9 +11,12 @@
  */
 import type { Feed, NetworkDocument } from '@/shared/schemas/network';
 import { MAX_BUDGET, type Proposal } from '@/shared/schemas/analysis';
+import { patchList } from './codeOrder';
 import { NetworkEngine } from './engine';
 
 export const MAX_PLAN_BUDGET = MAX_BUDGET;
+/** the longest piece of work between two yields, ms */
+export const PLAN_SLICE_MS = 25;
 
 export interface PlanPick extends Proposal {
   /** the code the new feed gets in the sandbox and when created for real */
@@ -36,7 +39,7 @@ function freshCode(taken: Set<string>, carriage: string): string {
 }
 
 /**
- * Picks up to `budget` feeds. `yieldNow` runs between the engine builds (a
+ * Picks up to `budget` feeds. `yieldNow` runs between slices of the work (a
  * server passes an event-loop yield); `current` is the engine of `doc` when the
  * caller already has it.
  */
@@ -48,6 +51,9 @@ export async function greedyPlan(doc: NetworkDocument, networkVersion: number, b
   const picks: PlanPick[] = [];
   const feeds: Feed[] = [];
   for (let i = 0; i < budget; i++) {
+    // The network ranking is seconds of work at national scale: worked in slices with a yield between them.
+    const job = engine.proposalsJob(1);
+    while (!job.step(performance.now() + PLAN_SLICE_MS)) await yieldNow();
     const best = engine.proposals({ limit: 1 }).proposals[0];
     if (!best) break;
     const code = freshCode(taken, best.carriage);
@@ -55,9 +61,10 @@ export async function greedyPlan(doc: NetworkDocument, networkVersion: number, b
     const feed: Feed = { code, from: best.from, to: best.carriage, medium: best.medium, role: 'reserve' };
     feeds.push(feed);
     picks.push({ ...best, feed: code });
-    sandboxDoc = { ...sandboxDoc, feeds: [...sandboxDoc.feeds, feed] };
+    sandboxDoc = { ...sandboxDoc, feeds: patchList(sandboxDoc.feeds, [], [feed]) };
     await yieldNow();
-    engine = NetworkEngine.build(sandboxDoc, networkVersion);
+    // Only the service graph the new feed joins is rebuilt (the incremental update; a full build when it cannot).
+    engine = NetworkEngine.update(engine, sandboxDoc, networkVersion, { feeds: [code] });
   }
   return { picks, feeds, doc: sandboxDoc, sandbox: engine };
 }

@@ -215,4 +215,27 @@ describe('a greedy plan', () => {
       if (plan.picks.length < 3) expect(NetworkEngine.build(d, 1).proposals({ limit: 1 }).proposals).toEqual([]);
     }
   });
+
+  it('on a document in code order (as served) each pick updates the engine incrementally, and the sandbox answers as a fresh build of the planned network', async () => {
+    const { greedyPlan } = await import('@/server/engine/plan');
+    const ordered = <T extends { code: string }>(xs: readonly T[]) => [...xs].sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0));
+    let planned = 0;
+    for (let seed = 1; seed <= 30; seed++) {
+      const r = smallRandomNetwork({ seed, sites: 8, services: 2, groups: 2, feeds: 14, originChance: 0.3, carriageChance: 0.9 });
+      const doc = { ...r, sites: ordered(r.sites), services: ordered(r.services), groups: ordered(r.groups), carriages: ordered(r.carriages), feeds: ordered(r.feeds) };
+      let yields = 0;
+      const plan = await greedyPlan(doc, 1, 3, undefined, async () => void yields++);
+      if (plan.picks.length === 0) continue;
+      planned++;
+      expect(plan.sandbox.incremental).toBe(true);
+      expect(yields).toBeGreaterThanOrEqual(plan.picks.length);
+      expect(plan.doc.feeds.map((f) => f.code)).toEqual(ordered(plan.doc.feeds).map((f) => f.code));
+      const fresh = NetworkEngine.build(plan.doc, 1);
+      expect(plan.sandbox.diversity()).toEqual(fresh.diversity());
+      expect(plan.sandbox.exposure()).toEqual(fresh.exposure());
+      expect(plan.sandbox.spof()).toEqual(fresh.spof());
+      expect(plan.sandbox.unfed()).toEqual(fresh.unfed());
+    }
+    expect(planned).toBeGreaterThan(5);
+  });
 });
