@@ -24,6 +24,8 @@ export interface OfflineEngineHook {
   networkVersion: number;
   /** fault reach of one failure set on this engine, timed in the page (ms) */
   timeReach(failed: Element[]): number;
+  /** the carriages that failure set takes off air on this engine, and their households (to check the engine the figures time) */
+  offAir(failed: Element[]): { carriages: number; households: number };
 }
 
 declare global {
@@ -41,6 +43,10 @@ function recordEngine(engine: Engine, copy: OfflineCopy, buildMs: number) {
       const t0 = performance.now();
       engine.reach(failed);
       return performance.now() - t0;
+    },
+    offAir(failed) {
+      const answer = engine.reach(failed);
+      return { carriages: answer.lost.length, households: answer.households.lost };
     },
   };
 }
