@@ -13,6 +13,7 @@ import { requireCurrentPassword, requireRole } from '../auth/authenticate';
 
 export { authenticate, requireRole } from '../auth/authenticate';
 import { inputGuard } from './inputGuard';
+import { jsonInTurns } from './jsonInTurns';
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 /** The JSON body limit: small for most routes, large for whole network documents. Multipart bodies are left to the route (multer). */
@@ -61,7 +62,8 @@ export class RouteTable {
   ) {
     // body-parser counts the limit on the inflated bytes as they stream, so a gzip bomb stops at the limit.
     const json = (limit: string) => express.json({ limit, inflate: true });
-    this.parsers = { small: json(limits.small), large: json(limits.large), public: json(limits.public) };
+    // A large body (a whole network) is parsed in turns so other requests are answered meanwhile (jsonInTurns.ts).
+    this.parsers = { small: json(limits.small), large: jsonInTurns(limits.large), public: json(limits.public) };
   }
 
   /** `roles` is the role list (or 'public'), or options with the roles, the body size and the password-change exemption. */

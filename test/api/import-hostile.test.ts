@@ -16,6 +16,9 @@ import { smallNetwork } from '../fixtures/small-network';
 import { useTestApp } from '../helpers/testApp';
 import { countOf, uploadFiles } from '../helpers/upload';
 import { buildZip } from '../helpers/zip';
+import { generateNetwork } from '@/scripts/generator';
+import { SMALL_BODY_BYTES } from '@/server/http/jsonInTurns';
+import { Tokenizer } from '@streamparser/json';
 
 const SITES_HEADER = 'code,name,role,lat,lon\n';
 /** A sites.csv of about `bytes` bytes, in rows long enough to stay under the row limit: one row repeated. */
@@ -98,6 +101,53 @@ describe('many problems', () => {
     expect(r.status).toBe(422);
     expect(r.body.errors).toHaveLength(MAX_REPORTED_ISSUES);
     expect(r.body.moreErrors).toBe(200);
+  });
+});
+
+describe('a network-sized JSON body', () => {
+  // Above a megabyte the body is parsed in turns (server/http/jsonInTurns.ts); these bodies are a few megabytes.
+  const network = generateNetwork({ sites: 1_500, seed: 5 });
+  const body = JSON.stringify(network);
+
+  it('imports as JSON.parse would have read it, other work getting turns while it is read', async () => {
+    expect(body.length).toBeGreaterThan(SMALL_BODY_BYTES);
+    const write = Tokenizer.prototype.write;
+    let slices = 0;
+    let turned = false;
+    let slicesAfterATurn = 0;
+    const spy = vi.spyOn(Tokenizer.prototype, 'write').mockImplementation(function (this: Tokenizer, input) {
+      if (slices++ === 0) setImmediate(() => (turned = true));
+      else if (turned) slicesAfterATurn++;
+      write.call(this, input);
+    });
+    let r;
+    try {
+      r = await request(app().app).post('/api/network/import').set(app().auth('engineer')).set('Content-Type', 'application/json').send(body);
+    } finally {
+      spy.mockRestore();
+    }
+    expect(r.status).toBe(200);
+    expect(slicesAfterATurn).toBeGreaterThan(0);
+    expect(await countOf(app(), 'sites')).toBe(network.sites.length);
+    expect(await countOf(app(), 'feeds')).toBe(network.feeds.length);
+  });
+
+  it.each([
+    ['cut short', body.slice(0, body.length - 10)],
+    ['with text after it', `${body} x`],
+    ['nested past the limit', `{"format":"network/1","sites":[${'['.repeat(100)}${' '.repeat(SMALL_BODY_BYTES)}]}`],
+  ])('refuses one %s with 400, and writes nothing', async (_what, text) => {
+    const r = await request(app().app).post('/api/network/import').set(app().auth('engineer')).set('Content-Type', 'application/json').send(text);
+    expect(r.status).toBe(400);
+    expect(r.body.error.code).toBe('malformed-json');
+    expect(await countOf(app(), 'sites')).toBe(0);
+  });
+
+  it('refuses a charset other than UTF-8 with 415', async () => {
+    const r = await request(app().app).post('/api/network/import').set(app().auth('engineer')).set('Content-Type', 'application/json; charset=latin1').send(body);
+    expect(r.status).toBe(415);
+    expect(r.body.error.message).toMatch(/charset "LATIN1"/);
+    expect(await countOf(app(), 'sites')).toBe(0);
   });
 });
 
