@@ -23,7 +23,7 @@ import { elementKey } from '@/shared/schemas/analysis';
 import { buildCore, type BuildTimings, type EngineCore } from './core';
 import { elementId, isCarriageId, KIND_BIT, kindMask, listOf, normaliseCode } from './model';
 import { groupExposure } from './exposure-groups';
-import { computeResilience, type Resilience } from './resilience';
+import { resilienceSteps, type Resilience } from './resilience';
 import { avoidableOf, unavoidableByService } from './avoidable';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
 import { chainTree, type ChainDirection, type ChainOptions } from './chain';
@@ -101,6 +101,9 @@ export class NetworkEngine {
   private readonly unfedAnswer: UnfedAnswer;
   private resilienceHeld: Resilience | null = null;
   private diversityHeld: Diversity | null = null;
+  /** the weak points and the diversity gaps while they are worked out in slices (`prepare`) */
+  private resilienceRun: Generator<void, Resilience, void> | null = null;
+  private diversityRun: Generator<void, Diversity, void> | null = null;
   /** per kinds mask (kindMask): single points of failure of every fed carriage, kept once asked */
   private readonly spofAnswers = new Map<number, SpofAnswer>();
   private readonly exposureRows = new Map<number, ExposureRow[]>();
@@ -140,25 +143,66 @@ export class NetworkEngine {
    * when first asked for; asking for weak points does not pay for diversity.
    */
   private get resilience(): Resilience {
-    if (this.resilienceHeld) return this.resilienceHeld;
-    const t = performance.now();
-    this.resilienceHeld = computeResilience(this.core);
-    this.timings.resilienceMs = performance.now() - t;
-    this.timings.totalMs += this.timings.resilienceMs;
-    return this.resilienceHeld;
+    this.prepare('resilience', Number.POSITIVE_INFINITY);
+    return this.resilienceHeld!;
   }
 
   private get diversityState(): Diversity {
-    if (this.diversityHeld) return this.diversityHeld;
-    const { spofOffsets, spofElements } = this.resilience;
+    this.prepare('diversity', Number.POSITIVE_INFINITY);
+    return this.diversityHeld!;
+  }
+
+  /** True when the weak points (or the diversity gaps, which need them) are held: answers that need them are then instant. */
+  holds(what: 'resilience' | 'diversity'): boolean {
+    return what === 'resilience' ? this.resilienceHeld !== null : this.diversityHeld !== null;
+  }
+
+  /**
+   * Works toward the weak points, and for 'diversity' then the diversity
+   * gaps, until `deadlineMs` (performance.now()) has passed; true once they
+   * are held. A server calls this in slices with a turn of the event loop
+   * between them (at 100,000 sites the whole is seconds of work); asking for
+   * an answer meanwhile finishes the work at once. The answers do not depend
+   * on how the work was sliced.
+   */
+  prepare(what: 'resilience' | 'diversity', deadlineMs: number): boolean {
+    if (!this.resilienceHeld) {
+      this.resilienceRun ??= resilienceSteps(this.core);
+      const t = performance.now();
+      let r = this.resilienceRun.next();
+      while (!r.done && performance.now() < deadlineMs) r = this.resilienceRun.next();
+      const spent = performance.now() - t;
+      this.timings.resilienceMs += spent;
+      this.timings.totalMs += spent;
+      if (!r.done) return false;
+      this.resilienceHeld = r.value;
+      this.resilienceRun = null;
+    }
+    if (what === 'resilience' || this.diversityHeld) return true;
+    this.diversityRun ??= this.diversitySteps(this.resilienceHeld);
     const t = performance.now();
+    let r = this.diversityRun.next();
+    while (!r.done && performance.now() < deadlineMs) r = this.diversityRun.next();
+    const spent = performance.now() - t;
+    this.timings.answersMs += spent;
+    this.timings.totalMs += spent;
+    if (!r.done) return false;
+    this.diversityHeld = r.value;
+    this.diversityRun = null;
+    return true;
+  }
+
+  /** The diversity gaps, pausing after every 4,096 carriages (see `prepare`). */
+  private *diversitySteps({ spofOffsets, spofElements }: Resilience): Generator<void, Diversity, void> {
     const { core, networkVersion } = this;
     const { model, fed } = core;
     const unavoidable = unavoidableByService(core);
+    yield;
     const gaps = new Map<number, number[]>();
     // Diversity and proposals speak of sites, feeds and groups: a parent transmitter that is a weak point comes with its site.
     const diversityRows: DiversityAnswer['carriages'] = [];
     for (let c = 0; c < model.carriages.length; c++) {
+      if ((c & 4095) === 4095) yield;
       if (!fed[c]) continue;
       const hasReserve = listOf(model.feedsInto, c).some((f) => model.feedReserve[f] === 1);
       if (!hasReserve || spofOffsets[c] === spofOffsets[c + 1]) continue;
@@ -168,10 +212,7 @@ export class NetworkEngine {
       gaps.set(c, avoidable);
       diversityRows.push({ ...this.placed(c), spof: Array.from(spofIds, (x) => model.elements[x]), avoidable: avoidable.map((x) => model.elements[x]) });
     }
-    this.timings.answersMs = performance.now() - t;
-    this.timings.totalMs += this.timings.answersMs;
-    this.diversityHeld = { gaps, diversityAnswer: { networkVersion, carriages: diversityRows } };
-    return this.diversityHeld;
+    return { gaps, diversityAnswer: { networkVersion, carriages: diversityRows } };
   }
 
   static build(doc: NetworkDocument, networkVersion: number): NetworkEngine {

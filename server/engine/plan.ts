@@ -51,7 +51,8 @@ export async function greedyPlan(doc: NetworkDocument, networkVersion: number, b
   const picks: PlanPick[] = [];
   const feeds: Feed[] = [];
   for (let i = 0; i < budget; i++) {
-    // The network ranking is seconds of work at national scale: worked in slices with a yield between them.
+    // The weak points, the gaps and the network ranking are seconds of work at national scale: worked in slices with a yield between them.
+    while (!engine.prepare('diversity', performance.now() + PLAN_SLICE_MS)) await yieldNow();
     const job = engine.proposalsJob(1);
     while (!job.step(performance.now() + PLAN_SLICE_MS)) await yieldNow();
     const best = engine.proposals({ limit: 1 }).proposals[0];

@@ -37,8 +37,26 @@ function groupPairs(keyCount: number, keys: IntList, values: IntList): { offsets
   return { offsets, values: out };
 }
 
+/** Units of work (nodes, carriages, elements visited) between two pauses of `resilienceSteps`. */
+const STEP_WORK = 4096;
+
+/** The weak points at once (for a test, a benchmark, or an engine asked before they were prepared). */
 export function computeResilience(core: EngineCore): Resilience {
+  const steps = resilienceSteps(core);
+  for (;;) {
+    const r = steps.next();
+    if (r.done) return r.value;
+  }
+}
+
+/**
+ * The same computation, pausing (a bare `yield`) after every STEP_WORK units
+ * of work, so a server can answer other requests between pieces: at 100,000
+ * sites the whole is seconds of work. Where the pauses fall changes nothing.
+ */
+export function* resilienceSteps(core: EngineCore): Generator<void, Resilience, void> {
   const { model, services, full, walker, carriageNode, fed } = core;
+  let work = 0;
   const E = model.elementCount;
   const C = model.carriages.length;
   const aliveCount = new Int32Array(E);
@@ -58,12 +76,14 @@ export function computeResilience(core: EngineCore): Resilience {
     const tree = full[svc.service].tree;
     const { ownerOffsets, owners } = svc;
     for (let u = 0; u < svc.n; u++) {
+      if ((++work & (STEP_WORK - 1)) === 0) yield;
       if (!tree.alive[u]) continue;
       for (let j = ownerOffsets[u]; j < ownerOffsets[u + 1]; j++) if (aliveCount[owners[j]]++ === 0) touched.push(owners[j]);
     }
     const single = new Uint8Array(owners.length);
     const multiNodes = new Map<number, number[]>();
     for (let u = 0; u < svc.n; u++) {
+      if ((++work & (STEP_WORK - 1)) === 0) yield;
       if (!tree.alive[u]) continue;
       for (let j = ownerOffsets[u]; j < ownerOffsets[u + 1]; j++) {
         const x = owners[j];
@@ -80,6 +100,9 @@ export function computeResilience(core: EngineCore): Resilience {
     }
     ownerSingle.push(single);
     for (const [x, nodes] of multiNodes) {
+      // a removal walk can cover a whole service graph: a pause after each
+      work += STEP_WORK;
+      yield;
       lostNodes.clear();
       walker.lostMarked(full[svc.service], nodes, nodes.length, lostNodes);
       multiElement.push(x);
@@ -103,6 +126,7 @@ export function computeResilience(core: EngineCore): Resilience {
   const spofOffsets = new Int32Array(C + 1);
   const spof = new IntList(C * 4);
   for (let c = 0; c < C; c++) {
+    if ((++work & (STEP_WORK - 1)) === 0) yield;
     if (fed[c]) {
       const s = model.carriageService[c];
       const svc = services[s];
@@ -129,6 +153,7 @@ export function computeResilience(core: EngineCore): Resilience {
   const siteStamp = new Int32Array(model.sites.length).fill(-1);
   const { carriageSite, siteHouseholds } = model;
   for (let x = 0; x < E; x++) {
+    if ((++work & (STEP_WORK - 1)) === 0) yield;
     let households = 0;
     let carriages = 0;
     for (let i = singles.offsets[x]; i < singles.offsets[x + 1]; i++) {
@@ -159,6 +184,7 @@ export function computeResilience(core: EngineCore): Resilience {
     exposureHouseholds[x] = households;
     exposureCarriages[x] = carriages;
   }
+  yield;
   return { spofOffsets, spofElements: spof.toArray(), exposureHouseholds, exposureCarriages, ranked: rankByExposure(exposureHouseholds) };
 }
 

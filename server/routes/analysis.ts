@@ -29,6 +29,7 @@ import { currentModel } from './checks';
 import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { searchCarriages } from '../services/carriageSearch';
+import { prepared } from '../services/prepared';
 
 export { chainQuery } from './chain';
 /** A sandbox's exposure takes a limit and the element kinds; the files and the names are the stored network's only, so asking for them is refused rather than ignored. */
@@ -77,13 +78,16 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
 
   routes.add('get', '/analysis/spof', can.analyse, async (req, res) => {
     const { kinds } = parseOr400(spofQuerySchema, req.query, 'query');
-    res.json(currentModel(ctx).engine.spof(kinds));
+    const m = currentModel(ctx);
+    await prepared(m.engine, 'resilience');
+    res.json(m.engine.spof(kinds));
   });
 
   // format=csv: the same ranking as a file, one line per element, elements with the same loss sharing a rank.
   routes.add('get', '/analysis/exposure', can.analyse, async (req, res) => {
     const { limit, kinds, format, with: extra } = parseOr400(exposureQuery, req.query, 'query');
     const m = currentModel(ctx);
+    await prepared(m.engine, 'resilience');
     const answer = m.engine.exposure(limit, kinds);
     if (format === 'csv') {
       const groups = answer.elements.map((r) => ({ elements: [r.element], households: r.households, carriages: r.carriages }));
@@ -97,16 +101,18 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/exposure-groups', can.analyse, async (req, res) => {
     const { limit, kinds, format } = parseOr400(exposureQuery, req.query, 'query');
     const m = currentModel(ctx);
+    await prepared(m.engine, 'resilience');
     const answer = m.engine.exposureGroups(limit, kinds);
     if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(exposureGroupsCsv(m, answer));
     else res.json(answer);
   });
 
   // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md). CSV is always the whole list.
-  const carriageList = <A extends { carriages: unknown[] }>(path: string, file: string, answerOf: (m: ServedNetwork) => A, csvOf: (m: ServedNetwork, a: A) => string) =>
+  const carriageList = <A extends { carriages: unknown[] }>(path: string, file: string, answerOf: (m: ServedNetwork) => A, csvOf: (m: ServedNetwork, a: A) => string, need?: 'diversity') =>
     routes.add('get', path, can.analyse, async (req, res) => {
       const { format, ...page } = parseOr400(pageQuerySchema.extend(listFormatQuerySchema.shape), req.query, 'query');
       const m = currentModel(ctx);
+      if (need) await prepared(m.engine, need);
       const answer = answerOf(m);
       if (format === 'csv') {
         res.type('text/csv').attachment(csvFileName(file, m.networkVersion)).send(csvOf(m, answer));
@@ -115,7 +121,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
       const { rows, total, offset } = pageRows(answer.carriages, page);
       res.json({ ...answer, carriages: rows, total, offset });
     });
-  carriageList('/analysis/diversity', 'diversity-gaps', (m) => m.engine.diversity(), diversityCsv);
+  carriageList('/analysis/diversity', 'diversity-gaps', (m) => m.engine.diversity(), diversityCsv, 'diversity');
   carriageList('/analysis/unfed', 'unfed-carriages', (m) => m.engine.unfed(), unfedCsv);
 
   // Carriages to mark failed, by code or by site and service together (server/services/carriageSearch.ts).
@@ -136,6 +142,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/proposals', can.analyse, async (req, res) => {
     const { carriage, limit } = parseOr400(proposalsQuerySchema, req.query, 'query');
     const { engine } = currentModel(ctx);
+    await prepared(engine, 'diversity');
     if (carriage === undefined) {
       const state = proposalsState(engine, limit ?? 100);
       if (state.state === 'failed') throw new ApiError(500, 'proposals-failed', 'the proposals could not be ranked; the server log has the cause');

@@ -20,6 +20,7 @@ import crypto from 'node:crypto';
 import type { ElementKind } from '@/shared/schemas/network';
 import type { PlanAnswer } from '@/shared/schemas/analysis';
 import type { NetworkEngine } from '../engine/engine';
+import { prepared } from './prepared';
 import type { PairsJob, PairRow } from '../engine/pairs';
 import type { BestProposalsJob } from '../engine/proposals-ranking';
 import type { ProposalsAnswer } from '@/shared/schemas/analysis';
@@ -164,6 +165,8 @@ function sweep(now: number): void {
 /** Makes a greedy plan on the current model and keeps it as a sandbox. */
 export async function makePlan(model: ServedNetwork, budget: number): Promise<StoredPlan> {
   const plan = await greedyPlan(model.document, model.networkVersion, budget, model.engine, yieldNow);
+  await prepared(model.engine, 'diversity');
+  await prepared(plan.sandbox, 'diversity');
   const now = Date.now();
   sweep(now);
   const id = crypto.randomBytes(9).toString('base64url');
