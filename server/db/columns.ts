@@ -10,11 +10,18 @@ type Attributes = Record<string, { type: unknown; field?: string }>;
 /** Kept by the database and Sequelize, not fields of the document. */
 export const BOOKKEEPING: readonly string[] = ['id', 'createdAt', 'updatedAt', 'version'];
 
+const documentAttributes = (attributes: Attributes, leaveOut: readonly string[]) =>
+  Object.entries(attributes).filter(([name]) => !BOOKKEEPING.includes(name) && !leaveOut.includes(name));
+
 export function selectList(attributes: Attributes, alias: string, leaveOut: readonly string[] = []): string {
-  return Object.entries(attributes)
-    .filter(([name]) => !BOOKKEEPING.includes(name) && !leaveOut.includes(name))
+  return documentAttributes(attributes, leaveOut)
     .map(([name, a]) => `${alias}.${'field' in a && a.field ? a.field : name} AS "${name}"`)
     .join(', ');
+}
+
+/** The document fields that `selectList` selects, in its order (for rows read as arrays). */
+export function selectedFields(attributes: Attributes, leaveOut: readonly string[] = []): string[] {
+  return documentAttributes(attributes, leaveOut).map(([name]) => name);
 }
 
 /**

@@ -40,17 +40,18 @@ export async function planImport(stored: NetworkDocument, document: NetworkDocum
       if (turns.due()) await nextTurn();
     }
     const plan: KindPlan = { create: [], update: [], unchanged: 0, remove: [] };
-    const seen = new Set<string>();
+    // only a replace asks which stored codes the document left out
+    const seen = replace ? new Set<string>() : null;
     for (const e of document[kind] as unknown as Fields[]) {
       const code = e.code as string;
-      seen.add(code);
+      seen?.add(code);
       const old = before.get(code);
       if (!old) plan.create.push(canonical(kind, e));
       else if (!sameEntity(kind, old, e)) plan.update.push(canonical(kind, e));
       else plan.unchanged += 1;
       if (turns.due()) await nextTurn();
     }
-    if (replace) {
+    if (seen) {
       for (const code of before.keys()) {
         if (!seen.has(code)) plan.remove.push(code);
         if (turns.due()) await nextTurn();
