@@ -11,8 +11,8 @@ import { checksQuerySchema } from '@/shared/schemas/checks';
 import { pageQuerySchema } from '@/shared/schemas/paging';
 import { ENTITY_KINDS, entitySchemas, networkDocumentSchema, versionSchema } from '@/shared/schemas/network';
 import { invitationSchema, personChangeSchema } from '@/shared/schemas/people';
-import { chainQuery, exposureQuery } from '../routes/analysis';
-import { carriageSearchQuerySchema, listFormatQuerySchema, spofQuerySchema } from '@/shared/schemas/analysis';
+import { exposureQuery } from '../routes/analysis';
+import { carriageSearchQuerySchema, chainQuerySchema, listFormatQuerySchema, spofQuerySchema } from '@/shared/schemas/analysis';
 import { loginSchema } from '../routes/auth';
 import { historyQuerySchema, sourcesQuerySchema } from '@/shared/schemas/editing';
 import { deleteQuerySchema, writeQuerySchema } from '../routes/inventory';
@@ -86,7 +86,7 @@ export const routeDocs: Record<string, RouteDoc> = {
   'get /api/analysis/diversity': { summary: 'Carriages whose reserve feed still shares an avoidable single point of failure (format=csv for a file; limit/offset page it, total always)', query: pageQuerySchema.extend(listFormatQuerySchema.shape) },
   'get /api/analysis/unfed': { summary: 'Carriages with no programme even when nothing has failed (format=csv for a file; limit/offset page it, total always)', query: pageQuerySchema.extend(listFormatQuerySchema.shape) },
   'get /api/analysis/carriage-search': { summary: 'Carriages by code, or by site and service together, to mark failed', query: carriageSearchQuerySchema },
-  'get /api/carriages/:code/chain': { summary: 'The chain of feeds above (up) or below (down) a carriage', query: chainQuery },
+  'get /api/carriages/:code/chain': { summary: 'The chain of feeds above (up) or below (down) a carriage', query: chainQuerySchema },
   'get /api/feeds/:code/checks': { summary: "Engineering screening of one feed (see docs/checks.md)" },
   'get /api/checks': { summary: "Every feed's failed checks, worst first", query: checksQuerySchema },
   ...inventoryDocs(),

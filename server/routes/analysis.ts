@@ -30,7 +30,6 @@ import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { searchCarriages } from '../services/carriageSearch';
 
-export { chainQuery } from './chain';
 /** A sandbox's exposure takes a limit and the element kinds; the files and the names are the stored network's only, so asking for them is refused rather than ignored. */
 const sandboxExposureQuery = z.strictObject(exposureQuerySchema.pick({ limit: true, kinds: true }).shape);
 

@@ -1,6 +1,7 @@
 /** Analysis API bodies and answers (docs/api.md). */
 import { z } from 'zod';
 import { codeSchema, DEFAULT_WEAK_POINT_KINDS, ELEMENT_KINDS, type ElementKind, type Medium, type FeedRole } from './network';
+import { pageQueryShape } from './paging';
 
 export const MAX_FAILED_ELEMENTS = 5000;
 
@@ -150,6 +151,27 @@ export interface CarriageSearchAnswer {
 
 /** `GET /api/analysis/diversity` and `/unfed`: `format=csv` for the file. */
 export const listFormatQuerySchema = z.object({ format: formatField });
+
+const CHAIN_FIELDS = ['direction', 'view', 'level', 'under', 'limit', 'offset'];
+
+/**
+ * `GET /api/carriages/:code/chain?direction=up|down` with at most one of `view=levels`,
+ * `level=K` or `under=CODE` (the last two paged by `limit` and `offset`). Strict: a
+ * mistyped field (`levle=2`) is a 400 naming it rather than the whole tree answered.
+ */
+export const chainQuerySchema = z
+  .strictObject(
+    {
+      direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up'),
+      view: z.enum(['levels'], { error: 'view is levels (or left out)' }).optional(),
+      level: z.coerce.number({ error: 'level must be a number' }).int('level is a whole number').min(0, 'level is at least 0').max(1_000_000, 'level is too large').optional(),
+      under: z.string({ error: 'under is one carriage code' }).min(1, 'under is one carriage code').max(200, 'under is one carriage code').optional(),
+      ...pageQueryShape,
+    },
+    { error: (issue) => (issue.code === 'unrecognized_keys' ? `${issue.keys.join(', ')} ${issue.keys.length > 1 ? 'are' : 'is'} not known here: the chain takes ${CHAIN_FIELDS.join(', ')}` : undefined) },
+  )
+  .refine((q) => [q.view, q.level, q.under].filter((x) => x !== undefined).length <= 1, { message: 'ask for one of view, level or under' })
+  .refine((q) => (q.limit === undefined && q.offset === undefined) || q.level !== undefined || q.under !== undefined, { message: 'limit and offset page a level or the carriages under one (level= or under=)' });
 
 /** `GET` pairs while the background job runs (HTTP 202). */
 export interface PairsRunning {
