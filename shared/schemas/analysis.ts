@@ -1,7 +1,7 @@
 /** Analysis API bodies and answers (docs/api.md). */
 import { z } from 'zod';
 import { codeSchema, DEFAULT_WEAK_POINT_KINDS, ELEMENT_KINDS, type ElementKind, type Medium, type FeedRole } from './network';
-import { pageQueryShape } from './paging';
+import { MAX_PAGE, pageQueryShape, type Paged } from './paging';
 
 export const MAX_FAILED_ELEMENTS = 5000;
 
@@ -31,6 +31,46 @@ export interface ReachAnswer {
 export interface SiteInfo {
   name: string;
   households: number;
+}
+
+/**
+ * `POST /api/analysis/reach?with=sites&first=N`: the reach for a screen. `sites` (off air
+ * first, then most households), `lost` and `fallback` hold only their first N rows,
+ * `counts` the length of each whole list; the rest come a page at a time from
+ * `POST /api/analysis/reach/sites` and `/reach/carriages`.
+ */
+export const reachQuerySchema = z.strictObject({
+  with: z.enum(['sites'], { error: 'with is sites (or left out)' }).optional(),
+  first: z.coerce.number({ error: 'first must be a number' }).int('first is a whole number').min(1, 'first is at least 1').max(MAX_PAGE, `first is at most ${MAX_PAGE}`).optional(),
+});
+
+export interface BriefReachAnswer extends ReachAnswer {
+  siteInfo: Record<string, SiteInfo>;
+  counts: { sites: number; lost: number; fallback: number };
+}
+
+/** One row of `POST /api/analysis/reach/sites?limit&offset` (body: the failure set). */
+export interface ReachSiteRow extends SiteInfo {
+  site: string;
+  lost: string[];
+  fallback: string[];
+}
+
+export interface ReachSitesPage extends Paged {
+  networkVersion: number;
+  sites: ReachSiteRow[];
+}
+
+/** `POST /api/analysis/reach/carriages?state=lost|fallback&limit&offset` (body: the failure set). */
+export const reachCarriagesQuerySchema = z.strictObject({
+  state: z.enum(['lost', 'fallback'], { error: 'state is lost or fallback' }),
+  ...pageQueryShape,
+});
+
+export interface ReachCarriagesPage extends Paged {
+  networkVersion: number;
+  state: 'lost' | 'fallback';
+  carriages: string[];
 }
 
 export interface SpofAnswer {
@@ -70,7 +110,8 @@ export interface DiversityAnswer {
 /** Critical pairs (rule 10), highest households first, ties by the first element then the second (kind, then code). */
 export interface PairsAnswer {
   networkVersion: number;
-  pairs: { elements: [Element, Element]; jointLost: string[]; households: number }[];
+  /** with `sample=N`, `jointLost` holds the first N carriages and `jointLostCount` their number */
+  pairs: { elements: [Element, Element]; jointLost: string[]; jointLostCount?: number; households: number }[];
 }
 
 /** A new reserve feed that closes (part of) a diversity gap; radio figures are null for satellite and line. */
@@ -120,6 +161,8 @@ export const kindsQuery = (fallback: readonly ElementKind[]) =>
 export const pairsQuerySchema = z.strictObject({
   limit: limitSchema.default(100),
   kinds: kindsQuery(['site', 'group']),
+  /** sample=N: each pair lists only its first N carriages off air together, with `jointLostCount` (a screen shows a few; a pair at 20,000 sites holds thousands) */
+  sample: z.coerce.number({ error: 'sample must be a number' }).int('sample is a whole number').min(0, 'sample is at least 0').max(1000, 'sample is at most 1000').optional(),
 });
 
 /** `GET /api/analysis/spof?kinds=...` (default site, feed, group; `carriage` adds parent transmitters) */
