@@ -30,8 +30,9 @@ export interface CappedProps<T> {
   total?: number;
   onShowAll?: () => void;
   /**
-   * A list paged on the server: true while "Show all" waits for its first page
-   * (without it, the list waits until `items` holds the whole list).
+   * A list paged on the server: true while "Show all" waits for its first page,
+   * false to open the long list at once on the rows `items` holds (without it,
+   * the list waits until `items` holds the whole list).
    */
   loadingAll?: boolean;
   /** Asks for the next page as the long list nears its end. */

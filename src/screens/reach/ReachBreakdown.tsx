@@ -34,14 +34,16 @@ const householdsWords = (n: number | undefined) => (n === undefined ? undefined 
 
 /**
  * What a long list shows: the answer's rows, or after "Show all" of a brief
- * answer (the server sent only its first rows and `counts`) the pages read so far.
+ * answer (the server sent only its first rows and `counts`) the pages read so
+ * far. The long list opens at once on the rows already here, and grows as the
+ * pages arrive, so "Show all" never waits for the network.
  */
-function useListPages<T>(firstRows: readonly T[], total: number, pages: { rows: T[]; loadMore: () => void; error: unknown }, showAll: boolean) {
+function useListPages<T>(firstRows: readonly T[], total: number, pages: { rows: T[]; loadMore: () => void }, showAll: boolean) {
   const paged = firstRows.length < total;
   return {
     items: paged && showAll && pages.rows.length > 0 ? pages.rows : firstRows,
     total,
-    loadingAll: paged ? showAll && pages.rows.length === 0 : undefined,
+    loadingAll: paged ? false : undefined,
     onEndReached: paged ? pages.loadMore : undefined,
   };
 }

@@ -42,7 +42,8 @@ export function DiversityList({ first, total }: { first: Gap[]; total: number })
       keyOf={carriageKey}
       testID="diversity-list"
       total={total}
-      loadingAll={all && first.length < total && !paged}
+      // opens at once on the rows already here; the pages follow
+      loadingAll={false}
       onEndReached={pages.loadMore}
       onShowAll={() => setAll(true)}
       render={(g) => (
