@@ -20,6 +20,10 @@ export const api = {
   sources: (carriage: string, q = '') => `/api/carriages/${encodeURIComponent(carriage)}/sources${q ? `?q=${encodeURIComponent(q)}` : ''}`,
   chain: (code: string, direction: 'up' | 'down') => `/api/carriages/${encodeURIComponent(code)}/chain?direction=${direction}`,
   reach: '/api/analysis/reach',
+  /** a page of the sites a failure set touches (POST, body: the set) */
+  reachSites: '/api/analysis/reach/sites',
+  /** a page of the carriages a failure set takes off air or onto a reserve (POST, body: the set) */
+  reachCarriages: (state: 'lost' | 'fallback') => `/api/analysis/reach/carriages?state=${state}`,
   spof: '/api/analysis/spof',
   exposure: (limit?: number) => `/api/analysis/exposure${limit ? `?limit=${limit}` : ''}`,
   /** kinds: comma-separated element kinds; format csv for the file */
@@ -36,7 +40,7 @@ export const api = {
   unfed: '/api/analysis/unfed',
   proposals: (q: { carriage?: string; limit?: number } = {}) =>
     `/api/analysis/proposals${q.carriage || q.limit ? '?' : ''}${[q.carriage ? `carriage=${encodeURIComponent(q.carriage)}` : '', q.limit ? `limit=${q.limit}` : ''].filter(Boolean).join('&')}`,
-  pairs: (limit: number, kinds: string) => `/api/analysis/pairs?limit=${limit}&kinds=${kinds}`,
+  pairs: (limit: number, kinds: string, sample?: number) => `/api/analysis/pairs?limit=${limit}&kinds=${kinds}${sample === undefined ? '' : `&sample=${sample}`}`,
   plans: '/api/analysis/plans',
   plan: (id: string) => `/api/analysis/plans/${encodeURIComponent(id)}`,
   planAnswer: (id: string, answer: 'exposure' | 'diversity' | 'unfed') => `/api/analysis/plans/${encodeURIComponent(id)}/${answer}`,

@@ -6,13 +6,13 @@
  * schemas. Keep a new route's entry beside its module's schemas.
  */
 import type { z } from 'zod';
-import { reachRequestSchema } from '@/shared/schemas/analysis';
+import { reachCarriagesQuerySchema, reachQuerySchema, reachRequestSchema } from '@/shared/schemas/analysis';
 import { checksQuerySchema } from '@/shared/schemas/checks';
 import { pageQuerySchema } from '@/shared/schemas/paging';
 import { ENTITY_KINDS, entitySchemas, networkDocumentSchema, versionSchema } from '@/shared/schemas/network';
 import { invitationSchema, personChangeSchema } from '@/shared/schemas/people';
-import { chainQuery, exposureQuery } from '../routes/analysis';
-import { carriageSearchQuerySchema, listFormatQuerySchema, spofQuerySchema } from '@/shared/schemas/analysis';
+import { exposureQuery } from '../routes/analysis';
+import { carriageSearchQuerySchema, chainQuerySchema, listFormatQuerySchema, spofQuerySchema } from '@/shared/schemas/analysis';
 import { loginSchema } from '../routes/auth';
 import { historyQuerySchema, sourcesQuerySchema } from '@/shared/schemas/editing';
 import { deleteQuerySchema, writeQuerySchema } from '../routes/inventory';
@@ -76,7 +76,9 @@ export const routeDocs: Record<string, RouteDoc> = {
     description: 'Stages: pending (not heard of by this process: not arrived yet, sent to another process, or finished more than a few minutes ago), reading, validating, writing, rebuilding, done, failed.',
   },
   'get /api/network/export': { summary: 'The whole network as a document (JSON) or a zip of CSV files', query: exportQuerySchema, answer: networkDocumentSchema },
-  'post /api/analysis/reach': { summary: 'What a set of failures takes off air, and for how many households', body: reachRequestSchema },
+  'post /api/analysis/reach': { summary: 'What a set of failures takes off air, and for how many households (first=N: counts and the first N rows of each list)', body: reachRequestSchema, query: reachQuerySchema },
+  'post /api/analysis/reach/sites': { summary: 'A page of the sites a set of failures touches, off air first, then most households', body: reachRequestSchema, query: pageQuerySchema },
+  'post /api/analysis/reach/carriages': { summary: 'A page of the carriages a set of failures takes off air (state=lost) or onto a reserve feed (state=fallback)', body: reachRequestSchema, query: reachCarriagesQuerySchema },
   'get /api/analysis/spof': { summary: 'Single points of failure of every fed carriage (kinds=site,feed,group by default; carriage adds parent transmitters)', query: spofQuerySchema },
   'get /api/analysis/exposure': { summary: 'Elements ranked by the households their failure alone takes off air (format=csv for a file)', query: exposureQuery },
   'get /api/analysis/exposure-groups': {
@@ -86,7 +88,7 @@ export const routeDocs: Record<string, RouteDoc> = {
   'get /api/analysis/diversity': { summary: 'Carriages whose reserve feed still shares an avoidable single point of failure (format=csv for a file; limit/offset page it, total always)', query: pageQuerySchema.extend(listFormatQuerySchema.shape) },
   'get /api/analysis/unfed': { summary: 'Carriages with no programme even when nothing has failed (format=csv for a file; limit/offset page it, total always)', query: pageQuerySchema.extend(listFormatQuerySchema.shape) },
   'get /api/analysis/carriage-search': { summary: 'Carriages by code, or by site and service together, to mark failed', query: carriageSearchQuerySchema },
-  'get /api/carriages/:code/chain': { summary: 'The chain of feeds above (up) or below (down) a carriage', query: chainQuery },
+  'get /api/carriages/:code/chain': { summary: 'The chain of feeds above (up) or below (down) a carriage', query: chainQuerySchema },
   'get /api/feeds/:code/checks': { summary: "Engineering screening of one feed (see docs/checks.md)" },
   'get /api/checks': { summary: "Every feed's failed checks, worst first", query: checksQuerySchema },
   ...inventoryDocs(),

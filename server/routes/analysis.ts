@@ -1,5 +1,5 @@
 /** The analysis API over the in-memory graphs (docs/api.md). */
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 import { z } from 'zod';
 import { can } from '@/shared/api';
 import {
@@ -9,6 +9,8 @@ import {
   pairsQuerySchema,
   planRequestSchema,
   proposalsQuerySchema,
+  reachCarriagesQuerySchema,
+  reachQuerySchema,
   reachRequestSchema,
   spofQuerySchema,
   type Element,
@@ -30,8 +32,8 @@ import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { searchCarriages } from '../services/carriageSearch';
 import { prepared } from '../services/prepared';
+import { briefReach, reachCarriagesPage, reachSitesPage } from '../services/reachLists';
 
-export { chainQuery } from './chain';
 /** A sandbox's exposure takes a limit and the element kinds; the files and the names are the stored network's only, so asking for them is refused rather than ignored. */
 const sandboxExposureQuery = z.strictObject(exposureQuerySchema.pick({ limit: true, kinds: true }).shape);
 
@@ -40,7 +42,6 @@ export const exposureQuery = exposureQuerySchema.extend({
   with: z.enum(['names'], { error: 'with is names (or left out)' }).optional(),
 });
 
-export const reachQuerySchema = z.strictObject({ with: z.enum(['sites'], { error: 'with is sites (or left out)' }).optional() });
 
 function siteInfoOf(m: ServedNetwork, sites: readonly { site: string }[]): Record<string, SiteInfo> {
   const out: Record<string, SiteInfo> = {};
@@ -62,18 +63,43 @@ function namesOf(m: ServedNetwork, elements: readonly Element[]): Record<string,
 }
 
 export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
-  routes.add('post', '/analysis/reach', can.analyse, async (req, res) => {
-    const { failed } = parseOr400(reachRequestSchema, objectBody(req.body, '{ "failed": [{ "kind": "site"|"carriage"|"feed"|"group", "code": "..." }] }'));
-    const { with: extra } = parseOr400(reachQuerySchema, req.query, 'query');
-    const m = currentModel(ctx);
+  const failedOf = (req: Request) => parseOr400(reachRequestSchema, objectBody(req.body, '{ "failed": [{ "kind": "site"|"carriage"|"feed"|"group", "code": "..." }] }')).failed;
+  /** An answer about a failure set; unknown elements are a 404 naming them. */
+  const aboutFailure = <T>(answer: () => T): T => {
     try {
-      const answer = m.engine.reach(failed);
-      // ?with=sites: the name and households of each site in the answer, so a phone need not load the whole network to label them.
-      res.json(extra === 'sites' ? { ...answer, siteInfo: siteInfoOf(m, answer.sites) } : answer);
+      return answer();
     } catch (e) {
       if (e instanceof UnknownElementsError) throw notFound(e.message, { unknown: e.elements });
       throw e;
     }
+  };
+
+  routes.add('post', '/analysis/reach', can.analyse, async (req, res) => {
+    const failed = failedOf(req);
+    const { with: extra, first } = parseOr400(reachQuerySchema, req.query, 'query');
+    const m = currentModel(ctx);
+    // ?first=N: the counts and the first rows of each long list (server/services/reachLists.ts), the rest paged below.
+    if (first !== undefined) {
+      res.json(aboutFailure(() => briefReach(m, failed, first)));
+      return;
+    }
+    const answer = aboutFailure(() => m.engine.reach(failed));
+    // ?with=sites: the name and households of each site in the answer, so a phone need not load the whole network to label them.
+    res.json(extra === 'sites' ? { ...answer, siteInfo: siteInfoOf(m, answer.sites) } : answer);
+  });
+
+  routes.add('post', '/analysis/reach/sites', can.analyse, async (req, res) => {
+    const failed = failedOf(req);
+    const page = parseOr400(pageQuerySchema, req.query, 'query');
+    const m = currentModel(ctx);
+    res.json(aboutFailure(() => reachSitesPage(m, failed, page)));
+  });
+
+  routes.add('post', '/analysis/reach/carriages', can.analyse, async (req, res) => {
+    const failed = failedOf(req);
+    const { state, ...page } = parseOr400(reachCarriagesQuerySchema, req.query, 'query');
+    const m = currentModel(ctx);
+    res.json(aboutFailure(() => reachCarriagesPage(m, failed, state, page)));
   });
 
   routes.add('get', '/analysis/spof', can.analyse, async (req, res) => {
@@ -160,7 +186,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
 
   // Critical pairs run in the background: 202 with progress until done, then the answer (kept per network version).
   routes.add('get', '/analysis/pairs', can.analyse, async (req, res) => {
-    const { limit, kinds } = parseOr400(pairsQuerySchema, req.query, 'query');
+    const { limit, kinds, sample } = parseOr400(pairsQuerySchema, req.query, 'query');
     const { engine } = currentModel(ctx);
     const state = pairsState(engine, kinds);
     if (state.state === 'failed') throw new ApiError(500, 'pairs-failed', 'the critical pairs could not be computed; the server log has the cause');
@@ -168,7 +194,9 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
       running(res, engine.networkVersion, state);
       return;
     }
-    res.json({ state: 'done', ...engine.pairsAnswer(state.rows, limit) });
+    const answer = engine.pairsAnswer(state.rows, limit);
+    if (sample !== undefined) answer.pairs = answer.pairs.map((p) => ({ ...p, jointLost: p.jointLost.slice(0, sample), jointLostCount: p.jointLost.length }));
+    res.json({ state: 'done', ...answer });
   });
 
   routes.add('post', '/analysis/plans', can.analyse, async (req, res) => {

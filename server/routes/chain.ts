@@ -5,10 +5,9 @@
  * small); `level=K` or `under=CODE` with `limit` and `offset` a page of the
  * carriages at one level or hanging directly from one carriage.
  */
-import { z } from 'zod';
 import { can } from '@/shared/api';
-import type { ChainPageAnswer } from '@/shared/schemas/analysis';
-import { pageQueryShape, pageRows } from '@/shared/schemas/paging';
+import { chainQuerySchema, type ChainPageAnswer } from '@/shared/schemas/analysis';
+import { pageRows } from '@/shared/schemas/paging';
 import { notFound, parseOr400 } from '../http/errors';
 import type { RouteTable } from '../http/routes';
 import type { AppContext } from '../context';
@@ -16,17 +15,6 @@ import type { ServedNetwork } from '../services/servedNetwork';
 import { UnknownCarriageError } from '../engine/engine';
 import { foldChain, levelsAnswer, type FoldedChain } from '../services/chainFolds';
 import { cachedFeedChecks, currentModel } from './checks';
-
-export const chainQuery = z
-  .object({
-    direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up'),
-    view: z.enum(['levels'], { error: 'view is levels (or left out)' }).optional(),
-    level: z.coerce.number({ error: 'level must be a number' }).int('level is a whole number').min(0, 'level is at least 0').max(1_000_000, 'level is too large').optional(),
-    under: z.string({ error: 'under is one carriage code' }).min(1, 'under is one carriage code').max(200, 'under is one carriage code').optional(),
-    ...pageQueryShape,
-  })
-  .refine((q) => [q.view, q.level, q.under].filter((x) => x !== undefined).length <= 1, { message: 'ask for one of view, level or under' })
-  .refine((q) => (q.limit === undefined && q.offset === undefined) || q.level !== undefined || q.under !== undefined, { message: 'limit and offset page a level or the carriages under one (level= or under=)' });
 
 /** Trees kept per network: a few carriages opened in turn, each paged through. */
 const KEEP = 8;
@@ -47,7 +35,7 @@ function foldedChain(m: ServedNetwork, code: string, direction: 'up' | 'down'): 
 
 export function registerChainRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/carriages/:code/chain', can.analyse, async (req, res) => {
-    const { direction, view, level, under, ...page } = parseOr400(chainQuery, req.query, 'query');
+    const { direction, view, level, under, ...page } = parseOr400(chainQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     const code = String(req.params.code);
     try {

@@ -49,7 +49,7 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
 
   // Paged with ?limit&offset; every answer counts the whole filtered list (for the summary) and each kind at the severity asked (for the chips). CSV is the whole filtered list.
   routes.add('get', '/checks', can.read, async (req, res) => {
-    const { severity = 'warning', check, format, ...page } = parseOr400(checksQuerySchema, req.query, 'query');
+    const { severity = 'warning', check, sort, direction, format, ...page } = parseOr400(checksQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     const c = cacheOf(m);
     // computed in turns, once per network version, shared by the requests that arrive meanwhile
@@ -62,7 +62,7 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
     }
     const all = await c.failures;
     c.filtered ??= failureMemo(all.failures);
-    const wanted = c.filtered({ severity, checks: check });
+    const wanted = c.filtered({ severity, checks: check, sort, direction });
     if (format === 'csv') {
       res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv({ ...all, failures: [...wanted.rows] }));
       return;

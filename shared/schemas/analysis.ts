@@ -1,6 +1,7 @@
 /** Analysis API bodies and answers (docs/api.md). */
 import { z } from 'zod';
 import { codeSchema, DEFAULT_WEAK_POINT_KINDS, ELEMENT_KINDS, type ElementKind, type Medium, type FeedRole } from './network';
+import { MAX_PAGE, pageQueryShape, type Paged } from './paging';
 
 export const MAX_FAILED_ELEMENTS = 5000;
 
@@ -30,6 +31,46 @@ export interface ReachAnswer {
 export interface SiteInfo {
   name: string;
   households: number;
+}
+
+/**
+ * `POST /api/analysis/reach?with=sites&first=N`: the reach for a screen. `sites` (off air
+ * first, then most households), `lost` and `fallback` hold only their first N rows,
+ * `counts` the length of each whole list; the rest come a page at a time from
+ * `POST /api/analysis/reach/sites` and `/reach/carriages`.
+ */
+export const reachQuerySchema = z.strictObject({
+  with: z.enum(['sites'], { error: 'with is sites (or left out)' }).optional(),
+  first: z.coerce.number({ error: 'first must be a number' }).int('first is a whole number').min(1, 'first is at least 1').max(MAX_PAGE, `first is at most ${MAX_PAGE}`).optional(),
+});
+
+export interface BriefReachAnswer extends ReachAnswer {
+  siteInfo: Record<string, SiteInfo>;
+  counts: { sites: number; lost: number; fallback: number };
+}
+
+/** One row of `POST /api/analysis/reach/sites?limit&offset` (body: the failure set). */
+export interface ReachSiteRow extends SiteInfo {
+  site: string;
+  lost: string[];
+  fallback: string[];
+}
+
+export interface ReachSitesPage extends Paged {
+  networkVersion: number;
+  sites: ReachSiteRow[];
+}
+
+/** `POST /api/analysis/reach/carriages?state=lost|fallback&limit&offset` (body: the failure set). */
+export const reachCarriagesQuerySchema = z.strictObject({
+  state: z.enum(['lost', 'fallback'], { error: 'state is lost or fallback' }),
+  ...pageQueryShape,
+});
+
+export interface ReachCarriagesPage extends Paged {
+  networkVersion: number;
+  state: 'lost' | 'fallback';
+  carriages: string[];
 }
 
 export interface SpofAnswer {
@@ -69,7 +110,8 @@ export interface DiversityAnswer {
 /** Critical pairs (rule 10), highest households first, ties by the first element then the second (kind, then code). */
 export interface PairsAnswer {
   networkVersion: number;
-  pairs: { elements: [Element, Element]; jointLost: string[]; households: number }[];
+  /** with `sample=N`, `jointLost` holds the first N carriages and `jointLostCount` their number */
+  pairs: { elements: [Element, Element]; jointLost: string[]; jointLostCount?: number; households: number }[];
 }
 
 /** A new reserve feed that closes (part of) a diversity gap; radio figures are null for satellite and line. */
@@ -119,6 +161,8 @@ export const kindsQuery = (fallback: readonly ElementKind[]) =>
 export const pairsQuerySchema = z.strictObject({
   limit: limitSchema.default(100),
   kinds: kindsQuery(['site', 'group']),
+  /** sample=N: each pair lists only its first N carriages off air together, with `jointLostCount` (a screen shows a few; a pair at 20,000 sites holds thousands) */
+  sample: z.coerce.number({ error: 'sample must be a number' }).int('sample is a whole number').min(0, 'sample is at least 0').max(1000, 'sample is at most 1000').optional(),
 });
 
 /** `GET /api/analysis/spof?kinds=...` (default site, feed, group; `carriage` adds parent transmitters) */
@@ -150,6 +194,27 @@ export interface CarriageSearchAnswer {
 
 /** `GET /api/analysis/diversity` and `/unfed`: `format=csv` for the file. */
 export const listFormatQuerySchema = z.object({ format: formatField });
+
+const CHAIN_FIELDS = ['direction', 'view', 'level', 'under', 'limit', 'offset'];
+
+/**
+ * `GET /api/carriages/:code/chain?direction=up|down` with at most one of `view=levels`,
+ * `level=K` or `under=CODE` (the last two paged by `limit` and `offset`). Strict: a
+ * mistyped field (`levle=2`) is a 400 naming it rather than the whole tree answered.
+ */
+export const chainQuerySchema = z
+  .strictObject(
+    {
+      direction: z.enum(['up', 'down'], { error: 'direction is up or down' }).default('up'),
+      view: z.enum(['levels'], { error: 'view is levels (or left out)' }).optional(),
+      level: z.coerce.number({ error: 'level must be a number' }).int('level is a whole number').min(0, 'level is at least 0').max(1_000_000, 'level is too large').optional(),
+      under: z.string({ error: 'under is one carriage code' }).min(1, 'under is one carriage code').max(200, 'under is one carriage code').optional(),
+      ...pageQueryShape,
+    },
+    { error: (issue) => (issue.code === 'unrecognized_keys' ? `${issue.keys.join(', ')} ${issue.keys.length > 1 ? 'are' : 'is'} not known here: the chain takes ${CHAIN_FIELDS.join(', ')}` : undefined) },
+  )
+  .refine((q) => [q.view, q.level, q.under].filter((x) => x !== undefined).length <= 1, { message: 'ask for one of view, level or under' })
+  .refine((q) => (q.limit === undefined && q.offset === undefined) || q.level !== undefined || q.under !== undefined, { message: 'limit and offset page a level or the carriages under one (level= or under=)' });
 
 /** `GET` pairs while the background job runs (HTTP 202). */
 export interface PairsRunning {

@@ -64,6 +64,15 @@ export interface FeedChecksAnswer {
 }
 
 export const CHECK_SEVERITIES = ['warning', 'error'] as const;
+
+/**
+ * Orders of `GET /api/checks?sort=`: worst first (the default); severity (errors
+ * first when ascending); feed code and from -> to (text, numbers in codes in
+ * numeric order); check (in the order the kinds stop a feed working, CHECK_NAMES);
+ * margin (yes/no checks, which have none, last in either direction).
+ */
+export const FAILURE_SORTS = ['worst', 'severity', 'feed', 'route', 'check', 'margin'] as const;
+export type FailureSort = (typeof FAILURE_SORTS)[number];
 export type CheckSeverity = (typeof CHECK_SEVERITIES)[number];
 
 /**
@@ -79,6 +88,9 @@ export const checksQuerySchema = z.strictObject({
     .transform((v) => v.split(',').map((k) => k.trim()))
     .pipe(z.array(z.enum(CHECK_NAMES, { error: `check is a comma-separated list of: ${CHECK_NAMES.join(', ')}` })))
     .optional(),
+  /** the column the list is sorted by (default worst: the order described at ChecksListAnswer); rows that tie keep the worst-first order */
+  sort: z.enum(FAILURE_SORTS, { error: `sort is one of ${FAILURE_SORTS.join(', ')}` }).default('worst'),
+  direction: z.enum(['asc', 'desc'], { error: 'direction is asc or desc' }).default('asc'),
   ...pageQueryShape,
   /** csv: the list as a spreadsheet file */
   format: z.enum(['json', 'csv'], { error: 'format is json or csv' }).default('json'),

@@ -172,6 +172,26 @@ export const reachAnswerSchema = z.object({
   sites: z.array(z.object({ site: z.string(), lost: z.array(z.string()), fallback: z.array(z.string()).optional() })),
   siteInfo: z.record(z.string(), z.object({ name: z.string(), households: z.number() })).optional(),
 }) satisfies z.ZodType<analysisTypes.ReachAnswer>;
+/** `?first=N`: the first rows of each list, every listed site named, and the length of each whole list. */
+export const briefReachAnswerSchema = reachAnswerSchema.extend({
+  siteInfo: z.record(z.string(), z.object({ name: z.string(), households: z.number() })),
+  counts: z.object({ sites: z.number(), lost: z.number(), fallback: z.number() }),
+}) satisfies z.ZodType<analysisTypes.BriefReachAnswer>;
+export const reachSitesPageSchema = z.object({
+  networkVersion: z.number(),
+  sites: z.array(z.object({ site: z.string(), name: z.string(), households: z.number(), lost: z.array(z.string()), fallback: z.array(z.string()) })),
+  total: z.number(),
+  offset: z.number(),
+}) satisfies z.ZodType<analysisTypes.ReachSitesPage>;
+export type ReachSitesReply = z.infer<typeof reachSitesPageSchema>;
+export const reachCarriagesPageSchema = z.object({
+  networkVersion: z.number(),
+  state: z.enum(['lost', 'fallback']),
+  carriages: z.array(z.string()),
+  total: z.number(),
+  offset: z.number(),
+}) satisfies z.ZodType<analysisTypes.ReachCarriagesPage>;
+export type ReachCarriagesReply = z.infer<typeof reachCarriagesPageSchema>;
 
 export const exposureAnswerSchema = z.object({
   networkVersion: z.number(),
@@ -366,7 +386,7 @@ export const pairsStateSchema = z.discriminatedUnion('state', [
   z.object({
     state: z.literal('done'),
     networkVersion: z.number(),
-    pairs: z.array(z.object({ elements: z.tuple([analysisElementSchema, analysisElementSchema]), jointLost: z.array(z.string()), households: z.number() })),
+    pairs: z.array(z.object({ elements: z.tuple([analysisElementSchema, analysisElementSchema]), jointLost: z.array(z.string()), jointLostCount: z.number().optional(), households: z.number() })),
   }),
 ]);
 export type PairsState = z.infer<typeof pairsStateSchema>;

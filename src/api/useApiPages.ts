@@ -33,6 +33,12 @@ export interface ApiPages<A, R> {
   retry: () => void;
 }
 
+/** A list asked for with a body (POST), such as the pages of a fault reach: `key` tells bodies apart in the cache. */
+export interface PostedQuery {
+  body: unknown;
+  key: string;
+}
+
 /**
  * A long server-paged list read page after page as the person scrolls: the
  * building block for lists that can hold thousands of rows (failing checks,
@@ -40,11 +46,17 @@ export interface ApiPages<A, R> {
  * waits); every page is checked against `schema`. All loaded pages revalidate
  * together, so rows from two network versions are never shown side by side.
  */
-export function useApiPages<A extends PagedAnswer, R>(path: string | null, schema: ZodType<A>, rowsOf: (a: A) => readonly R[], pageSize: number, tier: FreshnessTier): ApiPages<A, R> {
+export function useApiPages<A extends PagedAnswer, R>(path: string | null, schema: ZodType<A>, rowsOf: (a: A) => readonly R[], pageSize: number, tier: FreshnessTier, post?: PostedQuery): ApiPages<A, R> {
   const send = useSend();
   const { data, error, size, setSize, isValidating, mutate } = useSWRInfinite<A, ApiError>(
-    (index, previous: A | null) => pageKey(path, pageSize, index, previous, rowsOf),
-    async (key: string) => parseAnswer(schema, key, await send(key)),
+    (index, previous: A | null) => {
+      const key = pageKey(path, pageSize, index, previous, rowsOf);
+      return key && post ? [key, post.key] : key;
+    },
+    async (key: string | [string, string]) => {
+      const url = typeof key === 'string' ? key : key[0];
+      return parseAnswer(schema, url, await send(url, post ? { method: 'POST', body: post.body } : undefined));
+    },
     { ...freshness[tier], revalidateAll: true, revalidateFirstPage: true },
   );
   const rows = useMemo(() => (data ?? []).flatMap((p) => rowsOf(p) as R[]), [data, rowsOf]);

@@ -138,6 +138,18 @@ describe('an origin\'s downstream chain, folded', () => {
     expect(r.body.error.message).toContain(words);
   });
 
+  it.each([
+    ['direction=down&levle=2', 'levle is not known here'],
+    ['direction=down&view=levels&pageSize=5&sort=x', 'pageSize, sort are not known here'],
+    ['direction=down&Direction=up', 'Direction is not known here'],
+  ])('refuses the unknown field in ?%s rather than ignoring it', async (q, words) => {
+    const r = await chainOf(net.carriages[0].code, q);
+    expect(r.status).toBe(400);
+    expect(r.body.error.code).toBe('bad-request');
+    expect(r.body.error.message).toContain(words);
+    expect(r.body.error.message).toContain('the chain takes direction, view, level, under, limit, offset');
+  });
+
   it('an unknown carriage is a 404 folded too', async () => {
     expect((await chainOf('NO-SUCH', 'direction=down&view=levels')).status).toBe(404);
     expect((await chainOf('NO-SUCH', 'direction=down&level=1&limit=5')).status).toBe(404);

@@ -20,7 +20,7 @@ import { startServer, type RunningServer } from '@/server/server';
 import { resolveDatabaseUrl } from '@/scripts/lib/postgres';
 import { generateNetwork } from '@/scripts/generator';
 import { loadDemo } from '@/scripts/start';
-import { apiGet, baseUrl, demoUser, launch, openPage, PHONE, shot, signIn, SIZES } from './browser';
+import { apiGet, baseUrl, demoUser, launch, openPage, PHONE, shot, signIn, SIZES, WIDE } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -96,6 +96,10 @@ describe('lists of thousands of rows (2,000 generated sites)', () => {
   it('"Show all" on the fault reach renders only a bounded number of rows, before and after a scroll', async () => {
     const { page, errors } = await openPage(browser, PHONE);
     await signInHere(page);
+    const reachCalls: string[] = [];
+    page.on('request', (r) => {
+      if (r.url().includes('/api/analysis/reach')) reachCalls.push(r.url());
+    });
     const token = await loginToken(base);
     const exposure = (await (await fetch(`${base}/api/analysis/exposure?limit=1`, { headers: { authorization: `Bearer ${token}` } })).json()) as ExposureAnswer;
     const worst = exposure.elements[0].element;
@@ -119,9 +123,20 @@ describe('lists of thousands of rows (2,000 generated sites)', () => {
     await page.waitForTimeout(800);
     expect(await rowsIn(page, 'reach-lost-list')).toBeLessThan(160);
 
-    // the By site rows carry households
+    // the answer came brief (counts and first rows), the long list a page at a time from the server
+    expect(reachCalls.some((u) => u.includes('first=20'))).toBe(true);
+    expect(reachCalls.some((u) => /reach\/carriages\?state=lost&limit=100&offset=0/.test(u))).toBe(true);
+    expect(reachCalls.every((u) => /first=20|reach\/(sites|carriages)\?.*limit=100/.test(u))).toBe(true);
+
+    // the By site rows carry households; "Show all" pages them from the server too
     const bySite = page.getByTestId('reach-by-site');
     expect(await bySite.innerText()).toMatch(/\d households?/);
+    await bySite.getByRole('button', { name: /^Show all [\d,]+ sites$/ }).click();
+    const siteList = page.getByTestId('reach-by-site-list');
+    await siteList.waitFor({ timeout: 30_000 });
+    expect(await rowsIn(page, 'reach-by-site-list')).toBeLessThan(120);
+    expect(await siteList.innerText()).toMatch(/\d households?/);
+    expect(reachCalls.some((u) => /reach\/sites\?limit=100&offset=0/.test(u))).toBe(true);
     await shot(page, 'lists-reach-show-all-phone');
     expect(errors).toEqual([]);
     await page.context().close();
@@ -213,6 +228,43 @@ describe('lists of thousands of rows (2,000 generated sites)', () => {
     await page.waitForFunction((n) => (document.querySelector('[data-testid="failing-checks"]')?.textContent ?? '').replace(/,/g, '').includes(`${n} failing check`), chipCount, { timeout: 30_000 });
     expect(pages.some((u) => u.includes('check='))).toBe(true);
     await shot(page, 'lists-checks-paged-phone');
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
+  it('at 1440 px the checks table sorts by its column headers, the server ordering every page', async () => {
+    const { page, errors } = await openPage(browser, WIDE);
+    await signInHere(page);
+    const token = await loginToken(base);
+    const firstFeeds = async (q: string) =>
+      ((await (await fetch(`${base}/api/checks?${q}&limit=3`, { headers: { authorization: `Bearer ${token}` } })).json()) as { failures: { feed: string }[] }).failures.map((f) => f.feed);
+    const asked: string[] = [];
+    page.on('request', (r) => {
+      if (r.url().includes('/api/checks')) asked.push(r.url());
+    });
+    await page.goto(`${base}/checks`);
+    const table = page.getByRole('table', { name: 'Failing checks, worst first' });
+    await table.waitFor({ timeout: 30_000 });
+    const header = page.getByTestId('failures-table-sort-feed');
+    expect(await page.getByTestId('failures-table-sort-value').count()).toBe(0);
+    /** The feed codes of the first three body rows, in the order drawn. */
+    const shownFeeds = () => page.locator('[data-testid="failures-table-body-row"] [data-testid^="failure-feed-"]').evaluateAll((els) => els.slice(0, 3).map((e) => e.textContent));
+    for (const direction of ['asc', 'desc'] as const) {
+      await header.click();
+      const name = `Failing checks, ${direction === 'asc' ? 'by feed, A to Z' : 'by feed, Z to A'}`;
+      await page.getByRole('table', { name }).waitFor({ timeout: 30_000 });
+      const want = await firstFeeds(`sort=feed&direction=${direction}`);
+      await page.waitForFunction((w) => {
+        const got = Array.from(document.querySelectorAll('[data-testid="failures-table-body-row"] [data-testid^="failure-feed-"]')).slice(0, 3).map((e) => e.textContent);
+        return JSON.stringify(got) === JSON.stringify(w);
+      }, want, { timeout: 30_000 });
+      expect(await shownFeeds()).toEqual(want);
+      expect(await page.locator('[role="columnheader"][aria-sort]').evaluateAll((els) => els.map((e) => e.getAttribute('aria-sort')))).toContain(direction === 'asc' ? 'ascending' : 'descending');
+      expect(asked.some((u) => u.includes(`sort=feed&direction=${direction}&limit=100&offset=0`))).toBe(true);
+    }
+    // the counts are the same whatever the order
+    expect(await page.getByTestId('failing-checks-counts').innerText()).toContain('Errors:');
+    await shot(page, 'lists-checks-sorted-wide');
     expect(errors).toEqual([]);
     await page.context().close();
   });

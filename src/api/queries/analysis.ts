@@ -12,9 +12,11 @@ import { parseAnswer } from '../client';
 import { localReach } from '@/src/offline/localEngine';
 import { useCopyFallback } from '@/src/offline/useCopyFallback';
 import { freshness } from '../freshness';
-import { chainAnswerSchema, chainLevelsAnswerSchema, chainPageAnswerSchema, type ChainPageReply, diversityAnswerSchema, exposureAnswerSchema, exposureGroupsAnswerSchema, reachAnswerSchema, unfedAnswerSchema } from '../schemas';
+import { briefReachAnswerSchema, chainAnswerSchema, chainLevelsAnswerSchema, chainPageAnswerSchema, type ChainPageReply, diversityAnswerSchema, exposureAnswerSchema, exposureGroupsAnswerSchema, reachAnswerSchema, reachCarriagesPageSchema, type ReachCarriagesReply, reachSitesPageSchema, type ReachSitesReply, unfedAnswerSchema } from '../schemas';
 import { attachmentName, type DownloadedFile } from './network';
 import type { z } from 'zod';
+
+type DiversityReply = z.infer<typeof diversityAnswerSchema>;
 import { useApiPages } from '../useApiPages';
 import { useApiQuery } from '../useApiQuery';
 
@@ -54,6 +56,42 @@ export function useReach(failed: readonly Element[], failSet: string) {
   );
 }
 
+/** Rows of each long list in the reach screen's first answer ("Show all" pages the rest). */
+export const REACH_FIRST = 20;
+/** Rows per page of a reach list as it scrolls. */
+export const REACH_PAGE = 100;
+
+/** The reach screen's answer: full when worked out from the offline copy, brief (first rows and `counts`) from the server. */
+export type BriefReachShown = ReachShown & { counts?: { sites: number; lost: number; fallback: number } };
+
+/**
+ * Like useReach, but the server sends the counts and only the first
+ * REACH_FIRST rows of each long list (?first=): at 20,000 sites one fault
+ * lists thousands of sites, too much for a phone to parse before drawing.
+ */
+export function useBriefReach(failed: readonly Element[], failSet: string) {
+  const send = useSend();
+  return useCopyFallback<BriefReachShown>(
+    failed.length === 0 ? null : [...analysisKeys.reach(failSet), 'brief'],
+    async () => parseAnswer(briefReachAnswerSchema, api.reach, await send(`${api.reach}?with=sites&first=${REACH_FIRST}`, { method: 'POST', body: { failed } })),
+    async (copy) => ({ ...(await localReach(copy, failed)), offlineCopy: { fetchedAt: copy.fetchedAt } }),
+    { ...freshness.incident, keepPreviousData: true },
+  );
+}
+
+const reachSiteRows = (a: ReachSitesReply) => a.sites;
+const reachCarriageRows = (a: ReachCarriagesReply) => a.carriages;
+
+/** The sites a failure set touches, in the fault desk's order, a page at a time (`enabled` false waits). */
+export function useReachSitePages(failed: readonly Element[], failSet: string, enabled: boolean) {
+  return useApiPages(enabled ? api.reachSites : null, reachSitesPageSchema, reachSiteRows, REACH_PAGE, 'incident', { body: { failed }, key: failSet });
+}
+
+/** The carriages a failure set takes off air or onto a reserve, a page at a time (`enabled` false waits). */
+export function useReachCarriagePages(failed: readonly Element[], failSet: string, state: 'lost' | 'fallback', enabled: boolean) {
+  return useApiPages(enabled ? api.reachCarriages(state) : null, reachCarriagesPageSchema, reachCarriageRows, REACH_PAGE, 'incident', { body: { failed }, key: failSet });
+}
+
 export function useExposure(limit?: number) {
   return useApiQuery(analysisKeys.exposure(limit), exposureAnswerSchema, 'network');
 }
@@ -87,6 +125,13 @@ export function useNamedExposure(limit?: number) {
  */
 export function useDiversity(limit?: number, enabled = true) {
   return useApiQuery(enabled ? `${analysisKeys.diversity()}${limit ? `?limit=${limit}` : ''}` : null, diversityAnswerSchema, 'network');
+}
+
+const gapRows = (a: DiversityReply) => a.carriages;
+
+/** Diversity gaps a page at a time (REACH_PAGE rows) as their list scrolls; `enabled` false waits. */
+export function useDiversityPages(enabled: boolean) {
+  return useApiPages(enabled ? analysisKeys.diversity() : null, diversityAnswerSchema, gapRows, REACH_PAGE, 'network');
 }
 
 export function useUnfed() {

@@ -4,7 +4,7 @@
  * plus the small site search the calculator uses to pick two ends of a path.
  */
 import { api } from '@/shared/api';
-import type { CheckName, CheckSeverity } from '@/shared/schemas/checks';
+import type { CheckName, CheckSeverity, FailureSort } from '@/shared/schemas/checks';
 import { checksListAnswerSchema, feedChecksAnswerSchema, sitePositionsPageSchema, type ChecksListReply } from '../schemas';
 import { useApiPages } from '../useApiPages';
 import { useApiQuery } from '../useApiQuery';
@@ -15,12 +15,19 @@ export const SITE_SEARCH_PAGE = 8;
 export const checksKeys = {
   feed: (code: string) => api.feedChecks(code),
   /** The filtered list without its page; `checks` in CHECK_NAMES order (failureList.ts keeps it so), so equal filters share a cache entry. */
-  filtered: (severity: CheckSeverity, checks: readonly CheckName[]) => {
-    const q = [severity === 'warning' ? '' : `severity=${severity}`, checks.length ? `check=${checks.join(',')}` : ''].filter(Boolean).join('&');
+  filtered: (severity: CheckSeverity, checks: readonly CheckName[], order?: FailureOrder) => {
+    const sorted = order && !(order.sort === 'worst' && order.direction === 'asc') ? `sort=${order.sort}&direction=${order.direction}` : '';
+    const q = [severity === 'warning' ? '' : `severity=${severity}`, checks.length ? `check=${checks.join(',')}` : '', sorted].filter(Boolean).join('&');
     return `${api.checks()}${q ? `?${q}` : ''}`;
   },
   sites: (q: string) => `${api.list('sites')}?q=${encodeURIComponent(q)}&pageSize=${SITE_SEARCH_PAGE}`,
 };
+
+/** The order of the failing-checks list: a column and a direction (the server sorts, so every page follows it). */
+export interface FailureOrder {
+  sort: FailureSort;
+  direction: 'asc' | 'desc';
+}
 
 /** One feed's checks; `code` null waits (e.g. while a route parameter is missing). */
 export function useFeedChecks(code: string | null) {
@@ -36,8 +43,8 @@ const failuresOf = (a: ChecksListReply) => a.failures;
  * The failing checks for one filter, page after page as the list scrolls; the
  * first page carries the counts of the whole filtered list and of each kind.
  */
-export function useCheckFailurePages(severity: CheckSeverity, checks: readonly CheckName[]) {
-  return useApiPages(checksKeys.filtered(severity, checks), checksListAnswerSchema, failuresOf, FAILURE_PAGE, 'network');
+export function useCheckFailurePages(severity: CheckSeverity, checks: readonly CheckName[], order?: FailureOrder) {
+  return useApiPages(checksKeys.filtered(severity, checks, order), checksListAnswerSchema, failuresOf, FAILURE_PAGE, 'network');
 }
 
 /** Sites whose code or name holds `q`; an empty search asks nothing. */

@@ -15,7 +15,7 @@ import { useApiQuery } from '../useApiQuery';
 
 export const plannerKeys = {
   proposals: (q: { carriage?: string; limit?: number }) => api.proposals(q),
-  pairs: (limit: number, kinds: string) => api.pairs(limit, kinds),
+  pairs: (limit: number, kinds: string, sample?: number) => api.pairs(limit, kinds, sample),
   sandboxDiversity: (id: string) => api.planAnswer(id, 'diversity'),
 };
 
@@ -33,8 +33,9 @@ export function useNetworkProposals(limit: number) {
   return useBackgroundWork<NetworkProposalsState>(plannerKeys.proposals({ limit }), networkProposalsStateSchema);
 }
 
-export function usePairs(limit: number, kinds = 'site,group') {
-  return useBackgroundWork<PairsState>(plannerKeys.pairs(limit, kinds), pairsStateSchema);
+/** `sample`: carriages listed per pair (with their count), for a screen that names a few. */
+export function usePairs(limit: number, kinds = 'site,group', sample?: number) {
+  return useBackgroundWork<PairsState>(plannerKeys.pairs(limit, kinds, sample), pairsStateSchema);
 }
 
 export function useSandboxDiversity(id: string | null) {

@@ -52,6 +52,12 @@ export interface DataTableProps<Row> {
   rows: readonly Row[];
   rowKey: (row: Row) => string;
   initialSort?: SortState;
+  /**
+   * Sorted elsewhere (a list paged on the server): the headers show `sort` and
+   * report a press to `onSort`, and the rows are drawn in the order given.
+   */
+  sort?: SortState | null;
+  onSort?: (next: SortState) => void;
   onRowPress?: (row: Row) => void;
   /** Accessible name of a pressable row (default: the first column's text). */
   rowLabel?: (row: Row) => string;
@@ -93,13 +99,15 @@ function Caret({ direction }: { direction: 'asc' | 'desc' | null }) {
 }
 
 export function DataTable<Row>(props: DataTableProps<Row>) {
-  const { caption, columns, rows, rowKey, initialSort, onRowPress, rowLabel, emptyText = 'Nothing to list.', testID, virtual, onEndReached, footer, cardsOnPhone } = props;
+  const { caption, columns, rows, rowKey, initialSort, onSort, onRowPress, rowLabel, emptyText = 'Nothing to list.', testID, virtual, onEndReached, footer, cardsOnPhone } = props;
   const { wide } = useBreakpoints();
-  const [sort, setSort] = useState<SortState | null>(initialSort ?? null);
+  const [ownSort, setOwnSort] = useState<SortState | null>(initialSort ?? null);
+  const sort = onSort ? (props.sort ?? null) : ownSort;
   const sorted = useMemo(() => {
-    const col = sort && columns.find((c) => c.key === sort.column);
+    const col = !onSort && sort && columns.find((c) => c.key === sort.column);
     return col ? sortRows(rows, col.value, sort.direction) : [...rows];
-  }, [rows, columns, sort]);
+  }, [rows, columns, sort, onSort]);
+  const pressSort = (column: string) => (onSort ? onSort(nextSort(sort, column)) : setOwnSort((s) => nextSort(s, column)));
 
   const widthOf = (c: DataColumn<Row>) => c.width ?? (c.numeric ? 110 : 140);
   const minWidth = columns.reduce((sum, c) => sum + widthOf(c), 0);
@@ -158,7 +166,7 @@ export function DataTable<Row>(props: DataTableProps<Row>) {
                 <Pressable
                   accessibilityRole="button"
                   accessibilityLabel={`Sort by ${text}${state ? `, now ${state}` : ''}`}
-                  onPress={() => setSort((s) => nextSort(s, c.key))}
+                  onPress={() => pressSort(c.key)}
                   style={({ pressed }) => [styles.sortButton, c.numeric && styles.sortButtonRight, pressed && styles.pressed]}
                   testID={testID ? `${testID}-sort-${c.key}` : undefined}
                 >

@@ -5,10 +5,11 @@
  * the summary and chips count the whole filtered list.
  */
 import { Link } from 'expo-router';
+import { useState } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { CheckSeverity } from '@/shared/schemas/checks';
 import { formatCount } from '@/shared/format';
-import { useCheckFailurePages } from '@/src/api/queries/checks';
+import { useCheckFailurePages, type FailureOrder } from '@/src/api/queries/checks';
 import { Button } from '@/src/components/Button';
 import { Choice } from '@/src/components/Choice';
 import { Screen } from '@/src/components/layout/Screen';
@@ -19,9 +20,11 @@ import { colors, radius, space, TOUCH_MIN, type } from '@/src/theme';
 import { CheckChips } from './CheckChips';
 import { CHECK_SHORT } from './checkWords';
 import { chipCounts, chipLabel, summaryWords, toggleCheck, type FailureFilter } from './failureList';
-import { FailureCards, FailureTable } from './FailureViews';
+import { FailureCards, FailureTable, orderWords } from './FailureViews';
 import { MastCautions } from './MastCautions';
 import { ScreeningCaution } from './ScreeningCaution';
+
+const WORST_FIRST: FailureOrder = { sort: 'worst', direction: 'asc' };
 
 const SEVERITY_OPTIONS: readonly { value: CheckSeverity; label: string }[] = [
   { value: 'error', label: 'Errors only' },
@@ -45,7 +48,10 @@ function CalculatorLink() {
 
 export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
   const { wide } = useBreakpoints();
-  const pages = useCheckFailurePages(filter.severity, filter.checks);
+  // The table's column sort; the server sorts, so every page arrives in this order. Cards on a phone stay worst first.
+  const [tableOrder, setTableOrder] = useState<FailureOrder>(WORST_FIRST);
+  const order = wide ? tableOrder : WORST_FIRST;
+  const pages = useCheckFailurePages(filter.severity, filter.checks, order);
   const first = pages.first;
   const counts = first?.counts;
   const unfiltered = first?.unfiltered ?? counts?.total ?? 0;
@@ -53,7 +59,7 @@ export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
 
   const filtered = counts !== undefined && counts.total !== unfiltered;
   const note = counts ? `${summaryWords(counts)}${filtered ? ` (of ${formatCount(unfiltered)} in all)` : ''}` : undefined;
-  const footer = pages.rows.length > 0 ? <ListFooter shown={pages.rows.length} total={pages.total} loading={pages.loadingMore} onMore={pages.loadMore} /> : null;
+  const footer = pages.rows.length > 0 ? <ListFooter shown={pages.rows.length} total={pages.total} order={order} loading={pages.loadingMore} onMore={pages.loadMore} /> : null;
 
   return (
     <Screen title="Checks" subtitle="Feed checks that fail anywhere in the network, worst first" actions={<CalculatorLink />} testID="checks-screen">
@@ -84,7 +90,7 @@ export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
                 />
               )
             ) : wide ? (
-              <FailureTable failures={pages.rows} onEndReached={pages.loadMore} footer={footer} />
+              <FailureTable failures={pages.rows} onEndReached={pages.loadMore} footer={footer} order={tableOrder} onOrder={setTableOrder} />
             ) : (
               <FailureCards failures={pages.rows} onEndReached={pages.loadMore} footer={footer} />
             )}
@@ -104,10 +110,10 @@ export function ChecksScreen({ filter, onFilter }: ChecksScreenProps) {
 }
 
 /** Under the list: how much of it has arrived, and a button for the next page (scrolling to the end asks for it too). */
-function ListFooter({ shown, total, loading, onMore }: { shown: number; total: number; loading: boolean; onMore: () => void }) {
+function ListFooter({ shown, total, order, loading, onMore }: { shown: number; total: number; order: FailureOrder; loading: boolean; onMore: () => void }) {
   return (
     <View style={styles.footer} testID="failing-checks-footer">
-      <Text style={styles.version}>{shown < total ? `Showing ${formatCount(shown)} of ${formatCount(total)}, worst first` : `All ${formatCount(total)} shown`}</Text>
+      <Text style={styles.version}>{shown < total ? `Showing ${formatCount(shown)} of ${formatCount(total)}, ${orderWords(order)}` : `All ${formatCount(total)} shown`}</Text>
       {shown < total ? <Button label={loading ? 'Loading more…' : 'Show more'} variant="quiet" disabled={loading} onPress={onMore} testID="failing-checks-more" /> : null}
     </View>
   );

@@ -1,11 +1,13 @@
 /**
- * The failing checks as cards (phone) or a table (wide). Both keep the server's worst-first
- * order (pages are appended as the list scrolls) and name the feed (a link to its page), the carriages from -> to, the check, the
+ * The failing checks as cards (phone) or a table (wide). Both keep the server's order, worst
+ * first unless a column of the table sorts it (pages are appended as the list scrolls) and name the feed (a link to its page), the carriages from -> to, the check, the
  * value against its limit and the margin.
  */
 import { Link, type Href } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
-import type { CheckFailure } from '@/shared/schemas/checks';
+import { FAILURE_SORTS, type CheckFailure, type FailureSort } from '@/shared/schemas/checks';
+import type { FailureOrder } from '@/src/api/queries/checks';
+import type { SortState } from '@/src/components/DataTable/sortRows';
 import { DataTable } from '@/src/components/DataTable/DataTable';
 import { VirtualList } from '@/src/components/VirtualList';
 import { colors, fonts, radius, space, TOUCH_MIN, type } from '@/src/theme';
@@ -68,27 +70,46 @@ export function FailureCards({ failures, onEndReached, footer }: { failures: rea
   return <VirtualList data={failures} keyOf={failureKey} renderRow={renderCard} estimatedRowHeight={230} label="Failing checks, worst first" testID="failing-checks-list" framed={false} onEndReached={onEndReached} footer={footer} />;
 }
 
-/** Rows arrive page by page in the server's worst-first order, so the columns do not re-sort what has arrived so far. */
-export function FailureTable({ failures, onEndReached, footer }: { failures: readonly CheckFailure[]; onEndReached?: () => void; footer?: React.ReactElement | null }) {
+/** The table's sortable columns are the server's orders (GET /api/checks?sort=): rows arrive page by page already in the order chosen. */
+const SORT_COLUMNS: readonly string[] = FAILURE_SORTS;
+const orderOfColumn = (s: SortState): FailureOrder => ({ sort: SORT_COLUMNS.includes(s.column) ? (s.column as FailureSort) : 'worst', direction: s.direction });
+
+export function FailureTable({ failures, onEndReached, footer, order, onOrder }: { failures: readonly CheckFailure[]; onEndReached?: () => void; footer?: React.ReactElement | null; order: FailureOrder; onOrder: (next: FailureOrder) => void }) {
   return (
     <DataTable
-      caption="Failing checks, worst first"
+      caption={`Failing checks, ${orderWords(order)}`}
       rows={failures}
       rowKey={failureKey}
       testID="failures-table"
       virtual
       onEndReached={onEndReached}
       footer={footer}
+      sort={order.sort === 'worst' ? null : { column: order.sort, direction: order.direction }}
+      onSort={(s) => onOrder(orderOfColumn(s))}
       columns={[
-        { key: 'severity', label: 'Severity', width: 130, sortable: false, value: (f) => (f.severity === 'error' ? 0 : 1), render: (f) => <Severity f={f} /> },
-        { key: 'feed', label: 'Feed', width: 170, sortable: false, value: (f) => f.feed, render: (f) => <FeedLink code={f.feed} /> },
-        { key: 'route', label: 'From → to', mono: true, width: 220, sortable: false, value: (f) => `${f.from} → ${f.to}` },
-        { key: 'check', label: 'Check', width: 150, sortable: false, value: (f) => CHECK_SHORT[f.check.name] },
+        { key: 'severity', label: 'Severity', width: 130, value: (f) => (f.severity === 'error' ? 0 : 1), render: (f) => <Severity f={f} /> },
+        { key: 'feed', label: 'Feed', width: 170, value: (f) => f.feed, render: (f) => <FeedLink code={f.feed} /> },
+        { key: 'route', label: 'From → to', mono: true, width: 220, value: (f) => `${f.from} → ${f.to}` },
+        { key: 'check', label: 'Check', width: 150, value: (f) => CHECK_SHORT[f.check.name] },
         { key: 'value', label: 'Value against limit', width: 250, sortable: false, value: (f) => valueAgainstLimit(f) },
-        { key: 'margin', label: 'Margin', numeric: true, width: 130, sortable: false, value: (f) => f.margin ?? null, format: (_v, f) => (f.margin === undefined ? 'yes/no check' : marginWords(f)) },
+        { key: 'margin', label: 'Margin', numeric: true, width: 130, value: (f) => f.margin ?? null, format: (_v, f) => (f.margin === undefined ? 'yes/no check' : marginWords(f)) },
       ]}
     />
   );
+}
+
+const ORDER_WORDS: Record<Exclude<FailureSort, 'worst'>, [string, string]> = {
+  severity: ['errors first', 'warnings first'],
+  feed: ['by feed, A to Z', 'by feed, Z to A'],
+  route: ['by from → to, A to Z', 'by from → to, Z to A'],
+  check: ['by check, most serious kind first', 'by check, least serious kind first'],
+  margin: ['by margin, furthest below the limit first', 'by margin, closest to the limit first'],
+};
+
+/** The order in words, for the table's name and the count under the list. */
+export function orderWords(order: FailureOrder): string {
+  if (order.sort === 'worst') return order.direction === 'asc' ? 'worst first' : 'least bad first';
+  return ORDER_WORDS[order.sort][order.direction === 'asc' ? 0 : 1];
 }
 
 const styles = StyleSheet.create({

@@ -2,7 +2,9 @@
  * A framed list that shows its first rows and a button for the rest, so a
  * long answer does not bury what follows it. "Show all" opens the whole list
  * in its own scrolling box that renders only the rows on screen
- * (src/components/VirtualList), so thousands of rows open at once.
+ * (src/components/VirtualList), so thousands of rows open at once. A list
+ * paged on the server (`loadingAll`, `onEndReached`) opens on its first page
+ * and reads the next as it scrolls.
  */
 import { useCallback, useMemo, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -27,9 +29,17 @@ export interface CappedProps<T> {
   /** When `items` is only the first page: the length of the whole list, and how to fetch it on "Show all". */
   total?: number;
   onShowAll?: () => void;
+  /**
+   * A list paged on the server: true while "Show all" waits for its first page,
+   * false to open the long list at once on the rows `items` holds (without it,
+   * the list waits until `items` holds the whole list).
+   */
+  loadingAll?: boolean;
+  /** Asks for the next page as the long list nears its end. */
+  onEndReached?: () => void;
 }
 
-export function Capped<T>({ items, render, what, first = 20, keyOf, rowHeight, testID, total, onShowAll }: CappedProps<T>) {
+export function Capped<T>({ items, render, what, first = 20, keyOf, rowHeight, testID, total, onShowAll, loadingAll, onEndReached }: CappedProps<T>) {
   const [all, setAll] = useState(false);
   const indexed = useMemo(() => items.map((item, i) => ({ item, i })), [items]);
   const rowKey = useCallback(({ item, i }: { item: T; i: number }) => (keyOf ? keyOf(item, i) : String(i)), [keyOf]);
@@ -48,7 +58,7 @@ export function Capped<T>({ items, render, what, first = 20, keyOf, rowHeight, t
       />
     </View>
   ) : null;
-  if (all && more && items.length < whole) {
+  if (all && more && (loadingAll ?? items.length < whole)) {
     return (
       <View style={styles.gap}>
         <LoadingState what={`all ${formatCount(whole)} ${what}`} />
@@ -64,8 +74,9 @@ export function Capped<T>({ items, render, what, first = 20, keyOf, rowHeight, t
           keyOf={rowKey}
           renderRow={renderRow}
           rowHeight={rowHeight}
-          label={`All ${formatCount(items.length)} ${what}`}
+          label={`All ${formatCount(whole)} ${what}`}
           testID={testID}
+          onEndReached={onEndReached}
         />
         {toggle}
       </View>

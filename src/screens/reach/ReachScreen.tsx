@@ -8,7 +8,7 @@ import { useRouter } from 'expo-router';
 import { useCallback, useMemo } from 'react';
 import { ActivityIndicator, StyleSheet, Text, View } from 'react-native';
 import type { Element } from '@/shared/schemas/analysis';
-import { useReach } from '@/src/api/queries/analysis';
+import { useBriefReach } from '@/src/api/queries/analysis';
 import { useServiceNames } from '@/src/api/queries/serviceNames';
 import { isApiError } from '@/src/api/client';
 import { Button } from '@/src/components/Button';
@@ -42,7 +42,8 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
     [router],
   );
 
-  const reach = useReach(elements, failText);
+  // Counts and the first rows of each list; the long lists are paged on "Show all" (ReachBreakdown).
+  const reach = useBriefReach(elements, failText);
   const serviceNames = useServiceNames();
   const offlineNames = useOfflineNames();
   // Site names and households come with the answer (?with=sites): the whole network is never loaded here.
@@ -112,7 +113,7 @@ export function ReachScreen({ failParam }: { failParam: string | string[] | unde
           </View>
           <OpenIncident elements={elements} />
         </Section>
-        <ReachBreakdown reach={r} failText={failText} names={names} />
+        <ReachBreakdown reach={r} failed={elements} failText={failText} names={names} />
       </>
     );
   }

@@ -4,7 +4,7 @@
  * Each figure's text is the bare number, so it can be read out and tested.
  */
 import { StyleSheet, Text, View } from 'react-native';
-import type { ReachResult } from '@/src/api/queries/analysis';
+import type { BriefReachShown } from '@/src/api/queries/analysis';
 import { formatCount } from '@/shared/format';
 import { Columns } from '@/src/components/layout/Columns';
 import { StatusShape, type ShapeName } from '@/src/components/StatusShape';
@@ -25,11 +25,11 @@ function Figure({ label, value, unit, shape, color, testID }: { label: string; v
   );
 }
 
-export function ReachSummary({ reach }: { reach: ReachResult }) {
+export function ReachSummary({ reach }: { reach: BriefReachShown }) {
   return (
     <Columns max={2} phone={2} testID="reach-summary">
-      <Figure label="Off air" value={reach.lost.length} unit="carriages" shape="cross" color={colors.bad} testID="reach-lost-count" />
-      <Figure label="On reserve" value={reach.fallback.length} unit="carriages" shape="half" color={colors.warn} testID="reach-fallback-count" />
+      <Figure label="Off air" value={reach.counts?.lost ?? reach.lost.length} unit="carriages" shape="cross" color={colors.bad} testID="reach-lost-count" />
+      <Figure label="On reserve" value={reach.counts?.fallback ?? reach.fallback.length} unit="carriages" shape="half" color={colors.warn} testID="reach-fallback-count" />
       <Figure label="Off air" value={reach.households.lost} unit="households" shape="cross" color={colors.bad} testID="reach-households-lost" />
       <Figure label="On reserve" value={reach.households.fallback} unit="households" shape="half" color={colors.warn} testID="reach-households-fallback" />
     </Columns>

@@ -1,7 +1,7 @@
 /** Diversity gaps (with the elements main and reserve still share) and unfed carriages, each row opening the carriage's chain. */
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import { useDiversity } from '@/src/api/queries/analysis';
+import { useDiversityPages } from '@/src/api/queries/analysis';
 import { ErrorState } from '@/src/components/states';
 import type { Element } from '@/shared/schemas/analysis';
 import { Capped } from '@/src/screens/reach/Capped';
@@ -23,21 +23,28 @@ function gapWords(g: Gap): string {
   return `${fixable} No feed can avoid ${fixed.map(elementWords).join(', ')}: it holds every origin of ${g.service}.`;
 }
 
-/** `first` is the first page of the gaps and `total` their number; the whole list is fetched only on "Show all". */
+/**
+ * `first` is the first rows of the gaps and `total` their number; on "Show all"
+ * the list is read from the server a page at a time as it scrolls (a
+ * 20,000-site network has thousands of gaps, 3 MB whole).
+ */
 export function DiversityList({ first, total }: { first: Gap[]; total: number }) {
   const [all, setAll] = useState(false);
-  const whole = useDiversity(undefined, all);
-  const gaps = all && whole.data ? whole.data.carriages : first;
-  if (all && whole.error && !whole.data) return <ErrorState what="all the diversity gaps" error={whole.error} onRetry={() => void whole.mutate()} />;
-  if (gaps.length === 0) return <Text style={styles.none}>None: every reserve feed protects its carriage from every failure another feed could avoid.</Text>;
+  const pages = useDiversityPages(all && first.length < total);
+  const paged = all && pages.rows.length > 0;
+  if (all && pages.error && !paged) return <ErrorState what="all the diversity gaps" error={pages.error} onRetry={pages.retry} />;
+  if (first.length === 0) return <Text style={styles.none}>None: every reserve feed protects its carriage from every failure another feed could avoid.</Text>;
   return (
     <Capped
-      items={gaps}
+      items={paged ? pages.rows : first}
       what="carriages"
       first={10}
       keyOf={carriageKey}
       testID="diversity-list"
       total={total}
+      // opens at once on the rows already here; the pages follow
+      loadingAll={false}
+      onEndReached={pages.loadMore}
       onShowAll={() => setAll(true)}
       render={(g) => (
         <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={gapWords(g)} />

@@ -11,14 +11,17 @@ import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { formatFailSet } from '@/src/screens/reach/failSet';
 import { ErrorState, LoadingState } from '@/src/components/states';
 import { type } from '@/src/theme';
+import { formatCount } from '@/shared/format';
 import type { ElementNamer } from './elementNames';
 import { pairSentence } from './plannerWords';
 import { WorkProgress } from './WorkProgress';
 
 export const PAIRS_SHOWN = 20;
+const PAIR_SAMPLE = 4;
 
 export function PairsPanel({ name }: { name: ElementNamer }) {
-  const pairs = usePairs(PAIRS_SHOWN);
+  // Four carriages named per pair, and their count: a pair at 20,000 sites takes off thousands.
+  const pairs = usePairs(PAIRS_SHOWN, 'site,group', PAIR_SAMPLE);
   if (pairs.error && !pairs.data) return <ErrorState what="the critical pairs" error={pairs.error} onRetry={() => void pairs.mutate()} />;
   if (!pairs.data) return <LoadingState what="the critical pairs" />;
   if (pairs.data.state === 'running') {
@@ -33,12 +36,13 @@ export function PairsPanel({ name }: { name: ElementNamer }) {
       first={5}
       render={(p) => {
         const fail = formatFailSet(p.elements);
+        const together = p.jointLostCount ?? p.jointLost.length;
         return (
           <LinkRow
             key={fail}
             href={`/reach?fail=${encodeURIComponent(fail).replace(/%2C/g, ',').replace(/%3A/g, ':')}`}
-            title={pairSentence(name, p.elements, p.households, p.jointLost.length)}
-            detail={`Only together: ${p.jointLost.slice(0, 4).join(', ')}${p.jointLost.length > 4 ? ` and ${p.jointLost.length - 4} more` : ''}. Open the fault reach of the pair.`}
+            title={pairSentence(name, p.elements, p.households, together)}
+            detail={`Only together: ${p.jointLost.slice(0, PAIR_SAMPLE).join(', ')}${together > PAIR_SAMPLE ? ` and ${formatCount(together - PAIR_SAMPLE)} more` : ''}. Open the fault reach of the pair.`}
           />
         );
       }}
