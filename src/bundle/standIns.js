@@ -14,6 +14,9 @@ const standIns = [
   // zod: English messages only, no JSON Schema reader
   { from: [pkg('zod')], request: /(^|\/)locales\/index(\.js)?$/, file: here('zodLocales.js') },
   { from: [pkg('zod')], request: /(^|\/)from-json-schema(\.js)?$/, file: here('zodFromJsonSchema.js') },
+  // zod: no schema compiler and no JSON Schema writer
+  { from: [pkg('zod')], request: /^\.\/compile(\.js)?$/, file: here('zodCompile.js') },
+  { from: [pkg('zod')], request: /(^|\/)(to-json-schema|json-schema-processors)(\.js)?$/, file: here('zodJsonSchemaWriter.js') },
   // The app's own imports of expo-router: the hooks, Link, Redirect and Slot without the navigators
   { from: ['app', 'src', 'shared'].map((d) => path.join(root, d) + path.sep), request: /^expo-router$/, file: here('expoRouter.js') },
   // Inside expo-router: the error toast needs only the tab bar's height context, not the tab bar
@@ -22,6 +25,9 @@ const standIns = [
   { from: [router('layouts/withLayoutContext.js')], request: /^\.\.\/native-tabs\/NativeTabTrigger$/, file: here('expoRouterNoNativeTabs.js') },
   { from: [router('layouts/StackClient.js')], request: /^\.\.\/fork\/native-stack\/createNativeStackNavigator$|^\.\/stack-utils$/, file: here('expoRouterNoStack.js') },
   { from: [router('screensFeatureFlags.js')], request: /^react-native-screens$/, file: here('screensFlags.js') },
+  // expo-router reads react-native through the index, which brings every component react-native-web has
+  // (Expo's Babel preset has rewritten its require('react-native') to the index's path by then)
+  { from: [pkg('expo-router')], request: /^react-native(-web\/dist\/index)?$/, file: here('reactNativeForRouter.js') },
 ];
 
 /** The file that answers `request` written in `origin`, or null for the usual resolution. */

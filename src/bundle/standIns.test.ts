@@ -99,4 +99,21 @@ describe('web bundle stand-ins', () => {
       expect(built, `${from} does not define ${name}`).toMatch(new RegExp(`exports\\.${name}\\b|exports, "${name}"`));
     }
   });
+
+  it("gives expo-router every react-native-web part its files read from 'react-native'", () => {
+    const exportsOf = (file: string) => [...fs.readFileSync(file, 'utf8').matchAll(/export \{ default as (\w+) \}/g)].map((m) => m[1]);
+    const web = new Set(exportsOf(path.join(ROOT, 'node_modules', 'react-native-web', 'dist', 'index.js')));
+    const given = new Set(exportsOf(path.join(__dirname, 'reactNativeForRouter.js')));
+    const read = new Set<string>();
+    for (const f of walk(path.join(ROOT, 'node_modules', 'expo-router', 'build'), /\.js$/)) {
+      const text = fs.readFileSync(f, 'utf8');
+      const requires = text.match(/require\(["']react-native["']\)/g)?.length ?? 0;
+      // one form only, so the names below are all it reads
+      expect(text.match(/const react_native_1 = require\("react-native"\);/g)?.length ?? 0, path.relative(ROOT, f)).toBe(requires);
+      for (const m of text.matchAll(/react_native_1\.(\w+)/g)) read.add(m[1]);
+    }
+    expect(read.has('View')).toBe(true);
+    for (const name of read) if (web.has(name)) expect(given.has(name), `expo-router reads react-native's ${name}`).toBe(true);
+    for (const name of given) expect(web.has(name), `${name} is not a react-native-web export`).toBe(true);
+  });
 });
