@@ -89,8 +89,10 @@ export function createApp(ctx: AppContext) {
   app.get(/.*/, (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index, (err) => {
-      if (!err) return;
-      if ((err as NodeJS.ErrnoException).code !== 'ENOENT') return next(err);
+      const code = (err as NodeJS.ErrnoException | undefined)?.code;
+      // no error, or the browser left before the page was sent
+      if (!err || code === 'ECONNABORTED') return;
+      if (code !== 'ENOENT') return next(err);
       res.status(503).type('text/plain').send('The web app has not been built yet: run `npm run web:build` (npm start does it for you).');
     });
   });

@@ -68,8 +68,9 @@ export function precompressed(root: string, options: PrecompressedOptions): Requ
       if (encoding !== 'identity') res.setHeader('Content-Encoding', encoding);
       options.setHeaders?.(res, file);
       const sent = encoding === 'identity' ? file : file + SUFFIX[encoding];
-      res.sendFile(sent, { maxAge: options.maxAgeSeconds * 1000, dotfiles: 'deny' }, (err) => {
-        if (err && !res.headersSent) next(err);
+      res.sendFile(sent, { maxAge: options.maxAgeSeconds * 1000, dotfiles: 'deny' }, (err?: NodeJS.ErrnoException) => {
+        // a browser that leaves the page mid-download is not an error of ours
+        if (err && err.code !== 'ECONNABORTED' && !res.headersSent) next(err);
       });
     })().catch(next);
   };
