@@ -17,15 +17,10 @@ config.resolver.blockList = [serverExceptShared, ...['scripts', 'test', '.data',
 
 // Parts of packages that no screen uses, swapped inside those packages for the
 // small stand-ins in src/bundle/ (its README says why each one can go).
-const zodDir = path.join(__dirname, 'node_modules', 'zod') + path.sep;
-const standIns = [
-  { from: zodDir, request: /(^|\/)locales\/index(\.js)?$/, file: 'src/bundle/zodLocales.js' },
-  { from: zodDir, request: /(^|\/)from-json-schema(\.js)?$/, file: 'src/bundle/zodFromJsonSchema.js' },
-];
+const { standInFor } = require('./src/bundle/standIns');
 config.resolver.resolveRequest = (context, moduleName, platform) => {
-  const origin = context.originModulePath;
-  const standIn = standIns.find((s) => origin.startsWith(s.from) && s.request.test(moduleName));
-  if (standIn) return { type: 'sourceFile', filePath: path.join(__dirname, standIn.file) };
+  const standIn = platform === 'web' ? standInFor(context.originModulePath, moduleName) : null;
+  if (standIn) return { type: 'sourceFile', filePath: standIn };
   return context.resolveRequest(context, moduleName, platform);
 };
 module.exports = config;

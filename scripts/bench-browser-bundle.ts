@@ -1,12 +1,23 @@
 /**
  * Browser benchmark of the first screen's script: the JavaScript a visitor's
  * browser fetches to show the sign-in screen and then, once signed in, the
- * home screen (target <= 350 kB compressed). Counted per script both as the
- * bytes the server sent (its compression middleware, from the browser's
- * transfer sizes) and as gzip level 6 of the script (the same whatever the
- * server does); `firstScreenScriptKb` is the larger of the two totals, in kB
- * of 1,000 bytes. Service workers are blocked so every script comes over the
- * network, as on a first visit. A benchmark, not a test.
+ * home screen (target <= 350 kB compressed). Service workers are blocked so
+ * every script comes over the network, as on a first visit. A benchmark, not
+ * a test.
+ *
+ * What is counted, per script response (every .js the page fetched):
+ * - `sentBytes`: the response body as it came over the wire, in the server's
+ *   Content-Encoding (the browser's encoded body size, i.e. the transfer size
+ *   less headers). The server sends the build's brotli-11 copy to a browser
+ *   that accepts br (server/http/precompressed.ts), so this is what a visitor
+ *   actually downloads; an uncompressed answer counts its full size.
+ * - `gzip6Bytes`: gzip level 6 of the decoded script, the same whatever the
+ *   server does: a check that the figure moved because the script shrank, not
+ *   only because it is packed better.
+ * `firstScreenScriptKb` is the sum of `sentBytes`, `firstScreenScriptGzip6Kb`
+ * the sum of `gzip6Bytes` (both in kB of 1,000 bytes); `counted` says so in
+ * the JSON. Until the build was precompressed the headline was the larger of
+ * the two sums, which was the gzip one.
  *
  *   npx tsx scripts/bench-browser-bundle.ts [--out FILE]          # own server on the demo network
  *   npx tsx scripts/bench-browser-bundle.ts --as-built [--out FILE]  # the export in dist/web as it is
@@ -42,12 +53,22 @@ export interface ScriptLoad {
 }
 
 export interface FirstScreenScript {
+  /** what firstScreenScriptKb counts, in words */
+  counted: string;
+  /** bytes sent: the encoded bodies as transferred (br from this server) */
   firstScreenScriptKb: number;
+  /** gzip -6 of the same scripts, whatever the server sent */
+  firstScreenScriptGzip6Kb: number;
   signInScriptKb: number;
+  signInScriptGzip6Kb: number;
+  /** the encodings the server answered with, and how many scripts each */
+  encodings: Record<string, number>;
   targetKb: number;
   ok: boolean;
   scripts: ScriptLoad[];
 }
+
+export const COUNTED = 'bytes sent: each script response body as transferred, in the Content-Encoding the server chose (br when the browser accepts it); firstScreenScriptGzip6Kb is gzip -6 of the same scripts';
 
 const kb = (bytes: number) => Math.round(bytes / 100) / 10;
 
@@ -77,11 +98,19 @@ export async function measureFirstScreenScript(baseUrl: string, user: { email: s
   } finally {
     await browser.close();
   }
-  const total = (which: ScriptLoad[]) => Math.max(sum(which.map((s) => s.sentBytes)), sum(which.map((s) => s.gzip6Bytes)));
-  const firstScreenScriptKb = kb(total(scripts));
+  const sent = (which: ScriptLoad[]) => kb(sum(which.map((s) => s.sentBytes)));
+  const gzip6 = (which: ScriptLoad[]) => kb(sum(which.map((s) => s.gzip6Bytes)));
+  const signIn = scripts.filter((s) => s.screen === 'sign-in');
+  const firstScreenScriptKb = sent(scripts);
+  const encodings: Record<string, number> = {};
+  for (const s of scripts) encodings[s.encoding] = (encodings[s.encoding] ?? 0) + 1;
   return {
+    counted: COUNTED,
     firstScreenScriptKb,
-    signInScriptKb: kb(total(scripts.filter((s) => s.screen === 'sign-in'))),
+    firstScreenScriptGzip6Kb: gzip6(scripts),
+    signInScriptKb: sent(signIn),
+    signInScriptGzip6Kb: gzip6(signIn),
+    encodings,
     targetKb: FIRST_SCREEN_TARGET_KB,
     ok: firstScreenScriptKb <= FIRST_SCREEN_TARGET_KB,
     scripts: scripts.sort((a, b) => b.gzip6Bytes - a.gzip6Bytes),
@@ -129,7 +158,7 @@ async function main() {
   try {
     const result = await measureFirstScreenScript(base);
     for (const s of result.scripts) console.log(`${s.screen.padEnd(8)} ${String(s.sentBytes).padStart(8)} B sent (${s.encoding}), ${String(s.gzip6Bytes).padStart(8)} B gzip -6  ${s.path}`);
-    console.log(`first screen: ${result.firstScreenScriptKb} kB of script (sign-in alone ${result.signInScriptKb} kB; target <= ${result.targetKb} kB)`);
+    console.log(`first screen: ${result.firstScreenScriptKb} kB of script sent (sign-in alone ${result.signInScriptKb} kB; target <= ${result.targetKb} kB); as gzip -6: ${result.firstScreenScriptGzip6Kb} kB (sign-in alone ${result.signInScriptGzip6Kb} kB)`);
     const out = arg('out');
     if (out) {
       fs.writeFileSync(out, JSON.stringify({ when: new Date().toISOString(), ...result }, null, 2) + '\n');

@@ -11,6 +11,7 @@ import type { AppContext } from './context';
 import { parseTrustProxy } from './config';
 import { errorHandler, notFoundHandler } from './http/errors';
 import { RouteTable } from './http/routes';
+import { precompressed } from './http/precompressed';
 import { authenticate } from './auth/authenticate';
 import { UserRowCache } from './auth/userRowCache';
 import { UserChangeListener } from './auth/userChanges';
@@ -72,22 +73,26 @@ export function createApp(ctx: AppContext) {
   const webDir = ctx.config.WEB_DIR;
   const index = path.join(webDir, 'index.html');
   // Compressed on the way out: the app's script is megabytes as built and a
-  // phone on a weak signal feels every one. (The API answers are not: reach is
-  // small and hot, and the export carries its own compression.)
+  // phone on a weak signal feels every one. The build compresses its files
+  // once with brotli 11 and gzip (http/precompressed.ts); anything else is
+  // compressed per request. (The API answers are not: reach is small and hot.)
   const web = express.Router();
-  web.use(compression());
   // The service worker (src/offline) must be checked afresh on every visit, or
   // a new version of the app could wait an hour behind an old worker.
   const noCache = (res: express.Response, file: string) => {
     if (path.basename(file) === 'sw.js') res.setHeader('Cache-Control', 'no-cache');
   };
+  web.use(precompressed(webDir, { maxAgeSeconds: 3600, setHeaders: noCache }));
+  web.use(compression());
   web.use(express.static(webDir, { index: false, maxAge: '1h', fallthrough: true, setHeaders: noCache }));
   app.use(web);
   app.get(/.*/, (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index, (err) => {
-      if (!err) return;
-      if ((err as NodeJS.ErrnoException).code !== 'ENOENT') return next(err);
+      const code = (err as NodeJS.ErrnoException | undefined)?.code;
+      // no error, or the browser left before the page was sent
+      if (!err || code === 'ECONNABORTED') return;
+      if (code !== 'ENOENT') return next(err);
       res.status(503).type('text/plain').send('The web app has not been built yet: run `npm run web:build` (npm start does it for you).');
     });
   });

@@ -1,11 +1,14 @@
 /**
- * The exported web app (Expo Router, web.output "single") in dist/web.
- * Rebuilt only when a client source is newer than the last export.
+ * The exported web app (Expo Router, web.output "single") in dist/web, with
+ * its service worker and a brotli and a gzip copy of each text file beside it
+ * (precompress.ts). Rebuilt only when a client source is newer than the last
+ * export.
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { REPO_ROOT } from './postgres';
+import { precompressDir } from './precompress';
 
 export const WEB_DIR = path.join(REPO_ROOT, 'dist', 'web');
 const STAMP = path.join(WEB_DIR, '.headwater-build');
@@ -48,6 +51,9 @@ export function ensureWebBuild({ force = false, quiet = false } = {}): { built: 
     encoding: 'utf8',
   });
   if (sw.status !== 0) throw new Error(`the service worker was not written (exit ${sw.status})${quiet ? `:\n${(sw.stderr || sw.stdout || '').slice(-2000)}` : ''}`);
+  // after the service worker, so sw.js is compressed too
+  const packed = precompressDir(WEB_DIR);
+  if (!quiet) console.log(`precompressed ${packed.files} files: ${(packed.bytes / 1e6).toFixed(2)} MB -> ${(packed.brBytes / 1e6).toFixed(2)} MB brotli, ${(packed.gzBytes / 1e6).toFixed(2)} MB gzip`);
   fs.writeFileSync(STAMP, new Date().toISOString() + '\n');
   return { built: true, ms: Date.now() - t0 };
 }

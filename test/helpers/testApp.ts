@@ -27,14 +27,14 @@ import { NoticeQueue } from '@/server/notices/queue';
 export const TEST_PASSWORD = `pw-${crypto.randomBytes(6).toString('hex')}`;
 export const emailFor = (role: Role) => `${role}@test.example`;
 
-/** `build` replaces the model builder (to make a rebuild fail); `store` tunes the network store's timers. */
-export async function makeTestApp(opts: { build?: typeof buildServedNetwork; store?: NetworkStoreOptions<ServedNetwork> } = {}) {
+/** `build` replaces the model builder (to make a rebuild fail); `store` tunes the network store's timers; `webDir` is the web export served. */
+export async function makeTestApp(opts: { build?: typeof buildServedNetwork; store?: NetworkStoreOptions<ServedNetwork>; webDir?: string } = {}) {
   const url = process.env.TEST_DATABASE_URL;
   if (!url) throw new Error('TEST_DATABASE_URL is not set: run API tests through vitest --project api');
   // Stand-ins of SMTP and the object store for this file, with their files in a private temporary folder.
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'headwater-api-'));
   const standins = await startStandins(
-    loadConfig({ ...process.env, DATABASE_URL: url, JWT_SECRET: crypto.randomBytes(32).toString('hex'), WEB_DIR: '/nonexistent', SMTP_URL: undefined, S3_ENDPOINT: undefined, DATA_DIR: dataDir }),
+    loadConfig({ ...process.env, DATABASE_URL: url, JWT_SECRET: crypto.randomBytes(32).toString('hex'), WEB_DIR: opts.webDir ?? '/nonexistent', SMTP_URL: undefined, S3_ENDPOINT: undefined, DATA_DIR: dataDir }),
   );
   const config = standins.config;
   const db = openDatabase(url);
