@@ -111,6 +111,19 @@ describe.each(Object.entries(SIZES))('views at %s size', (sizeName, size) => {
       await page.waitForLoadState('networkidle');
       if (route.startsWith('/carriages')) await page.getByText(code).first().waitFor({ timeout: 20_000 });
       if (route === '/network') await page.getByTestId('network-diagram').waitFor({ timeout: 20_000 });
+      if (route === '/') {
+        // the home cards ask for the first few rows and the total: the counts are the whole lists' counts
+        const gaps = await apiGet<{ carriages: unknown[] }>('/api/analysis/diversity');
+        const unfed = await apiGet<{ carriages: unknown[] }>('/api/analysis/unfed');
+        const gapsCard = page.getByTestId('attention-gaps');
+        await gapsCard.waitFor({ timeout: 20_000 });
+        expect(await gapsCard.innerText()).toContain(`Diversity gaps: ${gaps.carriages.length.toLocaleString('en-GB')}`);
+        const unfedCard = page.getByTestId('attention-unfed');
+        await unfedCard.waitFor({ timeout: 20_000 });
+        expect(await unfedCard.innerText()).toContain(`Unfed carriages: ${unfed.carriages.length.toLocaleString('en-GB')}`);
+        expect(gaps.carriages.length).toBeGreaterThan(3);
+        expect(await gapsCard.innerText()).toContain(`All ${gaps.carriages.length} carriages with a gap`);
+      }
       const body = (await page.locator('body').innerText()).toLowerCase();
       expect(body, route).not.toContain('something went wrong');
       expect(body.length, route).toBeGreaterThan(40);

@@ -134,8 +134,9 @@ export function useDiversityPages(enabled: boolean) {
   return useApiPages(enabled ? analysisKeys.diversity() : null, diversityAnswerSchema, gapRows, REACH_PAGE, 'network');
 }
 
-export function useUnfed() {
-  return useApiQuery(analysisKeys.unfed(), unfedAnswerSchema, 'network');
+/** Unfed carriages: all of them, or the first `limit` with the total (a summary card). */
+export function useUnfed(limit?: number) {
+  return useApiQuery(`${analysisKeys.unfed()}${limit ? `?limit=${limit}` : ''}`, unfedAnswerSchema, 'network');
 }
 
 export function useChain(code: string | null, direction: 'up' | 'down') {

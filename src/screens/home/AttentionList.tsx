@@ -20,20 +20,22 @@ function Rows({ children }: { children: React.ReactNode }) {
 }
 
 function UnfedCard() {
-  const unfed = useUnfed();
+  // the first few and the count: a national network's lists are megabytes
+  const unfed = useUnfed(FIRST);
   if (unfed.error && !unfed.data) return <ErrorState what="the unfed carriages" error={unfed.error} onRetry={() => void unfed.mutate()} testID="attention-unfed-error" />;
   if (!unfed.data) return <LoadingState what="the unfed carriages" testID="attention-unfed-loading" />;
   const list = unfed.data.carriages;
+  const count = unfed.data.total ?? list.length;
   return (
-    <Card title={`Unfed carriages: ${formatCount(list.length)}`} emphasis={list.length > 0 ? 'attention' : 'none'} testID="attention-unfed">
-      {list.length === 0 ? (
+    <Card title={`Unfed carriages: ${formatCount(count)}`} emphasis={count > 0 ? 'attention' : 'none'} testID="attention-unfed">
+      {count === 0 ? (
         <Text style={styles.ok}>Every carriage has programme with nothing failed.</Text>
       ) : (
         <Rows>
           {list.slice(0, FIRST).map((u) => (
             <LinkRow key={u.carriage} href={`/carriages/${encodeURIComponent(u.carriage)}`} title={u.carriage} status="off-air" detail="no programme with nothing failed" />
           ))}
-          {list.length > FIRST ? <LinkRow href="/resilience" title={`All ${countOf(list.length, 'unfed carriage')}`} /> : null}
+          {count > FIRST ? <LinkRow href="/resilience" title={`All ${countOf(count, 'unfed carriage')}`} /> : null}
         </Rows>
       )}
     </Card>
@@ -41,20 +43,21 @@ function UnfedCard() {
 }
 
 function GapsCard() {
-  const gaps = useDiversity();
+  const gaps = useDiversity(FIRST);
   if (gaps.error && !gaps.data) return <ErrorState what="the diversity gaps" error={gaps.error} onRetry={() => void gaps.mutate()} testID="attention-gaps-error" />;
   if (!gaps.data) return <LoadingState what="the diversity gaps" testID="attention-gaps-loading" />;
   const list = gaps.data.carriages;
+  const count = gaps.data.total ?? list.length;
   return (
-    <Card title={`Diversity gaps: ${formatCount(list.length)}`} emphasis={list.length > 0 ? 'attention' : 'none'} testID="attention-gaps">
-      {list.length === 0 ? (
+    <Card title={`Diversity gaps: ${formatCount(count)}`} emphasis={count > 0 ? 'attention' : 'none'} testID="attention-gaps">
+      {count === 0 ? (
         <Text style={styles.ok}>Every reserve feed protects its carriage.</Text>
       ) : (
         <Rows>
           {list.slice(0, FIRST).map((g) => (
             <LinkRow key={g.carriage} href={`/carriages/${encodeURIComponent(g.carriage)}`} title={g.carriage} detail={`another feed could avoid ${g.avoidable.map((e) => `${e.kind} ${e.code}`).join(', ')}`} />
           ))}
-          {list.length > FIRST ? <LinkRow href="/resilience" title={`All ${countOf(list.length, 'carriage')} with a gap`} /> : null}
+          {count > FIRST ? <LinkRow href="/resilience" title={`All ${countOf(count, 'carriage')} with a gap`} /> : null}
         </Rows>
       )}
     </Card>
