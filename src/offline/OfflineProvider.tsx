@@ -21,7 +21,7 @@ import { browserOffline } from './online';
 const MIN_REFRESH_MS = 5 * 60_000;
 /** After a failed fetch (our choice): soon enough to have a copy before the signal goes, rare enough not to hammer a weak link. */
 const RETRY_MS = 15_000;
-/** Our choice: a screen's own requests go first; the copy (megabytes on a national network) follows a few seconds later. */
+/** Our choice: a screen's own requests go first; the copy (megabytes on a national network) follows a few seconds later, when the page is idle. */
 const FETCH_DELAY_MS = 3_000;
 
 export interface OfflineState {
@@ -118,8 +118,16 @@ export function OfflineProvider({ children }: { children: ReactNode }) {
     if (!supported || !read || !online || serverVersion === null) return;
     if (copy && copy.networkVersion === serverVersion) return;
     if (copy && Date.now() - lastFetch.current < MIN_REFRESH_MS) return;
-    const timer = setTimeout(() => void refresh(), FETCH_DELAY_MS);
-    return () => clearTimeout(timer);
+    // After the delay, when the page is next idle (the screen drawn, no input being handled), at most 10 s later.
+    let idle: number | null = null;
+    const timer = setTimeout(() => {
+      if (typeof window !== 'undefined' && typeof window.requestIdleCallback === 'function') idle = window.requestIdleCallback(() => void refresh(), { timeout: 10_000 });
+      else void refresh();
+    }, FETCH_DELAY_MS);
+    return () => {
+      clearTimeout(timer);
+      if (idle !== null) window.cancelIdleCallback(idle);
+    };
   }, [supported, read, online, serverVersion, copy, refresh, attempt]);
 
   const value = useMemo(() => ({ supported, online, copy, discarded }), [supported, online, copy, discarded]);
