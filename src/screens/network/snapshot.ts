@@ -9,8 +9,14 @@
  */
 import { gestureTransform, type View } from './viewport';
 
-/** A gesture that rests this long gets its detail redrawn (our choice: longer than the gap between pointer events, short enough to feel immediate). */
-export const PAUSE_REDRAW_MS = 140;
+/**
+ * A gesture that rests this long gets its detail redrawn. Our choice: longer
+ * than the wheel's settle time (NetworkDiagram.tsx, whose end redraws anyway)
+ * and than the gaps between pointer events on a loaded phone, where a shorter
+ * rest (140 ms) had full redraws fire mid-drag, each one slowing the next
+ * events further.
+ */
+export const PAUSE_REDRAW_MS = 250;
 
 /** What a drawing depends on besides the view: a snapshot drawn with other inputs is not reused. */
 export type SnapshotKey = readonly unknown[];
