@@ -15,7 +15,9 @@
  *   drawP95Ms            p95 of the canvas draw itself during that gesture;
  *   overlayMs            from pressing "Show here what its failure takes off
  *                        air" on a site's card to the frame with the marks
- *                        (URL change, reach request, marks summed, redraw);
+ *                        (URL change, reach request, marks summed, redraw),
+ *                        taken at the first frame after that draw call as for
+ *                        the first draw (overlayCallMs: to the end of the call);
  *   schematicFirstDrawMs from choosing the schematic view to its nodes placed.
  * Targets (issue): first draw <= 1,500 ms, frames p95 <= 33 ms, overlay <= 300 ms.
  *
@@ -60,17 +62,18 @@ export interface DiagramBenchResult {
   drawP95Ms: number;
   drawMaxMs: number;
   overlayMs: number;
+  overlayCallMs: number;
   overlayOffAirSites: number;
   schematicFirstDrawMs: number;
   schematicNodes: number;
 }
 
-/** Records when each animation frame starts from navigation on, for the first drawn frame (stops after 30 s). */
+/** Records when each animation frame starts from navigation on, for the first drawn frame and the overlay's (stops after 2 minutes). */
 const FRAME_CLOCK_SCRIPT = `(() => {
   const starts = (window.__frameStarts = []);
   const tick = () => {
     starts.push(performance.now());
-    if (performance.now() < 30000) requestAnimationFrame(tick);
+    if (performance.now() < 120000) requestAnimationFrame(tick);
   };
   requestAnimationFrame(tick);
 })();`;
@@ -185,9 +188,12 @@ export async function benchDiagram(base: string, user: { email: string; password
       const last = window.__headwaterDiagram?.last;
       return !!last && last.statuses > 0 && !last.gesture;
     }, undefined, { timeout: 30_000, polling: 10 });
+    await page.waitForTimeout(300);
     const overlay = await page.evaluate((start) => {
       const d = window.__headwaterDiagram!.draws.find((r) => r.statuses > 0 && r.at >= start)!;
-      return { ms: d.at - start, statuses: d.statuses };
+      // As for the first draw: to the first frame after the draw call, so the canvas's raster is counted.
+      const shown = (window as unknown as { __frameStarts: number[] }).__frameStarts.find((t) => t >= d.at) ?? NaN;
+      return { ms: shown - start, callMs: d.at - start, statuses: d.statuses };
     }, t0);
 
     const s0 = await page.evaluate(() => performance.now());
@@ -205,6 +211,7 @@ export async function benchDiagram(base: string, user: { email: string; password
       drawP95Ms: round(percentile(drawMs, 95)),
       drawMaxMs: round(Math.max(0, ...drawMs)),
       overlayMs: round(overlay.ms),
+      overlayCallMs: round(overlay.callMs),
       overlayOffAirSites: overlay.statuses,
       schematicFirstDrawMs: round(schematicFirstDrawMs),
       schematicNodes,
