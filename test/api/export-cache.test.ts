@@ -77,7 +77,7 @@ describe('JSON export', () => {
     expect(changed.body.sites.find((s: { code: string }) => s.code === 'R1').name).toBe('Renamed relay');
   });
 
-  it("answers the diagram's columns of the stored network, for every role, with its own ETag, and follows an edit", async () => {
+  it("answers the diagram's columns of the stored network to a viewer, with its own ETag, and follows an edit", async () => {
     const t = getT();
     const first = await request(t.app).get('/api/network/drawing').set(t.auth('viewer'));
     expect(first.status).toBe(200);
