@@ -13,6 +13,8 @@ export const api = {
   importNetwork: '/api/network/import',
   importProgress: (id: string) => `/api/network/import/progress/${encodeURIComponent(id)}`,
   exportNetwork: '/api/network/export',
+  /** the diagram's columns (shared/schemas/drawing.ts) */
+  networkDrawing: '/api/network/drawing',
   list: (kind: string) => `/api/${kind}`,
   entity: (kind: string, code: string) => `/api/${kind}/${encodeURIComponent(code)}`,
   deleteImpact: (kind: string, code: string) => `/api/${kind}/${encodeURIComponent(code)}/impact`,

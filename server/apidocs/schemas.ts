@@ -8,6 +8,7 @@
 import type { z } from 'zod';
 import { reachCarriagesQuerySchema, reachQuerySchema, reachRequestSchema } from '@/shared/schemas/analysis';
 import { checksQuerySchema } from '@/shared/schemas/checks';
+import { drawingDocumentSchema } from '@/shared/schemas/drawing';
 import { pageQuerySchema } from '@/shared/schemas/paging';
 import { ENTITY_KINDS, entitySchemas, networkDocumentSchema, versionSchema } from '@/shared/schemas/network';
 import { invitationSchema, personChangeSchema } from '@/shared/schemas/people';
@@ -74,6 +75,11 @@ export const routeDocs: Record<string, RouteDoc> = {
   'get /api/network/import/progress/:id': {
     summary: 'How far a running import is: { stage, done, total } for the import sent with ?progressId=id',
     description: 'Stages: pending (not heard of by this process: not arrived yet, sent to another process, or finished more than a few minutes ago), reading, validating, writing, rebuilding, done, failed.',
+  },
+  'get /api/network/drawing': {
+    summary: 'The network as the diagram draws it, in columns: sites, services, groups, carriages and feeds with references as array positions',
+    description: 'Only the fields drawn; feeds in code order. Made once per network version; ETag and gzip as for the export.',
+    answer: drawingDocumentSchema,
   },
   'get /api/network/export': { summary: 'The whole network as a document (JSON) or a zip of CSV files', query: exportQuerySchema, answer: networkDocumentSchema },
   'post /api/analysis/reach': { summary: 'What a set of failures takes off air, and for how many households (first=N: counts and the first N rows of each list)', body: reachRequestSchema, query: reachQuerySchema },

@@ -1,5 +1,6 @@
 /**
- * The JSON export, made once per network version and served as stored bytes.
+ * The JSON export (and the diagram's columns, GET /network/drawing), made
+ * once per network version and served as stored bytes.
  * The in-memory model holds the same document the export would read from
  * PostgreSQL; its document is serialised and gzipped once per version (the
  * gzip in the thread pool, off the event loop), and every export of that
@@ -19,6 +20,8 @@ import { promisify } from 'node:util';
 import zlib from 'node:zlib';
 import type { Request, Response } from 'express';
 import type { AppContext } from '../context';
+import { drawingOf } from '@/shared/schemas/drawing';
+import type { NetworkDocument } from '@/shared/schemas/network';
 import { loadNetworkDocument } from './networkLoader';
 
 export interface ExportBytes {
@@ -29,43 +32,63 @@ export interface ExportBytes {
 }
 
 const gzip = promisify(zlib.gzip);
-/** keyed by the model object: a rebuild makes a new one, even at the same version (a test's reset) */
-let cached: { model: object; bytes: Promise<ExportBytes> } | null = null;
+/** Per answer kind, keyed by the model object: a rebuild makes a new one, even at the same version (a test's reset). */
+const cache = new Map<string, { model: object; bytes: Promise<ExportBytes> }>();
 
-async function encode(document: { format: string }, version: number): Promise<ExportBytes> {
-  const body = Buffer.from(JSON.stringify(withBase(document, version)));
+async function encode(answer: object, version: number, kind: string): Promise<ExportBytes> {
+  const body = Buffer.from(JSON.stringify(answer));
   // zlib's default level: a 20,000-site export shrinks several times over
   const packed = await gzip(body);
-  const etag = `"v${version}-${crypto.createHash('sha1').update(body).digest('base64url').slice(0, 16)}"`;
+  const etag = `"${kind === 'export' ? '' : `${kind}-`}v${version}-${crypto.createHash('sha1').update(body).digest('base64url').slice(0, 16)}"`;
   return { version, body, gzip: packed, etag };
 }
 
-/** The export bytes of the database's current version (or a newer one the model already holds). */
-export async function exportJson(ctx: AppContext): Promise<ExportBytes> {
+/**
+ * The bytes of one answer made from the network document, for the database's
+ * current version (or a newer one the model already holds), made once per
+ * model and kind.
+ */
+async function fromDocument(ctx: AppContext, kind: string, make: (document: NetworkDocument, version: number) => object): Promise<ExportBytes> {
   const databaseVersion = await ctx.network.databaseVersion();
   if (!ctx.network.model || ctx.network.model.networkVersion < databaseVersion) await ctx.network.refresh(databaseVersion);
   const model = ctx.network.model;
   if (!model || model.networkVersion < databaseVersion) {
     // the rebuild failed (it is retried in the background): the stored network, read for this request
     const { document, version } = await loadNetworkDocument(ctx.db.sequelize);
-    return encode(document, version);
+    return encode(make(document, version), version, kind);
   }
-  if (cached?.model !== model) {
-    const bytes = encode(model.document, model.networkVersion);
-    const entry = { model, bytes };
-    cached = entry;
-    bytes.catch(() => {
-      if (cached === entry) cached = null;
-    });
-  }
-  return cached.bytes;
+  const held = cache.get(kind);
+  if (held?.model === model) return held.bytes;
+  const bytes = encode(make(model.document, model.networkVersion), model.networkVersion, kind);
+  const entry = { model, bytes };
+  cache.set(kind, entry);
+  bytes.catch(() => {
+    if (cache.get(kind) === entry) cache.delete(kind);
+  });
+  return bytes;
+}
+
+/** The export bytes of the database's current version (or a newer one the model already holds). */
+export function exportJson(ctx: AppContext): Promise<ExportBytes> {
+  return fromDocument(ctx, 'export', withBase);
+}
+
+/** The diagram's columns (shared/schemas/drawing.ts), made and cached the same way. */
+export function drawingJson(ctx: AppContext): Promise<ExportBytes> {
+  return fromDocument(ctx, 'drawing', drawingOf);
 }
 
 const SLICE = 256 * 1024;
 
 /** Send the export: 304 for a matching ETag, gzip when accepted, streamed in slices. */
 export async function sendExport(req: Request, res: Response, bytes: ExportBytes) {
-  res.set('X-Network-Version', String(bytes.version)).attachment(`network-v${bytes.version}.json`).type('application/json');
+  res.attachment(`network-v${bytes.version}.json`);
+  await sendBytes(req, res, bytes);
+}
+
+/** Send stored JSON bytes: 304 for a matching ETag, gzip when accepted, streamed in slices. */
+export async function sendBytes(req: Request, res: Response, bytes: ExportBytes) {
+  res.set('X-Network-Version', String(bytes.version)).type('application/json');
   res.set('ETag', bytes.etag).set('Vary', 'Accept-Encoding');
   if (req.get('if-none-match') === bytes.etag) {
     res.status(304).end();
@@ -92,7 +115,7 @@ function* slices(buf: Buffer) {
 }
 
 /** The export says which version it was made from, so a replace-import from it can tell what it would undo. */
-function withBase(document: { format: string }, version: number) {
+function withBase(document: NetworkDocument, version: number) {
   const { format, ...entities } = document;
   return { format, baseVersion: version, ...entities };
 }

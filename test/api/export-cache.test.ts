@@ -7,6 +7,7 @@ import zlib from 'node:zlib';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { loadNetworkDocument } from '@/server/services/networkLoader';
+import { drawingDocumentSchema, drawingOf } from '@/shared/schemas/drawing';
 import { smallNetwork } from '../fixtures/small-network';
 import { useTestApp } from '../helpers/testApp';
 
@@ -74,5 +75,31 @@ describe('JSON export', () => {
     expect(changed.status).toBe(200);
     expect(changed.headers.etag).not.toBe(etag);
     expect(changed.body.sites.find((s: { code: string }) => s.code === 'R1').name).toBe('Renamed relay');
+  });
+
+  it("answers the diagram's columns of the stored network to a viewer, with its own ETag, and follows an edit", async () => {
+    const t = getT();
+    const first = await request(t.app).get('/api/network/drawing').set(t.auth('viewer'));
+    expect(first.status).toBe(200);
+    expect(first.headers['content-type']).toMatch(/^application\/json/);
+    const stored = await loadNetworkDocument(t.db.sequelize);
+    expect(drawingDocumentSchema.parse(first.body)).toEqual(drawingOf(stored.document, stored.version));
+    expect(first.body.sites.code).toEqual(stored.document.sites.map((s) => s.code));
+    expect(Number(first.headers['x-network-version'])).toBe(stored.version);
+    const etag = first.headers.etag;
+    expect(etag).toMatch(/^"drawing-v\d+-/);
+    const exported = await request(t.app).get('/api/network/export').set(t.auth('viewer'));
+    expect(exported.headers.etag).not.toBe(etag);
+    expect((await request(t.app).get('/api/network/drawing').set(t.auth('viewer')).set('If-None-Match', etag)).status).toBe(304);
+
+    const current = await request(t.app).get('/api/sites/R2').set(t.auth('engineer'));
+    const edit = await request(t.app).patch('/api/sites/R2').set(t.auth('engineer')).send({ version: current.body.site.version, name: 'Relay Two renamed' });
+    expect(edit.status).toBe(200);
+    const changed = await request(t.app).get('/api/network/drawing').set(t.auth('viewer')).set('If-None-Match', etag);
+    expect(changed.status).toBe(200);
+    expect(changed.body.sites.name[changed.body.sites.code.indexOf('R2')]).toBe('Relay Two renamed');
+    const after = await loadNetworkDocument(t.db.sequelize);
+    expect(after.document.sites.find((s) => s.code === 'R2')?.name).toBe('Relay Two renamed');
+    expect(changed.body.networkVersion).toBe(after.version);
   });
 });

@@ -1,17 +1,23 @@
 /**
  * The geographic diagram on a <canvas> (web): tens of thousands of SVG nodes
  * would stall a phone, one canvas redrawn from a frame plan does not. Draws
- * at most once per animation frame, at the device's pixel ratio. When the
- * page records (src/testHooks.ts), each draw's time and what it drew are kept
- * on window.__headwaterDiagram for the browser benchmark and tests.
+ * at most once per animation frame, at the device's pixel ratio. The full
+ * drawing is painted on an offscreen canvas and copied in; during a gesture
+ * that copy is moved and scaled (./snapshot.ts) instead of painting again,
+ * and the detail is painted when the gesture pauses or ends: the browser
+ * rasterises thousands of strokes far more slowly than it records them.
+ * When the page records (src/testHooks.ts), each draw's time and what it
+ * drew are kept on window.__headwaterDiagram for the browser benchmark and
+ * tests.
  */
 import { useEffect, useMemo, useRef } from 'react';
 import { colors } from '@/src/theme';
 import type { DiagramModel } from './diagramModel';
 import { planFrame, type FramePlan, type Status } from './framePlan';
 import type { LodIndex } from './lod';
-import { canvasMeasure, paintGeo } from './paintGeo';
+import { canvasMeasure, paintGeo, paintSnapshot } from './paintGeo';
 import { recording } from '@/src/testHooks';
+import { PAUSE_REDRAW_MS, sameKey, snapshotMatrix, type SnapshotKey } from './snapshot';
 import type { View } from './viewport';
 
 export interface DrawRecord {
@@ -19,6 +25,8 @@ export interface DrawRecord {
   ms: number;
   level: number;
   gesture: boolean;
+  /** A gesture frame that moved the last full drawing rather than painting it again (its counts are that drawing's). */
+  moved: boolean;
   groups: number;
   singles: number;
   lines: number;
@@ -66,14 +74,14 @@ export function pathBox(d: string): { x0: number; y0: number; x1: number; y1: nu
   return { x0, y0, x1, y1 };
 }
 
-function record(plan: FramePlan, model: DiagramModel, ms: number, gesture: boolean, statuses: number, landBox: ReturnType<typeof pathBox>, view: View): DrawRecord {
+function record(plan: FramePlan, model: DiagramModel, ms: number, gesture: boolean, moved: boolean, statuses: number, landBox: ReturnType<typeof pathBox>, view: View): DrawRecord {
   const marked: DrawRecord['marked'] = [];
   for (const m of plan.marks) {
     if (m.role === null) continue;
     if (m.off > 0) marked.push({ code: model.sites[m.site].code, status: 'off-air' });
     else if (m.reserve > 0) marked.push({ code: model.sites[m.site].code, status: 'on-reserve' });
   }
-  return { at: performance.now(), ms, level: plan.level, gesture, ...plan.counts, labels: plan.labels.map(({ text, x, y, width, height }) => ({ text, x, y, width, height })), marked, statuses, land: landBox ? { x: landBox.x0 * view.k + view.tx, y: landBox.y0 * view.k + view.ty, width: (landBox.x1 - landBox.x0) * view.k, height: (landBox.y1 - landBox.y0) * view.k } : null };
+  return { at: performance.now(), ms, level: plan.level, gesture, moved, ...plan.counts, labels: plan.labels.map(({ text, x, y, width, height }) => ({ text, x, y, width, height })), marked, statuses, land: landBox ? { x: landBox.x0 * view.k + view.tx, y: landBox.y0 * view.k + view.ty, width: (landBox.x1 - landBox.x0) * view.k, height: (landBox.y1 - landBox.y0) * view.k } : null };
 }
 
 export interface GeoCanvasProps {
@@ -110,31 +118,75 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
   const dpr = typeof window !== 'undefined' ? Math.min(2, window.devicePixelRatio || 1) : 1;
   const measure = useRef<((t: string, px: number) => number) | null>(null);
 
+  // The last full drawing (device px) and the view and inputs it was drawn with.
+  const snap = useRef<{ canvas: HTMLCanvasElement; view: View; key: SnapshotKey; plan: FramePlan } | null>(null);
+
   useEffect(() => {
-    if (frame.current !== null) cancelAnimationFrame(frame.current);
-    frame.current = requestAnimationFrame(() => {
-      frame.current = null;
+    const key: SnapshotKey = [model, lod, siteIndex, width, height, statuses, landPath, selected, xs, ys, dpr];
+    let pause: ReturnType<typeof setTimeout> | null = null;
+    const keep = (rec: DrawRecord) => {
+      const hook = (window.__headwaterDiagram ??= { draws: [], last: null });
+      hook.last = rec;
+      hook.draws.push(rec);
+      if (hook.draws.length > KEEP_DRAWS) hook.draws.splice(0, hook.draws.length - KEEP_DRAWS);
+    };
+    // Paints the whole plan on the offscreen canvas and copies it in.
+    const full = (labels: boolean) => {
       const el = canvas.current;
       const ctx = el?.getContext('2d');
       if (!el || !ctx) return;
       const t0 = performance.now();
-      if (!measure.current) measure.current = canvasMeasure(ctx);
-      const plan = planFrame({ model, lod, view, width, height, statuses, siteIndex, measure: measure.current, labels: !gesture });
-      const sel = selected !== null && selected < xs.length ? { x: xs[selected] * view.k + view.tx, y: ys[selected] * view.k + view.ty } : null;
-      paintGeo(ctx, { plan, view, width, height, dpr, land: landPath, selected: sel });
-      planRef.current = plan;
-      if (recording()) {
-        const hook = (window.__headwaterDiagram ??= { draws: [], last: null });
-        const rec = record(plan, model, performance.now() - t0, gesture, statuses.size, landBox(), view);
-        hook.last = rec;
-        hook.draws.push(rec);
-        if (hook.draws.length > KEEP_DRAWS) hook.draws.splice(0, hook.draws.length - KEEP_DRAWS);
+      const off = snap.current?.canvas ?? document.createElement('canvas');
+      if (off.width !== el.width || off.height !== el.height) {
+        off.width = el.width;
+        off.height = el.height;
       }
+      const octx = off.getContext('2d');
+      if (!octx) return;
+      if (!measure.current) measure.current = canvasMeasure(ctx);
+      const plan = planFrame({ model, lod, view, width, height, statuses, siteIndex, measure: measure.current, labels });
+      const sel = selected !== null && selected < xs.length ? { x: xs[selected] * view.k + view.tx, y: ys[selected] * view.k + view.ty } : null;
+      paintGeo(octx, { plan, view, width, height, dpr, land: landPath, selected: sel });
+      ctx.setTransform(1, 0, 0, 1, 0, 0);
+      ctx.drawImage(off, 0, 0);
+      snap.current = { canvas: off, view, key, plan };
+      planRef.current = plan;
+      if (recording()) keep(record(plan, model, performance.now() - t0, gesture, false, statuses.size, landBox(), view));
       if (!gesture) onDrawn?.(plan);
+    };
+    // A gesture frame: the last full drawing moved to the live view.
+    const moved = () => {
+      const el = canvas.current;
+      const ctx = el?.getContext('2d');
+      const last = snap.current;
+      if (!el || !ctx || !last) return;
+      const t0 = performance.now();
+      paintSnapshot(ctx, last.canvas, snapshotMatrix(last.view, view, dpr), width, height, dpr);
+      if (recording()) keep(record(last.plan, model, performance.now() - t0, true, true, statuses.size, landBox(), view));
+    };
+
+    if (frame.current !== null) cancelAnimationFrame(frame.current);
+    frame.current = requestAnimationFrame(() => {
+      frame.current = null;
+      const last = snap.current;
+      if (!gesture || !last || !sameKey(last.key, key)) {
+        full(!gesture);
+        return;
+      }
+      moved();
+      // Its detail (marks and lines where the view now is; names wait for the end) once the gesture rests.
+      pause = setTimeout(() => {
+        pause = null;
+        frame.current = requestAnimationFrame(() => {
+          frame.current = null;
+          full(false);
+        });
+      }, PAUSE_REDRAW_MS);
     });
     return () => {
       if (frame.current !== null) cancelAnimationFrame(frame.current);
       frame.current = null;
+      if (pause !== null) clearTimeout(pause);
     };
   }, [model, lod, siteIndex, width, height, view, gesture, statuses, landPath, landBox, selected, xs, ys, dpr, planRef, onDrawn]);
 

@@ -7,7 +7,7 @@ import { useRouter } from 'expo-router';
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
 import { useReach } from '@/src/api/queries/analysis';
-import { useNetworkDrawing } from '@/src/api/queries/networkDrawing';
+import { useDiagramDrawing } from '@/src/api/queries/networkDrawing';
 import { Button } from '@/src/components/Button';
 import { FeedLegend } from '@/src/components/charts/FeedLegend';
 import { countOf, formatCount } from '@/shared/format';
@@ -37,7 +37,7 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   const router = useRouter();
   const { wide } = useBreakpoints();
   const win = useWindowDimensions();
-  const drawing = useNetworkDrawing();
+  const drawing = useDiagramDrawing();
   const failed = useMemo(() => parseFailSet(failParam).elements, [failParam]);
   const failText = formatFailSet(failed);
   const reach = useReach(failed, failText);

@@ -14,7 +14,7 @@ import type { DiagramModel } from './diagramModel';
 import { placeLabels, type LabelCandidate, type PlacedLabel } from './labelPlacement';
 import { byImportance, groupMarks, MIXED, type GroupMarks, type Level, type LodIndex } from './lod';
 import { SITE_R } from './markStyle';
-import { showPatterns, visibleWorld, type View } from './viewport';
+import { clipSegment, showPatterns, visibleWorld, type View } from './viewport';
 
 export type Status = 'off-air' | 'on-reserve';
 
@@ -154,7 +154,8 @@ export function planFrame({ model, lod, view, width, height, statuses, siteIndex
     marks.push({ group: g, x: wx * view.k + view.tx, y: wy * view.k + view.ty, r: role ? SITE_R[role] * grow : groupRadius(count), role, site, count, off, reserve });
   }
 
-  // Lines whose bounding box meets the view; both ends' screen points, gathered per style.
+  // Lines that cross the view, cut to it: the browser rasterises a stroke along its whole length, and
+  // close up most bundled lines run far off screen (the bounding-box test alone let thousands through).
   const segs: number[][] = prep.styles.map(() => []);
   let lineCount = 0;
   for (let i = 0; i < lv.lineA.length; i++) {
@@ -165,8 +166,10 @@ export function planFrame({ model, lod, view, width, height, statuses, siteIndex
     const bx = lv.x[b];
     const by = lv.y[b];
     if (Math.max(ax, bx) < rect.x0 || Math.min(ax, bx) > rect.x1 || Math.max(ay, by) < rect.y0 || Math.min(ay, by) > rect.y1) continue;
+    const cut = clipSegment(ax, ay, bx, by, rect);
+    if (!cut) continue;
     lineCount++;
-    segs[prep.lineStyle[i]].push(ax * view.k + view.tx, ay * view.k + view.ty, bx * view.k + view.tx, by * view.k + view.ty);
+    segs[prep.lineStyle[i]].push(cut[0] * view.k + view.tx, cut[1] * view.k + view.ty, cut[2] * view.k + view.tx, cut[3] * view.k + view.ty);
   }
   const lines: PlannedLines[] = [];
   prep.styles.forEach((st, i) => {

@@ -177,4 +177,28 @@ describe('frame plan', () => {
       ['reserve', 1, 1],
     ]);
   });
+
+  it('cuts long lines to the view and leaves out a line whose box meets the view but which passes it by', () => {
+    const four: DiagramModel = {
+      sites: [site('P', 'origin'), site('Q', 'relay'), site('U', 'main'), site('V', 'relay')],
+      links: [
+        { from: 0, to: 1, medium: 'line', role: 'main', feeds: 1 },
+        { from: 2, to: 3, medium: 'line', role: 'main', feeds: 1 },
+      ],
+      feedCount: 2,
+      skippedFeeds: 0,
+    };
+    // P-Q runs straight across the 400 px box and far beyond it; U-V passes the top left corner outside (x + y = -200).
+    const at: PlacedDiagram = { xs: Float64Array.from([-5000, 6000, -300, 100]), ys: Float64Array.from([200, 200, 100, -300]), linkFrom: Int32Array.from([0, 2]), linkTo: Int32Array.from([1, 3]) };
+    const plan = planFrame({ ...base, model: four, lod: buildLodIndex(four, at), siteIndex: new Map(four.sites.map((s, i) => [s.code, i])), view: { k: 1, tx: 0, ty: 0 }, statuses: new Map() });
+    expect(plan.counts.lines).toBe(1);
+    expect(plan.lines).toHaveLength(1);
+    const [x1, y1, x2, y2] = plan.lines[0].segs;
+    expect([y1, y2]).toEqual([200, 200]);
+    // Cut at the view's edges (with the plan's margin of a few dozen px), not 5,000 px away.
+    expect(Math.min(x1, x2)).toBeGreaterThan(-100);
+    expect(Math.min(x1, x2)).toBeLessThanOrEqual(0);
+    expect(Math.max(x1, x2)).toBeLessThan(500);
+    expect(Math.max(x1, x2)).toBeGreaterThanOrEqual(400);
+  });
 });
