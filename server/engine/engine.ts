@@ -168,28 +168,29 @@ export class NetworkEngine {
   prepare(what: 'resilience' | 'diversity', deadlineMs: number): boolean {
     if (!this.resilienceHeld) {
       this.resilienceRun ??= resilienceSteps(this.core);
-      const t = performance.now();
-      let r = this.resilienceRun.next();
-      while (!r.done && performance.now() < deadlineMs) r = this.resilienceRun.next();
-      const spent = performance.now() - t;
-      this.timings.resilienceMs += spent;
-      this.timings.totalMs += spent;
+      const r = this.runUntil(this.resilienceRun, deadlineMs, 'resilienceMs');
       if (!r.done) return false;
       this.resilienceHeld = r.value;
       this.resilienceRun = null;
     }
     if (what === 'resilience' || this.diversityHeld) return true;
     this.diversityRun ??= this.diversitySteps(this.resilienceHeld);
-    const t = performance.now();
-    let r = this.diversityRun.next();
-    while (!r.done && performance.now() < deadlineMs) r = this.diversityRun.next();
-    const spent = performance.now() - t;
-    this.timings.answersMs += spent;
-    this.timings.totalMs += spent;
+    const r = this.runUntil(this.diversityRun, deadlineMs, 'answersMs');
     if (!r.done) return false;
     this.diversityHeld = r.value;
     this.diversityRun = null;
     return true;
+  }
+
+  /** Resumes `run` until it finishes or `deadlineMs` has passed (at least one piece), the time spent counted under `timing`. */
+  private runUntil<T>(run: Generator<void, T, void>, deadlineMs: number, timing: 'resilienceMs' | 'answersMs'): IteratorResult<void, T> {
+    const t = performance.now();
+    let r = run.next();
+    while (!r.done && performance.now() < deadlineMs) r = run.next();
+    const spent = performance.now() - t;
+    this.timings[timing] += spent;
+    this.timings.totalMs += spent;
+    return r;
   }
 
   /** The diversity gaps, pausing after every 4,096 carriages (see `prepare`). */

@@ -8,20 +8,15 @@ import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { NetworkDocument } from '@/shared/schemas/network';
-import { importNetwork } from '@/server/services/importer';
 import { BruteForce } from '../helpers/bruteforce';
-import { makeTestApp, type TestApp } from '../helpers/testApp';
+import { appWithNetwork, type TestApp } from '../helpers/testApp';
 
 const demo: NetworkDocument = JSON.parse(fs.readFileSync(path.join(__dirname, '..', 'fixtures', 'demo-network.json'), 'utf8'));
 const brute = new BruteForce(demo);
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await makeTestApp();
-  await t.reset();
-  const report = await importNetwork(t.db, demo, { actor: { email: 'test' } });
-  expect(report.errors).toEqual([]);
-  await t.ctx.network.refresh();
+  t = await appWithNetwork(demo);
 });
 afterAll(async () => t?.close());
 

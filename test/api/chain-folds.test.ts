@@ -9,18 +9,13 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ChainNode, ChainRow } from '@/shared/schemas/analysis';
-import { importNetwork } from '@/server/services/importer';
 import { generateNetwork } from '@/scripts/generator';
-import { makeTestApp, type TestApp } from '../helpers/testApp';
+import { appWithNetwork, type TestApp } from '../helpers/testApp';
 
 const net = generateNetwork({ sites: 400, seed: 11 });
 let t: TestApp;
 beforeAll(async () => {
-  t = await makeTestApp();
-  await t.reset();
-  const report = await importNetwork(t.db, net, { actor: { email: 'test' } });
-  expect(report.errors).toEqual([]);
-  await t.ctx.network.refresh();
+  t = await appWithNetwork(net);
 });
 afterAll(async () => t?.close());
 

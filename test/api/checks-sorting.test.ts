@@ -8,24 +8,19 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CHECK_NAMES, type CheckFailure } from '@/shared/schemas/checks';
-import { importNetwork } from '@/server/services/importer';
 import { generateNetwork } from '@/scripts/generator';
-import { makeTestApp, type TestApp } from '../helpers/testApp';
+import { appWithNetwork, type TestApp } from '../helpers/testApp';
 
 let t: TestApp;
 let worstFirst: CheckFailure[];
 beforeAll(async () => {
-  t = await makeTestApp();
-  await t.reset();
   // Channel clashes (errors, no margin) from the generator's deliberate faults, and recorded bearings
   // set wrong on some off-air feeds (warnings with a margin in degrees), so every column has something to order.
   const net = generateNetwork({ sites: 300, seed: 5, faultShare: 0.1 });
   net.feeds.forEach((f, i) => {
     if (f.medium === 'off-air' && i % 4 === 0) f.bearingDeg = (i * 37) % 360;
   });
-  const report = await importNetwork(t.db, net, { actor: { email: 'test' } });
-  expect(report.errors).toEqual([]);
-  await t.ctx.network.refresh();
+  t = await appWithNetwork(net);
   worstFirst = (await get('/api/checks')).body.failures;
 }, 120_000);
 afterAll(async () => t?.close());

@@ -10,20 +10,15 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Element, ReachAnswer, ReachSiteRow } from '@/shared/schemas/analysis';
-import { importNetwork } from '@/server/services/importer';
 import { generateNetwork } from '@/scripts/generator';
-import { makeTestApp, type TestApp } from '../helpers/testApp';
+import { appWithNetwork, type TestApp } from '../helpers/testApp';
 
 const net = generateNetwork({ sites: 300, seed: 5 });
 let t: TestApp;
 let failed: Element[];
 let whole: ReachAnswer & { siteInfo: Record<string, { name: string; households: number }> };
 beforeAll(async () => {
-  t = await makeTestApp();
-  await t.reset();
-  const report = await importNetwork(t.db, net, { actor: { email: 'test' } });
-  expect(report.errors).toEqual([]);
-  await t.ctx.network.refresh();
+  t = await appWithNetwork(net);
   // the element whose failure alone takes most households off air, so the lists are long
   const top = await request(t.app).get('/api/analysis/exposure?limit=1').set(t.auth('viewer'));
   failed = [top.body.elements[0].element];

@@ -23,6 +23,7 @@ import { ROLES, type Role } from '@/shared/api';
 import { startStandins } from '@/server/standins';
 import { ObjectStore } from '@/server/documents/storage';
 import { NoticeQueue } from '@/server/notices/queue';
+import { importNetwork } from '@/server/services/importer';
 
 export const TEST_PASSWORD = `pw-${crypto.randomBytes(6).toString('hex')}`;
 export const emailFor = (role: Role) => `${role}@test.example`;
@@ -113,4 +114,14 @@ export function useTestApp(opts: { network?: () => NetworkDocument } = {}): () =
     }
   });
   return () => t;
+}
+
+/** An app over `doc`, imported once (for a file whose tests only read): the served model is refreshed before it is returned. */
+export async function appWithNetwork(doc: NetworkDocument): Promise<TestApp> {
+  const t = await makeTestApp();
+  await t.reset();
+  const report = await importNetwork(t.db, doc, { actor: { email: 'test' } });
+  expect(report.errors).toEqual([]);
+  await t.ctx.network.refresh();
+  return t;
 }
