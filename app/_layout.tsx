@@ -12,9 +12,14 @@ import { ApiProvider } from '@/src/api/ApiProvider';
 import { SessionProvider } from '@/src/session/SessionProvider';
 import { colors, FONT_NAMES } from '@/src/theme';
 import { registerServiceWorker } from '@/src/offline/serviceWorker';
+import { preloadDeferredScreens } from '@/src/screens/deferredRoute';
+import { opensDeferredScreen } from '@/src/screens/deferredPaths';
 import { useEffect } from 'react';
 
 export { RouteError as ErrorBoundary } from '@/src/components/RouteError';
+
+// A page opened straight on a deferred screen starts that chunk's download now, beside the rest of start-up.
+if (typeof window !== 'undefined' && typeof window.location?.pathname === 'string' && opensDeferredScreen(window.location.pathname)) preloadDeferredScreens();
 
 export default function RootLayout() {
   const [loaded, fontError] = useFonts({

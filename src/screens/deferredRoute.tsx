@@ -15,6 +15,17 @@ const loadDeferred = () => (chunk ??= import('./deferred').catch((e: unknown) =>
   throw e;
 }));
 
+/**
+ * Starts the chunk's download without waiting for a route to ask: a page
+ * opened straight on a deferred screen (a shared link, a reload) then fetches
+ * it beside the rest of start-up rather than after it.
+ */
+export function preloadDeferredScreens(): void {
+  loadDeferred().catch(() => {
+    // retried when a route asks for it
+  });
+}
+
 export function deferredScreen<P extends object>(pick: (screens: Deferred) => ComponentType<P>): ComponentType<P> {
   const Screen = lazy(() => loadDeferred().then((screens) => ({ default: pick(screens) })));
   function DeferredScreen(props: P) {

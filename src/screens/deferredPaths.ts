@@ -1,0 +1,8 @@
+/** The screens not in the deferred chunk (deferred.tsx), and sign-in: opening these needs none of it. */
+const NOT_DEFERRED = new Set(['/', '/sign-in', '/network']);
+
+/** True when a page opened at `pathname` shows a screen from the deferred chunk (or may: an unknown address). */
+export function opensDeferredScreen(pathname: string): boolean {
+  const path = pathname.length > 1 ? pathname.replace(/\/+$/, '') : pathname;
+  return !NOT_DEFERRED.has(path);
+}
