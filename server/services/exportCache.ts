@@ -3,7 +3,7 @@
  * once per network version and served as stored bytes.
  * The in-memory model holds the same document the export would read from
  * PostgreSQL; its document is serialised and gzipped once per version (the
- * gzip in the thread pool, off the event loop), and every export of that
+ * text in slices with turns between them, the gzip in the thread pool), and every export of that
  * version sends the same bytes: gzipped to a client that accepts gzip (every
  * browser), plain otherwise, streamed in slices so that a slow phone holds
  * back only its own socket. Fifty engineers exporting at once cost one
@@ -23,6 +23,8 @@ import type { AppContext } from '../context';
 import { drawingOf } from '@/shared/schemas/drawing';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import { loadNetworkDocument } from './networkLoader';
+import { stringifyInTurns } from './stringifyInTurns';
+import { nextTurn } from '../interchange/turns';
 
 export interface ExportBytes {
   version: number;
@@ -32,14 +34,26 @@ export interface ExportBytes {
 }
 
 const gzip = promisify(zlib.gzip);
+
+/** The body's SHA-1 (base64url), 8 MB at a time with a turn between pieces. */
+async function sha1InTurns(body: Buffer): Promise<string> {
+  const hash = crypto.createHash('sha1');
+  const PIECE = 8 << 20;
+  for (let i = 0; i < body.length; i += PIECE) {
+    hash.update(body.subarray(i, i + PIECE));
+    if (i + PIECE < body.length) await nextTurn();
+  }
+  return hash.digest('base64url');
+}
 /** Per answer kind, keyed by the model object: a rebuild makes a new one, even at the same version (a test's reset). */
 const cache = new Map<string, { model: object; bytes: Promise<ExportBytes> }>();
 
 async function encode(answer: object, version: number, kind: string): Promise<ExportBytes> {
-  const body = Buffer.from(JSON.stringify(answer));
+  // In slices, other requests answered between them: a national network's export is over 100 MB of text.
+  const body = await stringifyInTurns(answer);
   // zlib's default level: a 20,000-site export shrinks several times over
   const packed = await gzip(body);
-  const etag = `"${kind === 'export' ? '' : `${kind}-`}v${version}-${crypto.createHash('sha1').update(body).digest('base64url').slice(0, 16)}"`;
+  const etag = `"${kind === 'export' ? '' : `${kind}-`}v${version}-${(await sha1InTurns(body)).slice(0, 16)}"`;
   return { version, body, gzip: packed, etag };
 }
 
