@@ -4,7 +4,7 @@
  * the event loop for seconds, so every other request waits; here a body
  * above SMALL_BODY_BYTES is parsed by a streaming parser (@streamparser/json)
  * fed in slices, with a turn of the event loop whenever the work has lasted
- * TURN_MS. Smaller bodies keep
+ * a turn's length (server/interchange/turns.ts). Smaller bodies keep
  * `JSON.parse`: a megabyte parses in a few milliseconds.
  *
  * The streaming parser is about half the speed of `JSON.parse` (measured on a
@@ -18,14 +18,12 @@
  */
 import express, { type RequestHandler } from 'express';
 import { TokenParser, Tokenizer, TokenType } from '@streamparser/json';
-import { nextTurn } from '../interchange/turns';
+import { Turns, nextTurn } from '../interchange/turns';
 import { MAX_BODY_DEPTH } from './inputGuard';
 
 export const SMALL_BODY_BYTES = 1 << 20;
 /** bytes handed to the tokenizer at a time; a turn is checked between slices */
 const SLICE_BYTES = 64 * 1024;
-/** the longest stretch of parsing before other requests get a turn, ms (a slice is a few ms: the clock is read after each) */
-const TURN_MS = 12;
 
 /** An error the error handler answers as body-parser's own (server/http/errors.ts). */
 function bodyError(type: string, status: number, message: string): Error {
@@ -87,7 +85,8 @@ export async function parseJsonInTurns(body: Buffer, pause: () => Promise<void> 
     failure ??= e;
   };
 
-  let turnStarted = performance.now();
+  // A slice is a few ms of work, so the clock is read after each one.
+  const turns = new Turns(undefined, 1);
   for (let at = 0; at < body.length; at += SLICE_BYTES) {
     try {
       tokenizer.write(body.subarray(at, at + SLICE_BYTES));
@@ -95,9 +94,9 @@ export async function parseJsonInTurns(body: Buffer, pause: () => Promise<void> 
       failure ??= e as Error;
     }
     if (failure) break;
-    if (performance.now() - turnStarted >= TURN_MS) {
+    if (turns.due()) {
       await pause();
-      turnStarted = performance.now();
+      turns.restart();
     }
   }
   if (!failure && !tokenizer.isEnded) {

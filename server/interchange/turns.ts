@@ -12,11 +12,15 @@ export class Turns {
   private calls = 0;
   private started = performance.now();
 
-  constructor(private readonly turnMs = TURN_MS) {}
+  /** `checkEvery`: calls between two looks at the clock (1 when each call is itself milliseconds of work). */
+  constructor(
+    private readonly turnMs = TURN_MS,
+    private readonly checkEvery = CHECK_EVERY,
+  ) {}
 
   /** True when this turn has lasted long enough; the next turn starts now. */
   due(): boolean {
-    if (++this.calls % CHECK_EVERY !== 0) return false;
+    if (++this.calls % this.checkEvery !== 0) return false;
     const now = performance.now();
     if (now - this.started < this.turnMs) return false;
     this.started = now;

@@ -1,15 +1,14 @@
 /**
  * `JSON.stringify` of a large answer (the network export: 132 MB at 100,000
- * sites) in slices, with a turn of the event loop whenever a slice has
- * lasted TURN_MS, so other requests are answered while it is made. The bytes
- * are exactly those of `JSON.stringify(value)`: an object's own keys in
+ * sites) in slices, with a turn of the event loop whenever a turn's length
+ * has passed (server/interchange/turns.ts), so other requests are answered
+ * while it is made. The bytes are exactly those of `JSON.stringify(value)`: an object's own keys in
  * order, its array fields one element at a time (each element whole), and
  * what JSON leaves out left out (undefined and functions as fields; as array
  * elements they are null).
  */
-import { nextTurn } from '../interchange/turns';
+import { Turns, nextTurn } from '../interchange/turns';
 
-const TURN_MS = 12;
 /** text gathered before it is turned into bytes */
 const CHUNK_CHARS = 1 << 20;
 
@@ -28,7 +27,7 @@ export async function stringifyInTurns(value: unknown, pause: () => Promise<void
       text = '';
     }
   };
-  let started = performance.now();
+  const turns = new Turns();
   let firstField = true;
   for (const key of Object.keys(value)) {
     const v = (value as Record<string, unknown>)[key];
@@ -37,9 +36,9 @@ export async function stringifyInTurns(value: unknown, pause: () => Promise<void
       firstField = false;
       for (let i = 0; i < v.length; i++) {
         add(`${i === 0 ? '' : ','}${JSON.stringify(v[i]) ?? 'null'}`);
-        if ((i & 255) === 255 && performance.now() - started >= TURN_MS) {
+        if (turns.due()) {
           await pause();
-          started = performance.now();
+          turns.restart();
         }
       }
       add(']');
