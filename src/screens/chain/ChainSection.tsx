@@ -67,7 +67,7 @@ export function ChainSection({ code, direction }: { code: string; direction: 'up
     if (root) setFolded(initialFolds(root, wide ? 40 : 24));
   }, [root, wide]);
 
-  const sizes: LayoutSizes = wide ? { ...DEFAULT_SIZES, boxWidth: 220, gap: 190 } : { ...DEFAULT_SIZES, gap: 170 };
+  const sizes: LayoutSizes = wide ? { ...DEFAULT_SIZES, boxWidth: 220, gap: 200 } : { ...DEFAULT_SIZES, gap: 185 };
   const items = useMemo(() => (root ? flattenChain(root, folded) : []), [root, folded]);
   const drawn = items.length <= MAX_DRAWN;
   const layout = useMemo(() => (root && drawn ? layoutChain(root, folded, sizes) : null), [root, folded, drawn, sizes.boxWidth, sizes.gap]); // eslint-disable-line react-hooks/exhaustive-deps

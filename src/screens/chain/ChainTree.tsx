@@ -97,7 +97,8 @@ function FeedLink({ link, direction }: { link: PlacedLink; direction: 'up' | 'do
       <SvgText x={labelX} y={link.y1 - 9} fontFamily={fonts.text} fontSize={12} fill={colors.ink}>
         {`${MEDIUM_LABEL[via.medium]}, ${feedRoleWord(via.role)}`}
       </SvgText>
-      <SvgText x={labelX} y={link.y1 + 18} fontFamily={fonts.mono} fontSize={11} fill={via.up ? colors.inkMuted : colors.bad}>
+      {/* The proportional face: in the mono face this line ran under the next box on a phone. */}
+      <SvgText x={labelX} y={link.y1 + 18} fontFamily={fonts.text} fontSize={11} fill={via.up ? colors.inkMuted : colors.bad}>
         {`${formatKm(via.distanceKm)}, ${via.up ? 'carries programme' : 'no programme'}`}
       </SvgText>
       {warn > 0 ? (
