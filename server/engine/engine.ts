@@ -22,7 +22,7 @@ import type {
 import { elementKey } from '@/shared/schemas/analysis';
 import { buildCore, type BuildTimings, type EngineCore } from './core';
 import { elementId, isCarriageId, KIND_BIT, kindMask, listOf, normaliseCode } from './model';
-import { groupExposure } from './exposure-groups';
+import { groupExposureSteps } from './exposure-groups';
 import { resilienceSteps, type Resilience } from './resilience';
 import { avoidableOf, unavoidableByService } from './avoidable';
 import { createReachScratch, lostAndFallback, reachAnswer, removedNodesByService, type ReachScratch } from './reach';
@@ -108,6 +108,9 @@ export class NetworkEngine {
   private readonly spofAnswers = new Map<number, SpofAnswer>();
   private readonly exposureRows = new Map<number, ExposureRow[]>();
   private readonly exposureGroupRows = new Map<number, ExposureGroupsAnswer['groups']>();
+  private readonly spofRuns = new Map<number, Generator<void, SpofAnswer, void>>();
+  /** per kinds mask: the grouped ranking while it is worked out in slices (`prepareExposureGroups`) */
+  private readonly exposureGroupRuns = new Map<number, Generator<void, ExposureGroupsAnswer['groups'], void>>();
   /** built by an edit's update rather than from scratch */
   incremental = false;
   private readonly graphology: (ServiceGraph | undefined)[] = [];
@@ -326,15 +329,36 @@ export class NetworkEngine {
    * `carriage`, the parent transmitters too).
    */
   spof(kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): SpofAnswer {
-    const mask = kindMask(kinds);
-    let answer = this.spofAnswers.get(mask);
-    if (!answer) this.spofAnswers.set(mask, (answer = this.spofFor(mask)));
-    return answer;
+    this.prepareSpof(kinds, Number.POSITIVE_INFINITY);
+    return this.spofAnswers.get(kindMask(kinds))!;
   }
 
-  private spofFor(mask: number): SpofAnswer {
+  /** True when the weak points of these kinds are held as an answer: `spof` is then instant. */
+  holdsSpof(kinds: readonly ElementKind[] | undefined): boolean {
+    return this.spofAnswers.has(kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS));
+  }
+
+  /**
+   * Works toward `spof(kinds)` (the weak points first, as `prepare`) until
+   * `deadlineMs` has passed; true once the answer is held. At 100,000 sites
+   * the answer lists some 400,000 carriages.
+   */
+  prepareSpof(kinds: readonly ElementKind[] | undefined, deadlineMs: number): boolean {
+    const mask = kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS);
+    if (this.spofAnswers.has(mask)) return true;
+    if (!this.prepare('resilience', deadlineMs)) return false;
+    let run = this.spofRuns.get(mask);
+    if (!run) this.spofRuns.set(mask, (run = this.spofSteps(mask, this.resilienceHeld!)));
+    const r = this.runUntil(run, deadlineMs, 'answersMs');
+    if (!r.done) return false;
+    this.spofAnswers.set(mask, r.value);
+    this.spofRuns.delete(mask);
+    return true;
+  }
+
+  /** The answer of `spof`, pausing after every 4,096 carriages. */
+  private *spofSteps(mask: number, { spofOffsets, spofElements }: Resilience): Generator<void, SpofAnswer, void> {
     const { model, fed } = this.core;
-    const { spofOffsets, spofElements } = this.resilience;
     const wanted = (x: number) => (KIND_BIT[model.elements[x].kind] & mask) !== 0;
     const carriages: SpofAnswer['carriages'] = [];
     for (let c = 0; c < model.carriages.length; c++) {
@@ -342,6 +366,7 @@ export class NetworkEngine {
       const spof: Element[] = [];
       for (let i = spofOffsets[c]; i < spofOffsets[c + 1]; i++) if (wanted(spofElements[i])) spof.push(model.elements[spofElements[i]]);
       carriages.push({ carriage: model.carriageCodes[c], spof });
+      if ((c & 4095) === 4095) yield;
     }
     return { networkVersion: this.networkVersion, carriages };
   }
@@ -372,13 +397,36 @@ export class NetworkEngine {
    */
   exposureGroups(limit?: number, kinds: readonly ElementKind[] = DEFAULT_WEAK_POINT_KINDS): ExposureGroupsAnswer {
     checkLimit(limit);
-    const mask = kindMask(kinds);
-    let rows = this.exposureGroupRows.get(mask);
-    if (!rows) {
-      const { exposureHouseholds, exposureCarriages } = this.resilience;
-      this.exposureGroupRows.set(mask, (rows = groupExposure(this.core, this.rankedOf(mask), exposureHouseholds, exposureCarriages)));
+    this.prepareExposureGroups(kinds, Number.POSITIVE_INFINITY);
+    return { networkVersion: this.networkVersion, groups: firstRows(this.exposureGroupRows.get(kindMask(kinds))!, limit) };
+  }
+
+  /** True when the grouped exposure ranking of these kinds is held: `exposureGroups` is then instant. */
+  holdsExposureGroups(kinds: readonly ElementKind[] | undefined): boolean {
+    return this.exposureGroupRows.has(kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS));
+  }
+
+  /**
+   * Works toward the grouped exposure ranking of these kinds (the weak points
+   * first, as `prepare`), until `deadlineMs` has passed; true once it is held.
+   * Grouping walks the loss of every element that shares its figures with
+   * another: most of a second at 20,000 sites, so a server runs it in slices.
+   */
+  prepareExposureGroups(kinds: readonly ElementKind[] | undefined, deadlineMs: number): boolean {
+    const mask = kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS);
+    if (this.exposureGroupRows.has(mask)) return true;
+    if (!this.prepare('resilience', deadlineMs)) return false;
+    let run = this.exposureGroupRuns.get(mask);
+    if (!run) {
+      const { exposureHouseholds, exposureCarriages } = this.resilienceHeld!;
+      run = groupExposureSteps(this.core, this.rankedOf(mask), exposureHouseholds, exposureCarriages);
+      this.exposureGroupRuns.set(mask, run);
     }
-    return { networkVersion: this.networkVersion, groups: firstRows(rows, limit) };
+    const r = this.runUntil(run, deadlineMs, 'answersMs');
+    if (!r.done) return false;
+    this.exposureGroupRows.set(mask, r.value);
+    this.exposureGroupRuns.delete(mask);
+    return true;
   }
 
   diversity(): DiversityAnswer {

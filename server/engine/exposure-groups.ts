@@ -29,6 +29,9 @@ function lostIds(core: EngineCore, x: number, perService: IntList[], lostNodes: 
   return out.toArray().sort();
 }
 
+/** removal walks between two pauses of `groupExposureSteps` */
+const WALKS_PER_STEP = 32;
+
 /**
  * `ranked` holds element ids by exposure (highest first, ties in element
  * order), already filtered to the kinds asked for; each group keeps the
@@ -40,6 +43,23 @@ export function groupExposure(
   households: Float64Array,
   carriages: Int32Array,
 ): ExposureGroupRow[] {
+  const run = groupExposureSteps(core, ranked, households, carriages);
+  let r = run.next();
+  while (!r.done) r = run.next();
+  return r.value;
+}
+
+/**
+ * `groupExposure` as steps: it pauses after every few removal walks (a walk
+ * is a service graph's worth of work; at 20,000 sites the whole is most of a
+ * second), so a server can give other requests turns between them.
+ */
+export function* groupExposureSteps(
+  core: EngineCore,
+  ranked: readonly number[],
+  households: Float64Array,
+  carriages: Int32Array,
+): Generator<void, ExposureGroupRow[], void> {
   const buckets = new Map<string, number[]>();
   for (const x of ranked) {
     const key = `${households[x]}:${carriages[x]}`;
@@ -47,10 +67,12 @@ export function groupExposure(
     if (b) b.push(x);
     else buckets.set(key, [x]);
   }
+  yield;
   const perService = core.services.map(() => new IntList());
   const lostNodes = new IntList(1024);
   // leader element id -> its members (itself first)
   const groupOf = new Map<number, number[]>();
+  let walks = 0;
   for (const members of buckets.values()) {
     if (members.length === 1 || carriages[members[0]] === 0) {
       // One element, or elements that take nothing off air: nothing to fold (a row of everything harmless helps nobody).
@@ -63,9 +85,11 @@ export function groupExposure(
       const g = bySet.get(key);
       if (g) g.push(x);
       else bySet.set(key, [x]);
+      if (++walks % WALKS_PER_STEP === 0) yield;
     }
     for (const g of bySet.values()) groupOf.set(g[0], g);
   }
+  yield;
   const rows: ExposureGroupRow[] = [];
   for (const x of ranked) {
     const g = groupOf.get(x);

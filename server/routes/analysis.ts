@@ -31,7 +31,8 @@ import { currentModel } from './checks';
 import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { searchCarriages } from '../services/carriageSearch';
-import { prepared } from '../services/prepared';
+import { prepared, preparedExposureGroups, preparedSpof } from '../services/prepared';
+import { sendJsonInTurns } from '../services/stringifyInTurns';
 import { briefReach, reachCarriagesPage, reachSitesPage } from '../services/reachLists';
 
 /** A sandbox's exposure takes a limit and the element kinds; the files and the names are the stored network's only, so asking for them is refused rather than ignored. */
@@ -105,8 +106,8 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/spof', can.analyse, async (req, res) => {
     const { kinds } = parseOr400(spofQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
-    await prepared(m.engine, 'resilience');
-    res.json(m.engine.spof(kinds));
+    await preparedSpof(m.engine, kinds);
+    await sendJsonInTurns(res, m.engine.spof(kinds));
   });
 
   // format=csv: the same ranking as a file, one line per element, elements with the same loss sharing a rank.
@@ -120,17 +121,17 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
       res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(exposureGroupsCsv(m, { networkVersion: m.networkVersion, groups }));
       return;
     }
-    res.json(extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer);
+    await sendJsonInTurns(res, extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer);
   });
 
   // Elements that take off exactly the same carriages in one row (a site and the feeds that only serve it).
   routes.add('get', '/analysis/exposure-groups', can.analyse, async (req, res) => {
     const { limit, kinds, format } = parseOr400(exposureQuery, req.query, 'query');
     const m = currentModel(ctx);
-    await prepared(m.engine, 'resilience');
+    await preparedExposureGroups(m.engine, kinds);
     const answer = m.engine.exposureGroups(limit, kinds);
     if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(exposureGroupsCsv(m, answer));
-    else res.json(answer);
+    else await sendJsonInTurns(res, answer);
   });
 
   // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md). CSV is always the whole list.
@@ -145,7 +146,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
         return;
       }
       const { rows, total, offset } = pageRows(answer.carriages, page);
-      res.json({ ...answer, carriages: rows, total, offset });
+      await sendJsonInTurns(res, { ...answer, carriages: rows, total, offset });
     });
   carriageList('/analysis/diversity', 'diversity-gaps', (m) => m.engine.diversity(), diversityCsv, 'diversity');
   carriageList('/analysis/unfed', 'unfed-carriages', (m) => m.engine.unfed(), unfedCsv);

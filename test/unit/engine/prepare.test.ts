@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { NetworkEngine } from '@/server/engine/engine';
-import { prepared } from '@/server/services/prepared';
+import { prepared, preparedExposureGroups, preparedSpof } from '@/server/services/prepared';
 import { generateNetwork } from '@/scripts/generator';
 import { smallRandomNetwork } from '@/test/helpers/random-network';
 
@@ -24,6 +24,52 @@ describe('weak points and diversity gaps worked out in slices', () => {
       expect(calls).toBeGreaterThan(1);
       expect(answers(sliced)).toEqual(answers(NetworkEngine.build(doc, 3)));
     }
+  });
+
+  it('the grouped exposure ranking and the weak points answer worked out in slices are the ones worked out at once, for each set of kinds', () => {
+    const kindSets = [undefined, ['site'], ['site', 'feed', 'group', 'carriage']] as const;
+    for (let seed = 1; seed <= 25; seed++) {
+      const doc = smallRandomNetwork({ seed, sites: 12, services: 2, groups: 3, feeds: 22, originChance: 0.25, carriageChance: 0.9 });
+      const sliced = NetworkEngine.build(doc, 3);
+      const atOnce = NetworkEngine.build(doc, 3);
+      for (const kinds of kindSets) {
+        expect(sliced.holdsExposureGroups(kinds)).toBe(false);
+        let calls = 1;
+        while (!sliced.prepareExposureGroups(kinds, 0)) calls++;
+        expect(sliced.holdsExposureGroups(kinds)).toBe(true);
+        if (kinds === undefined) expect(calls).toBeGreaterThan(1);
+        expect(sliced.exposureGroups(undefined, kinds)).toEqual(atOnce.exposureGroups(undefined, kinds));
+        expect(sliced.holdsSpof(kinds)).toBe(false);
+        while (!sliced.prepareSpof(kinds, 0));
+        expect(sliced.holdsSpof(kinds)).toBe(true);
+        expect(sliced.spof(kinds)).toEqual(atOnce.spof(kinds));
+      }
+    }
+  });
+
+  it('preparedExposureGroups() gives the event loop turns while it walks, and its answer agrees', async () => {
+    const doc = generateNetwork({ sites: 600, seed: 9 });
+    const e = NetworkEngine.build(doc, 1);
+    await prepared(e, 'resilience');
+    let turns = 0;
+    let on = true;
+    const tick = () => {
+      if (!on) return;
+      turns++;
+      setImmediate(tick);
+    };
+    setImmediate(tick);
+    const a = preparedExposureGroups(e, undefined, 0);
+    // the same kinds named in another order share the work
+    expect(preparedExposureGroups(e, ['group', 'site', 'feed'], 0)).toBe(a);
+    await a;
+    on = false;
+    expect(turns).toBeGreaterThan(2);
+    expect(e.holdsExposureGroups(['site', 'feed', 'group'])).toBe(true);
+    expect(e.exposureGroups(20)).toEqual(NetworkEngine.build(doc, 1).exposureGroups(20));
+    await preparedSpof(e, ['site']);
+    expect(e.holdsSpof(['site'])).toBe(true);
+    expect(e.spof(['site'])).toEqual(NetworkEngine.build(doc, 1).spof(['site']));
   });
 
   it('an answer asked for between slices finishes the work at once and agrees', () => {
