@@ -118,7 +118,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     const answer = m.engine.exposure(limit, kinds);
     if (format === 'csv') {
       const groups = answer.elements.map((r) => ({ elements: [r.element], households: r.households, carriages: r.carriages }));
-      res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(exposureGroupsCsv(m, { networkVersion: m.networkVersion, groups }));
+      res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(await exposureGroupsCsv(m, { networkVersion: m.networkVersion, groups }));
       return;
     }
     await sendJsonInTurns(res, extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer);
@@ -130,19 +130,19 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     const m = currentModel(ctx);
     await preparedExposureGroups(m.engine, kinds);
     const answer = m.engine.exposureGroups(limit, kinds);
-    if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(exposureGroupsCsv(m, answer));
+    if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(await exposureGroupsCsv(m, answer));
     else await sendJsonInTurns(res, answer);
   });
 
   // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md). CSV is always the whole list.
-  const carriageList = <A extends { carriages: unknown[] }>(path: string, file: string, answerOf: (m: ServedNetwork) => A, csvOf: (m: ServedNetwork, a: A) => string, need?: 'diversity') =>
+  const carriageList = <A extends { carriages: unknown[] }>(path: string, file: string, answerOf: (m: ServedNetwork) => A, csvOf: (m: ServedNetwork, a: A) => Promise<string>, need?: 'diversity') =>
     routes.add('get', path, can.analyse, async (req, res) => {
       const { format, ...page } = parseOr400(pageQuerySchema.extend(listFormatQuerySchema.shape), req.query, 'query');
       const m = currentModel(ctx);
       if (need) await prepared(m.engine, need);
       const answer = answerOf(m);
       if (format === 'csv') {
-        res.type('text/csv').attachment(csvFileName(file, m.networkVersion)).send(csvOf(m, answer));
+        res.type('text/csv').attachment(csvFileName(file, m.networkVersion)).send(await csvOf(m, answer));
         return;
       }
       const { rows, total, offset } = pageRows(answer.carriages, page);

@@ -64,7 +64,7 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
     c.filtered ??= failureMemo(all.failures);
     const wanted = c.filtered({ severity, checks: check, sort, direction });
     if (format === 'csv') {
-      res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(checksCsv({ ...all, failures: [...wanted.rows] }));
+      res.type('text/csv').attachment(csvFileName('failing-checks', m.networkVersion)).send(await checksCsv({ ...all, failures: [...wanted.rows] }));
       return;
     }
     const { rows, total, offset } = pageRows(wanted.rows, page);
