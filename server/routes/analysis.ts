@@ -30,7 +30,8 @@ import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { currentModel } from './checks';
 import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
-import { searchCarriages } from '../services/carriageSearch';
+import { carriageIndexReady, searchCarriages } from '../services/carriageSearch';
+import { nextTurn } from '../interchange/turns';
 import { prepared, preparedExposureGroups, preparedSpof } from '../services/prepared';
 import { sendJsonInTurns } from '../services/stringifyInTurns';
 import { briefReach, reachCarriagesPage, reachSitesPage } from '../services/reachLists';
@@ -155,6 +156,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/carriage-search', can.analyse, async (req, res) => {
     const { q, pageSize } = parseOr400(carriageSearchQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
+    await carriageIndexReady(m, nextTurn);
     res.json({ networkVersion: m.networkVersion, ...searchCarriages(m, q, pageSize) });
   });
 
