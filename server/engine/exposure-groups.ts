@@ -61,11 +61,13 @@ export function* groupExposureSteps(
   carriages: Int32Array,
 ): Generator<void, ExposureGroupRow[], void> {
   const buckets = new Map<string, number[]>();
-  for (const x of ranked) {
+  for (let i = 0; i < ranked.length; i++) {
+    const x = ranked[i];
     const key = `${households[x]}:${carriages[x]}`;
     const b = buckets.get(key);
     if (b) b.push(x);
     else buckets.set(key, [x]);
+    if ((i & 4095) === 4095) yield;
   }
   yield;
   const perService = core.services.map(() => new IntList());
@@ -73,10 +75,15 @@ export function* groupExposureSteps(
   // leader element id -> its members (itself first)
   const groupOf = new Map<number, number[]>();
   let walks = 0;
+  let plain = 0;
   for (const members of buckets.values()) {
     if (members.length === 1 || carriages[members[0]] === 0) {
       // One element, or elements that take nothing off air: nothing to fold (a row of everything harmless helps nobody).
       for (const x of members) groupOf.set(x, [x]);
+      if ((plain += members.length) >= 4096) {
+        plain = 0;
+        yield;
+      }
       continue;
     }
     const bySet = new Map<string, number[]>();
@@ -91,10 +98,11 @@ export function* groupExposureSteps(
   }
   yield;
   const rows: ExposureGroupRow[] = [];
-  for (const x of ranked) {
+  for (let i = 0; i < ranked.length; i++) {
+    const x = ranked[i];
     const g = groupOf.get(x);
-    if (!g) continue;
-    rows.push({ elements: g.map((y) => core.model.elements[y]), households: households[x], carriages: carriages[x] });
+    if (g) rows.push({ elements: g.map((y) => core.model.elements[y]), households: households[x], carriages: carriages[x] });
+    if ((i & 4095) === 4095) yield;
   }
   return rows;
 }

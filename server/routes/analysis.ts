@@ -108,7 +108,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     const { kinds } = parseOr400(spofQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
     await preparedSpof(m.engine, kinds);
-    await sendJsonInTurns(res, m.engine.spof(kinds));
+    await sendJsonInTurns(res, m.engine.spof(kinds), m.networkVersion);
   });
 
   // format=csv: the same ranking as a file, one line per element, elements with the same loss sharing a rank.
@@ -122,7 +122,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
       res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(await exposureGroupsCsv(m, { networkVersion: m.networkVersion, groups }));
       return;
     }
-    await sendJsonInTurns(res, extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer);
+    await sendJsonInTurns(res, extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer, m.networkVersion);
   });
 
   // Elements that take off exactly the same carriages in one row (a site and the feeds that only serve it).
@@ -132,7 +132,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     await preparedExposureGroups(m.engine, kinds);
     const answer = m.engine.exposureGroups(limit, kinds);
     if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(await exposureGroupsCsv(m, answer));
-    else await sendJsonInTurns(res, answer);
+    else await sendJsonInTurns(res, answer, m.networkVersion);
   });
 
   // Long lists at 20,000 sites: ?limit&offset pick a page; the whole list without them (docs/api.md). CSV is always the whole list.
@@ -147,7 +147,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
         return;
       }
       const { rows, total, offset } = pageRows(answer.carriages, page);
-      await sendJsonInTurns(res, { ...answer, carriages: rows, total, offset });
+      await sendJsonInTurns(res, { ...answer, carriages: rows, total, offset }, m.networkVersion);
     });
   carriageList('/analysis/diversity', 'diversity-gaps', (m) => m.engine.diversity(), diversityCsv, 'diversity');
   carriageList('/analysis/unfed', 'unfed-carriages', (m) => m.engine.unfed(), unfedCsv);

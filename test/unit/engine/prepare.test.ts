@@ -72,6 +72,21 @@ describe('weak points and diversity gaps worked out in slices', () => {
     expect(e.spof(['site'])).toEqual(NetworkEngine.build(doc, 1).spof(['site']));
   });
 
+  it('the first rows of the exposure ranking, asked for alone, are the first rows of the whole ranking', () => {
+    for (let seed = 1; seed <= 20; seed++) {
+      const doc = smallRandomNetwork({ seed, sites: 12, services: 2, groups: 3, feeds: 22, originChance: 0.25, carriageChance: 0.9 });
+      const e = NetworkEngine.build(doc, 2);
+      for (const kinds of [undefined, ['feed'], ['site', 'carriage']] as const) {
+        const firsts = [1, 3, 10, 1_000].map((limit) => e.exposure(limit, kinds).elements);
+        const whole = NetworkEngine.build(doc, 2).exposure(undefined, kinds).elements;
+        expect(firsts).toEqual([1, 3, 10, 1_000].map((limit) => whole.slice(0, limit)));
+        // and the same once the whole ranking is held
+        expect(e.exposure(undefined, kinds).elements).toEqual(whole);
+        expect(e.exposure(3, kinds).elements).toEqual(whole.slice(0, 3));
+      }
+    }
+  });
+
   it('an answer asked for between slices finishes the work at once and agrees', () => {
     const doc = generateNetwork({ sites: 300, seed: 3 });
     const e = NetworkEngine.build(doc, 1);
