@@ -49,4 +49,17 @@ describe('large analysis answers', () => {
     expect(Number(head.headers['content-length'])).toBe(Buffer.byteLength(whole.text));
     expect(head.text ?? '').toBe('');
   });
+
+  it('the export of a network over a megabyte: kept in pieces, the same document plain and gzipped, lengths declared', async () => {
+    const plain = await get('/api/network/export');
+    expect(plain.status).toBe(200);
+    expect(plain.text.length).toBeGreaterThan(2 << 20);
+    expect(Number(plain.headers['content-length'])).toBe(Buffer.byteLength(plain.text));
+    expect(plain.body.sites).toHaveLength(doc.sites.length);
+    const zipped = await request(t.app).get('/api/network/export').set(t.auth('viewer')).set('Accept-Encoding', 'gzip');
+    expect(zipped.status).toBe(200);
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(Number(zipped.headers['content-length'])).toBeLessThan(Buffer.byteLength(plain.text) / 3);
+    expect(zipped.text).toBe(plain.text);
+  });
 });
