@@ -10,8 +10,10 @@
  * Each kind is copied into a temporary staging table (dropped at the end of
  * the transaction, and with it on rollback) whose references are codes; one
  * statement joins them to ids in SQL for all the rows (so no id map is held
- * here), then one INSERT ... SELECT per slice writes them, and the tables'
- * constraints check every row as before. The
+ * here), then one INSERT ... SELECT per slice writes them. The tables' checks,
+ * unique keys and NOT NULL test every row; the per-row foreign-key triggers
+ * are left out where the role may (rowTriggers.ts), since every id came
+ * from a join against the referred table in this transaction. The
  * rows are streamed with back-pressure, a turn of the event loop whenever
  * one is due, and the client's abort checked between pieces: an aborted
  * COPY is failed on the server (CopyFail) and the transaction rolls back.
@@ -26,6 +28,7 @@ import { CarriageRow, FeedGroupRow, FeedRow, FeedViaSiteRow, RiskGroupRow, Servi
 import { Turns, nextTurn } from '../../interchange/turns';
 import { FIELDS, type Fields } from '../inventory/shape';
 import type { Tx } from '../inventory/tables';
+import { withoutRowTriggers } from './rowTriggers';
 
 /** Rows moved from the staging table into the real one per statement (progress and cancellation between them). */
 const INSERT_SLICE = 25_000;
@@ -76,7 +79,7 @@ function copyValue(value: unknown): string {
 }
 
 /** The connection of the import's transaction: COPY needs the driver's client itself (Sequelize keeps it on the transaction). */
-function clientOf(tx: Tx): Client {
+export function clientOf(tx: Tx): Client {
   const client = (tx.transaction as unknown as { connection?: Client }).connection;
   if (!client) throw new Error('the transaction has no connection');
   return client;
@@ -161,13 +164,16 @@ export async function copyCreated(tx: Tx, kind: EntityKind, entities: readonly F
   await client.query(`ANALYZE ${from}`);
 
   const list = columns.map((c) => c.column).join(', ');
-  for (let lo = 0; lo < entities.length; lo += INSERT_SLICE) {
-    const hi = Math.min(entities.length, lo + INSERT_SLICE);
-    const result = await client.query(`INSERT INTO ${table} (${list}) SELECT ${list} FROM ${from} WHERE n >= $1 AND n < $2`, [lo, hi]);
-    if (result.rowCount !== hi - lo) throw new Error(`${kind}: wrote ${result.rowCount} of ${hi - lo} rows`);
-    opts.step(hi - lo);
-    opts.signal?.throwIfAborted();
-  }
+  // every id below came from an inner join in this transaction: no per-row foreign-key check needed (rowTriggers.ts)
+  await withoutRowTriggers(client, async () => {
+    for (let lo = 0; lo < entities.length; lo += INSERT_SLICE) {
+      const hi = Math.min(entities.length, lo + INSERT_SLICE);
+      const result = await client.query(`INSERT INTO ${table} (${list}) SELECT ${list} FROM ${from} WHERE n >= $1 AND n < $2`, [lo, hi]);
+      if (result.rowCount !== hi - lo) throw new Error(`${kind}: wrote ${result.rowCount} of ${hi - lo} rows`);
+      opts.step(hi - lo);
+      opts.signal?.throwIfAborted();
+    }
+  });
 
   if (kind === 'sites' || kind === 'feeds') await copyLinks(client, kind, entities, 'groups', { signal: opts.signal, turns });
   if (kind === 'feeds') await copyLinks(client, kind, entities, 'via', { signal: opts.signal, turns });
@@ -210,10 +216,12 @@ async function copyLinks(client: Client, kind: 'sites' | 'feeds', entities: read
   // the owners just arrived: without fresh statistics the join below is planned for an empty table
   await client.query(`ANALYZE ${stage}, ${tableOf(ownerModel)}`);
   const columns = [columnOf(link, ownerAttribute), ...(field === 'via' ? [columnOf(link, 'position')] : []), columnOf(link, targetAttribute)];
-  const result = await client.query(
-    `INSERT INTO ${tableOf(link)} (${columns.join(', ')})
-     SELECT o.id, ${field === 'via' ? 's.position, ' : ''}t.id FROM ${stage} s
-     JOIN ${tableOf(ownerModel)} o ON o.code = s.owner JOIN ${tableOf(targetModel)} t ON t.code = s.target`,
-  );
-  if (result.rowCount !== copied) throw new Error(`${tableOf(link)}: wrote ${result.rowCount} of ${copied} rows; a reference did not resolve`);
+  await withoutRowTriggers(client, async () => {
+    const result = await client.query(
+      `INSERT INTO ${tableOf(link)} (${columns.join(', ')})
+       SELECT o.id, ${field === 'via' ? 's.position, ' : ''}t.id FROM ${stage} s
+       JOIN ${tableOf(ownerModel)} o ON o.code = s.owner JOIN ${tableOf(targetModel)} t ON t.code = s.target`,
+    );
+    if (result.rowCount !== copied) throw new Error(`${tableOf(link)}: wrote ${result.rowCount} of ${copied} rows; a reference did not resolve`);
+  });
 }
