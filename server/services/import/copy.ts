@@ -159,9 +159,8 @@ export async function copyCreated(tx: Tx, kind: EntityKind, entities: readonly F
   const copied = await copyRows(client, stage, ['n', ...columns.map((c) => c.column)], entityRows(entities, columns), { signal: opts.signal, turns });
   if (copied !== entities.length) throw new Error(`${kind}: copied ${copied} of ${entities.length} rows`);
   const from = await resolveReferences(client, stage, columns, entities.length, kind);
-  // each slice below picks its rows by n
+  // each slice below picks its rows by n; with no statistics the planner takes a slice for a small share and reads it through the index, as wanted
   await client.query(`CREATE INDEX ON ${from} (n)`);
-  await client.query(`ANALYZE ${from}`);
 
   const list = columns.map((c) => c.column).join(', ');
   // every id below came from an inner join in this transaction: no per-row foreign-key check needed (rowTriggers.ts)
@@ -175,8 +174,11 @@ export async function copyCreated(tx: Tx, kind: EntityKind, entities: readonly F
     }
   });
 
-  if (kind === 'sites' || kind === 'feeds') await copyLinks(client, kind, entities, 'groups', { signal: opts.signal, turns });
-  if (kind === 'feeds') await copyLinks(client, kind, entities, 'via', { signal: opts.signal, turns });
+  const lists = kind === 'feeds' ? (['groups', 'via'] as const) : kind === 'sites' ? (['groups'] as const) : [];
+  if (!entities.some((e) => lists.some((field) => ((e[field] as unknown[] | undefined)?.length ?? 0) > 0))) return;
+  // the owners just arrived: without fresh statistics the link joins below are planned for an empty table (once for both lists)
+  await client.query(`ANALYZE ${table}`);
+  for (const field of lists) await copyLinks(client, kind as 'sites' | 'feeds', entities, field, { signal: opts.signal, turns });
 }
 
 /**
@@ -213,8 +215,8 @@ async function copyLinks(client: Client, kind: 'sites' | 'feeds', entities: read
   await client.query(`CREATE TEMP TABLE ${stage} (owner text, position int4, target text) ON COMMIT DROP`);
   const copied = await copyRows(client, stage, ['owner', 'position', 'target'], listRows(entities, field), opts);
   if (copied === 0) return;
-  // the owners just arrived: without fresh statistics the join below is planned for an empty table
-  await client.query(`ANALYZE ${stage}, ${tableOf(ownerModel)}`);
+  // the owner table was analyzed by copyCreated
+  await client.query(`ANALYZE ${stage}`);
   const columns = [columnOf(link, ownerAttribute), ...(field === 'via' ? [columnOf(link, 'position')] : []), columnOf(link, targetAttribute)];
   await withoutRowTriggers(client, async () => {
     const result = await client.query(
