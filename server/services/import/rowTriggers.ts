@@ -25,7 +25,10 @@
  * and later), may set it; any other role keeps the per-row checks, which
  * are just as correct, only slower. The setting also stops ON DELETE
  * CASCADE, so it is on only around inserts of new rows and off again
- * before anything else runs in the transaction.
+ * before anything else runs in the transaction. It stops every ordinary
+ * trigger, not only the foreign keys': the inventory tables have no other,
+ * and one added to them later must be declared ENABLE ALWAYS to fire for
+ * these inserts too.
  */
 import type { Client } from 'pg';
 
