@@ -10,8 +10,10 @@
  * Each kind is copied into a temporary staging table (dropped at the end of
  * the transaction, and with it on rollback) whose references are codes; one
  * statement joins them to ids in SQL for all the rows (so no id map is held
- * here), then one INSERT ... SELECT per slice writes them, and the tables'
- * constraints check every row as before. The
+ * here), then one INSERT ... SELECT per slice writes them. The tables' checks,
+ * unique keys and NOT NULL test every row; the per-row foreign-key triggers
+ * are left out where the role may (rowTriggers.ts), since every id came
+ * from a join against the referred table in this transaction. The
  * rows are streamed with back-pressure, a turn of the event loop whenever
  * one is due, and the client's abort checked between pieces: an aborted
  * COPY is failed on the server (CopyFail) and the transaction rolls back.
@@ -26,6 +28,7 @@ import { CarriageRow, FeedGroupRow, FeedRow, FeedViaSiteRow, RiskGroupRow, Servi
 import { Turns, nextTurn } from '../../interchange/turns';
 import { FIELDS, type Fields } from '../inventory/shape';
 import type { Tx } from '../inventory/tables';
+import { withoutRowTriggers } from './rowTriggers';
 
 /** Rows moved from the staging table into the real one per statement (progress and cancellation between them). */
 const INSERT_SLICE = 25_000;
@@ -76,7 +79,7 @@ function copyValue(value: unknown): string {
 }
 
 /** The connection of the import's transaction: COPY needs the driver's client itself (Sequelize keeps it on the transaction). */
-function clientOf(tx: Tx): Client {
+export function clientOf(tx: Tx): Client {
   const client = (tx.transaction as unknown as { connection?: Client }).connection;
   if (!client) throw new Error('the transaction has no connection');
   return client;
@@ -156,21 +159,26 @@ export async function copyCreated(tx: Tx, kind: EntityKind, entities: readonly F
   const copied = await copyRows(client, stage, ['n', ...columns.map((c) => c.column)], entityRows(entities, columns), { signal: opts.signal, turns });
   if (copied !== entities.length) throw new Error(`${kind}: copied ${copied} of ${entities.length} rows`);
   const from = await resolveReferences(client, stage, columns, entities.length, kind);
-  // each slice below picks its rows by n
+  // each slice below picks its rows by n; with no statistics the planner takes a slice for a small share and reads it through the index, as wanted
   await client.query(`CREATE INDEX ON ${from} (n)`);
-  await client.query(`ANALYZE ${from}`);
 
   const list = columns.map((c) => c.column).join(', ');
-  for (let lo = 0; lo < entities.length; lo += INSERT_SLICE) {
-    const hi = Math.min(entities.length, lo + INSERT_SLICE);
-    const result = await client.query(`INSERT INTO ${table} (${list}) SELECT ${list} FROM ${from} WHERE n >= $1 AND n < $2`, [lo, hi]);
-    if (result.rowCount !== hi - lo) throw new Error(`${kind}: wrote ${result.rowCount} of ${hi - lo} rows`);
-    opts.step(hi - lo);
-    opts.signal?.throwIfAborted();
-  }
+  // every id below came from an inner join in this transaction: no per-row foreign-key check needed (rowTriggers.ts)
+  await withoutRowTriggers(client, async () => {
+    for (let lo = 0; lo < entities.length; lo += INSERT_SLICE) {
+      const hi = Math.min(entities.length, lo + INSERT_SLICE);
+      const result = await client.query(`INSERT INTO ${table} (${list}) SELECT ${list} FROM ${from} WHERE n >= $1 AND n < $2`, [lo, hi]);
+      if (result.rowCount !== hi - lo) throw new Error(`${kind}: wrote ${result.rowCount} of ${hi - lo} rows`);
+      opts.step(hi - lo);
+      opts.signal?.throwIfAborted();
+    }
+  });
 
-  if (kind === 'sites' || kind === 'feeds') await copyLinks(client, kind, entities, 'groups', { signal: opts.signal, turns });
-  if (kind === 'feeds') await copyLinks(client, kind, entities, 'via', { signal: opts.signal, turns });
+  const lists = kind === 'feeds' ? (['groups', 'via'] as const) : kind === 'sites' ? (['groups'] as const) : [];
+  if (!entities.some((e) => lists.some((field) => ((e[field] as unknown[] | undefined)?.length ?? 0) > 0))) return;
+  // the owners just arrived: without fresh statistics the link joins below are planned for an empty table (once for both lists)
+  await client.query(`ANALYZE ${table}`);
+  for (const field of lists) await copyLinks(client, kind as 'sites' | 'feeds', entities, field, { signal: opts.signal, turns });
 }
 
 /**
@@ -207,13 +215,15 @@ async function copyLinks(client: Client, kind: 'sites' | 'feeds', entities: read
   await client.query(`CREATE TEMP TABLE ${stage} (owner text, position int4, target text) ON COMMIT DROP`);
   const copied = await copyRows(client, stage, ['owner', 'position', 'target'], listRows(entities, field), opts);
   if (copied === 0) return;
-  // the owners just arrived: without fresh statistics the join below is planned for an empty table
-  await client.query(`ANALYZE ${stage}, ${tableOf(ownerModel)}`);
+  // the owner table was analyzed by copyCreated
+  await client.query(`ANALYZE ${stage}`);
   const columns = [columnOf(link, ownerAttribute), ...(field === 'via' ? [columnOf(link, 'position')] : []), columnOf(link, targetAttribute)];
-  const result = await client.query(
-    `INSERT INTO ${tableOf(link)} (${columns.join(', ')})
-     SELECT o.id, ${field === 'via' ? 's.position, ' : ''}t.id FROM ${stage} s
-     JOIN ${tableOf(ownerModel)} o ON o.code = s.owner JOIN ${tableOf(targetModel)} t ON t.code = s.target`,
-  );
-  if (result.rowCount !== copied) throw new Error(`${tableOf(link)}: wrote ${result.rowCount} of ${copied} rows; a reference did not resolve`);
+  await withoutRowTriggers(client, async () => {
+    const result = await client.query(
+      `INSERT INTO ${tableOf(link)} (${columns.join(', ')})
+       SELECT o.id, ${field === 'via' ? 's.position, ' : ''}t.id FROM ${stage} s
+       JOIN ${tableOf(ownerModel)} o ON o.code = s.owner JOIN ${tableOf(targetModel)} t ON t.code = s.target`,
+    );
+    if (result.rowCount !== copied) throw new Error(`${tableOf(link)}: wrote ${result.rowCount} of ${copied} rows; a reference did not resolve`);
+  });
 }
