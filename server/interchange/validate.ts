@@ -28,14 +28,6 @@ export interface ValidateOptions {
   rowsOf?: RowsOf;
   /** the stored network an upsert lands on: references may point into it */
   context?: NetworkDocument;
-  /**
-   * Hears the entities in their checked form once every one has passed its
-   * own check with no error so far, before the rules between entities run
-   * (an importer starts writing then, inside its transaction). The document
-   * is final only if the result carries one, and then it has these very
-   * lists; do not change them.
-   */
-  onEntitiesChecked?: (document: NetworkDocument) => void;
 }
 
 export interface ValidationResult {
@@ -118,7 +110,6 @@ export function* validationSteps(raw: unknown, opts: ValidateOptions = {}): Gene
     parsed[kind] = out as never;
   }
 
-  if (opts.onEntitiesChecked && sink.errors.length === 0 && sink.moreErrors === 0) opts.onEntitiesChecked({ format: NETWORK_FORMAT, ...parsed } as NetworkDocument);
   yield checked;
   const view = yield* buildView(lists, unreadable, opts.context, turns, checked);
   yield* checkReferences(view, sink, turns, checked);

@@ -24,7 +24,6 @@ import { databaseRefusal } from './inventory/dbErrors';
 import { copyCreated } from './import/copy';
 import { staleBase, staleRefusal } from './import/staleBase';
 import { deletionsOf, replaceToken, requireConfirmation } from './import/confirmReplace';
-import { OverlappedWrite } from './import/overlap';
 
 export interface ImportOptions {
   dryRun?: boolean;
@@ -51,11 +50,6 @@ export interface ImportOptions {
   signal?: AbortSignal;
 }
 
-interface Written {
-  plan: ImportPlan;
-  stale: Awaited<ReturnType<typeof staleBase>>;
-}
-
 /** Rows written between two progress reports (and checks that the client is still there). */
 const WRITE_SLICE = 8000;
 
@@ -70,13 +64,7 @@ interface Unlisted {
 type Checked = ({ document: NetworkDocument; warnings: ImportIssue[] } | { document: null; errors: ImportIssue[]; warnings: ImportIssue[] }) & Unlisted;
 
 /** Validates against the stored network: an upsert may refer to stored entities, a replace may not. */
-async function check(
-  raw: unknown,
-  stored: NetworkDocument,
-  opts: ImportOptions,
-  replace: boolean,
-  onEntitiesChecked?: (document: NetworkDocument) => void,
-): Promise<Checked> {
+async function check(raw: unknown, stored: NetworkDocument, opts: ImportOptions, replace: boolean): Promise<Checked> {
   // an upload that could not be read at all has nothing more to validate
   if (raw === undefined && opts.sourceErrors?.length) return { document: null, errors: opts.sourceErrors, warnings: [], moreErrors: opts.moreSourceErrors };
   const result = await validateDocumentInTurns(raw, {
@@ -84,8 +72,6 @@ async function check(
     context: replace ? undefined : await storedOutside(stored, raw),
     signal: opts.signal,
     onStep: (done, total) => opts.onProgress?.({ stage: 'validating', done, total }),
-    // problems found reading the upload refuse it whatever the entities say: nothing to start then
-    onEntitiesChecked: opts.sourceErrors?.length ? undefined : onEntitiesChecked,
   });
   const errors = [...(opts.sourceErrors ?? []), ...result.errors];
   if (errors.length === 0 && result.document && !replace) errors.push(...checkKeptFeeds(stored, result.document, opts.rowsOf));
@@ -166,38 +152,13 @@ export async function importNetwork(db: Database, raw: unknown, opts: ImportOpti
     const outcome = await withNetworkWrite(db.sequelize, opts.actor ?? {}, async (w) => {
       const { document: stored } = await loadNetworkDocument(db.sequelize, w.transaction);
       opts.signal?.throwIfAborted();
-      // the plan and the write may start while the rules between entities are still checked (import/overlap.ts)
-      const writing = new OverlappedWrite<Written>(opts);
-      const write = (document: NetworkDocument) => async (): Promise<Written> => {
-        const stale = replace ? await staleBase(db.sequelize, raw, w.startVersion, w.transaction) : undefined;
-        if (stale && !opts.undoNewer) throw staleRefusal(stale);
-        const plan = await planImport(stored, document, replace);
-        if (replace) requireConfirmation(opts.confirmReplace, w.startVersion, plan);
-        await carryOut(w, plan, { onProgress: writing.progress, signal: writing.signal });
-        return { plan, stale };
-      };
-      let early: NetworkDocument | undefined;
-      let checked: Checked;
-      try {
-        checked = await check(raw, stored, opts, replace, (document) => {
-          early = document;
-          writing.start(write(document));
-        });
-      } catch (err) {
-        await writing.stop();
-        throw err;
-      }
-      const document = checked.document;
-      if (!document) {
-        await writing.stop();
-        throw new RollBack(failed(checked.errors, checked.warnings, undefined, checked));
-      }
-      // the early write must have used the very lists the checks passed (validate.ts gives them so)
-      if (early && ENTITY_KINDS.some((kind) => early![kind] !== document[kind])) {
-        await writing.stop();
-        throw new Error('the checked document is not the one being written');
-      }
-      const { plan, stale } = await writing.afterChecks(write(document));
+      const checked = await check(raw, stored, opts, replace);
+      if (!checked.document) throw new RollBack(failed(checked.errors, checked.warnings, undefined, checked));
+      const stale = replace ? await staleBase(db.sequelize, raw, w.startVersion, w.transaction) : undefined;
+      if (stale && !opts.undoNewer) throw staleRefusal(stale);
+      const plan = await planImport(stored, checked.document, replace);
+      if (replace) requireConfirmation(opts.confirmReplace, w.startVersion, plan);
+      await carryOut(w, plan, opts);
       opts.signal?.throwIfAborted();
       const counts = countsOf(plan, received);
       if (plan.changed) w.markChanged();
