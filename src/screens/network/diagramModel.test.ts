@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { NetworkDrawing } from '@/src/api/schemas';
 import { drawingOf } from '@/shared/schemas/drawing';
@@ -140,5 +141,26 @@ describe('orderSitesInView', () => {
 
   it('skips indices left over from a larger view (a filter just narrowed the sites)', () => {
     expect(orderSitesInView(m.sites, [2, 7, 40, -1], new Map())).toEqual([2]);
+  });
+
+  it('gives the order of a plain sort by mark, households and code, for any sites, view and failure set', () => {
+    const rank = { 'off-air': 0, 'on-reserve': 1 } as const;
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ households: fc.option(fc.integer({ min: 0, max: 5 }), { nil: null }), mark: fc.constantFrom('off-air', 'on-reserve', null) }), { minLength: 1, maxLength: 60 }),
+        fc.array(fc.nat(80), { maxLength: 70 }),
+        (rows, view) => {
+          const sites = rows.map((r, i) => ({ ...m.sites[0], code: `S${(i * 7) % 61}-${i}`, households: r.households }));
+          const statuses = new Map(rows.flatMap((r, i) => (r.mark ? [[sites[i].code, r.mark] as const] : [])));
+          const inView = [...new Set(view)];
+          const key = (i: number) => { const st = statuses.get(sites[i].code); return st ? rank[st] : 2; };
+          const want = inView
+            .filter((i) => i < sites.length)
+            .sort((a, b) => key(a) - key(b) || (sites[b].households ?? 0) - (sites[a].households ?? 0) || (sites[a].code < sites[b].code ? -1 : 1));
+          expect(orderSitesInView(sites, inView, statuses)).toEqual(want);
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });
