@@ -200,14 +200,30 @@ function householdOrder(sites: readonly DiagramSite[]): Int32Array {
 export function orderSitesInView(sites: readonly DiagramSite[], inView: readonly number[], statuses: ReadonlyMap<string, SiteStatus>): number[] {
   const inside = new Uint8Array(sites.length);
   for (const i of inView) if (i >= 0 && i < sites.length) inside[i] = 1;
+  // The failure set is a few sites: looked up by code once each, not once per site in view.
+  const mark = new Uint8Array(sites.length);
+  if (statuses.size > 0) {
+    const at = codeIndex(sites);
+    for (const [code, st] of statuses) {
+      const i = at.get(code);
+      if (i !== undefined) mark[i] = st === 'off-air' ? 1 : 2;
+    }
+  }
   const off: number[] = [];
   const reserve: number[] = [];
   const rest: number[] = [];
-  const marked = statuses.size > 0;
   for (const i of householdOrder(sites)) {
     if (!inside[i]) continue;
-    const st = marked ? statuses.get(sites[i].code) : undefined;
-    (st === 'off-air' ? off : st === 'on-reserve' ? reserve : rest).push(i);
+    (mark[i] === 1 ? off : mark[i] === 2 ? reserve : rest).push(i);
   }
   return off.concat(reserve, rest);
+}
+
+/** Each site's index by code, made once per model and kept. */
+const byCode = new WeakMap<readonly DiagramSite[], Map<string, number>>();
+
+function codeIndex(sites: readonly DiagramSite[]): Map<string, number> {
+  let at = byCode.get(sites);
+  if (!at) byCode.set(sites, (at = new Map(sites.map((s, i) => [s.code, i]))));
+  return at;
 }
