@@ -1,9 +1,9 @@
 /**
  * The geographic diagram on a <canvas> (web): tens of thousands of SVG nodes
  * would stall a phone, one canvas redrawn from a frame plan does not. Draws
- * at most once per animation frame, at the device's pixel ratio. During a
- * gesture the canvas, holding the last full drawing, is moved and scaled by
- * a CSS transform (./snapshot.ts) instead of painting again, and the detail
+ * at most once per animation frame, at the device's pixel ratio, straight
+ * onto the canvas. During a gesture a copy of the last full drawing is moved
+ * and scaled (./snapshot.ts) instead of painting again, and the detail
  * is painted when the gesture pauses or ends: the browser rasterises
  * thousands of strokes far more slowly than it records them. The screen's
  * own update after a drawing (`onDrawn`) waits until the picture is shown.
@@ -16,9 +16,9 @@ import { colors } from '@/src/theme';
 import type { DiagramModel } from './diagramModel';
 import { planFrame, type FramePlan, type Status } from './framePlan';
 import type { LodIndex } from './lod';
-import { canvasMeasure, paintGeo } from './paintGeo';
+import { canvasMeasure, paintGeo, paintSnapshot } from './paintGeo';
 import { recording } from '@/src/testHooks';
-import { afterNextFrame, PAUSE_REDRAW_MS, sameKey, snapshotCss, type SnapshotKey } from './snapshot';
+import { afterNextFrame, PAUSE_REDRAW_MS, sameKey, snapshotMatrix, type SnapshotKey } from './snapshot';
 import type { View } from './viewport';
 
 export interface DrawRecord {
@@ -119,8 +119,9 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
   const dpr = typeof window !== 'undefined' ? Math.min(2, window.devicePixelRatio || 1) : 1;
   const measure = useRef<((t: string, px: number) => number) | null>(null);
 
-  // The view, inputs and plan of the picture on the canvas (its last full drawing).
-  const snap = useRef<{ view: View; key: SnapshotKey; plan: FramePlan } | null>(null);
+  // The view, inputs and plan of the picture on the canvas (its last full drawing), and its copy for gestures.
+  const snap = useRef<{ view: View; key: SnapshotKey; plan: FramePlan; copied: boolean } | null>(null);
+  const bitmap = useRef<HTMLCanvasElement | null>(null);
   // The screen's update after a drawing (summary, sites in view), waiting for the picture to be shown.
   const cancelDrawn = useRef<(() => void) | null>(null);
   useEffect(() => () => cancelDrawn.current?.(), []);
@@ -134,7 +135,7 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
       hook.draws.push(rec);
       if (hook.draws.length > KEEP_DRAWS) hook.draws.splice(0, hook.draws.length - KEEP_DRAWS);
     };
-    // Paints the whole plan on the canvas, where it stays put (no transform) until the next gesture.
+    // Paints the whole plan straight onto the canvas.
     const full = (labels: boolean) => {
       const el = canvas.current;
       const ctx = el?.getContext('2d');
@@ -144,8 +145,7 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
       const plan = planFrame({ model, lod, view, width, height, statuses, siteIndex, measure: measure.current, labels });
       const sel = selected !== null && selected < xs.length ? { x: xs[selected] * view.k + view.tx, y: ys[selected] * view.k + view.ty } : null;
       paintGeo(ctx, { plan, view, width, height, dpr, land: landPath, selected: sel });
-      el.style.transform = '';
-      snap.current = { view, key, plan };
+      snap.current = { view, key, plan, copied: false };
       planRef.current = plan;
       if (recording()) keep(record(plan, model, performance.now() - t0, gesture, false, statuses.size, landBox(), view));
       if (!gesture && onDrawn) {
@@ -156,13 +156,26 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
         });
       }
     };
-    // A gesture frame: the last full drawing moved and scaled to the live view by the compositor.
+    // A gesture frame: the last full drawing (copied once per drawing, at the first frame that moves it) drawn at the live view.
     const moved = () => {
       const el = canvas.current;
+      const ctx = el?.getContext('2d');
       const last = snap.current;
-      if (!el || !last) return;
+      if (!el || !ctx || !last) return;
       const t0 = performance.now();
-      el.style.transform = snapshotCss(last.view, view);
+      const copy = (bitmap.current ??= document.createElement('canvas'));
+      if (!last.copied) {
+        if (copy.width !== el.width || copy.height !== el.height) {
+          copy.width = el.width;
+          copy.height = el.height;
+        }
+        const cctx = copy.getContext('2d');
+        if (!cctx) return;
+        cctx.setTransform(1, 0, 0, 1, 0, 0);
+        cctx.drawImage(el, 0, 0);
+        last.copied = true;
+      }
+      paintSnapshot(ctx, copy, snapshotMatrix(last.view, view, dpr), width, height, dpr);
       if (recording()) keep(record(last.plan, model, performance.now() - t0, true, true, statuses.size, landBox(), view));
     };
 
@@ -196,8 +209,7 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
       ref={canvas}
       width={Math.round(width * dpr)}
       height={Math.round(height * dpr)}
-      // Its own compositing layer, moved and scaled during a gesture without being drawn again.
-      style={{ width, height, display: 'block', background: colors.surface, transformOrigin: '0 0', willChange: 'transform' }}
+      style={{ width, height, display: 'block', background: colors.surface }}
       aria-hidden
       data-testid="network-canvas"
     />

@@ -166,6 +166,20 @@ export function paintGeo(ctx: CanvasRenderingContext2D, { plan, view, width, hei
   }
 }
 
+/**
+ * A gesture frame: the last full drawing (`snapshot`, device px) drawn with
+ * `matrix` (./snapshot.ts), over the background where it no longer reaches.
+ */
+export function paintSnapshot(ctx: CanvasRenderingContext2D, snapshot: CanvasImageSource, matrix: readonly [number, number, number, number, number, number], width: number, height: number, dpr: number) {
+  ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
+  ctx.fillStyle = colors.surface;
+  ctx.fillRect(0, 0, width, height);
+  ctx.setTransform(...matrix);
+  // Moving, the picture need not be sharp: the cheapest smoothing keeps the copy to a few ms.
+  ctx.imageSmoothingQuality = 'low';
+  ctx.drawImage(snapshot, 0, 0);
+}
+
 /** Label widths by canvas measure, cached per font size and text (names repeat frame after frame). */
 export function canvasMeasure(ctx: CanvasRenderingContext2D): (text: string, fontPx: number) => number {
   const cache = new Map<string, number>();

@@ -1,23 +1,18 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { afterNextFrame, sameKey, snapshotCss } from './snapshot';
+import { afterNextFrame, sameKey, snapshotMatrix } from './snapshot';
 import { panBy, toScreen, zoomAt, IDENTITY } from './viewport';
 
 const W = 400;
 const H = 300;
 
-/** Applies a CSS matrix(a, b, c, d, e, f) (origin at the top left) to a point in CSS px. */
-const applyCss = (css: string, x: number, y: number) => {
-  if (css === '') return [x, y];
-  const m = css.match(/^matrix\((.*)\)$/)![1].split(',').map(Number);
-  return [m[0] * x + m[2] * y + m[4], m[1] * x + m[3] * y + m[5]];
-};
+/** Applies a setTransform matrix to a device-px point. */
+const apply = (m: number[], x: number, y: number) => [m[0] * x + m[2] * y + m[4], m[1] * x + m[3] * y + m[5]];
 
-describe('snapshotCss', () => {
-  it('puts every point of the drawn picture where the live view draws its diagram point', () => {
+describe('snapshotMatrix', () => {
+  it.each([1, 2])('puts every pixel of the bitmap where the live view draws its diagram point (pixel ratio %d)', (dpr) => {
     const drawn = zoomAt(IDENTITY, 3, 120, 90, W, H);
     const live = zoomAt(panBy(drawn, -40, 25, W, H), 1.7, 300, 40, W, H);
-    const css = snapshotCss(drawn, live);
-    expect(css).toMatch(/^matrix\(/);
+    const m = snapshotMatrix(drawn, live, dpr);
     for (const [wx, wy] of [
       [0, 0],
       [57, 141],
@@ -25,19 +20,19 @@ describe('snapshotCss', () => {
     ]) {
       const [sx, sy] = toScreen(drawn, wx, wy);
       const [lx, ly] = toScreen(live, wx, wy);
-      const [px, py] = applyCss(css, sx, sy);
-      expect(px).toBeCloseTo(lx, 9);
-      expect(py).toBeCloseTo(ly, 9);
+      const [px, py] = apply(m, sx * dpr, sy * dpr);
+      expect(px).toBeCloseTo(lx * dpr, 9);
+      expect(py).toBeCloseTo(ly * dpr, 9);
     }
   });
 
-  it('is no transform at all when the view has not moved', () => {
+  it('is the identity when the view has not moved', () => {
     const v = zoomAt(IDENTITY, 2, 10, 10, W, H);
-    expect(snapshotCss(v, v)).toBe('');
+    expect(snapshotMatrix(v, v, 2)).toEqual([1, 0, 0, 1, 0, 0]);
   });
 
-  it('refuses a zoom that is not positive', () => {
-    expect(() => snapshotCss(IDENTITY, { ...IDENTITY, k: 0 })).toThrow(/zoom must be > 0/);
+  it('refuses a pixel ratio that is not positive', () => {
+    expect(() => snapshotMatrix(IDENTITY, IDENTITY, 0)).toThrow(/pixel ratio must be > 0, got 0/);
   });
 });
 
