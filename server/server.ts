@@ -11,6 +11,7 @@ import { NetworkStore } from './services/networkStore';
 import { buildServedNetwork, updateServedNetwork } from './services/servedNetwork';
 import { ensureUser } from './services/users';
 import { applyDemoAccounts, listenHost, type DemoAccountsResult } from './services/demoAccounts';
+import { warmDrawing } from './services/exportCache';
 import { OperationsEvents } from './operations/events';
 import { ObjectStore } from './documents/storage';
 import { NoticeQueue, type NoticeQueueOptions } from './notices/queue';
@@ -55,6 +56,7 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
     const s = app.listen(config.PORT, host, () => resolve(s));
     s.on('error', reject);
   });
+  void warmDrawing(ctx);
   const address = server.address();
   port = typeof address === 'object' && address ? address.port : config.PORT;
 

@@ -40,7 +40,16 @@ export interface ExpandedDrawing {
   feeds: { code: string; from: string; to: string; medium: Medium; role: FeedRole }[];
 }
 
-export function drawingOf(doc: NetworkDocument, networkVersion: number): DrawingDocument {
+/** The fields of a network the drawing reads: a network document, or rows of the same shape (tests). */
+export type DrawableNetwork = {
+  services: readonly { code: string; name: string; kind: string }[];
+  groups: readonly { code: string; name: string }[];
+  sites: readonly (Pick<NetworkDocument['sites'][number], 'code' | 'name' | 'role' | 'lat' | 'lon'> & { households?: number | null })[];
+  carriages: readonly Pick<NetworkDocument['carriages'][number], 'code' | 'site' | 'service'>[];
+  feeds: readonly Pick<NetworkDocument['feeds'][number], 'code' | 'from' | 'to' | 'medium' | 'role'>[];
+};
+
+export function drawingOf(doc: DrawableNetwork, networkVersion: number): DrawingDocument {
   const siteAt = new Map(doc.sites.map((s, i) => [s.code, i]));
   const serviceAt = new Map(doc.services.map((s, i) => [s.code, i]));
   const carriages = doc.carriages.filter((c) => siteAt.has(c.site) && serviceAt.has(c.service));
@@ -69,8 +78,12 @@ export function drawingOf(doc: NetworkDocument, networkVersion: number): Drawing
   };
 }
 
-/** Back to rows; throws a RangeError naming the first column that does not line up or points past its table. */
-export function expandDrawing(d: DrawingDocument): ExpandedDrawing {
+/**
+ * Throws a RangeError naming the first column that does not line up or
+ * points past its table: after it, every position in `d` can be followed
+ * without a check (the diagram's model reads the columns directly).
+ */
+export function checkDrawing(d: DrawingDocument): void {
   const same = (what: string, cols: Record<string, unknown[]>) => {
     const [first, ...rest] = Object.entries(cols);
     for (const [name, col] of rest) if (col.length !== first[1].length) throw new RangeError(`${what}.${name} has ${col.length} entries, ${what}.${first[0]} ${first[1].length}`);
@@ -78,18 +91,29 @@ export function expandDrawing(d: DrawingDocument): ExpandedDrawing {
   same('sites', d.sites);
   same('carriages', d.carriages);
   same('feeds', d.feeds);
-  const pick = <T>(table: readonly T[], at: number, what: string): T => {
-    if (at >= table.length) throw new RangeError(`${what} points to entry ${at} of ${table.length}`);
-    return table[at];
+  const within = (col: readonly number[], size: number, what: string) => {
+    for (const at of col) if (at >= size) throw new RangeError(`${what} points to entry ${at} of ${size}`);
   };
-  const sites = d.sites.code.map((code, i) => ({ code, name: d.sites.name[i], role: pick(SITE_ROLES, d.sites.role[i], 'sites.role'), lat: d.sites.lat[i], lon: d.sites.lon[i], households: d.sites.households[i] }));
-  const carriages = d.carriages.code.map((code, i) => ({ code, site: pick(d.sites.code, d.carriages.site[i], 'carriages.site'), service: pick(d.services, d.carriages.service[i], 'carriages.service').code }));
+  within(d.sites.role, SITE_ROLES.length, 'sites.role');
+  within(d.carriages.site, d.sites.code.length, 'carriages.site');
+  within(d.carriages.service, d.services.length, 'carriages.service');
+  within(d.feeds.from, d.carriages.code.length, 'feeds.from');
+  within(d.feeds.to, d.carriages.code.length, 'feeds.to');
+  within(d.feeds.medium, MEDIA.length, 'feeds.medium');
+  within(d.feeds.role, FEED_ROLES.length, 'feeds.role');
+}
+
+/** Back to rows (checked first, as checkDrawing). */
+export function expandDrawing(d: DrawingDocument): ExpandedDrawing {
+  checkDrawing(d);
+  const sites = d.sites.code.map((code, i) => ({ code, name: d.sites.name[i], role: SITE_ROLES[d.sites.role[i]], lat: d.sites.lat[i], lon: d.sites.lon[i], households: d.sites.households[i] }));
+  const carriages = d.carriages.code.map((code, i) => ({ code, site: d.sites.code[d.carriages.site[i]], service: d.services[d.carriages.service[i]].code }));
   const feeds = d.feeds.code.map((code, i) => ({
     code,
-    from: pick(d.carriages.code, d.feeds.from[i], 'feeds.from'),
-    to: pick(d.carriages.code, d.feeds.to[i], 'feeds.to'),
-    medium: pick(MEDIA, d.feeds.medium[i], 'feeds.medium'),
-    role: pick(FEED_ROLES, d.feeds.role[i], 'feeds.role'),
+    from: d.carriages.code[d.feeds.from[i]],
+    to: d.carriages.code[d.feeds.to[i]],
+    medium: MEDIA[d.feeds.medium[i]],
+    role: FEED_ROLES[d.feeds.role[i]],
   }));
   return { sites, services: d.services, groups: d.groups, carriages, feeds };
 }

@@ -110,6 +110,11 @@ export async function request(path: string, options: RequestOptions = {}): Promi
     body: body === undefined ? undefined : JSON.stringify(body),
     contentType: body === undefined ? undefined : 'application/json',
   });
+  return jsonOf(path, res);
+}
+
+/** The JSON body of an answer to `path` (undefined for an empty body); an ApiError when it is not JSON. */
+export async function jsonOf(path: string, res: Response): Promise<unknown> {
   const parsed = await readJson(res);
   if (!parsed.ok) throw new ApiError(res.status, 'bad-response', `The server's answer to ${path} was not JSON.`);
   return parsed.value;

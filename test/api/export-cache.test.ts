@@ -6,6 +6,7 @@ import http from 'node:http';
 import zlib from 'node:zlib';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
+import { drawingJson, warmDrawing } from '@/server/services/exportCache';
 import { loadNetworkDocument } from '@/server/services/networkLoader';
 import { drawingDocumentSchema, drawingOf } from '@/shared/schemas/drawing';
 import { smallNetwork } from '../fixtures/small-network';
@@ -101,5 +102,18 @@ describe('JSON export', () => {
     const after = await loadNetworkDocument(t.db.sequelize);
     expect(after.document.sites.find((s) => s.code === 'R2')?.name).toBe('Relay Two renamed');
     expect(changed.body.networkVersion).toBe(after.version);
+  });
+
+  it('makes the diagram\'s columns ahead of the first request when warmed (start-up), and the request is answered with those bytes', async () => {
+    const t = getT();
+    const warmed = await warmDrawing(t.ctx);
+    expect(warmed).not.toBeNull();
+    const stored = await loadNetworkDocument(t.db.sequelize);
+    expect(warmed!.version).toBe(stored.version);
+    expect(await drawingJson(t.ctx)).toBe(warmed);
+    const answer = await request(t.app).get('/api/network/drawing').set(t.auth('viewer'));
+    expect(answer.status).toBe(200);
+    expect(answer.headers.etag).toBe(warmed!.etag);
+    expect(JSON.parse(warmed!.body.toString('utf8'))).toEqual(drawingOf(stored.document, stored.version));
   });
 });

@@ -11,10 +11,12 @@
 import useSWR from 'swr';
 import { api } from '@/shared/api';
 import { useSend } from '../ApiProvider';
-import { ApiError, parseAnswer } from '../client';
+import { useSession } from '@/src/session/SessionProvider';
+import { ApiError, jsonOf, parseAnswer } from '../client';
 import { freshness } from '../freshness';
 import { networkDrawingSchema, type NetworkDrawing } from '../schemas';
-import { drawingDocumentSchema, expandDrawing } from '@/shared/schemas/drawing';
+import { checkDrawing, drawingDocumentSchema, type DrawingDocument } from '@/shared/schemas/drawing';
+import { takeEarlyDrawing } from './drawingEarly';
 
 export const networkDrawingKey = () => ['network-drawing', api.exportNetwork] as const;
 
@@ -29,18 +31,27 @@ export function useNetworkDrawing(enabled = true) {
 
 export const diagramDrawingKey = () => ['network-diagram', api.networkDrawing] as const;
 
-/** The diagram's rows: the same shape as useNetworkDrawing's, from the diagram's columns. */
+/**
+ * The diagram's columns, checked (checkDrawing) so the diagram's model can
+ * follow every position in them without a check of its own; the rows are
+ * made only where they are needed (the schematic: expandDrawing). Taken from
+ * the request the root layout sent as the page opened, when there is one
+ * (./drawingEarly.ts).
+ */
 export function useDiagramDrawing() {
   const send = useSend();
-  return useSWR<NetworkDrawing, ApiError>(
+  const { tokenRef } = useSession();
+  return useSWR<DrawingDocument, ApiError>(
     diagramDrawingKey(),
     async ([, path]: readonly [string, string]) => {
-      const columns = parseAnswer(drawingDocumentSchema, path, await send(path));
+      const early = await takeEarlyDrawing(tokenRef.current);
+      const columns = parseAnswer(drawingDocumentSchema, path, early ? await jsonOf(path, early) : await send(path));
       try {
-        return expandDrawing(columns);
+        checkDrawing(columns);
       } catch (e) {
         throw new ApiError(200, 'bad-response', `The server's answer to ${path} was not understood: ${(e as Error).message}.`);
       }
+      return columns;
     },
     freshness.network,
   );

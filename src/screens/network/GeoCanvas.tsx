@@ -1,11 +1,12 @@
 /**
  * The geographic diagram on a <canvas> (web): tens of thousands of SVG nodes
  * would stall a phone, one canvas redrawn from a frame plan does not. Draws
- * at most once per animation frame, at the device's pixel ratio. The full
- * drawing is painted on an offscreen canvas and copied in; during a gesture
- * that copy is moved and scaled (./snapshot.ts) instead of painting again,
- * and the detail is painted when the gesture pauses or ends: the browser
- * rasterises thousands of strokes far more slowly than it records them.
+ * at most once per animation frame, at the device's pixel ratio, straight
+ * onto the canvas. During a gesture a copy of the last full drawing is moved
+ * and scaled (./snapshot.ts) instead of painting again, and the detail
+ * is painted when the gesture pauses or ends: the browser rasterises
+ * thousands of strokes far more slowly than it records them. The screen's
+ * own update after a drawing (`onDrawn`) waits until the picture is shown.
  * When the page records (src/testHooks.ts), each draw's time and what it
  * drew are kept on window.__headwaterDiagram for the browser benchmark and
  * tests.
@@ -17,7 +18,7 @@ import { planFrame, type FramePlan, type Status } from './framePlan';
 import type { LodIndex } from './lod';
 import { canvasMeasure, paintGeo, paintSnapshot } from './paintGeo';
 import { recording } from '@/src/testHooks';
-import { PAUSE_REDRAW_MS, sameKey, snapshotMatrix, type SnapshotKey } from './snapshot';
+import { afterNextFrame, PAUSE_REDRAW_MS, sameKey, snapshotMatrix, type SnapshotKey } from './snapshot';
 import type { View } from './viewport';
 
 export interface DrawRecord {
@@ -102,7 +103,7 @@ export interface GeoCanvasProps {
   ys: Float64Array;
   /** The last plan drawn, for hit testing taps. */
   planRef: { current: FramePlan | null };
-  /** Called after each draw outside a gesture. */
+  /** Called after each draw outside a gesture, once that drawing has been shown. */
   onDrawn?: (plan: FramePlan) => void;
 }
 
@@ -118,8 +119,12 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
   const dpr = typeof window !== 'undefined' ? Math.min(2, window.devicePixelRatio || 1) : 1;
   const measure = useRef<((t: string, px: number) => number) | null>(null);
 
-  // The last full drawing (device px) and the view and inputs it was drawn with.
-  const snap = useRef<{ canvas: HTMLCanvasElement; view: View; key: SnapshotKey; plan: FramePlan } | null>(null);
+  // The view, inputs and plan of the picture on the canvas (its last full drawing), and its copy for gestures.
+  const snap = useRef<{ view: View; key: SnapshotKey; plan: FramePlan; copied: boolean } | null>(null);
+  const bitmap = useRef<HTMLCanvasElement | null>(null);
+  // The screen's update after a drawing (summary, sites in view), waiting for the picture to be shown.
+  const cancelDrawn = useRef<(() => void) | null>(null);
+  useEffect(() => () => cancelDrawn.current?.(), []);
 
   useEffect(() => {
     const key: SnapshotKey = [model, lod, siteIndex, width, height, statuses, landPath, selected, xs, ys, dpr];
@@ -130,38 +135,47 @@ export function GeoCanvas({ model, lod, siteIndex, width, height, view, gesture,
       hook.draws.push(rec);
       if (hook.draws.length > KEEP_DRAWS) hook.draws.splice(0, hook.draws.length - KEEP_DRAWS);
     };
-    // Paints the whole plan on the offscreen canvas and copies it in.
+    // Paints the whole plan straight onto the canvas.
     const full = (labels: boolean) => {
       const el = canvas.current;
       const ctx = el?.getContext('2d');
       if (!el || !ctx) return;
       const t0 = performance.now();
-      const off = snap.current?.canvas ?? document.createElement('canvas');
-      if (off.width !== el.width || off.height !== el.height) {
-        off.width = el.width;
-        off.height = el.height;
-      }
-      const octx = off.getContext('2d');
-      if (!octx) return;
       if (!measure.current) measure.current = canvasMeasure(ctx);
       const plan = planFrame({ model, lod, view, width, height, statuses, siteIndex, measure: measure.current, labels });
       const sel = selected !== null && selected < xs.length ? { x: xs[selected] * view.k + view.tx, y: ys[selected] * view.k + view.ty } : null;
-      paintGeo(octx, { plan, view, width, height, dpr, land: landPath, selected: sel });
-      ctx.setTransform(1, 0, 0, 1, 0, 0);
-      ctx.drawImage(off, 0, 0);
-      snap.current = { canvas: off, view, key, plan };
+      paintGeo(ctx, { plan, view, width, height, dpr, land: landPath, selected: sel });
+      snap.current = { view, key, plan, copied: false };
       planRef.current = plan;
       if (recording()) keep(record(plan, model, performance.now() - t0, gesture, false, statuses.size, landBox(), view));
-      if (!gesture) onDrawn?.(plan);
+      if (!gesture && onDrawn) {
+        cancelDrawn.current?.();
+        cancelDrawn.current = afterNextFrame(() => {
+          cancelDrawn.current = null;
+          onDrawn(plan);
+        });
+      }
     };
-    // A gesture frame: the last full drawing moved to the live view.
+    // A gesture frame: the last full drawing (copied once per drawing, at the first frame that moves it) drawn at the live view.
     const moved = () => {
       const el = canvas.current;
       const ctx = el?.getContext('2d');
       const last = snap.current;
       if (!el || !ctx || !last) return;
       const t0 = performance.now();
-      paintSnapshot(ctx, last.canvas, snapshotMatrix(last.view, view, dpr), width, height, dpr);
+      const copy = (bitmap.current ??= document.createElement('canvas'));
+      if (!last.copied) {
+        if (copy.width !== el.width || copy.height !== el.height) {
+          copy.width = el.width;
+          copy.height = el.height;
+        }
+        const cctx = copy.getContext('2d');
+        if (!cctx) return;
+        cctx.setTransform(1, 0, 0, 1, 0, 0);
+        cctx.drawImage(el, 0, 0);
+        last.copied = true;
+      }
+      paintSnapshot(ctx, copy, snapshotMatrix(last.view, view, dpr), width, height, dpr);
       if (recording()) keep(record(last.plan, model, performance.now() - t0, true, true, statuses.size, landBox(), view));
     };
 

@@ -49,7 +49,7 @@ export interface NetworkDiagramProps {
   height: number;
   view: ViewT;
   onView: (v: ViewT) => void;
-  statuses: Map<string, SiteStatus>;
+  statuses: ReadonlyMap<string, SiteStatus>;
   selected: number | null;
   onSelect: (index: number | null) => void;
   onDrawn: (counts: DrawnCounts, inView: number[]) => void;

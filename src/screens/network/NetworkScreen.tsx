@@ -17,6 +17,7 @@ import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { formatFailSet, parseFailSet } from '@/src/screens/reach/failSet';
 import { LinkRow } from '@/src/screens/reach/LinkRow';
 import { colors, space, type } from '@/src/theme';
+import { expandDrawing } from '@/shared/schemas/drawing';
 import { buildDiagram, placeDiagram, siteStatuses } from './diagramModel';
 import { DIAGRAM_MARKS } from './diagramMarks';
 import { DEMO_COAST_CORNERS, LAND_CREDIT, landGeometry, landKindFor, landPath } from './landOutline';
@@ -24,7 +25,6 @@ import { NetworkDiagram, type DrawnCounts } from './NetworkDiagram';
 import { networkHref, type DiagramMode } from './networkHref';
 import { SchematicView } from './SchematicView';
 import { ViewSwitch } from './ViewSwitch';
-import { fitProjection } from './projection';
 import { ServiceFilter } from './ServiceFilter';
 import { SitesInView } from './SitesInView';
 import { SiteCard } from './SiteCard';
@@ -58,6 +58,8 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   const schematic = mode === 'schematic';
   const knownService = !service || !drawing.data || drawing.data.services.some((s) => s.code === service);
   const model = useMemo(() => (drawing.data ? buildDiagram(drawing.data, knownService ? service : null) : null), [drawing.data, service, knownService]);
+  // Rows only for the schematic (its tree reads codes); the map reads the columns.
+  const rows = useMemo(() => (schematic && drawing.data ? expandDrawing(drawing.data) : null), [schematic, drawing.data]);
   const landKind = useMemo(() => landKindFor(model?.sites ?? []), [model]);
   // On the demo island the fit takes in the whole coast, so the picture shows the island entire.
   const alsoShow = landKind === 'demo' ? DEMO_COAST_CORNERS : NO_PLACES;
@@ -66,8 +68,8 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   const schematicService = service ?? (drawing.data ? ([...drawing.data.services].sort((a, b) => a.code.localeCompare(b.code))[0]?.code ?? null) : null);
   const schematicStatuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, schematicService), [reach.data, schematicService, failed.length]);
   const statuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, service), [reach.data, service, failed.length]);
-  // The same fit as placeDiagram's: the land and the scale line up with the sites.
-  const fit = useMemo(() => (model && width > 0 && model.sites.length > 0 ? fitProjection([...model.sites, ...alsoShow], width, height, 28) : null), [model, width, height, alsoShow]);
+  // The fit that placed the sites: the land and the scale line up with them.
+  const fit = placed?.fit ?? null;
   const land = useMemo(() => (showLand && fit ? landPath(landGeometry(landKind), fit.projection, width, height) : null), [showLand, fit, landKind, width, height]);
 
   // A new network or filter starts from the whole picture. (Not a new box
@@ -89,8 +91,14 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
 
   let body: React.ReactNode;
   if (drawing.error && !drawing.data) body = <ErrorState what="the network" error={drawing.error} onRetry={() => void drawing.mutate()} testID="network-error" />;
-  else if (!drawing.data || !model) body = <LoadingState what="the network" testID="network-loading" />;
-  else if (drawing.data.sites.length === 0) body = <EmptyState title="The network is empty" message="There are no sites to draw yet. Add them in Inventory, or import a network document." testID="network-empty" />;
+  else if (!drawing.data || !model) {
+    // Laid out at the diagram's width already, so the drawing can be placed as soon as the data is in.
+    body = (
+      <View style={styles.measure} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
+        <LoadingState what="the network" testID="network-loading" />
+      </View>
+    );
+  } else if (drawing.data.sites.code.length === 0) body = <EmptyState title="The network is empty" message="There are no sites to draw yet. Add them in Inventory, or import a network document." testID="network-empty" />;
   else if (!knownService) body = <EmptyState title={`No service with code ${service}`} message="Choose a service above, or show them all." testID="network-unknown-service" />;
   else if (model.sites.length === 0) body = <EmptyState title="Nothing carries this service" message="No site has a carriage of the chosen service." testID="network-no-sites" />;
   else {
@@ -107,8 +115,8 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
           </View>
         )}
         <View style={styles.stage}>
-          {schematic && schematicService ? (
-            <SchematicView doc={drawing.data} service={schematicService} statuses={schematicStatuses} height={height} onChoose={(code) => setSelected(model.sites.findIndex((s) => s.code === code))} />
+          {schematic && schematicService && rows ? (
+            <SchematicView doc={rows} service={schematicService} statuses={schematicStatuses} height={height} onChoose={(code) => setSelected(model.sites.findIndex((s) => s.code === code))} />
           ) : (
             <View style={styles.diagramWrap} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
               {placed && width > 0 ? (
@@ -179,6 +187,7 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
 const styles = StyleSheet.create({
   tools: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   stage: { position: 'relative' },
+  measure: { width: '100%' },
   diagramWrap: { width: '100%', borderWidth: 1, borderColor: colors.line, borderRadius: 8, overflow: 'hidden', backgroundColor: colors.surface },
   summary: { ...type.body, fontSize: 16 },
   small: { ...type.small },

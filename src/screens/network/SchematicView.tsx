@@ -43,7 +43,7 @@ declare global {
 const STATUS_WORD: Record<SiteStatus, string> = { 'off-air': 'off air', 'on-reserve': 'on reserve' };
 const ROLE_WORD = { origin: 'Origin', main: 'Main station', relay: 'Relay' } as const;
 
-export function SchematicView({ doc, service, statuses, height, onChoose }: { doc: NetworkDrawing; service: string; statuses: Map<string, SiteStatus>; height: number; onChoose: (site: string) => void }) {
+export function SchematicView({ doc, service, statuses, height, onChoose }: { doc: NetworkDrawing; service: string; statuses: ReadonlyMap<string, SiteStatus>; height: number; onChoose: (site: string) => void }) {
   const t = useMemo(() => buildSchematic(doc, service), [doc, service]);
   const [open, setOpen] = useState<ReadonlySet<string>>(new Set());
   useEffect(() => setOpen(new Set()), [t]);

@@ -12,7 +12,7 @@ import { colors, fonts, space, TOUCH_MIN, type } from '@/src/theme';
 import { orderSitesInView, type DiagramSite, type SiteStatus } from './diagramModel';
 
 /** Memoised: the screen re-renders on every pan and zoom step, and the list only changes with what was drawn. */
-export const SitesInView = memo(function SitesInView({ sites, inView, statuses, onChoose }: { sites: DiagramSite[]; inView: number[]; statuses: Map<string, SiteStatus>; onChoose: (i: number) => void }) {
+export const SitesInView = memo(function SitesInView({ sites, inView, statuses, onChoose }: { sites: DiagramSite[]; inView: number[]; statuses: ReadonlyMap<string, SiteStatus>; onChoose: (i: number) => void }) {
   const ordered = useMemo(() => orderSitesInView(sites, inView, statuses), [sites, inView, statuses]);
   return (
     <View style={styles.wrap} testID="network-sites-in-view">

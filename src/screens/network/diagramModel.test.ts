@@ -1,6 +1,8 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { NetworkDrawing } from '@/src/api/schemas';
-import { buildDiagram, orderSitesInView, placeDiagram, siteStatuses } from './diagramModel';
+import { drawingOf } from '@/shared/schemas/drawing';
+import { buildDiagram as fromColumns, orderSitesInView, placeDiagram, siteStatuses } from './diagramModel';
 
 const doc: NetworkDrawing = {
   sites: [
@@ -29,8 +31,11 @@ const doc: NetworkDrawing = {
   ],
 };
 
+/** The model of rows, through the server's columns (which leave out a feed naming a missing carriage). */
+const buildDiagram = (rows: NetworkDrawing, service: string | null) => fromColumns(drawingOf(rows, 1), service);
+
 describe('buildDiagram', () => {
-  it('merges feeds per site pair, medium and role', () => {
+  it('merges feeds per site pair, medium and role (a feed naming a missing carriage is not drawn)', () => {
     const m = buildDiagram(doc, null);
     expect(m.sites.map((s) => s.code)).toEqual(['O', 'M', 'R']);
     expect(m.sites[0].services).toEqual(['FM', 'TV']);
@@ -42,7 +47,6 @@ describe('buildDiagram', () => {
       { from: 1, to: 2, medium: 'off-air', role: 'main', feeds: 1 },
     ]);
     expect(m.feedCount).toBe(4);
-    expect(m.skippedFeeds).toBe(1);
   });
 
   it('keeps only the sites and feeds of a chosen service', () => {
@@ -50,7 +54,7 @@ describe('buildDiagram', () => {
     expect(m.sites.map((s) => s.code)).toEqual(['O', 'M']);
     expect(m.sites[1].carriages).toEqual(['M.FM']);
     expect(m.links).toEqual([{ from: 0, to: 1, medium: 'line', role: 'main', feeds: 1 }]);
-    expect(m.skippedFeeds).toBe(0);
+    expect(m.feedCount).toBe(1);
   });
 
   it('draws nothing for a service nobody carries', () => {
@@ -116,6 +120,11 @@ describe('siteStatuses', () => {
     expect(s.has('M')).toBe(false);
     expect(siteStatuses(undefined, null).size).toBe(0);
   });
+
+  it('is one and the same empty set while there is no answer (the drawing is not redrawn for a new empty one)', () => {
+    expect(siteStatuses(undefined, null)).toBe(siteStatuses(undefined, 'TV'));
+    expect(siteStatuses(reach, null)).not.toBe(siteStatuses(reach, null));
+  });
 });
 
 describe('orderSitesInView', () => {
@@ -132,5 +141,26 @@ describe('orderSitesInView', () => {
 
   it('skips indices left over from a larger view (a filter just narrowed the sites)', () => {
     expect(orderSitesInView(m.sites, [2, 7, 40, -1], new Map())).toEqual([2]);
+  });
+
+  it('gives the order of a plain sort by mark, households and code, for any sites, view and failure set', () => {
+    const rank = { 'off-air': 0, 'on-reserve': 1 } as const;
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ households: fc.option(fc.integer({ min: 0, max: 5 }), { nil: null }), mark: fc.constantFrom('off-air', 'on-reserve', null) }), { minLength: 1, maxLength: 60 }),
+        fc.array(fc.nat(80), { maxLength: 70 }),
+        (rows, view) => {
+          const sites = rows.map((r, i) => ({ ...m.sites[0], code: `S${(i * 7) % 61}-${i}`, households: r.households }));
+          const statuses = new Map(rows.flatMap((r, i) => (r.mark ? [[sites[i].code, r.mark] as const] : [])));
+          const inView = [...new Set(view)];
+          const key = (i: number) => { const st = statuses.get(sites[i].code); return st ? rank[st] : 2; };
+          const want = inView
+            .filter((i) => i < sites.length)
+            .sort((a, b) => key(a) - key(b) || (sites[b].households ?? 0) - (sites[a].households ?? 0) || (sites[a].code < sites[b].code ? -1 : 1));
+          expect(orderSitesInView(sites, inView, statuses)).toEqual(want);
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });

@@ -1,14 +1,15 @@
 /**
- * What the network diagram draws, built once per network and service filter:
+ * What the network diagram draws, built once per network and service filter
+ * from the server's columns (shared/schemas/drawing.ts):
  * sites (those carrying the chosen service, or all), and feed lines merged
  * per site pair, medium and role, so thousands of feeds of many services
  * become one line per visible path. Positions are typed arrays for the
  * culling in ./viewport.ts.
  */
-import type { FeedRole, Medium, SiteRole } from '@/shared/schemas/network';
-import type { NetworkDrawing } from '@/src/api/schemas';
+import { FEED_ROLES, MEDIA, SITE_ROLES, type FeedRole, type Medium, type SiteRole } from '@/shared/schemas/network';
+import type { DrawingDocument } from '@/shared/schemas/drawing';
 import type { ReachResult } from '@/src/api/queries/analysis';
-import { fitProjection, type LonLat } from './projection';
+import { fitProjection, type FittedProjection, type LonLat } from './projection';
 
 export interface DiagramSite {
   code: string;
@@ -37,64 +38,85 @@ export interface DiagramModel {
   links: DiagramLink[];
   /** Feeds drawn (merged into links). */
   feedCount: number;
-  /** Feeds left out because a carriage they name is not in the document. */
-  skippedFeeds: number;
 }
 
-export function buildDiagram(doc: NetworkDrawing, service: string | null): DiagramModel {
-  const carriageAt = new Map<string, { site: string; service: string }>();
-  for (const c of doc.carriages) {
-    if (service && c.service !== service) continue;
-    carriageAt.set(c.code, { site: c.site, service: c.service });
+/**
+ * The model straight from the server's columns (already checked with
+ * checkDrawing): positions are followed as numbers and feeds merged under a
+ * numeric key, with no row objects or text keys made on the way. At 20,000
+ * sites the rows and their text-keyed maps cost the first frame about half a
+ * second, most of it in making and collecting garbage.
+ */
+export function buildDiagram(d: DrawingDocument, service: string | null): DiagramModel {
+  const nSites = d.sites.code.length;
+  const nCarriages = d.carriages.code.length;
+  const carriageSite = d.carriages.site;
+  const carriageService = d.carriages.service;
+  // -1 for a service nobody has: then no carriage is kept.
+  const wanted = service === null ? -1 : d.services.findIndex((s) => s.code === service);
+  const kept = new Uint8Array(nCarriages);
+  // The kept carriages grouped by site (a count per site, then the carriages in site order).
+  const start = new Int32Array(nSites + 1);
+  for (let c = 0; c < nCarriages; c++) {
+    if (service !== null && carriageService[c] !== wanted) continue;
+    kept[c] = 1;
+    start[carriageSite[c] + 1]++;
   }
-  const perSite = new Map<string, { services: Set<string>; carriages: string[] }>();
-  for (const [code, c] of carriageAt) {
-    let entry = perSite.get(c.site);
-    if (!entry) perSite.set(c.site, (entry = { services: new Set(), carriages: [] }));
-    entry.services.add(c.service);
-    entry.carriages.push(code);
-  }
+  for (let i = 0; i < nSites; i++) start[i + 1] += start[i];
+  const bySite = new Int32Array(start[nSites]);
+  const fill = start.slice(0, nSites);
+  for (let c = 0; c < nCarriages; c++) if (kept[c]) bySite[fill[carriageSite[c]]++] = c;
+
   const sites: DiagramSite[] = [];
-  const indexOf = new Map<string, number>();
-  for (const s of doc.sites) {
-    const here = perSite.get(s.code);
-    if (service && !here) continue;
-    indexOf.set(s.code, sites.length);
+  const siteAt = new Int32Array(nSites).fill(-1);
+  for (let i = 0; i < nSites; i++) {
+    const from = start[i];
+    const to = start[i + 1];
+    if (service !== null && from === to) continue;
+    siteAt[i] = sites.length;
+    const carriages: string[] = [];
+    const services: string[] = [];
+    for (let k = from; k < to; k++) {
+      const c = bySite[k];
+      carriages.push(d.carriages.code[c]);
+      const code = d.services[carriageService[c]].code;
+      if (!services.includes(code)) services.push(code);
+    }
     sites.push({
-      code: s.code,
-      name: s.name,
-      role: s.role,
-      lat: s.lat,
-      lon: s.lon,
-      households: s.households ?? null,
-      services: here ? [...here.services].sort() : [],
-      carriages: here ? [...here.carriages].sort() : [],
+      code: d.sites.code[i],
+      name: d.sites.name[i],
+      role: SITE_ROLES[d.sites.role[i]],
+      lat: d.sites.lat[i],
+      lon: d.sites.lon[i],
+      households: d.sites.households[i] ?? null,
+      services: services.sort(),
+      carriages: carriages.sort(),
     });
   }
-  const merged = new Map<string, DiagramLink>();
+
+  // One line per site pair (in feed direction), medium and role, in the order first met.
+  const links: DiagramLink[] = [];
+  const merged = new Map<number, number>();
+  const nSiteKept = sites.length;
   let feedCount = 0;
-  let skippedFeeds = 0;
-  for (const f of doc.feeds) {
-    const a = carriageAt.get(f.from);
-    const b = carriageAt.get(f.to);
-    if (!a || !b) {
-      // Outside the service filter is expected; a dangling reference is not.
-      if (!service) skippedFeeds++;
-      continue;
-    }
-    const from = indexOf.get(a.site);
-    const to = indexOf.get(b.site);
-    if (from === undefined || to === undefined) {
-      skippedFeeds++;
-      continue;
-    }
+  const { from: feedFrom, to: feedTo, medium: feedMedium, role: feedRole } = d.feeds;
+  for (let f = 0; f < feedFrom.length; f++) {
+    const a = feedFrom[f];
+    const b = feedTo[f];
+    if (!kept[a] || !kept[b]) continue;
+    const from = siteAt[carriageSite[a]];
+    const to = siteAt[carriageSite[b]];
     feedCount++;
-    const key = `${from}>${to}|${f.medium}|${f.role}`;
-    const link = merged.get(key);
-    if (link) link.feeds++;
-    else merged.set(key, { from, to, medium: f.medium, role: f.role, feeds: 1 });
+    // Below 2^53 for any network a browser could hold: (sites^2) x media x roles.
+    const key = ((from * nSiteKept + to) * MEDIA.length + feedMedium[f]) * FEED_ROLES.length + feedRole[f];
+    const at = merged.get(key);
+    if (at !== undefined) links[at].feeds++;
+    else {
+      merged.set(key, links.length);
+      links.push({ from, to, medium: MEDIA[feedMedium[f]], role: FEED_ROLES[feedRole[f]], feeds: 1 });
+    }
   }
-  return { sites, links: [...merged.values()], feedCount, skippedFeeds };
+  return { sites, links, feedCount };
 }
 
 export interface PlacedDiagram {
@@ -102,10 +124,15 @@ export interface PlacedDiagram {
   ys: Float64Array;
   linkFrom: Int32Array;
   linkTo: Int32Array;
+  /** The projection that placed them (null with no sites): the land and the scale use the same. */
+  fit?: FittedProjection | null;
 }
 
-/** Diagram px of every site and the end indices of every link, for a box of width x height. */
-/** Places the sites; `alsoShow` are further places the fit keeps in the box (the demo island's corners). */
+/**
+ * Diagram px of every site and the end indices of every link, for a box of
+ * width x height; `alsoShow` are further places the fit keeps in the box
+ * (the demo island's corners).
+ */
 export function placeDiagram(model: DiagramModel, width: number, height: number, pad = 28, alsoShow: readonly LonLat[] = []): PlacedDiagram {
   const fit = fitProjection(alsoShow.length > 0 && model.sites.length > 0 ? [...model.sites, ...alsoShow] : model.sites, width, height, pad);
   const xs = new Float64Array(model.sites.length);
@@ -117,24 +144,28 @@ export function placeDiagram(model: DiagramModel, width: number, height: number,
       ys[i] = y;
     });
   }
-  return {
-    xs,
-    ys,
-    linkFrom: Int32Array.from(model.links, (l) => l.from),
-    linkTo: Int32Array.from(model.links, (l) => l.to),
-  };
+  const linkFrom = new Int32Array(model.links.length);
+  const linkTo = new Int32Array(model.links.length);
+  model.links.forEach((l, i) => {
+    linkFrom[i] = l.from;
+    linkTo[i] = l.to;
+  });
+  return { xs, ys, linkFrom, linkTo, fit };
 }
 
 export type SiteStatus = 'off-air' | 'on-reserve';
+
+const NO_STATUSES: ReadonlyMap<string, SiteStatus> = new Map();
 
 /**
  * Sites marked by a reach answer: "off air" where at least one carriage (of
  * the filtered service, when there is one) loses programme, "on reserve"
  * where none does but at least one runs on a reserve feed.
  */
-export function siteStatuses(reach: ReachResult | undefined, service: string | null): Map<string, SiteStatus> {
+export function siteStatuses(reach: ReachResult | undefined, service: string | null): ReadonlyMap<string, SiteStatus> {
+  // One empty set for every "no answer yet": the drawing compares failure sets by identity and is not redrawn for a new empty one.
+  if (!reach) return NO_STATUSES;
   const out = new Map<string, SiteStatus>();
-  if (!reach) return out;
   const keep = (list: readonly string[] | undefined) => (list ?? []).filter((s) => !service || s === service);
   for (const row of reach.sites) {
     if (keep(row.lost).length > 0) out.set(row.site, 'off-air');
@@ -143,21 +174,56 @@ export function siteStatuses(reach: ReachResult | undefined, service: string | n
   return out;
 }
 
-const STATUS_RANK: Record<SiteStatus, number> = { 'off-air': 0, 'on-reserve': 1 };
+/** Every site's index by households (most first), then code: made once per model and kept. */
+const byHouseholds = new WeakMap<readonly DiagramSite[], Int32Array>();
+
+function householdOrder(sites: readonly DiagramSite[]): Int32Array {
+  let order = byHouseholds.get(sites);
+  if (!order) {
+    // codes compared by code unit, not localeCompare: this sorts every site of the network
+    const all = Array.from({ length: sites.length }, (_, i) => i).sort((a, b) => (sites[b].households ?? 0) - (sites[a].households ?? 0) || (sites[a].code < sites[b].code ? -1 : sites[a].code > sites[b].code ? 1 : 0));
+    byHouseholds.set(sites, (order = Int32Array.from(all)));
+  }
+  return order;
+}
 
 /**
  * The sites on screen in the order a person wants them: off air first, then
  * on reserve, then by households (most first), then by code. Indices past
  * the end of `sites` (left from the view of a previous filter for one render)
- * are skipped.
+ * are skipped. It runs after every drawing and every new failure set over up
+ * to every site, so it sorts nothing itself: it walks the model's one
+ * ordering by households (made once) and takes the sites in view, the
+ * marked ones first (a sort with a failure-set lookup per comparison took
+ * some 200 ms at 20,000 sites in view, before the overlay could be drawn).
  */
-export function orderSitesInView(sites: readonly DiagramSite[], inView: readonly number[], statuses: Map<string, SiteStatus>): number[] {
-  const rank = (i: number) => {
-    const st = statuses.get(sites[i].code);
-    return st ? STATUS_RANK[st] : 2;
-  };
-  return inView
-    .filter((i) => i >= 0 && i < sites.length)
-    // codes compared by code unit, not localeCompare: this runs after every zoom step over up to every site
-    .sort((a, b) => rank(a) - rank(b) || (sites[b].households ?? 0) - (sites[a].households ?? 0) || (sites[a].code < sites[b].code ? -1 : sites[a].code > sites[b].code ? 1 : 0));
+export function orderSitesInView(sites: readonly DiagramSite[], inView: readonly number[], statuses: ReadonlyMap<string, SiteStatus>): number[] {
+  const inside = new Uint8Array(sites.length);
+  for (const i of inView) if (i >= 0 && i < sites.length) inside[i] = 1;
+  // The failure set is a few sites: looked up by code once each, not once per site in view.
+  const mark = new Uint8Array(sites.length);
+  if (statuses.size > 0) {
+    const at = codeIndex(sites);
+    for (const [code, st] of statuses) {
+      const i = at.get(code);
+      if (i !== undefined) mark[i] = st === 'off-air' ? 1 : 2;
+    }
+  }
+  const off: number[] = [];
+  const reserve: number[] = [];
+  const rest: number[] = [];
+  for (const i of householdOrder(sites)) {
+    if (!inside[i]) continue;
+    (mark[i] === 1 ? off : mark[i] === 2 ? reserve : rest).push(i);
+  }
+  return off.concat(reserve, rest);
+}
+
+/** Each site's index by code, made once per model and kept. */
+const byCode = new WeakMap<readonly DiagramSite[], Map<string, number>>();
+
+function codeIndex(sites: readonly DiagramSite[]): Map<string, number> {
+  let at = byCode.get(sites);
+  if (!at) byCode.set(sites, (at = new Map(sites.map((s, i) => [s.code, i]))));
+  return at;
 }

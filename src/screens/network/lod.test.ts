@@ -17,7 +17,6 @@ const model: DiagramModel = {
     { from: 3, to: 2, medium: 'microwave', role: 'reserve', feeds: 4 },
   ],
   feedCount: 8,
-  skippedFeeds: 0,
 };
 const placed: PlacedDiagram = {
   xs: Float64Array.from([10, 20, 100, 300]),
@@ -64,7 +63,7 @@ describe('level of detail', () => {
   it('keeps every site in exactly one group at every level (random positions)', () => {
     fc.assert(
       fc.property(fc.array(fc.tuple(fc.double({ min: 0, max: 1000, noNaN: true }), fc.double({ min: 0, max: 1000, noNaN: true })), { minLength: 1, maxLength: 200 }), fc.integer({ min: 0, max: MAX_LEVEL }), (pts, l) => {
-        const m: DiagramModel = { sites: pts.map((_, i) => site(`S${i}`, 'relay')), links: [], feedCount: 0, skippedFeeds: 0 };
+        const m: DiagramModel = { sites: pts.map((_, i) => site(`S${i}`, 'relay')), links: [], feedCount: 0 };
         const p: PlacedDiagram = { xs: Float64Array.from(pts, (q) => q[0]), ys: Float64Array.from(pts, (q) => q[1]), linkFrom: new Int32Array(0), linkTo: new Int32Array(0) };
         const lv = buildLevel(m, p, l);
         expect(lv.count.reduce((a, b) => a + b, 0)).toBe(pts.length);
@@ -167,7 +166,6 @@ describe('frame plan', () => {
         { from: 1, to: 2, medium: 'line', role: 'main', feeds: 1 },
       ],
       feedCount: 22,
-      skippedFeeds: 0,
     };
     const at: PlacedDiagram = { xs: Float64Array.from([10, 200, 10]), ys: Float64Array.from([10, 10, 200]), linkFrom: Int32Array.from([0, 0, 1]), linkTo: Int32Array.from([1, 2, 2]) };
     const plan = planFrame({ ...base, model: three, lod: buildLodIndex(three, at), siteIndex: new Map(three.sites.map((s, i) => [s.code, i])), view: { k: 1, tx: 0, ty: 0 }, statuses: new Map() });
@@ -186,7 +184,6 @@ describe('frame plan', () => {
         { from: 2, to: 3, medium: 'line', role: 'main', feeds: 1 },
       ],
       feedCount: 2,
-      skippedFeeds: 0,
     };
     // P-Q runs straight across the 400 px box and far beyond it; U-V passes the top left corner outside (x + y = -200).
     const at: PlacedDiagram = { xs: Float64Array.from([-5000, 6000, -300, 100]), ys: Float64Array.from([200, 200, 100, -300]), linkFrom: Int32Array.from([0, 2]), linkTo: Int32Array.from([1, 3]) };

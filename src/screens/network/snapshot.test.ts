@@ -1,5 +1,5 @@
-import { describe, expect, it } from 'vitest';
-import { sameKey, snapshotMatrix } from './snapshot';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { afterNextFrame, sameKey, snapshotMatrix } from './snapshot';
 import { panBy, toScreen, zoomAt, IDENTITY } from './viewport';
 
 const W = 400;
@@ -33,6 +33,53 @@ describe('snapshotMatrix', () => {
 
   it('refuses a pixel ratio that is not positive', () => {
     expect(() => snapshotMatrix(IDENTITY, IDENTITY, 0)).toThrow(/pixel ratio must be > 0, got 0/);
+  });
+});
+
+describe('afterNextFrame', () => {
+  afterEach(() => vi.unstubAllGlobals());
+  const frames = () => {
+    const queued: FrameRequestCallback[] = [];
+    vi.stubGlobal('requestAnimationFrame', (cb: FrameRequestCallback) => queued.push(cb));
+    vi.stubGlobal('cancelAnimationFrame', (id: number) => (queued[id - 1] = () => undefined));
+    return () => queued.splice(0).forEach((cb) => cb(0));
+  };
+
+  it('runs the work in a task after the next frame, not before', async () => {
+    vi.useFakeTimers();
+    try {
+      const nextFrame = frames();
+      const work = vi.fn();
+      afterNextFrame(work);
+      vi.runAllTimers();
+      expect(work).not.toHaveBeenCalled();
+      nextFrame();
+      expect(work).not.toHaveBeenCalled();
+      vi.runAllTimers();
+      expect(work).toHaveBeenCalledTimes(1);
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+
+  it('can be called off before the frame or after it', () => {
+    vi.useFakeTimers();
+    try {
+      const nextFrame = frames();
+      const early = vi.fn();
+      afterNextFrame(early)();
+      nextFrame();
+      vi.runAllTimers();
+      expect(early).not.toHaveBeenCalled();
+      const late = vi.fn();
+      const cancel = afterNextFrame(late);
+      nextFrame();
+      cancel();
+      vi.runAllTimers();
+      expect(late).not.toHaveBeenCalled();
+    } finally {
+      vi.useRealTimers();
+    }
   });
 });
 
