@@ -19,11 +19,11 @@ import { pipeline } from 'node:stream/promises';
 import zlib from 'node:zlib';
 import type { Request, Response } from 'express';
 import type { AppContext } from '../context';
-import { drawingOf } from '@/shared/schemas/drawing';
+import { drawingSteps } from '@/shared/schemas/drawing';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import { loadNetworkDocument } from './networkLoader';
 import { stringifyChunksInTurns } from './stringifyInTurns';
-import { nextTurn } from '../interchange/turns';
+import { Turns, nextTurn } from '../interchange/turns';
 
 /**
  * The bytes in pieces of about a megabyte: one buffer of the whole (132 MB
@@ -65,6 +65,20 @@ async function gzipPieces(pieces: readonly Buffer[]): Promise<Buffer[]> {
   await pipeline(Readable.from(pieces, { objectMode: false }), zlib.createGzip(), keep);
   return out;
 }
+/** Runs steps to their end with a turn of the event loop whenever a turn's length has passed (each step is milliseconds of work). */
+async function inTurns<T>(run: Generator<void, T, void>): Promise<T> {
+  const turns = new Turns(undefined, 1);
+  let r = run.next();
+  while (!r.done) {
+    if (turns.due()) {
+      await nextTurn();
+      turns.restart();
+    }
+    r = run.next();
+  }
+  return r.value;
+}
+
 /** Per answer kind, keyed by the model object: a rebuild makes a new one, even at the same version (a test's reset). */
 const cache = new Map<string, { model: object; bytes: Promise<ExportBytes> }>();
 
@@ -82,18 +96,18 @@ async function encode(answer: object, version: number, kind: string): Promise<Ex
  * current version (or a newer one the model already holds), made once per
  * model and kind.
  */
-async function fromDocument(ctx: AppContext, kind: string, make: (document: NetworkDocument, version: number) => object): Promise<ExportBytes> {
+async function fromDocument(ctx: AppContext, kind: string, make: (document: NetworkDocument, version: number) => object | Promise<object>): Promise<ExportBytes> {
   const databaseVersion = await ctx.network.databaseVersion();
   if (!ctx.network.model || ctx.network.model.networkVersion < databaseVersion) await ctx.network.refresh(databaseVersion);
   const model = ctx.network.model;
   if (!model || model.networkVersion < databaseVersion) {
     // the rebuild failed (it is retried in the background): the stored network, read for this request
     const { document, version } = await loadNetworkDocument(ctx.db.sequelize);
-    return encode(make(document, version), version, kind);
+    return encode(await make(document, version), version, kind);
   }
   const held = cache.get(kind);
   if (held?.model === model) return held.bytes;
-  const bytes = encode(make(model.document, model.networkVersion), model.networkVersion, kind);
+  const bytes = Promise.resolve(make(model.document, model.networkVersion)).then((answer) => encode(answer, model.networkVersion, kind));
   const entry = { model, bytes };
   cache.set(kind, entry);
   bytes.catch(() => {
@@ -109,7 +123,7 @@ export function exportJson(ctx: AppContext): Promise<ExportBytes> {
 
 /** The diagram's columns (shared/schemas/drawing.ts), made and cached the same way. */
 export function drawingJson(ctx: AppContext): Promise<ExportBytes> {
-  return fromDocument(ctx, 'drawing', drawingOf);
+  return fromDocument(ctx, 'drawing', (document, version) => inTurns(drawingSteps(document, version)));
 }
 
 /**

@@ -114,6 +114,6 @@ describe('JSON export', () => {
     const answer = await request(t.app).get('/api/network/drawing').set(t.auth('viewer'));
     expect(answer.status).toBe(200);
     expect(answer.headers.etag).toBe(warmed!.etag);
-    expect(JSON.parse(warmed!.body.toString('utf8'))).toEqual(drawingOf(stored.document, stored.version));
+    expect(JSON.parse(Buffer.concat(warmed!.body).toString('utf8'))).toEqual(drawingOf(stored.document, stored.version));
   });
 });
