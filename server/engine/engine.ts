@@ -109,6 +109,7 @@ export class NetworkEngine {
   private readonly exposureRows = new Map<number, ExposureRow[]>();
   private readonly exposureGroupRows = new Map<number, ExposureGroupsAnswer['groups']>();
   private readonly spofRuns = new Map<number, Generator<void, SpofAnswer, void>>();
+  private readonly exposureRuns = new Map<number, Generator<void, ExposureRow[], void>>();
   /** per kinds mask: the grouped ranking while it is worked out in slices (`prepareExposureGroups`) */
   private readonly exposureGroupRuns = new Map<number, Generator<void, ExposureGroupsAnswer['groups'], void>>();
   /** built by an edit's update rather than from scratch */
@@ -385,8 +386,41 @@ export class NetworkEngine {
       for (let i = 0; i < ranked.length && first.length < limit; i++) if ((KIND_BIT[elements[ranked[i]].kind] & mask) !== 0) first.push(row(ranked[i]));
       return { networkVersion: this.networkVersion, elements: first };
     }
-    if (!rows) this.exposureRows.set(mask, (rows = this.rankedOf(mask).map(row)));
+    if (!rows) {
+      this.prepareExposure(kinds, Number.POSITIVE_INFINITY);
+      rows = this.exposureRows.get(mask)!;
+    }
     return { networkVersion: this.networkVersion, elements: firstRows(rows, limit) };
+  }
+
+  /** True when the whole exposure ranking of these kinds is held: `exposure` is then instant. */
+  holdsExposure(kinds: readonly ElementKind[] | undefined): boolean {
+    return this.exposureRows.has(kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS));
+  }
+
+  /** Works toward the whole exposure ranking of these kinds (half a million rows at 100,000 sites) until `deadlineMs`; true once held. */
+  prepareExposure(kinds: readonly ElementKind[] | undefined, deadlineMs: number): boolean {
+    const mask = kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS);
+    if (this.exposureRows.has(mask)) return true;
+    if (!this.prepare('resilience', deadlineMs)) return false;
+    let run = this.exposureRuns.get(mask);
+    if (!run) this.exposureRuns.set(mask, (run = this.exposureSteps(mask, this.resilienceHeld!)));
+    const r = this.runUntil(run, deadlineMs, 'answersMs');
+    if (!r.done) return false;
+    this.exposureRows.set(mask, r.value);
+    this.exposureRuns.delete(mask);
+    return true;
+  }
+
+  private *exposureSteps(mask: number, { exposureHouseholds, exposureCarriages, ranked }: Resilience): Generator<void, ExposureRow[], void> {
+    const { elements } = this.core.model;
+    const rows: ExposureRow[] = [];
+    for (let i = 0; i < ranked.length; i++) {
+      const x = ranked[i];
+      if ((KIND_BIT[elements[x].kind] & mask) !== 0) rows.push({ element: elements[x], households: exposureHouseholds[x], carriages: exposureCarriages[x] });
+      if ((i & 4095) === 4095) yield;
+    }
+    return rows;
   }
 
   /** Element ids of the kinds in `mask`, highest exposure first (rule 7). */

@@ -29,10 +29,10 @@ import type { ServedNetwork } from '../services/servedNetwork';
 import { UnknownCarriageError, UnknownElementsError } from '../engine/engine';
 import { currentModel } from './checks';
 import { registerChainRoutes } from './chain';
-import { csvFileName, diversityCsv, elementName, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
+import { csvFileName, diversityCsv, elementName, exposureCsv, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { carriageIndexReady, searchCarriages } from '../services/carriageSearch';
 import { nextTurn } from '../interchange/turns';
-import { prepared, preparedExposureGroups, preparedSpof } from '../services/prepared';
+import { prepared, preparedExposure, preparedExposureGroups, preparedSpof } from '../services/prepared';
 import { sendJsonInTurns } from '../services/stringifyInTurns';
 import { briefReach, reachCarriagesPage, reachSitesPage } from '../services/reachLists';
 
@@ -115,11 +115,12 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/exposure', can.analyse, async (req, res) => {
     const { limit, kinds, format, with: extra } = parseOr400(exposureQuery, req.query, 'query');
     const m = currentModel(ctx);
-    await prepared(m.engine, 'resilience');
+    // the first rows alone are quick; the whole ranking is made in slices
+    if (limit === undefined) await preparedExposure(m.engine, kinds);
+    else await prepared(m.engine, 'resilience');
     const answer = m.engine.exposure(limit, kinds);
     if (format === 'csv') {
-      const groups = answer.elements.map((r) => ({ elements: [r.element], households: r.households, carriages: r.carriages }));
-      res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(await exposureGroupsCsv(m, { networkVersion: m.networkVersion, groups }));
+      res.type('text/csv').attachment(csvFileName('exposure', m.networkVersion)).send(await exposureCsv(m, answer));
       return;
     }
     await sendJsonInTurns(res, extra === 'names' ? { ...answer, names: namesOf(m, answer.elements.map((r) => r.element)) } : answer, m.networkVersion);

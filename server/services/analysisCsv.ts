@@ -7,7 +7,7 @@
  * Numbers stay plain numbers so a spreadsheet can sort and sum them.
  */
 import { stringify } from 'csv-stringify/sync';
-import type { DiversityAnswer, Element, ExposureGroupsAnswer, UnfedAnswer } from '@/shared/schemas/analysis';
+import type { DiversityAnswer, Element, ExposureAnswer, ExposureGroupsAnswer, UnfedAnswer } from '@/shared/schemas/analysis';
 import type { ChecksListAnswer } from '@/shared/schemas/checks';
 import { formatFigure, formatMargin, unitText } from '@/shared/format';
 import { guardCell } from '../operations/availability';
@@ -56,10 +56,12 @@ export async function csvInTurns(rows: Iterable<Row>): Promise<string> {
   return parts.join('');
 }
 
+const EXPOSURE_HEADER: Row = ['rank', 'kind', 'code', 'name', 'same_loss_as', 'households_lost', 'carriages_lost'];
+
 /** One line per element; the elements of one ranked row share its rank and name the row's first element in `same_loss_as`. */
 export function exposureGroupsCsv(m: ServedNetwork, answer: ExposureGroupsAnswer): Promise<string> {
   function* rows(): Generator<Row> {
-    yield ['rank', 'kind', 'code', 'name', 'same_loss_as', 'households_lost', 'carriages_lost'];
+    yield EXPOSURE_HEADER;
     for (let i = 0; i < answer.groups.length; i++) {
       const g = answer.groups[i];
       const lead = g.elements[0];
@@ -67,6 +69,18 @@ export function exposureGroupsCsv(m: ServedNetwork, answer: ExposureGroupsAnswer
         const same = e === lead ? '' : `${lead.kind} ${lead.code}`;
         yield [i + 1, e.kind, guardCell(e.code), guardCell(elementName(m, e)), guardCell(same), g.households, g.carriages];
       }
+    }
+  }
+  return csvInTurns(rows());
+}
+
+/** The ungrouped ranking in the same layout: each element its own rank, `same_loss_as` empty. */
+export function exposureCsv(m: ServedNetwork, answer: ExposureAnswer): Promise<string> {
+  function* rows(): Generator<Row> {
+    yield EXPOSURE_HEADER;
+    for (let i = 0; i < answer.elements.length; i++) {
+      const { element: e, households, carriages } = answer.elements[i];
+      yield [i + 1, e.kind, guardCell(e.code), guardCell(elementName(m, e)), '', households, carriages];
     }
   }
   return csvInTurns(rows());

@@ -51,3 +51,9 @@ export function preparedSpof(engine: NetworkEngine, kinds: readonly ElementKind[
   if (engine.holdsSpof(kinds)) return Promise.resolve();
   return inSlices(engine, `spof:${kindsKey(kinds)}`, (deadline) => engine.prepareSpof(kinds, deadline), sliceMs);
 }
+
+/** Resolves once `engine` holds the whole exposure ranking of `kinds` (the weak points first). */
+export function preparedExposure(engine: NetworkEngine, kinds: readonly ElementKind[] | undefined, sliceMs = PREPARE_SLICE_MS): Promise<void> {
+  if (engine.holdsExposure(kinds)) return Promise.resolve();
+  return inSlices(engine, `exposure:${kindsKey(kinds)}`, (deadline) => engine.prepareExposure(kinds, deadline), sliceMs);
+}

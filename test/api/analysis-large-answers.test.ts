@@ -4,6 +4,7 @@
  * are the engine's answer as JSON, the length is declared, and the ETag names
  * the network version so a client that has the answer gets a 304.
  */
+import { parse } from 'csv-parse/sync';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generateNetwork } from '@/scripts/generator';
@@ -44,6 +45,13 @@ describe('large analysis answers', () => {
     const first = await get('/api/analysis/exposure?limit=25');
     expect(first.status).toBe(200);
     expect(first.body.elements).toEqual(whole.body.elements.slice(0, 25));
+    const file = await get('/api/analysis/exposure?format=csv');
+    expect(file.status).toBe(200);
+    const lines = parse(file.text, { columns: true }) as Record<string, string>[];
+    expect(lines).toHaveLength(whole.body.elements.length);
+    const firstRow = whole.body.elements[0];
+    expect(lines[0]).toMatchObject({ rank: '1', kind: firstRow.element.kind, code: firstRow.element.code, same_loss_as: '', households_lost: String(firstRow.households), carriages_lost: String(firstRow.carriages) });
+    expect(lines.map((l) => l.code)).toEqual(whole.body.elements.map((e: { element: { code: string } }) => e.element.code));
     const head = await request(t.app).head('/api/analysis/exposure').set(t.auth('viewer')).set('Accept-Encoding', 'identity');
     expect(head.status).toBe(200);
     expect(Number(head.headers['content-length'])).toBe(Buffer.byteLength(whole.text));

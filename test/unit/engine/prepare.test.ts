@@ -39,6 +39,10 @@ describe('weak points and diversity gaps worked out in slices', () => {
         expect(sliced.holdsExposureGroups(kinds)).toBe(true);
         if (kinds === undefined) expect(calls).toBeGreaterThan(1);
         expect(sliced.exposureGroups(undefined, kinds)).toEqual(atOnce.exposureGroups(undefined, kinds));
+        expect(sliced.holdsExposure(kinds)).toBe(false);
+        while (!sliced.prepareExposure(kinds, 0));
+        expect(sliced.holdsExposure(kinds)).toBe(true);
+        expect(sliced.exposure(undefined, kinds)).toEqual(atOnce.exposure(undefined, kinds));
         expect(sliced.holdsSpof(kinds)).toBe(false);
         while (!sliced.prepareSpof(kinds, 0));
         expect(sliced.holdsSpof(kinds)).toBe(true);
