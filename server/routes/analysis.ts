@@ -31,7 +31,7 @@ import { currentModel } from './checks';
 import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureCsv, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { carriageIndexReady, searchCarriages } from '../services/carriageSearch';
-import { nextTurn } from '../interchange/turns';
+import { Turns, nextTurn } from '../interchange/turns';
 import { prepared, preparedExposure, preparedExposureGroups, preparedSpof } from '../services/prepared';
 import { sendJsonInTurns } from '../services/stringifyInTurns';
 import { briefReach, reachCarriagesPage, reachSitesPage } from '../services/reachLists';
@@ -157,7 +157,8 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/carriage-search', can.analyse, async (req, res) => {
     const { q, pageSize } = parseOr400(carriageSearchQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
-    await carriageIndexReady(m, nextTurn);
+    const turns = new Turns();
+    await carriageIndexReady(m, { due: () => turns.due(), pause: () => nextTurn().then(() => turns.restart()) });
     res.json({ networkVersion: m.networkVersion, ...searchCarriages(m, q, pageSize) });
   });
 

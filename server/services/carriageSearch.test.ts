@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { generateNetwork } from '@/scripts/generator';
+import { Turns, nextTurn } from '../interchange/turns';
 import { carriageIndexReady, searchCarriages, type CarriageSource } from './carriageSearch';
 
 const source = (sites: number, seed: number, reorder = false): CarriageSource => {
@@ -8,12 +9,18 @@ const source = (sites: number, seed: number, reorder = false): CarriageSource =>
   return { document, sites: new Map(document.sites.map((s) => [s.code, s])), services: new Map(document.services.map((s) => [s.code, s])) } as CarriageSource;
 };
 
+/** the server's pacing: a turn whenever 12 ms have passed */
+const pacer = () => {
+  const turns = new Turns();
+  return { due: () => turns.due(), pause: () => nextTurn().then(() => turns.restart()) };
+};
+
 describe('carriage search index', () => {
   it('built in turns, answers as the index built at once, in code order even when the document is not', async () => {
     for (const reorder of [false, true]) {
       const a = source(400, 3, reorder);
       const b = source(400, 3, reorder);
-      await carriageIndexReady(a, () => new Promise((r) => setImmediate(r)));
+      await carriageIndexReady(a, pacer());
       for (const q of ['R0', 'mux1', 'R00012', 'nothing-like-this']) {
         const got = searchCarriages(a, q, 1_000);
         expect(got).toEqual(searchCarriages(b, q, 1_000));
@@ -35,9 +42,8 @@ describe('carriage search index', () => {
       setImmediate(tick);
     };
     setImmediate(tick);
-    const slow = () => new Promise<void>((r) => setImmediate(r));
-    const first = carriageIndexReady(m, slow);
-    expect(carriageIndexReady(m, slow)).toBe(first);
+    const first = carriageIndexReady(m, pacer());
+    expect(carriageIndexReady(m, pacer())).toBe(first);
     await first;
     on = false;
     // some 40,000 carriages take longer than one 12 ms turn to index on any machine this runs on

@@ -5,7 +5,6 @@
  * code, the site's code or name, or the service's code or name (case
  * ignored). Exact code matches come first, then code order.
  */
-import { Turns } from '../interchange/turns';
 import type { ServedNetwork } from './servedNetwork';
 
 export interface CarriageHit {
@@ -51,25 +50,26 @@ function indexOf(m: CarriageSource): Indexed[] {
   return index;
 }
 
+/** When to give the event loop a turn and how (a server passes its Turns clock and setImmediate; this file stays free of server imports, as the web app bundles it). */
+export interface Pacer {
+  due(): boolean;
+  pause(): Promise<void>;
+}
+
 /**
- * Builds the search's index of `m` with a turn of the event loop whenever a
- * turn's length has passed (a server's first search at 20,000 sites held the
- * loop 0.6 s building it in one piece); searches that arrive meanwhile share
- * the work. `pause` gives the turn (setImmediate on a server).
+ * Builds the search's index of `m`, pausing when `pacer` says a turn is due
+ * (a server's first search at 20,000 sites held the loop 0.6 s building it
+ * in one piece); searches that arrive meanwhile share the work.
  */
-export function carriageIndexReady(m: CarriageSource, pause: () => Promise<void>): Promise<void> {
+export function carriageIndexReady(m: CarriageSource, pacer: Pacer): Promise<void> {
   if (indexes.has(m)) return Promise.resolve();
   let job = building.get(m);
   if (!job) {
     job = (async () => {
-      const turns = new Turns();
       const index: Indexed[] = [];
       for (const c of m.document.carriages) {
         index.push(entry(m, c));
-        if (turns.due()) {
-          await pause();
-          turns.restart();
-        }
+        if (pacer.due()) await pacer.pause();
       }
       indexes.set(m, ordered(index));
     })();
