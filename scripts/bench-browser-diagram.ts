@@ -21,9 +21,10 @@
  *   schematicFirstDrawMs from choosing the schematic view to its nodes placed.
  * Targets (issue): first draw <= 1,500 ms, frames p95 <= 33 ms, overlay <= 300 ms.
  * The server here is started for the run, and since 5 December it makes the
- * drawing's bytes in the background at start-up (warmDrawing), as a running
- * server has them after its first request; before that the first size
- * measured (wide) also waited for them to be made on its first request.
+ * drawing's bytes in the background once it has had a second with no request
+ * after its start (warmDrawing, server/http/whenIdle.ts), as a running server
+ * has them; before that the first size measured (wide) waited for them to be
+ * made on its first request. Here the browser's start is that quiet second.
  *
  *   npx tsx scripts/bench-browser-diagram.ts [--sites 20000] [--seed 7] [--json FILE]
  *       [--reuse] [--only wide|phone] [--trace DIR]

@@ -12,10 +12,14 @@ import { buildServedNetwork, updateServedNetwork } from './services/servedNetwor
 import { ensureUser } from './services/users';
 import { applyDemoAccounts, listenHost, type DemoAccountsResult } from './services/demoAccounts';
 import { warmDrawing } from './services/exportCache';
+import { whenIdle } from './http/whenIdle';
 import { OperationsEvents } from './operations/events';
 import { ObjectStore } from './documents/storage';
 import { NoticeQueue, type NoticeQueueOptions } from './notices/queue';
 import type { MailboxStandin } from './standins/mailbox';
+
+/** quiet time before the background work of a start (the diagram's columns) */
+const WARM_AFTER_IDLE_MS = 1_000;
 
 export interface StartOptions {
   /** the local SMTP stand-in when one runs (its mailbox is shown to admins) */
@@ -56,13 +60,15 @@ export async function startServer(databaseUrl: string, config: Config = loadConf
     const s = app.listen(config.PORT, host, () => resolve(s));
     s.on('error', reject);
   });
-  void warmDrawing(ctx);
+  // the diagram's columns made ahead of the first request, once the first busy seconds are over
+  const stopWarming = whenIdle(server, WARM_AFTER_IDLE_MS, () => warmDrawing(ctx));
   const address = server.address();
   port = typeof address === 'object' && address ? address.port : config.PORT;
 
   let closing: Promise<void> | null = null;
   const close = () =>
     (closing ??= (async () => {
+      stopWarming();
       await new Promise<void>((r) => {
         server.close(() => r());
         server.closeIdleConnections?.();
