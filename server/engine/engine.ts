@@ -423,10 +423,15 @@ export class NetworkEngine {
     return rows;
   }
 
-  /** Element ids of the kinds in `mask`, highest exposure first (rule 7). */
-  private rankedOf(mask: number): number[] {
+  private *exposureGroupSteps(mask: number, { exposureHouseholds, exposureCarriages, ranked }: Resilience): Generator<void, ExposureGroupsAnswer['groups'], void> {
+    // the ranking filtered to the kinds asked for: a million elements at 100,000 sites, so in steps too
     const { elements } = this.core.model;
-    return Array.from(this.resilience.ranked).filter((x) => (KIND_BIT[elements[x].kind] & mask) !== 0);
+    const wanted: number[] = [];
+    for (let i = 0; i < ranked.length; i++) {
+      if ((KIND_BIT[elements[ranked[i]].kind] & mask) !== 0) wanted.push(ranked[i]);
+      if ((i & 4095) === 4095) yield;
+    }
+    return yield* groupExposureSteps(this.core, wanted, exposureHouseholds, exposureCarriages);
   }
 
   /**
@@ -455,11 +460,7 @@ export class NetworkEngine {
     if (this.exposureGroupRows.has(mask)) return true;
     if (!this.prepare('resilience', deadlineMs)) return false;
     let run = this.exposureGroupRuns.get(mask);
-    if (!run) {
-      const { exposureHouseholds, exposureCarriages } = this.resilienceHeld!;
-      run = groupExposureSteps(this.core, this.rankedOf(mask), exposureHouseholds, exposureCarriages);
-      this.exposureGroupRuns.set(mask, run);
-    }
+    if (!run) this.exposureGroupRuns.set(mask, (run = this.exposureGroupSteps(mask, this.resilienceHeld!)));
     const r = this.runUntil(run, deadlineMs, 'answersMs');
     if (!r.done) return false;
     this.exposureGroupRows.set(mask, r.value);
