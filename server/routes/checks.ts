@@ -54,7 +54,7 @@ export function registerCheckRoutes(routes: RouteTable, ctx: AppContext) {
     const c = cacheOf(m);
     // computed in turns, once per network version, shared by the requests that arrive meanwhile
     if (!c.failures) {
-      const made = networkCheckFailuresInTurns(m.document, { severity: 'warning', networkVersion: m.networkVersion });
+      const made = networkCheckFailuresInTurns(m.document, { severity: 'warning', networkVersion: m.networkVersion, index: m });
       c.failures = made;
       made.catch(() => {
         if (c.failures === made) c.failures = undefined;
