@@ -346,14 +346,22 @@ export class NetworkEngine {
    */
   prepareSpof(kinds: readonly ElementKind[] | undefined, deadlineMs: number): boolean {
     const mask = kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS);
-    if (this.spofAnswers.has(mask)) return true;
+    return this.prepareKept(mask, this.spofAnswers, this.spofRuns, (held) => this.spofSteps(mask, held), deadlineMs);
+  }
+
+  /**
+   * Works toward an answer kept per kinds mask in `kept` (the weak points
+   * first), its steps resumed from `runs`, until `deadlineMs`; true once held.
+   */
+  private prepareKept<T>(mask: number, kept: Map<number, T>, runs: Map<number, Generator<void, T, void>>, steps: (held: Resilience) => Generator<void, T, void>, deadlineMs: number): boolean {
+    if (kept.has(mask)) return true;
     if (!this.prepare('resilience', deadlineMs)) return false;
-    let run = this.spofRuns.get(mask);
-    if (!run) this.spofRuns.set(mask, (run = this.spofSteps(mask, this.resilienceHeld!)));
+    let run = runs.get(mask);
+    if (!run) runs.set(mask, (run = steps(this.resilienceHeld!)));
     const r = this.runUntil(run, deadlineMs, 'answersMs');
     if (!r.done) return false;
-    this.spofAnswers.set(mask, r.value);
-    this.spofRuns.delete(mask);
+    kept.set(mask, r.value);
+    runs.delete(mask);
     return true;
   }
 
@@ -401,15 +409,7 @@ export class NetworkEngine {
   /** Works toward the whole exposure ranking of these kinds (half a million rows at 100,000 sites) until `deadlineMs`; true once held. */
   prepareExposure(kinds: readonly ElementKind[] | undefined, deadlineMs: number): boolean {
     const mask = kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS);
-    if (this.exposureRows.has(mask)) return true;
-    if (!this.prepare('resilience', deadlineMs)) return false;
-    let run = this.exposureRuns.get(mask);
-    if (!run) this.exposureRuns.set(mask, (run = this.exposureSteps(mask, this.resilienceHeld!)));
-    const r = this.runUntil(run, deadlineMs, 'answersMs');
-    if (!r.done) return false;
-    this.exposureRows.set(mask, r.value);
-    this.exposureRuns.delete(mask);
-    return true;
+    return this.prepareKept(mask, this.exposureRows, this.exposureRuns, (held) => this.exposureSteps(mask, held), deadlineMs);
   }
 
   private *exposureSteps(mask: number, { exposureHouseholds, exposureCarriages, ranked }: Resilience): Generator<void, ExposureRow[], void> {
@@ -457,15 +457,7 @@ export class NetworkEngine {
    */
   prepareExposureGroups(kinds: readonly ElementKind[] | undefined, deadlineMs: number): boolean {
     const mask = kindMask(kinds ?? DEFAULT_WEAK_POINT_KINDS);
-    if (this.exposureGroupRows.has(mask)) return true;
-    if (!this.prepare('resilience', deadlineMs)) return false;
-    let run = this.exposureGroupRuns.get(mask);
-    if (!run) this.exposureGroupRuns.set(mask, (run = this.exposureGroupSteps(mask, this.resilienceHeld!)));
-    const r = this.runUntil(run, deadlineMs, 'answersMs');
-    if (!r.done) return false;
-    this.exposureGroupRows.set(mask, r.value);
-    this.exposureGroupRuns.delete(mask);
-    return true;
+    return this.prepareKept(mask, this.exposureGroupRows, this.exposureGroupRuns, (held) => this.exposureGroupSteps(mask, held), deadlineMs);
   }
 
   diversity(): DiversityAnswer {

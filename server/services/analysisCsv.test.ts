@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { stringify } from 'csv-stringify/sync';
 import { csvInTurns } from './analysisCsv';
+import { countTurns } from '@/test/helpers/turnCounter';
 
 const cell = fc.oneof(fc.string(), fc.integer(), fc.double({ noNaN: true, noDefaultInfinity: true }), fc.constantFrom('a,b', 'say "x"', 'two\nlines', '', ' =1+1'));
 
@@ -17,16 +18,9 @@ describe('CSV written in turns', () => {
 
   it('gives other work turns on a long file', async () => {
     const rows = Array.from({ length: 400_000 }, (_, i) => [i, `S${i}`, i % 9 === 0 ? 'with "quotes", and commas' : 'plain']);
-    let turns = 0;
-    let on = true;
-    const tick = () => {
-      if (!on) return;
-      turns++;
-      setImmediate(tick);
-    };
-    setImmediate(tick);
+    const counter = countTurns();
     const text = await csvInTurns(rows);
-    on = false;
+    const turns = counter.stop();
     expect(turns).toBeGreaterThan(2);
     expect(text).toBe(stringify(rows));
   });

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { generateNetwork } from '@/scripts/generator';
 import { Turns, nextTurn } from '../interchange/turns';
 import { carriageIndexReady, searchCarriages, type CarriageSource } from './carriageSearch';
+import { countTurns } from '@/test/helpers/turnCounter';
 
 const source = (sites: number, seed: number, reorder = false): CarriageSource => {
   const document = generateNetwork({ sites, seed });
@@ -34,18 +35,11 @@ describe('carriage search index', () => {
   it('gives other work turns while it builds, and searches meanwhile share one build', async () => {
     const m = source(10_000, 5);
     const code = m.document.carriages[123].code;
-    let turns = 0;
-    let on = true;
-    const tick = () => {
-      if (!on) return;
-      turns++;
-      setImmediate(tick);
-    };
-    setImmediate(tick);
+    const counter = countTurns();
     const first = carriageIndexReady(m, pacer());
     expect(carriageIndexReady(m, pacer())).toBe(first);
     await first;
-    on = false;
+    const turns = counter.stop();
     // some 40,000 carriages take longer than one 12 ms turn to index on any machine this runs on
     expect(turns).toBeGreaterThan(0);
     expect(searchCarriages(m, code, 5).items[0].code).toBe(code);

@@ -8,6 +8,7 @@ import { NetworkEngine } from '@/server/engine/engine';
 import { prepared, preparedExposureGroups, preparedSpof } from '@/server/services/prepared';
 import { generateNetwork } from '@/scripts/generator';
 import { smallRandomNetwork } from '@/test/helpers/random-network';
+import { countTurns } from '@/test/helpers/turnCounter';
 
 const answers = (e: NetworkEngine) => ({ spof: e.spof(), exposure: e.exposure(), groups: e.exposureGroups(50), diversity: e.diversity(), carriageSpof: e.spof(['site', 'feed', 'group', 'carriage']) });
 
@@ -55,19 +56,12 @@ describe('weak points and diversity gaps worked out in slices', () => {
     const doc = generateNetwork({ sites: 600, seed: 9 });
     const e = NetworkEngine.build(doc, 1);
     await prepared(e, 'resilience');
-    let turns = 0;
-    let on = true;
-    const tick = () => {
-      if (!on) return;
-      turns++;
-      setImmediate(tick);
-    };
-    setImmediate(tick);
+    const counter = countTurns();
     const a = preparedExposureGroups(e, undefined, 0);
     // the same kinds named in another order share the work
     expect(preparedExposureGroups(e, ['group', 'site', 'feed'], 0)).toBe(a);
     await a;
-    on = false;
+    const turns = counter.stop();
     expect(turns).toBeGreaterThan(2);
     expect(e.holdsExposureGroups(['site', 'feed', 'group'])).toBe(true);
     expect(e.exposureGroups(20)).toEqual(NetworkEngine.build(doc, 1).exposureGroups(20));
@@ -106,20 +100,13 @@ describe('weak points and diversity gaps worked out in slices', () => {
   it('prepared() gives the event loop turns while it works, and requests meanwhile share one piece of work', async () => {
     const doc = generateNetwork({ sites: 800, seed: 5 });
     const e = NetworkEngine.build(doc, 1);
-    let turns = 0;
-    let on = true;
-    const tick = () => {
-      if (!on) return;
-      turns++;
-      setImmediate(tick);
-    };
-    setImmediate(tick);
+    const counter = countTurns();
     // slices of no time at all: one piece of work between turns, however fast the machine
     const a = prepared(e, 'diversity', 0);
     const b = prepared(e, 'diversity');
     expect(b).toBe(a);
     await a;
-    on = false;
+    const turns = counter.stop();
     expect(e.holds('diversity')).toBe(true);
     expect(turns).toBeGreaterThan(2);
     const fresh = NetworkEngine.build(doc, 1);
