@@ -7,6 +7,8 @@
  * what JSON leaves out left out (undefined and functions as fields; as array
  * elements they are null).
  */
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import type { Response } from 'express';
 import { Turns, nextTurn } from '../interchange/turns';
 
@@ -81,19 +83,6 @@ export async function stringifyChunksInTurns(value: unknown, pause: () => Promis
   return chunks;
 }
 
-/** Resolves when the socket takes more, or is gone. */
-function drained(res: Response): Promise<void> {
-  return new Promise((resolve) => {
-    const go = () => {
-      res.off('drain', go);
-      res.off('close', go);
-      resolve();
-    };
-    res.on('drain', go);
-    res.on('close', go);
-  });
-}
-
 /**
  * Sends `value` as JSON made in slices: the analysis answers list every
  * carriage or element, tens of megabytes at 100,000 sites, and `res.json`
@@ -119,9 +108,10 @@ export async function sendJsonInTurns(res: Response, value: unknown, networkVers
     res.end();
     return;
   }
-  for (const chunk of chunks) {
-    if (res.destroyed) return;
-    if (!res.write(chunk)) await drained(res);
+  try {
+    await pipeline(Readable.from(chunks, { objectMode: false }), res);
+  } catch (e) {
+    // the client went away mid-answer: nothing left to tell it
+    if (!res.destroyed && !res.req.destroyed) throw e;
   }
-  res.end();
 }
