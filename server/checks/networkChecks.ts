@@ -5,7 +5,7 @@
 import type { Carriage, Feed, Service, Site } from '@/shared/schemas/network';
 import type { CheckFailure, CheckName, ChecksListAnswer, CheckSeverity, FeedCheck } from '@/shared/schemas/checks';
 import { computeFeedChecks, type FeedCheckInput } from './feedChecks';
-import { nextTurn, Turns } from '../interchange/turns';
+import { stepsInTurns, Turns } from '../interchange/turns';
 
 export interface NetworkRecords {
   sites: readonly Site[];
@@ -125,13 +125,8 @@ export function networkCheckFailures(net: NetworkRecords, options: FailureOption
  * (server/interchange/turns.ts): screening every feed of a national network
  * takes seconds, which other requests must not wait for.
  */
-export async function networkCheckFailuresInTurns(net: NetworkRecords, options: FailureOptions = {}, turns = new Turns()): Promise<ChecksListAnswer> {
-  const pass = failurePass(net, options);
-  for (;;) {
-    const step = pass.next();
-    if (step.done) return step.value;
-    if (turns.due()) await nextTurn();
-  }
+export function networkCheckFailuresInTurns(net: NetworkRecords, options: FailureOptions = {}, turns = new Turns()): Promise<ChecksListAnswer> {
+  return stepsInTurns(failurePass(net, options), turns);
 }
 
 interface FailureOptions {

@@ -35,3 +35,23 @@ export class Turns {
 
 /** One turn of the event loop: timers and I/O that waited get their go. */
 export const nextTurn = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/**
+ * Runs `steps` (a generator that pauses with a bare `yield`) to its end,
+ * giving the event loop a turn whenever `turns` says one is due.
+ */
+export async function stepsInTurns<T>(steps: Generator<void, T, void>, turns = new Turns()): Promise<T> {
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+    if (turns.due()) {
+      await nextTurn();
+      turns.restart();
+    }
+  }
+}
+
+/** A turn clock and its pause as one value, for code that may not import this file (it is bundled for the browser too). */
+export function turnPacer(turns = new Turns()): { due(): boolean; pause(): Promise<void> } {
+  return { due: () => turns.due(), pause: () => nextTurn().then(() => turns.restart()) };
+}

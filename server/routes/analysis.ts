@@ -31,8 +31,8 @@ import { currentModel } from './checks';
 import { registerChainRoutes } from './chain';
 import { csvFileName, diversityCsv, elementName, exposureCsv, exposureGroupsCsv, unfedCsv } from '../services/analysisCsv';
 import { carriageIndexReady, searchCarriages } from '../services/carriageSearch';
-import { Turns, nextTurn } from '../interchange/turns';
-import { prepared, preparedExposure, preparedExposureGroups, preparedSpof } from '../services/prepared';
+import { turnPacer } from '../interchange/turns';
+import { prepared, preparedFor } from '../services/prepared';
 import { sendJsonInTurns } from '../services/stringifyInTurns';
 import { briefReach, reachCarriagesPage, reachSitesPage } from '../services/reachLists';
 
@@ -107,7 +107,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/spof', can.analyse, async (req, res) => {
     const { kinds } = parseOr400(spofQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
-    await preparedSpof(m.engine, kinds);
+    await preparedFor(m.engine, 'spof', kinds);
     await sendJsonInTurns(res, m.engine.spof(kinds), m.networkVersion);
   });
 
@@ -116,7 +116,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
     const { limit, kinds, format, with: extra } = parseOr400(exposureQuery, req.query, 'query');
     const m = currentModel(ctx);
     // the first rows alone are quick; the whole ranking is made in slices
-    if (limit === undefined) await preparedExposure(m.engine, kinds);
+    if (limit === undefined) await preparedFor(m.engine, 'exposure', kinds);
     else await prepared(m.engine, 'resilience');
     const answer = m.engine.exposure(limit, kinds);
     if (format === 'csv') {
@@ -130,7 +130,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/exposure-groups', can.analyse, async (req, res) => {
     const { limit, kinds, format } = parseOr400(exposureQuery, req.query, 'query');
     const m = currentModel(ctx);
-    await preparedExposureGroups(m.engine, kinds);
+    await preparedFor(m.engine, 'groups', kinds);
     const answer = m.engine.exposureGroups(limit, kinds);
     if (format === 'csv') res.type('text/csv').attachment(csvFileName('exposure-grouped', m.networkVersion)).send(await exposureGroupsCsv(m, answer));
     else await sendJsonInTurns(res, answer, m.networkVersion);
@@ -157,8 +157,7 @@ export function registerAnalysisRoutes(routes: RouteTable, ctx: AppContext) {
   routes.add('get', '/analysis/carriage-search', can.analyse, async (req, res) => {
     const { q, pageSize } = parseOr400(carriageSearchQuerySchema, req.query, 'query');
     const m = currentModel(ctx);
-    const turns = new Turns();
-    await carriageIndexReady(m, { due: () => turns.due(), pause: () => nextTurn().then(() => turns.restart()) });
+    await carriageIndexReady(m, turnPacer());
     res.json({ networkVersion: m.networkVersion, ...searchCarriages(m, q, pageSize) });
   });
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { generateNetwork } from '@/scripts/generator';
-import { Turns, nextTurn } from '../interchange/turns';
+import { turnPacer as pacer } from '../interchange/turns';
 import { carriageIndexReady, searchCarriages, type CarriageSource } from './carriageSearch';
 import { countTurns } from '@/test/helpers/turnCounter';
 
@@ -8,12 +8,6 @@ const source = (sites: number, seed: number, reorder = false): CarriageSource =>
   const document = generateNetwork({ sites, seed });
   if (reorder) document.carriages.reverse();
   return { document, sites: new Map(document.sites.map((s) => [s.code, s])), services: new Map(document.services.map((s) => [s.code, s])) } as CarriageSource;
-};
-
-/** the server's pacing: a turn whenever 12 ms have passed */
-const pacer = () => {
-  const turns = new Turns();
-  return { due: () => turns.due(), pause: () => nextTurn().then(() => turns.restart()) };
 };
 
 describe('carriage search index', () => {

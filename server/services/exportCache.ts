@@ -23,7 +23,7 @@ import { drawingSteps } from '@/shared/schemas/drawing';
 import type { NetworkDocument } from '@/shared/schemas/network';
 import { loadNetworkDocument } from './networkLoader';
 import { stringifyChunksInTurns } from './stringifyInTurns';
-import { Turns, nextTurn } from '../interchange/turns';
+import { Turns, nextTurn, stepsInTurns } from '../interchange/turns';
 
 /**
  * The bytes in pieces of about a megabyte: one buffer of the whole (132 MB
@@ -64,19 +64,6 @@ async function gzipPieces(pieces: readonly Buffer[]): Promise<Buffer[]> {
   });
   await pipeline(Readable.from(pieces, { objectMode: false }), zlib.createGzip(), keep);
   return out;
-}
-/** Runs steps to their end with a turn of the event loop whenever a turn's length has passed (each step is milliseconds of work). */
-async function inTurns<T>(run: Generator<void, T, void>): Promise<T> {
-  const turns = new Turns(undefined, 1);
-  let r = run.next();
-  while (!r.done) {
-    if (turns.due()) {
-      await nextTurn();
-      turns.restart();
-    }
-    r = run.next();
-  }
-  return r.value;
 }
 
 /** Per answer kind, keyed by the model object: a rebuild makes a new one, even at the same version (a test's reset). */
@@ -123,11 +110,12 @@ export function exportJson(ctx: AppContext): Promise<ExportBytes> {
 
 /** The diagram's columns (shared/schemas/drawing.ts), made and cached the same way. */
 export function drawingJson(ctx: AppContext): Promise<ExportBytes> {
-  return fromDocument(ctx, 'drawing', (document, version) => inTurns(drawingSteps(document, version)));
+  return fromDocument(ctx, 'drawing', (document, version) => stepsInTurns(drawingSteps(document, version), new Turns(undefined, 1)));
 }
 
 /**
- * Makes the diagram's columns in the background (at start-up), so the first
+ * Makes the diagram's columns in the background (after a start, once the
+ * server is quiet: server.ts), so the first
  * person to open the diagram does not wait for them to be made: at 20,000
  * sites that is half a second or more of the first draw. A failure is left
  * for that first request to meet and report.

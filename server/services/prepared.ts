@@ -40,20 +40,19 @@ export function prepared(engine: NetworkEngine, need: Need, sliceMs = PREPARE_SL
 
 const kindsKey = (kinds: readonly ElementKind[] | undefined) => [...new Set(kinds ?? DEFAULT_WEAK_POINT_KINDS)].sort().join(',');
 
-/** Resolves once `engine` holds the grouped exposure ranking of `kinds` (the weak points first). */
-export function preparedExposureGroups(engine: NetworkEngine, kinds: readonly ElementKind[] | undefined, sliceMs = PREPARE_SLICE_MS): Promise<void> {
-  if (engine.holdsExposureGroups(kinds)) return Promise.resolve();
-  return inSlices(engine, `groups:${kindsKey(kinds)}`, (deadline) => engine.prepareExposureGroups(kinds, deadline), sliceMs);
-}
+/** The answers an engine keeps per set of element kinds, each worked out after the weak points. */
+const KEPT = {
+  /** the weak points of every carriage */
+  spof: { holds: (e: NetworkEngine, k?: readonly ElementKind[]) => e.holdsSpof(k), prepare: (e: NetworkEngine, k: readonly ElementKind[] | undefined, d: number) => e.prepareSpof(k, d) },
+  /** the whole exposure ranking */
+  exposure: { holds: (e: NetworkEngine, k?: readonly ElementKind[]) => e.holdsExposure(k), prepare: (e: NetworkEngine, k: readonly ElementKind[] | undefined, d: number) => e.prepareExposure(k, d) },
+  /** the grouped exposure ranking */
+  groups: { holds: (e: NetworkEngine, k?: readonly ElementKind[]) => e.holdsExposureGroups(k), prepare: (e: NetworkEngine, k: readonly ElementKind[] | undefined, d: number) => e.prepareExposureGroups(k, d) },
+};
 
-/** Resolves once `engine` holds the weak points of `kinds` as an answer (the weak points first). */
-export function preparedSpof(engine: NetworkEngine, kinds: readonly ElementKind[] | undefined, sliceMs = PREPARE_SLICE_MS): Promise<void> {
-  if (engine.holdsSpof(kinds)) return Promise.resolve();
-  return inSlices(engine, `spof:${kindsKey(kinds)}`, (deadline) => engine.prepareSpof(kinds, deadline), sliceMs);
-}
-
-/** Resolves once `engine` holds the whole exposure ranking of `kinds` (the weak points first). */
-export function preparedExposure(engine: NetworkEngine, kinds: readonly ElementKind[] | undefined, sliceMs = PREPARE_SLICE_MS): Promise<void> {
-  if (engine.holdsExposure(kinds)) return Promise.resolve();
-  return inSlices(engine, `exposure:${kindsKey(kinds)}`, (deadline) => engine.prepareExposure(kinds, deadline), sliceMs);
+/** Resolves once `engine` holds `answer` for `kinds` (default sites, feeds and groups), worked out in slices as `prepared`. */
+export function preparedFor(engine: NetworkEngine, answer: keyof typeof KEPT, kinds: readonly ElementKind[] | undefined, sliceMs = PREPARE_SLICE_MS): Promise<void> {
+  const { holds, prepare } = KEPT[answer];
+  if (holds(engine, kinds)) return Promise.resolve();
+  return inSlices(engine, `${answer}:${kindsKey(kinds)}`, (deadline) => prepare(engine, kinds, deadline), sliceMs);
 }

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { NetworkEngine } from '@/server/engine/engine';
-import { prepared, preparedExposureGroups, preparedSpof } from '@/server/services/prepared';
+import { prepared, preparedFor } from '@/server/services/prepared';
 import { generateNetwork } from '@/scripts/generator';
 import { smallRandomNetwork } from '@/test/helpers/random-network';
 import { countTurns } from '@/test/helpers/turnCounter';
@@ -52,20 +52,20 @@ describe('weak points and diversity gaps worked out in slices', () => {
     }
   });
 
-  it('preparedExposureGroups() gives the event loop turns while it walks, and its answer agrees', async () => {
+  it("preparedFor('groups') gives the event loop turns while it walks, and its answer agrees", async () => {
     const doc = generateNetwork({ sites: 600, seed: 9 });
     const e = NetworkEngine.build(doc, 1);
     await prepared(e, 'resilience');
     const counter = countTurns();
-    const a = preparedExposureGroups(e, undefined, 0);
+    const a = preparedFor(e, 'groups', undefined, 0);
     // the same kinds named in another order share the work
-    expect(preparedExposureGroups(e, ['group', 'site', 'feed'], 0)).toBe(a);
+    expect(preparedFor(e, 'groups', ['group', 'site', 'feed'], 0)).toBe(a);
     await a;
     const turns = counter.stop();
     expect(turns).toBeGreaterThan(2);
     expect(e.holdsExposureGroups(['site', 'feed', 'group'])).toBe(true);
     expect(e.exposureGroups(20)).toEqual(NetworkEngine.build(doc, 1).exposureGroups(20));
-    await preparedSpof(e, ['site']);
+    await preparedFor(e, 'spof', ['site']);
     expect(e.holdsSpof(['site'])).toBe(true);
     expect(e.spof(['site'])).toEqual(NetworkEngine.build(doc, 1).spof(['site']));
   });
