@@ -22,7 +22,7 @@ export { RouteError as ErrorBoundary } from '@/src/components/RouteError';
 // A page opened straight on a deferred screen starts that chunk's download now, beside the rest of start-up.
 if (typeof window !== 'undefined' && typeof window.location?.pathname === 'string' && opensDeferredScreen(window.location.pathname)) preloadDeferredScreens();
 // A page opened on the network diagram sends for its drawing now too (src/api/queries/drawingEarly.ts).
-if (typeof window !== 'undefined' && typeof window.location?.pathname === 'string' && opensNetworkDiagram(window.location.pathname)) startDrawingEarly(window.localStorage);
+if (typeof window !== 'undefined' && typeof window.location?.pathname === 'string' && opensNetworkDiagram(window.location.pathname)) startDrawingEarly(window.localStorage, window);
 
 export default function RootLayout() {
   const [loaded, fontError] = useFonts({

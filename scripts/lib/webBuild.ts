@@ -8,6 +8,7 @@ import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { REPO_ROOT } from './postgres';
+import { writeBootScript } from './bootScript';
 import { precompressDir } from './precompress';
 
 export const WEB_DIR = path.join(REPO_ROOT, 'dist', 'web');
@@ -45,6 +46,10 @@ export function ensureWebBuild({ force = false, quiet = false } = {}): { built: 
   if (r.status !== 0) {
     throw new Error(`the web export failed (exit ${r.status})${quiet ? `:\n${(r.stderr || r.stdout || '').slice(-4000)}` : ''}`);
   }
+  // before the service worker, so the boot script is precached with the rest
+  const boot = writeBootScript(WEB_DIR);
+  for (const w of boot.warnings) console.warn(`boot script: ${w}`);
+  if (!quiet) console.log(`boot script: ${boot.src} (${boot.bytes} bytes)`);
   const sw = spawnSync(process.execPath, [path.join(REPO_ROOT, 'node_modules', 'tsx', 'dist', 'cli.mjs'), path.join(REPO_ROOT, 'scripts', 'build-sw.ts')], {
     cwd: REPO_ROOT,
     stdio: quiet ? 'pipe' : 'inherit',

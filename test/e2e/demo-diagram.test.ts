@@ -27,9 +27,20 @@ describe.each(Object.entries(SIZES))('demo diagram at %s size', (sizeName, size)
   it('draws the invented land, names it, and shows a distance scale that follows the zoom', async () => {
     const { page, errors } = await openPage(browser, size);
     await signIn(page, 'viewer');
+    const drawingAsks: string[] = [];
+    page.on('request', (r) => {
+      if (new URL(r.url()).pathname === '/api/network/drawing') drawingAsks.push(r.url());
+    });
+    const boot = page.waitForRequest((r) => /\/boot-[0-9a-f]{32}\.js$/.test(new URL(r.url()).pathname), { timeout: 15_000 });
     await page.goto(`${baseUrl()}/network`);
+    await boot;
     const diagram = page.getByTestId('network-diagram');
     await diagram.waitFor({ timeout: 30_000 });
+    await page.waitForFunction(() => (window.__headwaterDiagram?.draws.length ?? 0) > 0, undefined, { timeout: 15_000 });
+    // The boot script fetched the screen's chunk ahead of the app (a preload link), and sent the one drawing request the app then used.
+    expect(drawingAsks).toHaveLength(1);
+    const chunk = await page.evaluate(() => (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).find((e) => /\/network-[0-9a-f]{32}\.js$/.test(new URL(e.name).pathname))?.initiatorType ?? null);
+    expect(chunk).toBe('link');
 
     // Land: drawn on the canvas with real outline data (the drawing's record says where), and its credit in words.
     await page.waitForFunction(() => !!window.__headwaterDiagram?.last?.land, undefined, { timeout: 15_000 });

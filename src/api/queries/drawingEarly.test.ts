@@ -1,12 +1,16 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { api } from '@/shared/api';
+import { drawingOf } from '@/shared/schemas/drawing';
+import { smallNetwork } from '@/test/fixtures/small-network';
 import { writePersistedSession, SESSION_STORAGE_KEY } from '@/src/session/persisted';
-import { opensNetworkDiagram, startDrawingEarly, takeEarlyDrawing } from './drawingEarly';
+import { opensNetworkDiagram, readDrawing, startDrawingEarly, takeEarlyDrawing } from './drawingEarly';
 
 const user = { id: 1, email: 'ada@headwater.example', name: 'Ada', role: 'engineer' as const };
 const storageWith = (token: string | null) => ({
   getItem: (key: string) => (key === SESSION_STORAGE_KEY && token ? writePersistedSession({ version: 1, token, user }) : null),
 });
+const columns = drawingOf(smallNetwork(), 3);
+const answer = (body: unknown, status = 200) => async () => new Response(JSON.stringify(body), { status });
 
 afterEach(async () => {
   await takeEarlyDrawing('drain'); // nothing left over for the next test
@@ -22,17 +26,26 @@ describe('the drawing asked for as the page opens', () => {
     expect(opensNetworkDiagram('/reach')).toBe(false);
   });
 
-  it('is sent with the stored token, and taken once by the same session', async () => {
-    const fetchMock = vi.fn(async () => new Response('{"networkVersion":3}', { status: 200 }));
+  it('is sent with the stored token, checked, and taken once by the same session', async () => {
+    const fetchMock = vi.fn(answer(columns));
     vi.stubGlobal('fetch', fetchMock);
     expect(startDrawingEarly(storageWith('tok-1'))).toBe(true);
     expect(fetchMock).toHaveBeenCalledTimes(1);
     const [url, init] = fetchMock.mock.calls[0] as unknown as [string, RequestInit];
     expect(url).toBe(api.networkDrawing);
     expect((init.headers as Record<string, string>).Authorization).toBe('Bearer tok-1');
-    const res = await takeEarlyDrawing('tok-1');
-    expect(await res?.json()).toEqual({ networkVersion: 3 });
+    expect(await takeEarlyDrawing('tok-1')).toEqual(columns);
     expect(await takeEarlyDrawing('tok-1')).toBeNull();
+  });
+
+  it("takes over the boot script's request rather than sending another", async () => {
+    const fetchMock = vi.fn();
+    vi.stubGlobal('fetch', fetchMock);
+    const page = { __headwaterEarlyDrawing: { token: 'tok-9', answer: Promise.resolve({ value: JSON.parse(JSON.stringify(columns)) as unknown }) } };
+    expect(startDrawingEarly(storageWith('tok-9'), page)).toBe(true);
+    expect(fetchMock).not.toHaveBeenCalled();
+    expect(page.__headwaterEarlyDrawing).toBeUndefined(); // taken once
+    expect(await takeEarlyDrawing('tok-9')).toEqual(columns);
   });
 
   it('is not sent without a stored session, nor when storage refuses', () => {
@@ -51,13 +64,21 @@ describe('the drawing asked for as the page opens', () => {
     expect(fetchMock).not.toHaveBeenCalled();
   });
 
-  it('is not given to another session, nor when it failed (the usual request then reports)', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response('{}', { status: 200 })));
+  it('is not given to another session, nor when it failed or does not check out (the usual request then reports)', async () => {
+    vi.stubGlobal('fetch', vi.fn(answer(columns)));
     startDrawingEarly(storageWith('tok-1'));
     expect(await takeEarlyDrawing('tok-2')).toBeNull();
     expect(await takeEarlyDrawing('tok-1')).toBeNull(); // dropped when another session looked
 
-    vi.stubGlobal('fetch', vi.fn(async () => new Response('{"error":{"code":"unauthorised","message":"no"}}', { status: 401 })));
+    vi.stubGlobal('fetch', vi.fn(answer({ error: { code: 'unauthorised', message: 'no' } }, 401)));
+    startDrawingEarly(storageWith('tok-1'));
+    expect(await takeEarlyDrawing('tok-1')).toBeNull();
+
+    vi.stubGlobal('fetch', vi.fn(answer({ networkVersion: 3 }))); // not the drawing's shape
+    startDrawingEarly(storageWith('tok-1'));
+    expect(await takeEarlyDrawing('tok-1')).toBeNull();
+
+    vi.stubGlobal('fetch', vi.fn(answer({ ...columns, feeds: { ...columns.feeds, from: columns.feeds.from.map(() => 99_999) } }))); // positions past the table
     startDrawingEarly(storageWith('tok-1'));
     expect(await takeEarlyDrawing('tok-1')).toBeNull();
 
@@ -65,5 +86,13 @@ describe('the drawing asked for as the page opens', () => {
     startDrawingEarly(storageWith('tok-1'));
     expect(await takeEarlyDrawing('tok-1')).toBeNull();
     expect(await takeEarlyDrawing(null)).toBeNull();
+  });
+});
+
+describe('readDrawing', () => {
+  it('passes a good answer and names what is wrong in a bad one', () => {
+    expect(readDrawing('/api/network/drawing', JSON.parse(JSON.stringify(columns)))).toEqual(columns);
+    expect(() => readDrawing('/api/network/drawing', { ...columns, sites: { ...columns.sites, lat: ['north'] } })).toThrow(/answer to \/api\/network\/drawing was not understood at sites\.lat/);
+    expect(() => readDrawing('/api/network/drawing', { ...columns, carriages: { ...columns.carriages, site: columns.carriages.site.map(() => 10_000) } })).toThrow(/carriages\.site points to entry 10000/);
   });
 });

@@ -3,16 +3,42 @@
  * network screen (a shared link, a reload) would otherwise send this, the
  * largest answer of the app, only once the scripts, fonts, session and the
  * screen's own chunk are in: over a second at 20,000 sites on the test
- * machine. The root layout calls `startDrawingEarly` when the page opens
- * there, with the stored session's token, and `useDiagramDrawing` takes the
- * answer once (`takeEarlyDrawing`) if the session is still the one it was
- * asked for; anything else (signed out, another person, an error answer, no
+ * machine. The boot script (src/boot/earlyStart.ts) sends it before the
+ * app's scripts have arrived; the root layout calls `startDrawingEarly` when
+ * the page opens there, which takes that request over, or sends it with the
+ * stored session's token when there was none (no boot script: the
+ * development server). `useDiagramDrawing` takes the answer once
+ * (`takeEarlyDrawing`) if the session is still the one it was asked for;
+ * anything else (signed out, another person, an error answer, no
  * connection) falls back to the usual request, which reports it as always.
  */
 import { api } from '@/shared/api';
+import { checkDrawing, drawingDocumentSchema, type DrawingDocument } from '@/shared/schemas/drawing';
+import { askDrawingOnPage, type EarlyAnswer, type EarlyDrawing } from '@/src/boot/earlyStart';
 import { readPersistedSession, SESSION_STORAGE_KEY } from '@/src/session/persisted';
+import { ApiError, parseAnswer } from '../client';
 
-let early: { token: string; answer: Promise<Response | null> } | null = null;
+/** The drawing's answer checked (shape, then every position: checkDrawing), or an ApiError naming what is wrong. */
+export function readDrawing(path: string, value: unknown): DrawingDocument {
+  const columns = parseAnswer(drawingDocumentSchema, path, value);
+  try {
+    checkDrawing(columns);
+  } catch (e) {
+    throw new ApiError(200, 'bad-response', `The server's answer to ${path} was not understood: ${(e as Error).message}.`);
+  }
+  return columns;
+}
+
+let early: { token: string; doc: Promise<DrawingDocument | null> } | null = null;
+
+/**
+ * Checked as soon as it is in, while the app is still starting (the route's
+ * screen waits on its script meanwhile): a bad answer is dropped here and
+ * asked for again as usual, which reports it.
+ */
+function hold(token: string, answer: Promise<EarlyAnswer | null>): void {
+  early = { token, doc: answer.then((a) => (a ? readDrawing(api.networkDrawing, a.value) : null)).catch(() => null) };
+}
 
 /** True for the network screen's address (map or schematic: both draw from the columns). */
 export function opensNetworkDiagram(pathname: string): boolean {
@@ -20,8 +46,17 @@ export function opensNetworkDiagram(pathname: string): boolean {
   return path === '/network';
 }
 
-/** Sends the request now when a session is stored (true), else does nothing (false). */
-export function startDrawingEarly(storage: Pick<Storage, 'getItem'> | undefined): boolean {
+/**
+ * Takes over the boot script's request when `page` holds one, else sends the
+ * request now when a session is stored; true when a request is under way.
+ */
+export function startDrawingEarly(storage: Pick<Storage, 'getItem'> | undefined, page?: { __headwaterEarlyDrawing?: EarlyDrawing }): boolean {
+  const booted = page?.__headwaterEarlyDrawing;
+  if (booted) {
+    page.__headwaterEarlyDrawing = undefined;
+    hold(booted.token, booted.answer);
+    return true;
+  }
   let raw: string | null | undefined;
   try {
     raw = storage?.getItem(SESSION_STORAGE_KEY);
@@ -30,16 +65,14 @@ export function startDrawingEarly(storage: Pick<Storage, 'getItem'> | undefined)
   }
   const { token } = readPersistedSession(raw);
   if (!token) return false;
-  const answer = fetch(api.networkDrawing, { headers: { Accept: 'application/json', Authorization: `Bearer ${token}` } }).catch(() => null);
-  early = { token, answer };
+  hold(token, askDrawingOnPage(fetch, api.networkDrawing, token));
   return true;
 }
 
-/** The early answer, once, when it was asked with `token` and came back ok; null otherwise (the caller then asks as usual). */
-export async function takeEarlyDrawing(token: string | null): Promise<Response | null> {
+/** The early answer, checked, once, when it was asked with `token` and came back ok; null otherwise (the caller then asks as usual). */
+export async function takeEarlyDrawing(token: string | null): Promise<DrawingDocument | null> {
   const held = early;
   early = null;
   if (!held || !token || held.token !== token) return null;
-  const res = await held.answer;
-  return res && res.ok ? res : null;
+  return held.doc;
 }

@@ -12,11 +12,11 @@ import useSWR from 'swr';
 import { api } from '@/shared/api';
 import { useSend } from '../ApiProvider';
 import { useSession } from '@/src/session/SessionProvider';
-import { ApiError, jsonOf, parseAnswer } from '../client';
+import { ApiError, parseAnswer } from '../client';
 import { freshness } from '../freshness';
 import { networkDrawingSchema, type NetworkDrawing } from '../schemas';
-import { checkDrawing, drawingDocumentSchema, type DrawingDocument } from '@/shared/schemas/drawing';
-import { takeEarlyDrawing } from './drawingEarly';
+import type { DrawingDocument } from '@/shared/schemas/drawing';
+import { readDrawing, takeEarlyDrawing } from './drawingEarly';
 
 export const networkDrawingKey = () => ['network-drawing', api.exportNetwork] as const;
 
@@ -35,7 +35,7 @@ export const diagramDrawingKey = () => ['network-diagram', api.networkDrawing] a
  * The diagram's columns, checked (checkDrawing) so the diagram's model can
  * follow every position in them without a check of its own; the rows are
  * made only where they are needed (the schematic: expandDrawing). Taken from
- * the request the root layout sent as the page opened, when there is one
+ * the request sent as the page opened, already checked, when there is one
  * (./drawingEarly.ts).
  */
 export function useDiagramDrawing() {
@@ -45,13 +45,7 @@ export function useDiagramDrawing() {
     diagramDrawingKey(),
     async ([, path]: readonly [string, string]) => {
       const early = await takeEarlyDrawing(tokenRef.current);
-      const columns = parseAnswer(drawingDocumentSchema, path, early ? await jsonOf(path, early) : await send(path));
-      try {
-        checkDrawing(columns);
-      } catch (e) {
-        throw new ApiError(200, 'bad-response', `The server's answer to ${path} was not understood: ${(e as Error).message}.`);
-      }
-      return columns;
+      return early ?? readDrawing(path, await send(path));
     },
     freshness.network,
   );
