@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import * as turf from '@turf/turf';
 import type { Feature, MultiPolygon } from 'geojson';
 import { fitProjection } from './projection';
-import { DEMO_COAST, landGeometry, landKindFor, landPath, onDemoLand } from './landOutline';
+import { geoPath } from 'd3-geo';
+import { DEMO_COAST, landGeometry, landKindFor, landNear, landPath, onDemoLand } from './landOutline';
 
 describe('landPath with Natural Earth', () => {
   it('draws land inside a box fitted to places on land (a stretch of western Europe)', () => {
@@ -30,6 +31,42 @@ describe('landPath with Natural Earth', () => {
       400,
     )!;
     expect(landPath(landGeometry('natural-earth'), fit.projection, 400, 400)).toBe('');
+  });
+
+  // The reference is d3-geo itself, given the whole outline: choosing the polygons near the view must not change a point of the path.
+  it.each([
+    ['a national network (the generator’s region)', [-40.7, -44.8, -19.7, -33.1]],
+    ['a stretch of coast', [-5.5, 50.1, 1.7, 58.6]],
+    ['across the antimeridian', [170, -50, 179.9, -30]],
+    ['half the world', [-150, -60, 150, 70]],
+    ['one site', [10, 10, 10, 10]],
+  ] as const)('draws the same path as the whole outline for %s', (_what, [west, south, east, north]) => {
+    for (const [w, h] of [
+      [1440, 660],
+      [390, 490],
+    ]) {
+      const fit = fitProjection(
+        [
+          { code: 'SW', lat: south, lon: west },
+          { code: 'NE', lat: north, lon: east },
+        ],
+        w,
+        h,
+      )!;
+      const whole = geoPath(fit.projection.clipExtent([[-w, -h], [2 * w, 2 * h]]))(landGeometry('natural-earth')) ?? '';
+      fit.projection.clipExtent(null);
+      expect(landPath(landGeometry('natural-earth'), fit.projection, w, h)).toBe(whole);
+    }
+  });
+
+  it('keeps only the polygons near an area, and all of them for a view round the world', () => {
+    const all = landNear(landGeometry('natural-earth'), -180, -90, 180, 90);
+    expect(all).toBeNull();
+    const near = landNear(landGeometry('natural-earth'), -5.5, 50.1, 1.7, 58.6) as MultiPolygon;
+    const world = landNear(landGeometry('natural-earth'), -179, -89, 119, 89) as MultiPolygon;
+    expect(near.coordinates.length).toBeGreaterThan(0);
+    expect(near.coordinates.length).toBeLessThan(world.coordinates.length / 4);
+    expect(landNear(landGeometry('natural-earth'), -31, -40, -28, -37)).toEqual({ type: 'MultiPolygon', coordinates: [] }); // open ocean
   });
 
   it('leaves the projection without a clip afterwards', () => {

@@ -12,7 +12,7 @@
  * the diagram box so the path stays small.
  */
 import { geoBounds, geoContains, geoPath, type GeoPermissibleObjects, type GeoProjection } from 'd3-geo';
-import type { FeatureCollection, MultiPolygon } from 'geojson';
+import type { FeatureCollection, Geometry, MultiPolygon, Position } from 'geojson';
 import { feature } from 'topojson-client';
 import type { GeometryCollection, Topology } from 'topojson-specification';
 import land110 from 'world-atlas/land-110m.json';
@@ -62,13 +62,71 @@ export function landKindFor(sites: readonly { lat: number; lon: number }[]): Lan
   return 'demo';
 }
 
+/** Each polygon of an outline with its box in degrees ([west, south, east, north] of its vertices). */
+type BoxedPolygon = { rings: Position[][]; box: [number, number, number, number] };
+const boxedCache = new WeakMap<object, BoxedPolygon[] | null>();
+
+/** The outline's polygons with their boxes (once per outline); null for a shape other than polygons. */
+function boxedPolygons(land: GeoPermissibleObjects): BoxedPolygon[] | null {
+  const known = boxedCache.get(land);
+  if (known !== undefined) return known;
+  const out: BoxedPolygon[] = [];
+  let ok = true;
+  const addPolygon = (rings: Position[][]) => {
+    let w = Infinity, s = Infinity, e = -Infinity, n = -Infinity; // prettier-ignore
+    for (const ring of rings) {
+      for (const [lon, lat] of ring) {
+        if (lon < w) w = lon;
+        if (lon > e) e = lon;
+        if (lat < s) s = lat;
+        if (lat > n) n = lat;
+      }
+    }
+    out.push({ rings, box: [w, s, e, n] });
+  };
+  const addGeometry = (g: Geometry | null) => {
+    if (!g) return;
+    if (g.type === 'Polygon') addPolygon(g.coordinates);
+    else if (g.type === 'MultiPolygon') for (const p of g.coordinates) addPolygon(p);
+    else if (g.type === 'GeometryCollection') for (const c of g.geometries) addGeometry(c);
+    else ok = false;
+  };
+  const any = land as { type: string; features?: { geometry: Geometry | null }[]; geometry?: Geometry | null };
+  if (any.type === 'FeatureCollection') for (const f of any.features ?? []) addGeometry(f.geometry);
+  else if (any.type === 'Feature') addGeometry(any.geometry ?? null);
+  else addGeometry(land as Geometry);
+  const result = ok ? out : null;
+  boxedCache.set(land, result);
+  return result;
+}
+
+/** Degrees of slack around the view's box when choosing polygons: an edge between two vertices bends a little on the map. */
+const NEAR_DEG = 2;
+
+/**
+ * Only the polygons whose box comes near the area [west, south, east, north]
+ * (degrees): the rest would all be clipped away, and projecting and clipping
+ * the whole world's outline for a view of one region cost the first frame of
+ * a national network some 50 ms. Null when every polygon is to be kept.
+ */
+export function landNear(land: GeoPermissibleObjects, west: number, south: number, east: number, north: number): GeoPermissibleObjects | null {
+  const polygons = boxedPolygons(land);
+  if (!polygons || !(east - west < 300)) return null;
+  const kept = polygons.filter(({ box: [w, s, e, n] }) => e >= west - NEAR_DEG && w <= east + NEAR_DEG && n >= south - NEAR_DEG && s <= north + NEAR_DEG);
+  return { type: 'MultiPolygon', coordinates: kept.map((p) => p.rings) };
+}
+
 export function landPath(land: GeoPermissibleObjects, projection: GeoProjection, width: number, height: number): string {
   const clipped = projection.clipExtent([
     [-width, -height],
     [2 * width, 2 * height],
   ]);
   try {
-    return geoPath(clipped)(land) ?? '';
+    // The clip box in degrees (Mercator: a box on the map is a box of longitudes and latitudes).
+    const a = projection.invert?.([-width, 2 * height]);
+    const b = projection.invert?.([2 * width, -height]);
+    const near = a && b && Number.isFinite(a[0] + a[1] + b[0] + b[1]) && a[0] < b[0] ? landNear(land, a[0], a[1], b[0], b[1]) : null;
+    return geoPath(clipped)(near ?? land) ?? '';
   } finally {
     projection.clipExtent(null);
   }
