@@ -78,7 +78,7 @@ export const routeDocs: Record<string, RouteDoc> = {
   },
   'get /api/network/drawing': {
     summary: 'The network as the diagram draws it, in columns: sites, services, groups, carriages and feeds with references as array positions',
-    description: 'Only the fields drawn; feeds in code order. Made once per network version; ETag and gzip as for the export.',
+    description: 'Only the fields drawn; feeds in code order, without their codes. Made once per network version; ETag and gzip as for the export.',
     answer: drawingDocumentSchema,
   },
   'get /api/network/export': { summary: 'The whole network as a document (JSON) or a zip of CSV files', query: exportQuerySchema, answer: networkDocumentSchema },

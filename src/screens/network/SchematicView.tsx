@@ -14,14 +14,13 @@ import { useEffect, useMemo, useState } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, View, type NativeScrollEvent, type NativeSyntheticEvent } from 'react-native';
 import Svg, { Path } from 'react-native-svg';
 import { countOf, formatCount } from '@/shared/format';
-import type { NetworkDrawing } from '@/src/api/schemas';
 import { colors, fonts, space, type } from '@/src/theme';
 import type { SiteStatus } from './diagramModel';
 import { SvgOff, SvgReserve, SvgRole } from './diagramMarks';
 import { crossShape, halfShape, ringShape, siteShape } from './diagramPaths';
 import { FAIL_MARK, ROLE_PAINT_ORDER } from './markStyle';
 import { recording } from '@/src/testHooks';
-import { branchMarks, buildSchematic, layoutSchematic, ROW_PX, ROW_TEXT_PX } from './schematicModel';
+import { branchMarks, buildSchematic, layoutSchematic, ROW_PX, ROW_TEXT_PX, type SchematicSource } from './schematicModel';
 
 const PAD = 16;
 const MARK_R = 6;
@@ -43,7 +42,7 @@ declare global {
 const STATUS_WORD: Record<SiteStatus, string> = { 'off-air': 'off air', 'on-reserve': 'on reserve' };
 const ROLE_WORD = { origin: 'Origin', main: 'Main station', relay: 'Relay' } as const;
 
-export function SchematicView({ doc, service, statuses, height, onChoose }: { doc: NetworkDrawing; service: string; statuses: ReadonlyMap<string, SiteStatus>; height: number; onChoose: (site: string) => void }) {
+export function SchematicView({ doc, service, statuses, height, onChoose }: { doc: SchematicSource; service: string; statuses: ReadonlyMap<string, SiteStatus>; height: number; onChoose: (site: string) => void }) {
   const t = useMemo(() => buildSchematic(doc, service), [doc, service]);
   const [open, setOpen] = useState<ReadonlySet<string>>(new Set());
   useEffect(() => setOpen(new Set()), [t]);

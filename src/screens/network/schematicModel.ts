@@ -34,7 +34,20 @@ export interface SchematicTree {
   carriages: number;
 }
 
-export function buildSchematic(doc: NetworkDrawing, service: string): SchematicTree {
+/**
+ * What the schematic reads: the drawing's rows (shared/schemas/drawing.ts
+ * expandDrawing, feeds in code order and without their codes) or a network
+ * document's (a feed's code, when given, orders the feeds instead).
+ */
+export interface SchematicSource {
+  sites: readonly Pick<NetworkDrawing['sites'][number], 'code' | 'name' | 'role'>[];
+  carriages: readonly Pick<NetworkDrawing['carriages'][number], 'code' | 'site' | 'service'>[];
+  feeds: readonly (Pick<NetworkDrawing['feeds'][number], 'from' | 'to' | 'role'> & { code?: string })[];
+}
+
+const byFeedCode = (a: { code?: string }, b: { code?: string }) => (a.code === undefined || b.code === undefined ? 0 : a.code < b.code ? -1 : a.code > b.code ? 1 : 0);
+
+export function buildSchematic(doc: SchematicSource, service: string): SchematicTree {
   const sites = new Map(doc.sites.map((s) => [s.code, s]));
   const carriageSite = new Map<string, { site: string; name: string; role: SiteRole }>();
   for (const c of doc.carriages) {
@@ -44,7 +57,7 @@ export function buildSchematic(doc: NetworkDrawing, service: string): SchematicT
   }
   // Parent: the source of the carriage's main feed (the first by feed code when a carriage has several).
   const parent = new Map<string, string>();
-  const mainFeeds = doc.feeds.filter((f) => f.role === 'main' && carriageSite.has(f.from) && carriageSite.has(f.to) && f.from !== f.to).sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0));
+  const mainFeeds = doc.feeds.filter((f) => f.role === 'main' && carriageSite.has(f.from) && carriageSite.has(f.to) && f.from !== f.to).sort(byFeedCode);
   for (const f of mainFeeds) if (!parent.has(f.to)) parent.set(f.to, f.from);
   // A loop of main feeds has no root: cut it at its first carriage by code so every carriage is drawn once.
   const kids = new Map<string, string[]>();
