@@ -166,11 +166,11 @@ export function placeDiagram(model: DiagramModel, width: number, height: number,
   const xs = new Float64Array(model.sites.length);
   const ys = new Float64Array(model.sites.length);
   if (fit) {
-    model.sites.forEach((s, i) => {
-      const [x, y] = fit.project(s.lon, s.lat);
-      xs[i] = x;
-      ys[i] = y;
-    });
+    const { sites } = model;
+    for (let i = 0; i < sites.length; i++) {
+      xs[i] = fit.x(sites[i].lon);
+      ys[i] = fit.y(sites[i].lat);
+    }
   }
   const linkFrom = new Int32Array(model.links.length);
   const linkTo = new Int32Array(model.links.length);
@@ -226,6 +226,8 @@ function householdOrder(sites: readonly DiagramSite[]): Int32Array {
  * some 200 ms at 20,000 sites in view, before the overlay could be drawn).
  */
 export function orderSitesInView(sites: readonly DiagramSite[], inView: readonly number[], statuses: ReadonlyMap<string, SiteStatus>): number[] {
+  // Nothing drawn yet (the screen's first render, before the first frame): no ordering to make.
+  if (inView.length === 0) return [];
   const inside = new Uint8Array(sites.length);
   for (const i of inView) if (i >= 0 && i < sites.length) inside[i] = 1;
   // The failure set is a few sites: looked up by code once each, not once per site in view.

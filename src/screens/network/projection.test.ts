@@ -56,4 +56,30 @@ describe('fitProjection', () => {
     expect(Math.abs(y - 150)).toBeLessThan(0.1);
     expect(Number.isFinite(fit.projection.scale())).toBe(true);
   });
+
+  // d3-geo is the reference: the arithmetic must put every place on d3's pixel.
+  it('places every site where the fitted d3-geo projection does, anywhere on the globe', () => {
+    let seed = 7;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    for (const [w, h] of [
+      [1440, 660],
+      [390, 490],
+    ]) {
+      for (let region = 0; region < 12; region++) {
+        const lon0 = -179 + rnd() * 300;
+        const lat0 = -84 + rnd() * 150;
+        const span = 0.01 + rnd() * 40;
+        const places = Array.from({ length: 60 }, (_, i) => ({ code: `P${i}`, lon: Math.min(180, lon0 + rnd() * span), lat: Math.max(-90, Math.min(90, lat0 + rnd() * span)) }));
+        const fit = fitProjection(places, w, h)!;
+        for (const p of places) {
+          const [x, y] = fit.project(p.lon, p.lat);
+          const ref = fit.projection([p.lon, Math.max(-85, Math.min(85, p.lat))])!;
+          expect(Math.abs(x - ref[0])).toBeLessThan(1e-6);
+          expect(Math.abs(y - ref[1])).toBeLessThan(1e-6);
+          expect(fit.x(p.lon)).toBe(x);
+          expect(fit.y(p.lat)).toBe(y);
+        }
+      }
+    }
+  });
 });
