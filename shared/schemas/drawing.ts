@@ -8,7 +8,7 @@
  * diagram's model reads (client); the API docs describe it.
  */
 import { z } from 'zod';
-import { FEED_ROLES, MEDIA, SITE_ROLES, type FeedRole, type Medium, type NetworkDocument, type SiteRole } from './network';
+import { compareCodes, FEED_ROLES, MEDIA, SITE_ROLES, type FeedRole, type Medium, type NetworkDocument, type SiteRole } from './network';
 
 // Columns are checked by one tight loop each: a schema per element cost the browser over half a second
 // for the 750,000 values of a 20,000-site network, before the first frame.
@@ -62,7 +62,6 @@ export function drawingOf(doc: DrawableNetwork, networkVersion: number): Drawing
   return r.value;
 }
 
-const byCode = (a: { code: string }, b: { code: string }) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0);
 
 /**
  * `drawingOf` as steps that pause every 4,096 entries or so: at 100,000 sites
@@ -102,8 +101,8 @@ export function* drawingSteps(doc: DrawableNetwork, networkVersion: number): Gen
   const feeds = yield* kept(doc.feeds, (f) => carriageAt.has(f.from) && carriageAt.has(f.to));
   // A served document is in code order already: the sort (one piece) only for one that is not.
   let sorted = true;
-  for (let i = 1; i < feeds.length && sorted; i++) sorted = byCode(feeds[i - 1], feeds[i]) <= 0;
-  if (!sorted) feeds.sort(byCode);
+  for (let i = 1; i < feeds.length && sorted; i++) sorted = compareCodes(feeds[i - 1], feeds[i]) <= 0;
+  if (!sorted) feeds.sort(compareCodes);
   yield;
   return {
     networkVersion,

@@ -3,7 +3,7 @@ import { api } from '@/shared/api';
 import { drawingOf } from '@/shared/schemas/drawing';
 import { smallNetwork } from '@/test/fixtures/small-network';
 import { writePersistedSession, SESSION_STORAGE_KEY } from '@/src/session/persisted';
-import { opensNetworkDiagram, readDrawing, startDrawingEarly, takeEarlyDrawing } from './drawingEarly';
+import { opensNetworkDiagram, peekEarlyDrawing, readDrawing, startDrawingEarly, takeEarlyDrawing } from './drawingEarly';
 
 const user = { id: 1, email: 'ada@headwater.example', name: 'Ada', role: 'engineer' as const };
 const storageWith = (token: string | null) => ({
@@ -46,6 +46,20 @@ describe('the drawing asked for as the page opens', () => {
     expect(fetchMock).not.toHaveBeenCalled();
     expect(page.__headwaterEarlyDrawing).toBeUndefined(); // taken once
     expect(await takeEarlyDrawing('tok-9')).toEqual(columns);
+  });
+
+  it('can be looked at once it is in and checked, by the same session only, until it is taken', async () => {
+    let arrive: (r: Response) => void = () => undefined;
+    vi.stubGlobal('fetch', vi.fn(() => new Promise<Response>((resolve) => (arrive = resolve))));
+    startDrawingEarly(storageWith('tok-3'));
+    expect(peekEarlyDrawing('tok-3')).toBeUndefined(); // not in yet
+    arrive(new Response(JSON.stringify(columns), { status: 200 }));
+    await vi.waitFor(() => expect(peekEarlyDrawing('tok-3')).toEqual(columns));
+    expect(peekEarlyDrawing('tok-4')).toBeUndefined();
+    expect(peekEarlyDrawing(null)).toBeUndefined();
+    const seen = peekEarlyDrawing('tok-3');
+    expect(await takeEarlyDrawing('tok-3')).toBe(seen); // the same object: SWR finds nothing new
+    expect(peekEarlyDrawing('tok-3')).toBeUndefined();
   });
 
   it('is not sent without a stored session, nor when storage refuses', () => {

@@ -29,7 +29,7 @@ export function readDrawing(path: string, value: unknown): DrawingDocument {
   return columns;
 }
 
-let early: { token: string; doc: Promise<DrawingDocument | null> } | null = null;
+let early: { token: string; doc: Promise<DrawingDocument | null>; ready?: DrawingDocument | null } | null = null;
 
 /**
  * Checked as soon as it is in, while the app is still starting (the route's
@@ -37,7 +37,18 @@ let early: { token: string; doc: Promise<DrawingDocument | null> } | null = null
  * asked for again as usual, which reports it.
  */
 function hold(token: string, answer: Promise<EarlyAnswer | null>): void {
-  early = { token, doc: answer.then((a) => (a ? readDrawing(api.networkDrawing, a.value) : null)).catch(() => null) };
+  const held: NonNullable<typeof early> = { token, doc: answer.then((a) => (a ? readDrawing(api.networkDrawing, a.value) : null)).catch(() => null) };
+  void held.doc.then((doc) => (held.ready = doc));
+  early = held;
+}
+
+/**
+ * The early answer when it is in and checked already (without taking it), for
+ * `token`; undefined otherwise. The screen starts from it in its first render,
+ * so the model is built while the page would otherwise wait to show the screen.
+ */
+export function peekEarlyDrawing(token: string | null): DrawingDocument | undefined {
+  return early && token && early.token === token && early.ready ? early.ready : undefined;
 }
 
 /** True for the network screen's address (map or schematic: both draw from the columns). */

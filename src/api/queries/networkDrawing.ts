@@ -8,6 +8,7 @@
  * (GET /api/network/drawing, shared/schemas/drawing.ts, `useDiagramDrawing`):
  * a fraction of the export's bytes and parse time before its first frame.
  */
+import { useState } from 'react';
 import useSWR from 'swr';
 import { api } from '@/shared/api';
 import { useSend } from '../ApiProvider';
@@ -16,7 +17,7 @@ import { ApiError, parseAnswer } from '../client';
 import { freshness } from '../freshness';
 import { networkDrawingSchema, type NetworkDrawing } from '../schemas';
 import type { DrawingDocument } from '@/shared/schemas/drawing';
-import { readDrawing, takeEarlyDrawing } from './drawingEarly';
+import { peekEarlyDrawing, readDrawing, takeEarlyDrawing } from './drawingEarly';
 
 export const networkDrawingKey = () => ['network-drawing', api.exportNetwork] as const;
 
@@ -41,12 +42,15 @@ export const diagramDrawingKey = () => ['network-diagram', api.networkDrawing] a
 export function useDiagramDrawing() {
   const send = useSend();
   const { tokenRef } = useSession();
+  // The early answer, when it is in already, is the first render's data: the same object the fetcher
+  // then takes, so SWR finds nothing new. Read once, so the data stays while the fetcher runs.
+  const [early] = useState(() => peekEarlyDrawing(tokenRef.current));
   return useSWR<DrawingDocument, ApiError>(
     diagramDrawingKey(),
     async ([, path]: readonly [string, string]) => {
-      const early = await takeEarlyDrawing(tokenRef.current);
-      return early ?? readDrawing(path, await send(path));
+      const taken = await takeEarlyDrawing(tokenRef.current);
+      return taken ?? readDrawing(path, await send(path));
     },
-    freshness.network,
+    early ? { ...freshness.network, fallbackData: early } : freshness.network,
   );
 }

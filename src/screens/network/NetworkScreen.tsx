@@ -30,6 +30,7 @@ import { SitesInView } from './SitesInView';
 import { SiteCard } from './SiteCard';
 import { SiteSheet } from './SiteSheet';
 import { IDENTITY, zoomAt, type View as ViewT } from './viewport';
+import { compareCodes } from '@/shared/schemas/network';
 
 const NO_PLACES: readonly { code: string; lat: number; lon: number }[] = [];
 
@@ -65,7 +66,7 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   const alsoShow = landKind === 'demo' ? DEMO_COAST_CORNERS : NO_PLACES;
   const placed = useMemo(() => (model && width > 0 ? placeDiagram(model, width, height, 28, alsoShow) : null), [model, width, height, alsoShow]);
   // The schematic shows one service: the chosen one, or the first by code.
-  const schematicService = service ?? (drawing.data ? ([...drawing.data.services].sort((a, b) => a.code.localeCompare(b.code))[0]?.code ?? null) : null);
+  const schematicService = service ?? (drawing.data ? ([...drawing.data.services].sort(compareCodes)[0]?.code ?? null) : null);
   const schematicStatuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, schematicService), [reach.data, schematicService, failed.length]);
   const statuses = useMemo(() => siteStatuses(failed.length > 0 ? reach.data : undefined, service), [reach.data, service, failed.length]);
   // The fit that placed the sites: the land and the scale line up with them.

@@ -5,6 +5,7 @@
  * so nothing runs off the edge unseen.
  */
 import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
+import { compareCodes } from '@/shared/schemas/network';
 import { RadioMark } from '@/src/components/RadioMark';
 import { useBreakpoints } from '@/src/hooks/useBreakpoints';
 import { colors, fonts, space, type } from '@/src/theme';
@@ -12,7 +13,7 @@ import { toggleOn, toggleOption, togglePressed } from '@/src/components/toggleSt
 
 export function ServiceFilter({ services, value, onChange }: { services: { code: string; name: string }[]; value: string | null; onChange: (code: string | null) => void }) {
   const { wide } = useBreakpoints();
-  const options = [{ code: null as string | null, name: 'All services' }, ...[...services].sort((a, b) => a.code.localeCompare(b.code))];
+  const options = [{ code: null as string | null, name: 'All services' }, ...[...services].sort(compareCodes)];
   const choices = (
     <View style={[styles.row, wide && styles.wrapRow]} accessibilityRole="radiogroup" accessibilityLabel="Service">
       {options.map((o) => {
