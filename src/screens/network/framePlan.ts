@@ -55,8 +55,12 @@ export interface FramePlan {
 
 const LABEL_FONT_PX = 12;
 const COUNT_FONT_PX = 11;
-/** Labels drawn at most per frame (our own cap, common practice: a screenful stays readable). */
-export const MAX_LABELS = 120;
+/**
+ * Names drawn at most per frame (our own cap, common practice: a screenful
+ * stays readable). Counts inside group circles are not held to it: a circle
+ * without its number says nothing, and the counts never overlap either.
+ */
+export const MAX_NAMES = 120;
 
 export function groupRadius(count: number): number {
   return Math.min(16, 7 + 2.2 * Math.log2(count));
@@ -196,8 +200,9 @@ function planLabels(model: DiagramModel, lv: Level, prep: LevelPrep, marks: Plan
     const text = formatCount(m.count);
     candidates.push({ x: m.x, y: m.y, r: m.r, width: measure(text, COUNT_FONT_PX) + 2, height: COUNT_FONT_PX + 2, text, centred: true });
   }
+  const counts = candidates.length;
   // Only the most important few are measured and tried: the rest could not find room under the cap anyway.
-  let room = 4 * MAX_LABELS;
+  let room = 4 * MAX_NAMES;
   const name = (m: PlannedMark) => {
     const text = labelText(model, m);
     candidates.push({ x: m.x, y: m.y, r: m.r + 2, width: measure(text, LABEL_FONT_PX) + 4, height: LABEL_FONT_PX + 4, text });
@@ -214,7 +219,7 @@ function planLabels(model: DiagramModel, lv: Level, prep: LevelPrep, marks: Plan
     if (at < 0 || marks[at].off > 0) continue;
     name(marks[at]);
   }
-  return placeLabels(candidates, width, height, MAX_LABELS);
+  return placeLabels(candidates, width, height, counts + MAX_NAMES);
 }
 
 /** "Name", "Name and 12 nearby", with the failure count when there is one. */

@@ -120,6 +120,30 @@ describe('frame plan', () => {
   const measure = (t: string, px: number) => t.length * px * 0.6;
   const base = { model, lod: buildLodIndex(model, placed), width: 400, height: 400, siteIndex: new Map(model.sites.map((s, i) => [s.code, i])), measure };
 
+  it('writes the count in every group circle, however many there are (names alone are capped)', () => {
+    // 20 x 15 groups of two sites, one per level-0 cell three cells apart: 300 circles, more than the names' cap.
+    const sites: DiagramSite[] = [];
+    const xs: number[] = [];
+    const ys: number[] = [];
+    for (let r = 0; r < 15; r++) {
+      for (let c = 0; c < 20; c++) {
+        for (const d of [0, 4]) {
+          sites.push(site(`S${r}-${c}-${d}`, 'relay'));
+          xs.push(CELL_PX * (3 * c + 1) + d);
+          ys.push(CELL_PX * (3 * r + 1) + d);
+        }
+      }
+    }
+    const many: DiagramModel = { sites, links: [], feedCount: 0 };
+    const where: PlacedDiagram = { xs: Float64Array.from(xs), ys: Float64Array.from(ys), linkFrom: new Int32Array(0), linkTo: new Int32Array(0) };
+    const [width, height] = [CELL_PX * 60, CELL_PX * 45];
+    const plan = planFrame({ model: many, lod: buildLodIndex(many, where), width, height, siteIndex: new Map(sites.map((x, i) => [x.code, i])), measure, view: { k: 1, tx: 0, ty: 0 }, statuses: new Map() });
+    expect(plan.counts.groups).toBe(300);
+    expect(plan.labels.filter((l) => l.text === '2')).toHaveLength(300);
+    expect(plan.labels.length - 300).toBeLessThanOrEqual(120);
+    for (let i = 0; i < plan.labels.length; i++) for (let j = i + 1; j < plan.labels.length; j++) expect(overlaps(plan.labels[i], plan.labels[j])).toBe(false);
+  });
+
   it('draws a group with its count at zoom 1, and the lone sites by role', () => {
     const plan = planFrame({ ...base, view: { k: 1, tx: 0, ty: 0 }, statuses: new Map() });
     expect(plan.level).toBe(0);
