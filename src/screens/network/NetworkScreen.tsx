@@ -30,6 +30,7 @@ import { SitesInView } from './SitesInView';
 import { SiteCard } from './SiteCard';
 import { SiteSheet } from './SiteSheet';
 import { IDENTITY, zoomAt, type View as ViewT } from './viewport';
+import { rememberDiagramWidth, rememberedDiagramWidth } from './widthHint';
 import { compareCodes } from '@/shared/schemas/network';
 
 const NO_PLACES: readonly { code: string; lat: number; lon: number }[] = [];
@@ -43,7 +44,15 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   const failText = formatFailSet(failed);
   const reach = useReach(failed, failText);
 
-  const [width, setWidth] = useState(0);
+  // The box's width: remembered from the last visit in a window this wide (./widthHint.ts), then measured.
+  const [width, setWidth] = useState(() => rememberedDiagramWidth(win.width));
+  const measured = useCallback(
+    (w: number) => {
+      setWidth(w);
+      rememberDiagramWidth(win.width, w);
+    },
+    [win.width],
+  );
   // Fixed once per layout kind: a phone browser's window grows and shrinks
   // as its address bar slides, and the picture must not re-fit under a finger.
   const height = useMemo(
@@ -95,7 +104,7 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   else if (!drawing.data || !model) {
     // Laid out at the diagram's width already, so the drawing can be placed as soon as the data is in.
     body = (
-      <View style={styles.measure} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
+      <View style={styles.measure} onLayout={(e) => measured(Math.floor(e.nativeEvent.layout.width))}>
         <LoadingState what="the network" testID="network-loading" />
       </View>
     );
@@ -119,7 +128,7 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
           {schematic && schematicService && rows ? (
             <SchematicView doc={rows} service={schematicService} statuses={schematicStatuses} height={height} onChoose={(code) => setSelected(model.sites.findIndex((s) => s.code === code))} />
           ) : (
-            <View style={styles.diagramWrap} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
+            <View style={styles.diagramWrap} onLayout={(e) => measured(Math.floor(e.nativeEvent.layout.width))}>
               {placed && width > 0 ? (
                 <NetworkDiagram
                   model={model}
