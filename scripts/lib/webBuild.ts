@@ -13,7 +13,7 @@ import { precompressDir } from './precompress';
 
 export const WEB_DIR = path.join(REPO_ROOT, 'dist', 'web');
 const STAMP = path.join(WEB_DIR, '.headwater-build');
-const SOURCES = ['app', 'src', 'shared', 'fonts', 'assets', 'app.json', 'package.json', 'metro.config.js', 'babel.config.js'];
+const SOURCES = ['app', 'src', 'shared', 'fonts', 'assets', 'app.json', 'package.json', 'metro.config.js', 'babel.config.js', 'scripts/lib/bootScript.ts'];
 
 function newestMtime(p: string): number {
   if (!fs.existsSync(p)) return 0;
