@@ -14,7 +14,7 @@
  */
 import { api } from '@/shared/api';
 import { checkDrawing, drawingDocumentSchema, type DrawingDocument } from '@/shared/schemas/drawing';
-import { askDrawingOnPage, type EarlyAnswer, type EarlyDrawing } from '@/src/boot/earlyStart';
+import { askDrawingOnPage, openedPath, type EarlyAnswer, type EarlyDrawing } from '@/src/boot/earlyStart';
 import { readPersistedSession, SESSION_STORAGE_KEY } from '@/src/session/persisted';
 import { ApiError, parseAnswer } from '../client';
 
@@ -53,8 +53,7 @@ export function peekEarlyDrawing(token: string | null): DrawingDocument | undefi
 
 /** True for the network screen's address (map or schematic: both draw from the columns). */
 export function opensNetworkDiagram(pathname: string): boolean {
-  const path = pathname.length > 1 ? pathname.replace(/\/+$/, '') : pathname;
-  return path === '/network';
+  return openedPath(pathname) === '/network';
 }
 
 /**
