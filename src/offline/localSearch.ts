@@ -7,13 +7,12 @@
  * server's own carriage search (server/services/carriageSearch.ts: every
  * word in the carriage's, site's or service's code or name, exact code first).
  */
-import type { Carriage } from '@/shared/schemas/network';
+import { compareCodes, type Carriage } from '@/shared/schemas/network';
 import { searchCarriages, type CarriageSource } from '@/server/services/carriageSearch';
 import { carriageHits, type ElementHit, type ElementSearchResult } from '@/src/api/queries/elementHits';
 import type { OfflineCopy } from './copyStore';
 
 const byCode = <T extends { code: string }>(items: readonly T[]) => new Map(items.map((i) => [i.code, i]));
-const codeOrder = (a: { code: string }, b: { code: string }) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0);
 
 interface Lookups extends CarriageSource {
   carriages: Map<string, Carriage>;
@@ -37,9 +36,9 @@ export function localElementSearch(copy: OfflineCopy, text: string, pageSize: nu
   const l = lookupsOf(copy);
   const d = copy.document;
   const siteOf = (carriage: string) => l.carriages.get(carriage)?.site;
-  const sites = d.sites.filter((s) => has(s.code, s.name)).sort(codeOrder);
-  const feeds = d.feeds.filter((f) => has(f.code, f.from, f.to, siteOf(f.from), siteOf(f.to), l.carriages.get(f.from)?.service)).sort(codeOrder);
-  const groups = d.groups.filter((g) => has(g.code, g.name)).sort(codeOrder);
+  const sites = d.sites.filter((s) => has(s.code, s.name)).sort(compareCodes);
+  const feeds = d.feeds.filter((f) => has(f.code, f.from, f.to, siteOf(f.from), siteOf(f.to), l.carriages.get(f.from)?.service)).sort(compareCodes);
+  const groups = d.groups.filter((g) => has(g.code, g.name)).sort(compareCodes);
   const carriages = searchCarriages(l, text, pageSize);
   const hits: ElementHit[] = [
     ...sites.slice(0, pageSize).map((s) => ({ kind: 'site' as const, code: s.code, label: s.name })),
