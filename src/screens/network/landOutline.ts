@@ -73,7 +73,7 @@ function boxedPolygons(land: GeoPermissibleObjects): BoxedPolygon[] | null {
   const out: BoxedPolygon[] = [];
   let ok = true;
   const addPolygon = (rings: Position[][]) => {
-    let w = Infinity, s = Infinity, e = -Infinity, n = -Infinity; // prettier-ignore
+    let [w, s, e, n] = [Infinity, Infinity, -Infinity, -Infinity];
     for (const ring of rings) {
       for (const [lon, lat] of ring) {
         if (lon < w) w = lon;
