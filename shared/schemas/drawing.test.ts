@@ -108,5 +108,11 @@ describe('the diagram columns', () => {
     expect(bad((d) => (d.sites.lat[1] = '12'))).toBe('sites.lat: a list of numbers');
     expect(bad((d) => (d.sites.households[0] = 1.5))).toBe('sites.households: a list of whole numbers or null');
     expect(bad((d) => (d.carriages.code = 'O1.TV1'))).toBe('carriages.code: a list of texts');
+    // a bad value anywhere in a column, the last entry included (the loops run to the end)
+    expect(bad((d) => (d.sites.code[2] = 7))).toBe('sites.code: a list of texts');
+    expect(bad((d) => (d.sites.lon[0] = null))).toBe('sites.lon: a list of numbers');
+    expect(bad((d) => (d.feeds.role[1] = 0.5))).toBe('feeds.role: a list of positions (whole numbers from 0)');
+    expect(bad((d) => (d.feeds.to[d.feeds.to.length - 1] = -2))).toBe('feeds.to: a list of positions (whole numbers from 0)');
+    expect(bad((d) => (d.sites.households[d.sites.households.length - 1] = '3'))).toBe('sites.households: a list of whole numbers or null');
   });
 });
