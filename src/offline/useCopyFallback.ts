@@ -18,18 +18,25 @@ export function useCopyFallback<T>(
   fromCopy: (copy: OfflineCopy) => T | Promise<T>,
   config: SWRConfiguration<T, ApiError>,
 ) {
-  const { copy, online } = useOffline();
+  const { copy, online, storedCopy } = useOffline();
   const copyRef = useRef(copy);
   copyRef.current = copy;
   return useSWR<T, ApiError>(
     key === null ? null : online ? key : [...key, 'offline-copy', copy?.fetchedAt ?? 'none'],
     async () => {
-      const stored = copyRef.current;
-      if (stored && browserOffline()) return fromCopy(stored);
+      // The stored copy is read only when it is wanted (OfflineProvider says why).
+      const stored = async () => copyRef.current ?? (await storedCopy());
+      if (browserOffline()) {
+        const c = await stored();
+        if (c) return fromCopy(c);
+      }
       try {
         return await fromServer();
       } catch (e) {
-        if (stored && isApiError(e) && e.code === 'network') return fromCopy(stored);
+        if (isApiError(e) && e.code === 'network') {
+          const c = await stored();
+          if (c) return fromCopy(c);
+        }
         throw e;
       }
     },
