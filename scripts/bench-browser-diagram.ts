@@ -10,7 +10,9 @@
  *                        next frame cannot start before that is done. Since
  *                        5 December (second session) for a person who has
  *                        opened Headwater on this browser before: its service
- *                        worker in control, the app's files from its cache;
+ *                        worker in control, the app's files from its cache
+ *                        (since 5 December, third session: and the offline
+ *                        copy of the network stored);
  *   diagramFirstDrawColdMs the same on the first visit, straight after
  *                        signing in, before the service worker has taken the
  *                        page (what diagramFirstDrawMs measured until then);
@@ -51,7 +53,7 @@ import { importNetwork } from '@/server/services/importer';
 import { startServer } from '@/server/server';
 import { ensureUser } from '@/server/services/users';
 import { RECORD_SCRIPT } from '@/src/testHooks';
-import { launch, signInWith } from '@/test/e2e/browser';
+import { launch, signInWith, storedCopy } from '@/test/e2e/browser';
 import { percentile, round } from './bench-engine';
 import { generateNetwork } from './generator';
 import { resolveDatabaseUrl } from './lib/postgres';
@@ -134,6 +136,15 @@ async function startTrace(page: Page, file: string): Promise<() => Promise<void>
   };
 }
 
+/** Waits until the page's IndexedDB holds the offline copy of the network (the export, fetched in the background). */
+async function waitForStoredCopy(page: Page): Promise<void> {
+  const until = Date.now() + 120_000;
+  while (!(await storedCopy(page))) {
+    if (Date.now() > until) throw new Error('the offline copy was not stored within 2 minutes: the returning visit would not be measured as one');
+    await page.waitForTimeout(500);
+  }
+}
+
 /** Opens the diagram from a blank page and times its first drawn frame (performance.now() counts from the page's navigation). */
 async function openDiagram(page: Page, url: string, traceFile?: string): Promise<{ shown: number; call: number; wallMs: number; controlled: boolean }> {
   await page.goto('about:blank');
@@ -164,17 +175,22 @@ export async function benchDiagram(base: string, user: { email: string; password
     await signInWith(page, base, user.email, user.password);
     const tag = `${size.width}x${size.height}`;
 
-    // First visit: straight after signing in, the app's service worker not yet in control (its
-    // install copies the app's files meanwhile). From a blank page, as when the diagram is opened
+    // First visit: straight after signing in, the app's service worker not yet in control (until
+    // 5 December, third session, its install copied the app's files meanwhile: the sign-in page
+    // registered it at once; now a page registers it only once settled). From a blank page, as when the diagram is opened
     // from a link: the screen signed in to would otherwise still be loading, holding up the timed
     // navigation.
     const cold = await openDiagram(page, `${base}/network`, traceTo ? path.join(traceTo, `diagram-${tag}-load-cold.json`) : undefined);
     // A person who has opened Headwater on this browser before: its service worker in control,
-    // answering with the app's files from its cache (the offline design, src/offline). The page's
-    // state starts afresh (a new document); the browser keeps its caches, as it would.
+    // answering with the app's files from its cache, and the offline copy of the network stored (the
+    // offline design, src/offline). Since 5 December (third session) the first page registers the
+    // worker and fetches the copy only once it has settled, so both are waited for here; until then
+    // the returning visit ran with no stored copy, and could overlap the first page's fetch of it.
+    // The page's state starts afresh (a new document); the browser keeps its caches, as it would.
     await page.evaluate(async () => {
       await navigator.serviceWorker.ready;
     });
+    await waitForStoredCopy(page);
     const first = await openDiagram(page, `${base}/network`, traceTo ? path.join(traceTo, `diagram-${tag}-load.json`) : undefined);
     if (!first.controlled) throw new Error('the service worker did not take the timed page: the returning visit was not measured');
     const diagramFirstDrawWallMs = first.wallMs;
