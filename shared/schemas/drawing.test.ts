@@ -89,10 +89,42 @@ describe('the diagram columns', () => {
     expect(() => expandDrawing({ ...good, carriages: { ...good.carriages, site: good.carriages.site.map(() => 99) } })).toThrow(/carriages.site points to entry 99 of 5/);
     expect(() => expandDrawing({ ...good, sites: { ...good.sites, role: good.sites.role.map(() => 3) } })).toThrow(/sites.role points to entry 3 of 3/);
     // The diagram reads the columns after this check alone.
-    expect(() => checkDrawing({ ...good, feeds: { ...good.feeds, to: good.feeds.to.map((t, i) => (i === 2 ? good.carriages.code.length : t)) } })).toThrow(`feeds.to points to entry ${good.carriages.code.length} of ${good.carriages.code.length}`);
+    expect(() => checkDrawing({ ...good, feeds: { ...good.feeds, to: good.feeds.to.map((t, i) => (i === 2 ? good.carriages.site.length : t)) } })).toThrow(`feeds.to points to entry ${good.carriages.site.length} of ${good.carriages.site.length}`);
     expect(() => checkDrawing({ ...good, feeds: { ...good.feeds, medium: good.feeds.medium.map(() => 4) } })).toThrow(/feeds.medium points to entry 4 of 4/);
     expect(() => checkDrawing({ ...good, carriages: { ...good.carriages, service: good.carriages.service.map(() => good.services.length) } })).toThrow(/carriages.service points to entry/);
     expect(() => checkDrawing(good)).not.toThrow();
+    // the carriages whose codes are sent: lined up, within the carriages, each once and in order
+    const other = (at: number[], code: string[]) => ({ ...good, carriages: { ...good.carriages, otherCodes: { at, code } } });
+    expect(() => checkDrawing(other([1], []))).toThrow('carriages.otherCodes.code has 0 entries, carriages.otherCodes.at 1');
+    expect(() => checkDrawing(other([good.carriages.site.length], ['X']))).toThrow(`carriages.otherCodes.at points to entry ${good.carriages.site.length} of ${good.carriages.site.length}`);
+    expect(() => checkDrawing(other([2, 2], ['X', 'Y']))).toThrow('carriages.otherCodes.at is not increasing at entry 1 (2, then 2)');
+    expect(() => checkDrawing(other([3, 1], ['X', 'Y']))).toThrow('carriages.otherCodes.at is not increasing at entry 1 (3, then 1)');
+    expect(() => checkDrawing(other([1, 3], ['X', 'Y']))).not.toThrow();
+  });
+
+  it('send a carriage code only where it is not the site code, a dot and the service code', () => {
+    // The small network is coded that way throughout: no carriage code travels.
+    const plain = drawingOf(doc, 1);
+    expect(doc.carriages.every((c) => c.code === `${c.site}.${c.service}`)).toBe(true);
+    expect(plain.carriages.otherCodes).toEqual({ at: [], code: [] });
+    for (const c of doc.carriages) expect(JSON.stringify(plain)).not.toContain(`"${c.code}"`);
+    // Rename some carriages (and the feeds' ends with them): only those codes are sent, and they come back.
+    const renamed = new Map(doc.carriages.filter((_, i) => i % 2 === 1).map((c, i) => [c.code, `TX-${i}`]));
+    const named = (code: string) => renamed.get(code) ?? code;
+    const odd = {
+      ...doc,
+      carriages: doc.carriages.map((c) => ({ ...c, code: named(c.code) })),
+      feeds: doc.feeds.map((f) => ({ ...f, from: named(f.from), to: named(f.to) })),
+    };
+    const columns = drawingDocumentSchema.parse(JSON.parse(JSON.stringify(drawingOf(odd, 2))));
+    expect(columns.carriages.otherCodes.code.sort()).toEqual([...renamed.values()].sort());
+    const rows = expandDrawing(columns);
+    expect(rows.carriages).toEqual(odd.carriages.map(({ code, site, service }) => ({ code, site, service })));
+    const byCode = [...odd.feeds].sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0));
+    expect(rows.feeds).toEqual(byCode.map(({ from, to, medium, role }) => ({ from, to, medium, role })));
+    // The diagram's site card reads the same codes.
+    const site = buildDiagram(columns, null).sites.find((s) => odd.carriages.some((c) => c.site === s.code && renamed.has(`${c.site}.${c.service}`)))!;
+    expect(site.carriages).toEqual(odd.carriages.filter((c) => c.site === site.code).map((c) => c.code).sort());
   });
 
   it('are checked column by column, naming the column that is not what it should be', () => {
@@ -107,7 +139,8 @@ describe('the diagram columns', () => {
     expect(bad((d) => (d.feeds.from[0] = -1))).toBe('feeds.from: a list of positions (whole numbers from 0)');
     expect(bad((d) => (d.sites.lat[1] = '12'))).toBe('sites.lat: a list of numbers');
     expect(bad((d) => (d.sites.households[0] = 1.5))).toBe('sites.households: a list of whole numbers or null');
-    expect(bad((d) => (d.carriages.code = 'O1.TV1'))).toBe('carriages.code: a list of texts');
+    expect(bad((d) => (d.carriages.otherCodes.code = 'O1.TV1'))).toBe('carriages.otherCodes.code: a list of texts');
+    expect(bad((d) => delete d.carriages.otherCodes)).toMatch(/^carriages.otherCodes: /);
     // a bad value anywhere in a column, the last entry included (the loops run to the end)
     expect(bad((d) => (d.sites.code[2] = 7))).toBe('sites.code: a list of texts');
     expect(bad((d) => (d.sites.lon[0] = null))).toBe('sites.lon: a list of numbers');

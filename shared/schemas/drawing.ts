@@ -48,8 +48,15 @@ export const drawingDocumentSchema = z.object({
   groups: z.array(z.object({ code: z.string(), name: z.string() })),
   /** Per site; role is a position in SITE_ROLES (origin, main, relay). */
   sites: z.object({ code: strings, name: strings, role: indices, lat: numbers, lon: numbers, households: counts }),
-  /** Per carriage: its site and service as positions in `sites` and `services`. */
-  carriages: z.object({ code: strings, site: indices, service: indices }),
+  /**
+   * Per carriage: its site and service as positions in `sites` and `services`.
+   * Its code is its site's code, a dot and its service's code ("S1.TV1"),
+   * except for the carriages in `otherCodes`: their positions here
+   * (increasing) and their codes. At 20,000 sites the codes were a quarter
+   * of the bytes and of the browser's parse; a network coded that way sends
+   * none (carriageCodeOf reads them back).
+   */
+  carriages: z.object({ site: indices, service: indices, otherCodes: z.object({ at: indices, code: strings }) }),
   /**
    * Per feed, in code order: its ends as positions in `carriages`, medium in
    * MEDIA, role in FEED_ROLES. The codes themselves are left out: the diagram
@@ -118,6 +125,19 @@ export function* drawingSteps(doc: DrawableNetwork, networkVersion: number): Gen
     }
     return out;
   }
+  function* otherCodes(rows: readonly { code: string; site: string; service: string }[]): Generator<void, { at: number[]; code: string[] }, void> {
+    const at: number[] = [];
+    const code: string[] = [];
+    for (let i = 0; i < rows.length; i++) {
+      const c = rows[i];
+      if (c.code !== `${c.site}.${c.service}`) {
+        at.push(i);
+        code.push(c.code);
+      }
+      if (i % STEP === STEP - 1) yield;
+    }
+    return { at, code };
+  }
   const siteAt = yield* index(doc.sites);
   const serviceAt = new Map(doc.services.map((s, i) => [s.code, i]));
   const carriages = yield* kept(doc.carriages, (c) => siteAt.has(c.site) && serviceAt.has(c.service));
@@ -141,9 +161,9 @@ export function* drawingSteps(doc: DrawableNetwork, networkVersion: number): Gen
       households: yield* column(doc.sites, (s) => s.households ?? null),
     },
     carriages: {
-      code: yield* column(carriages, (c) => c.code),
       site: yield* column(carriages, (c) => siteAt.get(c.site)!),
       service: yield* column(carriages, (c) => serviceAt.get(c.service)!),
+      otherCodes: yield* otherCodes(carriages),
     },
     feeds: {
       from: yield* column(feeds, (f) => carriageAt.get(f.from)!),
@@ -165,7 +185,8 @@ export function checkDrawing(d: DrawingDocument): void {
     for (const [name, col] of rest) if (col.length !== first[1].length) throw new RangeError(`${what}.${name} has ${col.length} entries, ${what}.${first[0]} ${first[1].length}`);
   };
   same('sites', d.sites);
-  same('carriages', d.carriages);
+  same('carriages', { site: d.carriages.site, service: d.carriages.service });
+  same('carriages.otherCodes', d.carriages.otherCodes);
   same('feeds', d.feeds);
   const within = (col: readonly number[], size: number, what: string) => {
     for (let i = 0; i < col.length; i++) if (col[i] >= size) throw new RangeError(`${what} points to entry ${col[i]} of ${size}`);
@@ -173,20 +194,39 @@ export function checkDrawing(d: DrawingDocument): void {
   within(d.sites.role, SITE_ROLES.length, 'sites.role');
   within(d.carriages.site, d.sites.code.length, 'carriages.site');
   within(d.carriages.service, d.services.length, 'carriages.service');
-  within(d.feeds.from, d.carriages.code.length, 'feeds.from');
-  within(d.feeds.to, d.carriages.code.length, 'feeds.to');
+  const nCarriages = d.carriages.site.length;
+  within(d.carriages.otherCodes.at, nCarriages, 'carriages.otherCodes.at');
+  const { at } = d.carriages.otherCodes;
+  for (let i = 1; i < at.length; i++) if (at[i] <= at[i - 1]) throw new RangeError(`carriages.otherCodes.at is not increasing at entry ${i} (${at[i - 1]}, then ${at[i]})`);
+  within(d.feeds.from, nCarriages, 'feeds.from');
+  within(d.feeds.to, nCarriages, 'feeds.to');
   within(d.feeds.medium, MEDIA.length, 'feeds.medium');
   within(d.feeds.role, FEED_ROLES.length, 'feeds.role');
+}
+
+/**
+ * A reader of carriage codes for a checked drawing: the code of the carriage
+ * at position `c` (its site's code, a dot and its service's code, unless it
+ * is one of `otherCodes`).
+ */
+export function carriageCodeOf(d: DrawingDocument): (c: number) => string {
+  const { at, code } = d.carriages.otherCodes;
+  const other = new Map<number, string>();
+  for (let i = 0; i < at.length; i++) other.set(at[i], code[i]);
+  const { site, service } = d.carriages;
+  return (c) => other.get(c) ?? `${d.sites.code[site[c]]}.${d.services[service[c]].code}`;
 }
 
 /** Back to rows (checked first, as checkDrawing). */
 export function expandDrawing(d: DrawingDocument): ExpandedDrawing {
   checkDrawing(d);
+  const codeOf = carriageCodeOf(d);
   const sites = d.sites.code.map((code, i) => ({ code, name: d.sites.name[i], role: SITE_ROLES[d.sites.role[i]], lat: d.sites.lat[i], lon: d.sites.lon[i], households: d.sites.households[i] }));
-  const carriages = d.carriages.code.map((code, i) => ({ code, site: d.sites.code[d.carriages.site[i]], service: d.services[d.carriages.service[i]].code }));
+  const carriageCodes = d.carriages.site.map((_, c) => codeOf(c));
+  const carriages = carriageCodes.map((code, i) => ({ code, site: d.sites.code[d.carriages.site[i]], service: d.services[d.carriages.service[i]].code }));
   const feeds = d.feeds.from.map((from, i) => ({
-    from: d.carriages.code[from],
-    to: d.carriages.code[d.feeds.to[i]],
+    from: carriageCodes[from],
+    to: carriageCodes[d.feeds.to[i]],
     medium: MEDIA[d.feeds.medium[i]],
     role: FEED_ROLES[d.feeds.role[i]],
   }));

@@ -7,7 +7,7 @@
  * culling in ./viewport.ts.
  */
 import { FEED_ROLES, MEDIA, SITE_ROLES, type FeedRole, type Medium, type SiteRole } from '@/shared/schemas/network';
-import type { DrawingDocument } from '@/shared/schemas/drawing';
+import { carriageCodeOf, type DrawingDocument } from '@/shared/schemas/drawing';
 import type { ReachResult } from '@/src/api/queries/analysis';
 import { fitProjection, type FittedProjection, type LonLat } from './projection';
 
@@ -81,7 +81,7 @@ class ModelSite implements DiagramSite {
  */
 export function buildDiagram(d: DrawingDocument, service: string | null): DiagramModel {
   const nSites = d.sites.code.length;
-  const nCarriages = d.carriages.code.length;
+  const nCarriages = d.carriages.site.length;
   const carriageSite = d.carriages.site;
   const carriageService = d.carriages.service;
   // -1 for a service nobody has: then no carriage is kept.
@@ -99,10 +99,12 @@ export function buildDiagram(d: DrawingDocument, service: string | null): Diagra
   const fill = start.slice(0, nSites);
   for (let c = 0; c < nCarriages; c++) if (kept[c]) bySite[fill[carriageSite[c]]++] = c;
 
+  let codeOf: ((c: number) => string) | null = null;
   const lists: SiteLists = {
     carriages(i) {
+      codeOf ??= carriageCodeOf(d);
       const out: string[] = [];
-      for (let k = start[i]; k < start[i + 1]; k++) out.push(d.carriages.code[bySite[k]]);
+      for (let k = start[i]; k < start[i + 1]; k++) out.push(codeOf(bySite[k]));
       return out.sort();
     },
     services(i) {
