@@ -96,6 +96,32 @@ describe.each(Object.entries(SIZES))('views at %s size', (sizeName, size) => {
     await page.context().close();
   });
 
+  it("overlays a site's failure from its card with one reach request (asked for as the link is pressed)", async () => {
+    // The request made from the press is the one the screen then uses: no second request. How much
+    // sooner it starts is the diagram benchmark's to measure (scripts/bench-browser-diagram.ts).
+    const { page, errors } = await openPage(browser, size);
+    const reachRequests: string[] = [];
+    page.on('request', (r) => {
+      if (r.url().includes('/api/analysis/reach')) reachRequests.push(r.postData() ?? '');
+    });
+    await signIn(page, 'operator');
+    await page.goto(`${baseUrl()}/network`);
+    await page.getByTestId('network-diagram').waitFor({ timeout: 20_000 });
+    await page.getByTestId('network-sites-in-view').getByRole('button').first().click();
+    const card = page.getByTestId('network-site-card');
+    await card.waitFor({ timeout: 10_000 });
+    const code = decodeURIComponent((await card.locator('a[href^="/sites/"]').first().getAttribute('href'))!.slice('/sites/'.length));
+    await page.getByTestId('network-site-overlay').click();
+    await page.waitForFunction(() => /Failure set: [0-9,]+ sites? off air/.test(document.querySelector('[data-testid="network-summary"]')?.textContent ?? ''), undefined, { timeout: 15_000 });
+    expect(decodeURIComponent(page.url())).toContain(`fail=site:${code}`);
+    await page.waitForTimeout(500); // a second request would have been sent by now
+    expect(reachRequests.map((body) => JSON.parse(body))).toEqual([{ failed: [{ kind: 'site', code }] }]);
+    const summary = (await page.getByTestId('network-summary').textContent()) ?? '';
+    expect(Number(/Failure set: ([0-9,]+)/.exec(summary)![1].replace(/,/g, ''))).toBeGreaterThan(0);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
   it('draws a carriage with its upstream chain, the network diagram and the resilience review', async () => {
     const { page, errors } = await openPage(browser, size);
     await signIn(page, 'engineer');

@@ -8,6 +8,7 @@ import { useMemo } from 'react';
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
 import { useSend, useSendRaw } from '../ApiProvider';
+import { askReach, takeReachAhead } from './reachAhead';
 import { parseAnswer } from '../client';
 import { localReach } from '@/src/offline/localEngine';
 import { useCopyFallback } from '@/src/offline/useCopyFallback';
@@ -50,7 +51,7 @@ export function useReach(failed: readonly Element[], failSet: string) {
   return useCopyFallback<ReachShown>(
     failed.length === 0 ? null : analysisKeys.reach(failSet),
     // with=sites: names and households of the sites listed, without loading the whole network.
-    async () => parseAnswer(reachAnswerSchema, api.reach, await send(`${api.reach}?with=sites`, { method: 'POST', body: { failed } })),
+    async () => parseAnswer(reachAnswerSchema, api.reach, await (takeReachAhead(failSet) ?? askReach(send, failed))),
     async (copy) => ({ ...(await localReach(copy, failed)), offlineCopy: { fetchedAt: copy.fetchedAt } }),
     { ...freshness.incident, keepPreviousData: true },
   );

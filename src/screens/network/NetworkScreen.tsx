@@ -6,7 +6,10 @@
 import { useRouter } from 'expo-router';
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
+import { useSend } from '@/src/api/ApiProvider';
 import { useReach } from '@/src/api/queries/analysis';
+import { askReachAhead } from '@/src/api/queries/reachAhead';
+import { browserOffline } from '@/src/offline/online';
 import { useDiagramDrawing } from '@/src/api/queries/networkDrawing';
 import { Button } from '@/src/components/Button';
 import { FeedLegend } from '@/src/components/charts/FeedLegend';
@@ -43,6 +46,13 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   const failed = useMemo(() => parseFailSet(failParam).elements, [failParam]);
   const failText = formatFailSet(failed);
   const reach = useReach(failed, failText);
+  const send = useSend();
+  // The overlay's reach is asked for as its link is pressed, with the set as the screen will read it from the address.
+  const overlayAhead = (code: string) => () => {
+    if (browserOffline()) return; // the stored copy answers (useReach)
+    const next = parseFailSet(formatFailSet([...failed, { kind: 'site', code }])).elements;
+    askReachAhead(send, next, formatFailSet(next));
+  };
 
   // The box's width: remembered from the last visit in a window this wide (./widthHint.ts), then measured.
   const [width, setWidth] = useState(() => rememberedDiagramWidth(win.width));
@@ -152,7 +162,14 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
           )}
           {site ? (
             <SiteSheet wide={wide} height={height} name={site.name}>
-              <SiteCard site={site} status={statuses.get(site.code)} failed={failed} onClose={() => setSelected(null)} overlayHref={networkHref(service, formatFailSet([...failed, { kind: 'site', code: site.code }]), mode)} />
+              <SiteCard
+                site={site}
+                status={statuses.get(site.code)}
+                failed={failed}
+                onClose={() => setSelected(null)}
+                overlayHref={networkHref(service, formatFailSet([...failed, { kind: 'site', code: site.code }]), mode)}
+                onOverlay={overlayAhead(site.code)}
+              />
             </SiteSheet>
           ) : null}
         </View>

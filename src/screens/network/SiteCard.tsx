@@ -13,7 +13,22 @@ import type { DiagramSite, SiteStatus } from './diagramModel';
 
 const ROLE_WORD = { origin: 'Origin', main: 'Main station', relay: 'Relay' } as const;
 
-export function SiteCard({ site, status, failed, onClose, overlayHref }: { site: DiagramSite; status: SiteStatus | undefined; failed: readonly Element[]; onClose: () => void; overlayHref?: Href }) {
+export function SiteCard({
+  site,
+  status,
+  failed,
+  onClose,
+  overlayHref,
+  onOverlay,
+}: {
+  site: DiagramSite;
+  status: SiteStatus | undefined;
+  failed: readonly Element[];
+  onClose: () => void;
+  overlayHref?: Href;
+  /** called as the overlay link is followed (the screen asks for the reach then) */
+  onOverlay?: () => void;
+}) {
   const withThis = formatFailSet([...failed, { kind: 'site', code: site.code }]);
   const alreadyFailed = failed.some((e) => e.kind === 'site' && e.code === site.code);
   return (
@@ -46,7 +61,7 @@ export function SiteCard({ site, status, failed, onClose, overlayHref }: { site:
           <LinkRow href={`/reach?fail=${withThis}`} title={failed.length > 0 ? 'Add this site to the failure set' : 'Fault reach if this site fails'} />
         )}
         {alreadyFailed || !overlayHref ? null : (
-          <LinkRow href={overlayHref} title={failed.length > 0 ? 'Add it to the failure set shown here' : 'Show here what its failure takes off air'} testID="network-site-overlay" />
+          <LinkRow href={overlayHref} title={failed.length > 0 ? 'Add it to the failure set shown here' : 'Show here what its failure takes off air'} testID="network-site-overlay" onPress={onOverlay} />
         )}
       </View>
     </Card>

@@ -28,13 +28,15 @@ export interface LinkRowProps {
   /** A figure at the right (tabular digits). */
   figure?: string;
   testID?: string;
+  /** Called as the link is followed (before the address changes). */
+  onPress?: () => void;
 }
 
-export function LinkRow({ href, title, code, detail, status, figure, testID }: LinkRowProps) {
+export function LinkRow({ href, title, code, detail, status, figure, testID, onPress }: LinkRowProps) {
   // The visible words are the accessible name (no separate label that could drift from them).
   return (
     <Link href={href} asChild>
-      <Pressable accessibilityRole="link" testID={testID} style={styles.row}>
+      <Pressable accessibilityRole="link" testID={testID} style={styles.row} onPress={onPress}>
         {status ? <StatusShape shape={STATUS[status].shape} color={STATUS[status].color} size={16} /> : null}
         <View style={styles.texts}>
           {/* the code beside the name where there is room, else whole on the next line: never cut short */}

@@ -1,0 +1,39 @@
+/**
+ * Fault reach asked for ahead of the screen that shows it: the network
+ * diagram's overlay link sends the request as it is pressed, and the
+ * screen's read (useReach in ./analysis.ts) takes the answer. No React here,
+ * so the unit tests can use it.
+ */
+import { api } from '@/shared/api';
+import type { Element } from '@/shared/schemas/analysis';
+
+/** The app's authenticated request (useSend): path and options in, the answer's JSON out. */
+export type Send = (path: string, init?: { method?: 'POST'; body?: unknown }) => Promise<unknown>;
+
+/** The server's reach answer for `failed`, with the names and households of the sites listed (?with=sites). */
+export const askReach = (send: Send, failed: readonly Element[]) => send(`${api.reach}?with=sites`, { method: 'POST', body: { failed } });
+
+/** How long a reach asked for ahead of its screen (`askReachAhead`) waits to be taken; our choice. */
+export const AHEAD_MS = 10_000;
+const ahead = new Map<string, { at: number; answer: Promise<unknown> }>();
+
+/**
+ * Sends the reach request for a failure set now, from the press that will
+ * show it, before the address changes and the screen renders again (some
+ * 50 to 90 ms at 20,000 sites); `useReach` for the same set takes the answer
+ * instead of asking again. Left untaken for AHEAD_MS, it is dropped.
+ */
+export function askReachAhead(send: Send, failed: readonly Element[], failSet: string, now = Date.now()): void {
+  for (const [k, v] of ahead) if (now - v.at > AHEAD_MS) ahead.delete(k);
+  if (failed.length === 0 || ahead.has(failSet)) return;
+  const answer = askReach(send, failed);
+  answer.catch(() => undefined); // a failure is reported where the answer is taken
+  ahead.set(failSet, { at: now, answer });
+}
+
+/** The answer asked for ahead for `failSet`, once (undefined when none, or left too long). */
+export function takeReachAhead(failSet: string, now = Date.now()): Promise<unknown> | undefined {
+  const held = ahead.get(failSet);
+  ahead.delete(failSet);
+  return held && now - held.at <= AHEAD_MS ? held.answer : undefined;
+}
