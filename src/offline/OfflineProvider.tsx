@@ -11,9 +11,9 @@
  *
  * The stored copy is not read when the page starts, unless the browser is
  * offline then: at 20,000 sites it is a 26 MB text, and reading it back from
- * IndexedDB cost a returning visitor 0.15 to 0.25 s of the diagram's first
- * draw (measured with scripts/bench-browser-diagram.ts, with and without a
- * stored copy). It is read once the page has settled (whenSettled.ts), as
+ * IndexedDB cost a returning visitor about 0.1 s (wide) and 0.25 s (phone)
+ * of the diagram's first draw (scripts/bench-browser-diagram.ts, means of two
+ * runs with and without a stored copy). It is read once the page has settled (whenSettled.ts), as
  * soon as the browser goes offline, or when a screen's request finds no
  * connection (`storedCopy`, which useCopyFallback awaits).
  */

@@ -9,8 +9,8 @@
  * and the browser compiles each script for its cache, on the same two cores
  * as the screen being opened. Registered straight away from the sign-in
  * screen, that install overlapped the next screen's first load and held the
- * 20,000-site diagram's first draw back by 0.3 to 0.5 s (measured with the
- * worker and with service workers blocked, scripts/bench-browser-diagram.ts).
+ * 20,000-site diagram's first draw back by about 0.4 s (means of runs with
+ * the worker and with service workers blocked, scripts/bench-browser-diagram.ts).
  * So it waits (whenSettled.ts): the page's load, 3 s with nothing to do
  * there, then the browser's next idle moment (at most 5 s later). A page
  * left sooner registers nothing; the next one starts again. A returning visitor's worker already
