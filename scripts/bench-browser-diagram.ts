@@ -177,9 +177,9 @@ export async function benchDiagram(base: string, user: { email: string; password
 
     // First visit: straight after signing in, the app's service worker not yet in control (until
     // 5 December, third session, its install copied the app's files meanwhile: the sign-in page
-    // registered it at once; now a page registers it only once settled). From a blank page, as when the diagram is opened
-    // from a link: the screen signed in to would otherwise still be loading, holding up the timed
-    // navigation.
+    // registered it at once; now a page registers it only once settled). From a blank page, as
+    // when the diagram is opened from a link: the screen signed in to would otherwise still be
+    // loading, holding up the timed navigation.
     const cold = await openDiagram(page, `${base}/network`, traceTo ? path.join(traceTo, `diagram-${tag}-load-cold.json`) : undefined);
     // A person who has opened Headwater on this browser before: its service worker in control,
     // answering with the app's files from its cache, and the offline copy of the network stored (the

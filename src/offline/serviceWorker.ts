@@ -11,10 +11,10 @@
  * screen, that install overlapped the next screen's first load and held the
  * 20,000-site diagram's first draw back by about 0.4 s (means of runs with
  * the worker and with service workers blocked, scripts/bench-browser-diagram.ts).
- * So it waits (whenSettled.ts): the page's load, 3 s with nothing to do
- * there, then the browser's next idle moment (at most 5 s later). A page
- * left sooner registers nothing; the next one starts again. A returning visitor's worker already
- * answers; its update check waits the same way.
+ * So it waits (whenSettled.ts): the page's load, 3 s more, then the
+ * browser's next idle moment (at most 5 s later). A page left sooner
+ * registers nothing; the next one starts again. A returning visitor's
+ * worker already answers; its update check waits the same way.
  */
 import { Platform } from 'react-native';
 import { whenSettled } from './whenSettled';

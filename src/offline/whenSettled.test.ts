@@ -60,7 +60,7 @@ describe('whenSettled', () => {
     vi.unstubAllGlobals();
   });
 
-  it('waits for the load, then the quiet spell, then an idle moment', () => {
+  it('waits for the load, then QUIET_MS, then an idle moment', () => {
     const page = fakePage();
     const run = vi.fn();
     whenSettled(run);
@@ -77,7 +77,7 @@ describe('whenSettled', () => {
     expect(run).toHaveBeenCalledTimes(1);
   });
 
-  it('counts the quiet spell from now when the page has already loaded', () => {
+  it('counts QUIET_MS from now when the page has already loaded', () => {
     const page = fakePage({ readyState: 'complete' });
     const run = vi.fn();
     whenSettled(run);
@@ -86,7 +86,7 @@ describe('whenSettled', () => {
     expect(run).toHaveBeenCalledTimes(1);
   });
 
-  it('runs after the quiet spell where the browser has no idle callbacks', () => {
+  it('runs after QUIET_MS where the browser has no idle callbacks', () => {
     const page = fakePage({ idleCallbacks: false });
     const run = vi.fn();
     whenSettled(run);
@@ -97,7 +97,7 @@ describe('whenSettled', () => {
     expect(run).toHaveBeenCalledTimes(1);
   });
 
-  it.each(['before the load', 'during the quiet spell', 'while waiting for an idle moment'])('runs nothing when cancelled %s', (when) => {
+  it.each(['before the load', 'during the wait after the load', 'while waiting for an idle moment'])('runs nothing when cancelled %s', (when) => {
     const page = fakePage();
     const run = vi.fn();
     const cancel = whenSettled(run);

@@ -1,12 +1,13 @@
 /**
- * Runs work that can wait (the service worker's registration) once the page
- * has loaded, stayed quiet QUIET_MS and the browser is next idle, so that it
- * never shares the machine with a screen's first load.
+ * Runs work that can wait (the service worker's registration, reading the
+ * stored offline copy) once the page has loaded, QUIET_MS have passed and
+ * the browser is next idle, so that it does not share the machine with a
+ * screen's first load.
  */
 export const QUIET_MS = 3_000;
 export const IDLE_TIMEOUT_MS = 5_000;
 
-/** Calls `run` once the page has loaded, stayed QUIET_MS, and the browser is next idle; the returned function cancels it. */
+/** Calls `run` once the page has loaded, QUIET_MS have passed and the browser is next idle; the returned function cancels it. */
 export function whenSettled(run: () => void): () => void {
   let timer: ReturnType<typeof setTimeout> | null = null;
   let idle: number | null = null;
