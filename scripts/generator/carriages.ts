@@ -11,7 +11,7 @@
  * farthest off-air receiver in free space (shared/rf/propagation.ts): the
  * same figures the field-strength check compares.
  */
-import type { Carriage, ServiceKind } from '@/shared/schemas/network';
+import { usualCarriageCode, type Carriage, type ServiceKind } from '@/shared/schemas/network';
 import { offAirFeedMinimum } from '@/shared/rf/minimums';
 import { fieldStrengthFromErpDbw } from '@/shared/rf/propagation';
 import { SERVICE_SPECS, dabTuning, pickFm, pickUhf, type Tuning } from './catalogue';
@@ -59,7 +59,7 @@ export function buildCarriages(prng: Prng, layout: Layout, faultShare: number): 
     const usedFrequencies = new Set<number>();
     for (const k of draft.services) {
       const spec = SERVICE_SPECS[k];
-      const carriage: Carriage = { code: `${draft.site.code}.${spec.code}`, site: draft.site.code, service: spec.code };
+      const carriage: Carriage = { code: usualCarriageCode(draft.site.code, spec.code), site: draft.site.code, service: spec.code };
       at[s * SERVICE_COUNT + k] = carriages.length;
       carriages.push(carriage);
       // Origins are playout and uplink: programme enters there, nothing is radiated.

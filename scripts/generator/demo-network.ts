@@ -6,7 +6,7 @@
  * from a fixed seed. Deterministic: the same code gives the same document.
  */
 import type { Carriage, Feed, NetworkDocument, Site } from '@/shared/schemas/network';
-import { NETWORK_FORMAT } from '@/shared/schemas/network';
+import { NETWORK_FORMAT, usualCarriageCode as carriageCode } from '@/shared/schemas/network';
 import { normaliseDeg } from '@/shared/rf/geodesy';
 import { dabTuning, pickFm, pickUhf, type Tuning } from './catalogue';
 import * as region from './demo-region';
@@ -82,7 +82,6 @@ function need<T>(value: T | undefined, what: string): T {
 }
 
 const kindOf = (service: string) => need(region.DEMO_SERVICES.find((s) => s.code === service), `service ${service}`).kind;
-const carriageCode = (site: string, service: string) => `${site}.${service}`;
 
 function buildCarriages(prng: Prng, drafts: Map<string, Draft>): Map<string, Carriage> {
   const carriages = new Map<string, Carriage>();

@@ -8,7 +8,7 @@
  * diagram's model reads (client); the API docs describe it.
  */
 import { z } from 'zod';
-import { compareCodes, FEED_ROLES, MEDIA, SITE_ROLES, type FeedRole, type Medium, type NetworkDocument, type SiteRole } from './network';
+import { compareCodes, usualCarriageCode, FEED_ROLES, MEDIA, SITE_ROLES, type FeedRole, type Medium, type NetworkDocument, type SiteRole } from './network';
 
 // Columns are checked by one tight loop each: a schema per element cost the browser over half a second
 // for the 750,000 values of a 20,000-site network, before the first frame. Written out as indexed
@@ -53,8 +53,8 @@ export const drawingDocumentSchema = z.object({
    * Its code is its site's code, a dot and its service's code ("S1.TV1"),
    * except for the carriages in `otherCodes`: their positions here
    * (increasing) and their codes. At 20,000 sites the codes were a quarter
-   * of the bytes and of the browser's parse; a network coded that way sends
-   * none (carriageCodeOf reads them back).
+   * of the bytes and over a third of the parse (in Node); a network coded
+   * that way sends none (carriageCodeOf reads them back).
    */
   carriages: z.object({ site: indices, service: indices, otherCodes: z.object({ at: indices, code: strings }) }),
   /**
@@ -130,7 +130,7 @@ export function* drawingSteps(doc: DrawableNetwork, networkVersion: number): Gen
     const code: string[] = [];
     for (let i = 0; i < rows.length; i++) {
       const c = rows[i];
-      if (c.code !== `${c.site}.${c.service}`) {
+      if (c.code !== usualCarriageCode(c.site, c.service)) {
         at.push(i);
         code.push(c.code);
       }
@@ -214,7 +214,7 @@ export function carriageCodeOf(d: DrawingDocument): (c: number) => string {
   const other = new Map<number, string>();
   for (let i = 0; i < at.length; i++) other.set(at[i], code[i]);
   const { site, service } = d.carriages;
-  return (c) => other.get(c) ?? `${d.sites.code[site[c]]}.${d.services[service[c]].code}`;
+  return (c) => other.get(c) ?? usualCarriageCode(d.sites.code[site[c]], d.services[service[c]].code);
 }
 
 /** Back to rows (checked first, as checkDrawing). */

@@ -18,6 +18,14 @@ const CODE_CHARS = /^[A-Za-z0-9._-]{1,64}$/;
  */
 export const compareCodes = (a: { code: string }, b: { code: string }): number => (a.code < b.code ? -1 : a.code > b.code ? 1 : 0);
 
+/**
+ * The usual code of a carriage: its site's code, a dot and its service's code
+ * ("S1.TV1"). Codes are free; the inventory form proposes this one, the
+ * generated networks use it, and the diagram's drawing sends only the codes
+ * that differ from it.
+ */
+export const usualCarriageCode = (site: string, service: string): string => `${site}.${service}`;
+
 export const CODE_PATTERN = /^(?!(?:__proto__|constructor|prototype)$)[A-Za-z0-9._-]{1,64}$/;
 export const codeSchema = z
   .string({ error: 'a code is required' })

@@ -8,7 +8,7 @@
  * words the server uses).
  */
 import { checkChannel, frequencyProblem } from '@/shared/rf/channelRules';
-import type { EntityKind, ServiceKind } from '@/shared/schemas/network';
+import { usualCarriageCode, type EntityKind, type ServiceKind } from '@/shared/schemas/network';
 import type { Draft, FieldErrors } from './formValues';
 import { parseNumber } from './formValues';
 
@@ -19,7 +19,7 @@ export function proposedCode(kind: EntityKind, draft: Draft): string | null {
   if (kind === 'carriages') {
     const site = text(draft.site);
     const service = text(draft.service);
-    return site && service ? `${site}.${service}` : null;
+    return site && service ? usualCarriageCode(site, service) : null;
   }
   if (kind === 'feeds') {
     const to = text(draft.to);
