@@ -10,8 +10,8 @@ const site = (code: string) => ({ kind: 'site' as const, code });
 describe('a reach asked for ahead', () => {
   it('is sent at once, once per set, and taken once', async () => {
     const send = vi.fn(async (path: string, init?: { body?: unknown }) => ({ path, body: init?.body }));
-    askReachAhead(send as never, [site('A1')], 'site:A1', 1_000);
-    askReachAhead(send as never, [site('A1')], 'site:A1', 1_100); // a second press: no second request
+    askReachAhead(send as never, 'site:A1', 1_000);
+    askReachAhead(send as never, 'site:A1', 1_100); // a second press: no second request
     expect(send).toHaveBeenCalledTimes(1);
     expect(send.mock.calls[0][0]).toBe('/api/analysis/reach?with=sites');
     expect(send.mock.calls[0][1]).toMatchObject({ method: 'POST', body: { failed: [site('A1')] } });
@@ -22,17 +22,17 @@ describe('a reach asked for ahead', () => {
 
   it('is not asked for an empty set', () => {
     const send = vi.fn();
-    askReachAhead(send as never, [], '', 0);
+    askReachAhead(send as never, '', 0);
     expect(send).not.toHaveBeenCalled();
     expect(takeReachAhead('', 0)).toBeUndefined();
   });
 
   it('left untaken too long is dropped, and the next press asks again', () => {
     const send = vi.fn(async () => ({}));
-    askReachAhead(send as never, [site('C3')], 'site:C3', 0);
+    askReachAhead(send as never, 'site:C3', 0);
     expect(takeReachAhead('site:C3', AHEAD_MS + 1)).toBeUndefined();
-    askReachAhead(send as never, [site('C3')], 'site:C3', 0);
-    askReachAhead(send as never, [site('C3')], 'site:C3', AHEAD_MS + 1); // the old one is dropped first
+    askReachAhead(send as never, 'site:C3', 0);
+    askReachAhead(send as never, 'site:C3', AHEAD_MS + 1); // the old one is dropped first
     expect(send).toHaveBeenCalledTimes(3);
   });
 
@@ -40,7 +40,7 @@ describe('a reach asked for ahead', () => {
     const send = vi.fn(async () => {
       throw new Error('no connection');
     });
-    askReachAhead(send as never, [site('D4')], 'site:D4', 0);
+    askReachAhead(send as never, 'site:D4', 0);
     await new Promise((r) => setTimeout(r, 0)); // no unhandled rejection meanwhile
     await expect(takeReachAhead('site:D4', 1)).rejects.toThrow('no connection');
   });

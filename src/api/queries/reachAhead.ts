@@ -6,9 +6,9 @@
  */
 import { api } from '@/shared/api';
 import type { Element } from '@/shared/schemas/analysis';
-
-/** The app's authenticated request (useSend): path and options in, the answer's JSON out. */
-export type Send = (path: string, init?: { method?: 'POST'; body?: unknown }) => Promise<unknown>;
+import { browserOffline } from '@/src/offline/online';
+import { parseFailSet } from '@/src/screens/reach/failSet';
+import type { Send } from '../ApiProvider';
 
 /** The server's reach answer for `failed`, with the names and households of the sites listed (?with=sites). */
 export const askReach = (send: Send, failed: readonly Element[]) => send(`${api.reach}?with=sites`, { method: 'POST', body: { failed } });
@@ -18,15 +18,19 @@ export const AHEAD_MS = 10_000;
 const ahead = new Map<string, { at: number; answer: Promise<unknown> }>();
 
 /**
- * Sends the reach request for a failure set now, from the press that will
- * show it, before the address changes and the screen renders again (about
- * 85 ms in a trace at 20,000 sites); `useReach` for the same set takes the answer
- * instead of asking again. Left untaken for AHEAD_MS, it is dropped.
+ * Sends the reach request for a failure set (its canonical text, as
+ * formatFailSet writes it and the screen will read it from the address) now,
+ * from the press that will show it, before the address changes and the
+ * screen renders again (about 85 ms in a trace at 20,000 sites); `useReach`
+ * for the same set takes the answer instead of asking again. Left untaken
+ * for AHEAD_MS, it is dropped. Nothing is sent while the browser is offline:
+ * the stored copy answers then (useCopyFallback).
  */
-export function askReachAhead(send: Send, failed: readonly Element[], failSet: string, now = Date.now()): void {
+export function askReachAhead(send: Send, failSet: string, now = Date.now()): void {
   for (const [k, v] of ahead) if (now - v.at > AHEAD_MS) ahead.delete(k);
-  if (failed.length === 0 || ahead.has(failSet)) return;
-  const answer = askReach(send, failed);
+  const { elements } = parseFailSet(failSet);
+  if (elements.length === 0 || ahead.has(failSet) || browserOffline()) return;
+  const answer = askReach(send, elements);
   answer.catch(() => undefined); // a failure is reported where the answer is taken
   ahead.set(failSet, { at: now, answer });
 }

@@ -9,7 +9,6 @@ import { StyleSheet, Text, useWindowDimensions, View } from 'react-native';
 import { useSend } from '@/src/api/ApiProvider';
 import { useReach } from '@/src/api/queries/analysis';
 import { askReachAhead } from '@/src/api/queries/reachAhead';
-import { browserOffline } from '@/src/offline/online';
 import { useDiagramDrawing } from '@/src/api/queries/networkDrawing';
 import { Button } from '@/src/components/Button';
 import { FeedLegend } from '@/src/components/charts/FeedLegend';
@@ -47,12 +46,6 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   const failText = formatFailSet(failed);
   const reach = useReach(failed, failText);
   const send = useSend();
-  // The overlay's reach is asked for as its link is pressed, with the set as the screen will read it from the address.
-  const overlayAhead = (code: string) => () => {
-    if (browserOffline()) return; // the stored copy answers (useReach)
-    const next = parseFailSet(formatFailSet([...failed, { kind: 'site', code }])).elements;
-    askReachAhead(send, next, formatFailSet(next));
-  };
 
   // The box's width: remembered from the last visit in a window this wide (./widthHint.ts), then measured.
   const [width, setWidth] = useState(() => rememberedDiagramWidth(win.width));
@@ -123,6 +116,8 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
   else if (model.sites.length === 0) body = <EmptyState title="Nothing carries this service" message="No site has a carriage of the chosen service." testID="network-no-sites" />;
   else {
     const site = selected !== null && selected >= 0 ? (model.sites[selected] ?? null) : null;
+    // The failure set with the chosen site added, in its canonical text (the overlay link's address).
+    const withSite = site ? formatFailSet([...failed, { kind: 'site', code: site.code }]) : '';
     body = (
       <>
         {schematic ? null : (
@@ -167,8 +162,9 @@ export function NetworkScreen({ service, failParam, mode = 'map' }: { service: s
                 status={statuses.get(site.code)}
                 failed={failed}
                 onClose={() => setSelected(null)}
-                overlayHref={networkHref(service, formatFailSet([...failed, { kind: 'site', code: site.code }]), mode)}
-                onOverlay={overlayAhead(site.code)}
+                overlayHref={networkHref(service, withSite, mode)}
+                // the overlay's reach is asked for as its link is pressed (reachAhead.ts)
+                onOverlay={() => askReachAhead(send, withSite)}
               />
             </SiteSheet>
           ) : null}
