@@ -24,7 +24,7 @@ import { useSummary } from '@/src/api/queries/summary';
 import { useSession } from '@/src/session/SessionProvider';
 import { clearCopy, makeCopy, offlineCopySupported, readCopy, writeCopy, type OfflineCopy } from './copyStore';
 import { browserOffline } from './online';
-import { whenSettled } from './whenSettled';
+import { laterWhenIdle, whenSettled } from './whenSettled';
 
 /** Our choice (common practice, no source): a fresh copy at most every 5 minutes once one exists. */
 const MIN_REFRESH_MS = 5 * 60_000;
@@ -153,15 +153,7 @@ export function OfflineProvider({ children }: { children: ReactNode }) {
     if (copy && copy.networkVersion === serverVersion) return;
     if (copy && Date.now() - lastFetch.current < MIN_REFRESH_MS) return;
     // After the delay, when the page is next idle (the screen drawn, no input being handled), at most 10 s later.
-    let idle: number | null = null;
-    const timer = setTimeout(() => {
-      if (typeof window !== 'undefined' && typeof window.requestIdleCallback === 'function') idle = window.requestIdleCallback(() => void refresh(), { timeout: 10_000 });
-      else void refresh();
-    }, FETCH_DELAY_MS);
-    return () => {
-      clearTimeout(timer);
-      if (idle !== null) window.cancelIdleCallback(idle);
-    };
+    return laterWhenIdle(() => void refresh(), FETCH_DELAY_MS, 10_000);
   }, [supported, read, online, serverVersion, copy, refresh, attempt]);
 
   const value = useMemo(() => ({ supported, online, copy, discarded, storedCopy }), [supported, online, copy, discarded, storedCopy]);

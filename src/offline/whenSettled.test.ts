@@ -4,7 +4,7 @@
  * small stand-in (a load event, an idle queue) under vitest's fake clock.
  */
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { IDLE_TIMEOUT_MS, QUIET_MS, whenSettled } from './whenSettled';
+import { IDLE_TIMEOUT_MS, laterWhenIdle, QUIET_MS, whenSettled } from './whenSettled';
 
 interface FakePage {
   readyState: string;
@@ -95,6 +95,23 @@ describe('whenSettled', () => {
     expect(run).not.toHaveBeenCalled();
     vi.advanceTimersByTime(1);
     expect(run).toHaveBeenCalledTimes(1);
+  });
+
+  it('laterWhenIdle waits its own delay and asks for an idle moment with its own timeout (the copy refresh: 3 s, then at most 10 s)', () => {
+    const page = fakePage({ readyState: 'complete' });
+    const run = vi.fn();
+    laterWhenIdle(run, 3_000, 10_000);
+    vi.advanceTimersByTime(2_999);
+    expect(page.idle.size).toBe(0);
+    vi.advanceTimersByTime(1);
+    expect([...page.idle.values()][0].timeout).toBe(10_000);
+    page.runIdle();
+    expect(run).toHaveBeenCalledTimes(1);
+    const cancelled = vi.fn();
+    laterWhenIdle(cancelled, 3_000, 10_000)();
+    vi.advanceTimersByTime(10_000);
+    page.runIdle();
+    expect(cancelled).not.toHaveBeenCalled();
   });
 
   it.each(['before the load', 'during the wait after the load', 'while waiting for an idle moment'])('runs nothing when cancelled %s', (when) => {
